@@ -1,0 +1,123 @@
+import {
+  boolean,
+  doublePrecision,
+  integer,
+  pgTable,
+  primaryKey,
+  serial,
+  text,
+  uniqueIndex,
+} from "drizzle-orm/pg-core";
+import { timestamps } from "./columns";
+
+/**
+ * The array registry: one or more sites, each with its stations, the named station sets
+ * (configurations) that cycles offer, and the instruments with their bands.
+ */
+export const sites = pgTable(
+  "sites",
+  {
+    id: serial("id").primaryKey(),
+    name: text("name").notNull(),
+    /** Geodetic latitude, degrees, north positive. */
+    latitudeDeg: doublePrecision("latitude_deg").notNull(),
+    /** Longitude, degrees, east positive. */
+    longitudeDeg: doublePrecision("longitude_deg").notNull(),
+    altitudeM: doublePrecision("altitude_m").notNull(),
+    /** Lowest elevation the telescopes may observe at, degrees. */
+    minElevationDeg: doublePrecision("min_elevation_deg").notNull(),
+    /** Total delay-line stroke, metres of optical path. */
+    delayLineStrokeM: doublePrecision("delay_line_stroke_m").notNull(),
+    /** IANA time zone used to show local times on the site's pages. */
+    timeZone: text("time_zone").notNull().default("UTC"),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("sites_name_key").on(t.name)],
+);
+
+export const stations = pgTable(
+  "stations",
+  {
+    id: serial("id").primaryKey(),
+    siteId: integer("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    /** Local east, north, up from the array reference point, metres. */
+    eastM: doublePrecision("east_m").notNull(),
+    northM: doublePrecision("north_m").notNull(),
+    upM: doublePrecision("up_m").notNull().default(0),
+    /** Fixed optical path offset of the station's light path, metres. */
+    pathOffsetM: doublePrecision("path_offset_m").notNull().default(0),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("stations_site_name_key").on(t.siteId, t.name)],
+);
+
+export const configurations = pgTable(
+  "configurations",
+  {
+    id: serial("id").primaryKey(),
+    siteId: integer("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    description: text("description").notNull().default(""),
+    /** Whether proposers may currently request this configuration. */
+    offered: boolean("offered").notNull().default(true),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("configurations_site_name_key").on(t.siteId, t.name)],
+);
+
+export const configurationStations = pgTable(
+  "configuration_stations",
+  {
+    configurationId: integer("configuration_id")
+      .notNull()
+      .references(() => configurations.id, { onDelete: "cascade" }),
+    stationId: integer("station_id")
+      .notNull()
+      .references(() => stations.id, { onDelete: "restrict" }),
+    /** Order of the station in the configuration (baseline i–j is station j minus station i). */
+    position: integer("position").notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.configurationId, t.stationId] })],
+);
+
+export const instruments = pgTable(
+  "instruments",
+  {
+    id: serial("id").primaryKey(),
+    siteId: integer("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    description: text("description").notNull().default(""),
+    /** Number of telescopes the combiner can take at once. */
+    maxTelescopes: integer("max_telescopes").notNull(),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("instruments_site_name_key").on(t.siteId, t.name)],
+);
+
+export const bands = pgTable(
+  "bands",
+  {
+    id: serial("id").primaryKey(),
+    instrumentId: integer("instrument_id")
+      .notNull()
+      .references(() => instruments.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    /** Central wavelength, metres. */
+    centralWavelengthM: doublePrecision("central_wavelength_m").notNull(),
+    /** Number of spectral channels across the band. */
+    channels: integer("channels").notNull(),
+    /** Full bandwidth, metres. */
+    bandwidthM: doublePrecision("bandwidth_m").notNull(),
+    /** Faintest magnitude in this band the instrument can fringe-track on, mag. */
+    limitingMagnitude: doublePrecision("limiting_magnitude").notNull(),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("bands_instrument_name_key").on(t.instrumentId, t.name)],
+);

@@ -1,0 +1,4 @@
+export * from "./columns";
+export * from "./array";
+export * from "./users";
+export * from "../relations";

@@ -1,0 +1,34 @@
+import { boolean, integer, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import { timestamps } from "./columns";
+
+/** The roles of PRODUCT.md; one person may hold several. Keep in step with app/services/permissions.ts. */
+export const ROLES = ["proposer", "reviewer", "chair", "scheduler", "admin"] as const;
+export type Role = (typeof ROLES)[number];
+export const roleEnum = pgEnum("role", ROLES);
+
+export const users = pgTable(
+  "users",
+  {
+    id: serial("id").primaryKey(),
+    email: text("email").notNull(),
+    name: text("name").notNull(),
+    institute: text("institute").notNull().default(""),
+    active: boolean("active").notNull().default(true),
+    lastSignInAt: timestamp("last_sign_in_at", { withTimezone: true }),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("users_email_key").on(sql`lower(${t.email})`)],
+);
+
+export const userRoles = pgTable(
+  "user_roles",
+  {
+    userId: integer("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    role: roleEnum("role").notNull(),
+    grantedAt: timestamp("granted_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.role] })],
+);

@@ -1,0 +1,68 @@
+/**
+ * What each role may do, as one typed list shared by the server guards and the UI (menus show only
+ * what a role can use). Pure: no database or HTTP imports.
+ */
+import type { Role } from "~/db/schema/users";
+
+export type { Role };
+
+export const PERMISSIONS = [
+  "registry:read",
+  "registry:edit",
+  "sketch:use",
+  "proposals:own",
+  "review:desk",
+  "ranking:board",
+  "cycles:manage",
+  "nights:build",
+  "mailbox:read",
+  "users:manage",
+] as const;
+export type Permission = (typeof PERMISSIONS)[number];
+
+/** Permissions anybody has, signed in or not. */
+export const PUBLIC_PERMISSIONS: readonly Permission[] = ["registry:read"];
+
+export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
+  proposer: ["registry:read", "sketch:use", "proposals:own"],
+  reviewer: ["registry:read", "sketch:use", "review:desk"],
+  chair: ["registry:read", "sketch:use", "review:desk", "ranking:board", "cycles:manage"],
+  scheduler: ["registry:read", "sketch:use", "nights:build"],
+  admin: ["registry:read", "registry:edit", "sketch:use", "mailbox:read", "users:manage"],
+};
+
+export function permissionsFor(roles: readonly Role[]): Set<Permission> {
+  const out = new Set<Permission>(PUBLIC_PERMISSIONS);
+  for (const role of roles) for (const p of ROLE_PERMISSIONS[role]) out.add(p);
+  return out;
+}
+
+export function can(roles: readonly Role[], permission: Permission): boolean {
+  return permissionsFor(roles).has(permission);
+}
+
+export type Section = {
+  label: string;
+  to: string;
+  permission: Permission;
+  /** One line for the home page and menus. */
+  summary: string;
+};
+
+/**
+ * The product's sections in menu order. A section is listed here once its pages exist; menus filter
+ * it by permission.
+ */
+export const SECTIONS: readonly Section[] = [
+  {
+    label: "Array registry",
+    to: "/registry",
+    permission: "registry:read",
+    summary: "The site, its stations, the configurations on offer and the instruments with their bands.",
+  },
+];
+
+export function sectionsFor(roles: readonly Role[]): Section[] {
+  const granted = permissionsFor(roles);
+  return SECTIONS.filter((s) => granted.has(s.permission));
+}

@@ -1,0 +1,63 @@
+#!/usr/bin/env bash
+# npm test: PostgreSQL on loopback, typecheck, unit + integration tests, production build, browser
+# tests; prints one summary line and leaves nothing running that it started.
+set -uo pipefail
+cd "$(dirname "$0")/.."
+
+results=.test-results
+rm -rf "$results" && mkdir -p "$results"
+failed_steps=()
+
+pg_was_running=0
+./docker-less-pg.sh status >/dev/null 2>&1 && pg_was_running=1
+cleanup() {
+  if [ "$pg_was_running" = "0" ]; then ./docker-less-pg.sh stop || true; fi
+}
+trap cleanup EXIT
+
+step() { printf '\n\033[1m== %s\033[0m\n' "$*"; }
+
+step "PostgreSQL"
+if ! ./docker-less-pg.sh start; then
+  echo "could not start PostgreSQL"
+  echo "Summary: 0 passed, 1 failed"
+  exit 1
+fi
+
+step "Typecheck"
+npm run -s typecheck || failed_steps+=("typecheck")
+
+step "Unit and integration tests"
+npx vitest run --project unit --project integration \
+  --reporter=default --reporter=json --outputFile.json="$results/tests.json" || failed_steps+=("unit/integration")
+
+step "Production build"
+if npx react-router build >"$results/build.log" 2>&1; then
+  tail -n 3 "$results/build.log"
+  step "Browser tests (Chromium)"
+  npx vitest run --project e2e \
+    --reporter=default --reporter=json --outputFile.json="$results/e2e.json" || failed_steps+=("browser")
+else
+  cat "$results/build.log"
+  failed_steps+=("build")
+fi
+
+node - "$results" "${failed_steps[@]}" <<'JS'
+const fs = require("node:fs");
+const [dir, ...failedSteps] = process.argv.slice(2);
+let passed = 0, failed = 0, skipped = 0;
+for (const f of ["tests.json", "e2e.json"]) {
+  const p = `${dir}/${f}`;
+  if (!fs.existsSync(p)) continue;
+  const r = JSON.parse(fs.readFileSync(p, "utf8"));
+  passed += r.numPassedTests; failed += r.numFailedTests; skipped += r.numPendingTests + (r.numTodoTests ?? 0);
+  // A file that failed to load counts as a failure even when none of its tests ran.
+  failed += r.testResults.filter((t) => t.status === "failed" && t.assertionResults.length === 0).length;
+}
+// Typecheck or build failures count as failed checks of their own.
+const stepFailures = failedSteps.filter((s) => s === "typecheck" || s === "build").length;
+failed += stepFailures;
+if (failedSteps.length) console.log(`\nFailed steps: ${failedSteps.join(", ")}`);
+console.log(`\nSummary: ${passed} passed, ${failed} failed, ${skipped} skipped`);
+process.exit(failed > 0 || failedSteps.length > 0 ? 1 : 0);
+JS

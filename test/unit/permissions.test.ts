@@ -1,0 +1,27 @@
+import { describe, expect, it } from "vitest";
+import { can, permissionsFor, ROLE_PERMISSIONS, sectionsFor } from "~/services/permissions";
+import { ROLES } from "~/db/schema/users";
+
+describe("permissions", () => {
+  it("covers every role", () => {
+    expect(Object.keys(ROLE_PERMISSIONS).sort()).toEqual([...ROLES].sort());
+  });
+
+  it("lets anybody read the registry but only admins edit it", () => {
+    expect(can([], "registry:read")).toBe(true);
+    expect(can([], "registry:edit")).toBe(false);
+    expect(can(["proposer", "chair"], "registry:edit")).toBe(false);
+    expect(can(["admin"], "registry:edit")).toBe(true);
+  });
+
+  it("unions the permissions of several roles", () => {
+    const p = permissionsFor(["reviewer", "scheduler"]);
+    expect(p.has("review:desk")).toBe(true);
+    expect(p.has("nights:build")).toBe(true);
+    expect(p.has("ranking:board")).toBe(false);
+  });
+
+  it("shows anonymous visitors only public sections", () => {
+    expect(sectionsFor([]).every((s) => s.permission === "registry:read")).toBe(true);
+  });
+});
