@@ -47,7 +47,8 @@ describe("app shell", () => {
     await page.goto(baseUrl, { waitUntil: "networkidle" });
     await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "Array registry" }).click();
     await page.waitForURL(`${baseUrl}/registry`);
-    await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe("Array registry");
+    // Client-side navigation: wait for the new page to render rather than reading the old one.
+    await page.getByRole("heading", { level: 1, name: "Array registry" }).waitFor();
     const stationTable = page.getByRole("table", { name: /Stations of the site/ });
     await expect(stationTable.locator("tbody tr").count()).resolves.toBe(24);
 
