@@ -1,4 +1,5 @@
 import * as v from "valibot";
+import { MAIL_ENV_ENTRIES } from "./services/mail/config.server";
 
 /**
  * The server's environment, validated once at boot. Anything missing or malformed stops the server
@@ -20,6 +21,7 @@ const EnvSchema = v.object({
   COOKIE_SECRET: v.optional(v.pipe(v.string(), v.minLength(16, "must be at least 16 characters")), "fringe-docket-development-secret"),
   /** "1" shows the demo sign-ins and everybody's mailbox: for the demo scenario only. */
   DEMO_MODE: v.optional(v.picklist(["0", "1"]), "1"),
+  ...MAIL_ENV_ENTRIES,
 });
 
 export type Env = v.InferOutput<typeof EnvSchema>;

@@ -1,13 +1,29 @@
 import type { ReactNode } from "react";
-import { data, Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
+import { data, Form, Link, Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
 import type { Route } from "./+types/root";
 import stylesheet from "./app.css?url";
 import { AppShell } from "./components/layout/AppShell";
 import { ErrorPage } from "./components/ErrorPage";
 import { Toast } from "./components/ui/Toast";
 import { env } from "./env.server";
+import { getViewer } from "./services/auth.server";
+import { crossSiteReason } from "./services/auth/origin.server";
 import { readFlash } from "./services/flash.server";
 import { sectionsFor } from "./services/permissions";
+
+/** Refuses cross-site form posts and API writes before any action runs. */
+const refuseCrossSite: Route.MiddlewareFunction = async ({ request }, next) => {
+  const reason = crossSiteReason(request);
+  if (reason) {
+    const wantsJson = new URL(request.url).pathname.startsWith("/api/");
+    const message = `Refused: ${reason}.`;
+    if (wantsJson) return Response.json({ error: message }, { status: 403 });
+    throw data(message, { status: 403 });
+  }
+  return next();
+};
+
+export const middleware: Route.MiddlewareFunction[] = [refuseCrossSite];
 
 export const links: Route.LinksFunction = () => [
   { rel: "preload", href: "/fonts/ibm-plex-sans-latin-400-normal.woff2", as: "font", type: "font/woff2", crossOrigin: "anonymous" },
@@ -18,13 +34,14 @@ export const links: Route.LinksFunction = () => [
 
 export async function loader({ request }: Route.LoaderArgs) {
   const { flash, headers } = await readFlash(request);
-  const viewer = null as { name: string; email: string; roles: string[] } | null;
+  const viewer = await getViewer(request);
+  const demoMode = env().DEMO_MODE === "1";
   return data(
     {
       flash,
-      viewer,
-      sections: sectionsFor([]),
-      demoMode: env().DEMO_MODE === "1",
+      viewer: viewer ? { name: viewer.user.name, email: viewer.user.email, roles: viewer.roles } : null,
+      sections: sectionsFor(viewer?.roles ?? [], { signedIn: !!viewer, demoMode }),
+      demoMode,
     },
     { headers },
   );
@@ -54,9 +71,31 @@ export const meta: Route.MetaFunction = () => [
   { name: "description", content: "Proposals, review and night plans for an optical/infrared interferometric array." },
 ];
 
+function AccountControls({ signedIn }: { signedIn: boolean }) {
+  if (!signedIn) {
+    return (
+      <Link to="/sign-in" className="rounded-md bg-ember-700 px-3 py-1.5 font-medium text-white hover:bg-ember-800">
+        Sign in
+      </Link>
+    );
+  }
+  return (
+    <>
+      <Link to="/account" className="rounded-md px-2 py-1.5 text-night-100 hover:bg-night-800 hover:text-white">
+        Account
+      </Link>
+      <Form method="post" action="/sign-out">
+        <button type="submit" className="rounded-md px-2 py-1.5 text-night-100 ring-1 ring-night-600 hover:bg-night-800 hover:text-white">
+          Sign out
+        </button>
+      </Form>
+    </>
+  );
+}
+
 export default function App({ loaderData }: Route.ComponentProps) {
   return (
-    <AppShell sections={loaderData.sections} viewer={loaderData.viewer}>
+    <AppShell sections={loaderData.sections} viewer={loaderData.viewer} account={<AccountControls signedIn={!!loaderData.viewer} />}>
       <Toast flash={loaderData.flash} />
       <Outlet />
     </AppShell>
@@ -66,7 +105,11 @@ export default function App({ loaderData }: Route.ComponentProps) {
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
   const rootData = useRouteLoaderData<typeof loader>("root");
   return (
-    <AppShell sections={rootData?.sections ?? sectionsFor([])} viewer={rootData?.viewer ?? null}>
+    <AppShell
+      sections={rootData?.sections ?? sectionsFor([])}
+      viewer={rootData?.viewer ?? null}
+      account={<AccountControls signedIn={!!rootData?.viewer} />}
+    >
       <ErrorPage error={error} />
     </AppShell>
   );

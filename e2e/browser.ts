@@ -41,7 +41,7 @@ export function watchPage(page: Page) {
   const errors: string[] = [];
   const requests: string[] = [];
   page.on("console", (msg) => {
-    if (msg.type() === "error") errors.push(msg.text());
+    if (msg.type() === "error") errors.push(`${msg.text()} ${msg.location().url ?? ""}`.trim());
   });
   page.on("pageerror", (err) => errors.push(err.message));
   page.on("request", (req) => requests.push(req.url()));

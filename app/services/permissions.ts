@@ -60,9 +60,26 @@ export const SECTIONS: readonly Section[] = [
     permission: "registry:read",
     summary: "The site, its stations, the configurations on offer and the instruments with their bands.",
   },
+  {
+    label: "Mailbox",
+    to: "/mailbox",
+    permission: "mailbox:read",
+    summary: "Every notice the app has sent or is about to send, as the recipients see it.",
+  },
+  {
+    label: "People",
+    to: "/admin/users",
+    permission: "users:manage",
+    summary: "Accounts, their roles and the audit log of changes.",
+  },
 ];
 
-export function sectionsFor(roles: readonly Role[]): Section[] {
+/**
+ * The sections a person sees. In demo mode every signed-in person may read the mailbox, so the
+ * demo's e-mails can be followed without a real inbox.
+ */
+export function sectionsFor(roles: readonly Role[], options: { signedIn?: boolean; demoMode?: boolean } = {}): Section[] {
   const granted = permissionsFor(roles);
+  if (options.signedIn && options.demoMode) granted.add("mailbox:read");
   return SECTIONS.filter((s) => granted.has(s.permission));
 }

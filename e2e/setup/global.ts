@@ -11,6 +11,7 @@ import { adminQuery, clusterUrl, dropDatabase, ensureCluster, uniqueName, withDa
 declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
+    databaseUrl: string;
   }
 }
 
@@ -48,8 +49,9 @@ async function waitForHttp(url: string, server: ChildProcess, timeoutMs = 30_000
  * free loopback port.
  */
 export default async function setup(project: TestProject) {
-  if (!existsSync(`${root}/build/server/index.js`)) {
-    throw new Error("No production build: run `npm run build` before the browser tests (npm test does).");
+  const buildDir = process.env.BUILD_DIR ?? "build";
+  if (!existsSync(`${root}/${buildDir}/server/index.js`)) {
+    throw new Error(`No production build in ${buildDir}/: run \`npm run build\` before the browser tests (npm test does).`);
   }
   const startedCluster = ensureCluster();
   const name = uniqueName("fd_e2e");
@@ -60,18 +62,26 @@ export default async function setup(project: TestProject) {
   await seedDemoScenario(db);
   await client.end();
 
-  const port = await freePort();
+  const [port, idpPort, smtpPort] = [await freePort(), await freePort(), await freePort()];
   const baseUrl = `http://127.0.0.1:${port}`;
-  const server = spawn(process.execPath, ["node_modules/@react-router/serve/bin.js", "./build/server/index.js"], {
+  // The same server `npm start` runs, with its local sign-on service and SMTP catcher on free ports.
+  const serverEnv: NodeJS.ProcessEnv = {
+    ...process.env,
+    NODE_ENV: "production",
+    DATABASE_URL: url,
+    PORT: String(port),
+    HOST: "127.0.0.1",
+    APP_ORIGIN: baseUrl,
+    FAKE_IDP_PORT: String(idpPort),
+    SMTP_PORT: String(smtpPort),
+    MAIL_SENDER_INTERVAL_MS: "500",
+    DEMO_MODE: "1",
+  };
+  delete serverEnv.OIDC_ISSUER;
+  delete serverEnv.SMTP_HOST;
+  const server = spawn(process.execPath, ["--import", "tsx", "scripts/serve.ts"], {
     cwd: root,
-    env: {
-      ...process.env,
-      NODE_ENV: "production",
-      DATABASE_URL: url,
-      PORT: String(port),
-      HOST: "127.0.0.1",
-      APP_ORIGIN: baseUrl,
-    },
+    env: serverEnv,
     stdio: ["ignore", "pipe", "pipe"],
   });
   const log: string[] = [];
@@ -84,6 +94,7 @@ export default async function setup(project: TestProject) {
     throw new Error(`${(e as Error).message}\n${log.join("")}`);
   }
   project.provide("baseUrl", baseUrl);
+  project.provide("databaseUrl", url);
 
   return async () => {
     await new Promise<void>((resolve) => {

@@ -25,3 +25,14 @@ describe("permissions", () => {
     expect(sectionsFor([]).every((s) => s.permission === "registry:read")).toBe(true);
   });
 });
+
+describe("sections by role", () => {
+  it("shows People only to administrators and the mailbox to admins or, in demo mode, to everyone signed in", () => {
+    const labels = (roles: Parameters<typeof sectionsFor>[0], o?: Parameters<typeof sectionsFor>[1]) => sectionsFor(roles, o).map((s) => s.label);
+    expect(labels(["admin"])).toContain("People");
+    expect(labels(["chair"])).not.toContain("People");
+    expect(labels(["proposer"], { signedIn: true, demoMode: false })).not.toContain("Mailbox");
+    expect(labels(["proposer"], { signedIn: true, demoMode: true })).toContain("Mailbox");
+    expect(labels([], { signedIn: false, demoMode: true })).not.toContain("Mailbox");
+  });
+});

@@ -1,4 +1,6 @@
 export * from "./columns";
 export * from "./array";
 export * from "./users";
+export * from "./auth";
+export * from "./mail";
 export * from "../relations";

@@ -15,10 +15,12 @@ export const users = pgTable(
     name: text("name").notNull(),
     institute: text("institute").notNull().default(""),
     active: boolean("active").notNull().default(true),
+    /** "<issuer> <subject>" of the single sign-on identity linked to this account, if any. */
+    ssoSubject: text("sso_subject"),
     lastSignInAt: timestamp("last_sign_in_at", { withTimezone: true }),
     ...timestamps,
   },
-  (t) => [uniqueIndex("users_email_key").on(sql`lower(${t.email})`)],
+  (t) => [uniqueIndex("users_email_key").on(sql`lower(${t.email})`), uniqueIndex("users_sso_subject_key").on(t.ssoSubject)],
 );
 
 export const userRoles = pgTable(

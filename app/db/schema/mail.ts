@@ -1,0 +1,59 @@
+import { sql } from "drizzle-orm";
+import { index, integer, pgTable, serial, text, timestamp } from "drizzle-orm/pg-core";
+import { users } from "./users";
+
+/**
+ * What caused a message. Stored as text so a new kind needs no migration; the mailbox shows it as a
+ * label.
+ */
+export const MAIL_KINDS = [
+  "sign-in-link",
+  "role-change",
+  "submission",
+  "assignment",
+  "reminder",
+  "decision",
+  "night-plan",
+] as const;
+export type MailKind = (typeof MAIL_KINDS)[number];
+
+/**
+ * The outbox: every e-mail the app sends, written in the same transaction as the change that caused
+ * it and delivered later by the sender loop (app/services/mail/sender.server.ts). A row is sent once
+ * `sentAt` is set; until then `attempts`, `nextAttemptAt` and `lastError` describe the retries.
+ */
+export const outboxMessages = pgTable(
+  "outbox_messages",
+  {
+    id: serial("id").primaryKey(),
+    kind: text("kind").$type<MailKind>().notNull(),
+    toAddress: text("to_address").notNull(),
+    subject: text("subject").notNull(),
+    /** The rendered HTML body. */
+    html: text("html").notNull(),
+    /** The plain-text alternative of the same message. */
+    text: text("text").notNull(),
+    /** The account the message is about, when there is one; kept when the account is removed. */
+    userId: integer("user_id").references(() => users.id, { onDelete: "set null" }),
+    /** The page the message points to (a proposal, a night plan, a sign-in link). */
+    relatedUrl: text("related_url"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    /** Delivery attempts that failed so far. */
+    attempts: integer("attempts").notNull().default(0),
+    /** The sender picks the message up at or after this instant. */
+    nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+    lastError: text("last_error"),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+    /** The Message-ID the message was sent with. */
+    smtpMessageId: text("smtp_message_id"),
+  },
+  (t) => [
+    // The sender's query: unsent rows in order of their next attempt.
+    index("outbox_messages_due_idx").on(t.nextAttemptAt, t.id).where(sql`sent_at is null`),
+    // The mailbox lists newest first.
+    index("outbox_messages_created_idx").on(t.createdAt.desc(), t.id.desc()),
+    index("outbox_messages_user_idx").on(t.userId),
+  ],
+);
+
+export type OutboxMessage = typeof outboxMessages.$inferSelect;

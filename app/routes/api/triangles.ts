@@ -1,0 +1,18 @@
+// POST /api/triangles — ranked station triangles for a target.
+// Request and response: docs/cli.md (same JSON as `npm run -s cli -- triangles`).
+import type { Route } from "./+types/triangles";
+import { handleComputation, methodNotAllowed } from "~/services/api-json.server";
+import { requireApiUser } from "~/services/auth.server";
+import { rankTriangles } from "~/services/interferometry";
+import { parseTrianglesRequest } from "~/services/requests";
+
+export async function loader({ request }: Route.LoaderArgs) {
+  await requireApiUser(request);
+  return methodNotAllowed();
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  // A session cookie or an API token (Authorization: Bearer); 401 JSON otherwise.
+  await requireApiUser(request, "sketch:use");
+  return handleComputation(request, parseTrianglesRequest, rankTriangles);
+}

@@ -1,0 +1,131 @@
+import { data, Form, Link, redirect, useNavigation } from "react-router";
+import * as v from "valibot";
+import type { Route } from "./+types/sign-in";
+import { ErrorPage } from "~/components/ErrorPage";
+import { Button, Card, TextField } from "~/components/ui";
+import { database } from "~/db/client.server";
+import { env } from "~/env.server";
+import { getViewer } from "~/services/auth.server";
+import { clientAddress } from "~/services/auth/client-address.server";
+import { authEnv } from "~/services/auth/config.server";
+import { sendSignInLink } from "~/services/auth/email-link.server";
+import { safeNext } from "~/services/auth/oidc.server";
+import { recordSignInAttempt } from "~/services/auth/rate-limit.server";
+
+const EmailLinkSchema = v.object({
+  email: v.pipe(
+    v.string("Please give your e-mail address."),
+    v.trim(),
+    v.nonEmpty("Please give your e-mail address."),
+    v.maxLength(254, "That e-mail address is too long."),
+    v.email("That does not look like an e-mail address."),
+  ),
+  next: v.optional(v.string(), "/"),
+});
+
+export async function loader({ request, url }: Route.LoaderArgs) {
+  // Public page; a signed-in person goes straight on.
+  const viewer = await getViewer(request);
+  const next = safeNext(url.searchParams.get("next"));
+  if (viewer) throw redirect(next);
+  return {
+    next,
+    providerName: authEnv().OIDC_PROVIDER_NAME,
+    usingFakeProvider: authEnv().usingFakeProvider,
+    demoMode: env().DEMO_MODE === "1",
+    error: url.searchParams.get("error"),
+  };
+}
+
+export async function action({ request, context }: Route.ActionArgs) {
+  // Public action (it is how one signs in); rate-limited per address and per e-mail.
+  const form = Object.fromEntries(await request.formData());
+  const parsed = v.safeParse(EmailLinkSchema, form);
+  if (!parsed.success) {
+    return data(
+      { sent: false as const, fieldError: parsed.issues[0].message, email: String(form.email ?? ""), message: null },
+      { status: 400 },
+    );
+  }
+  const { email, next } = parsed.output;
+  const db = database();
+  const limit = await recordSignInAttempt(db, { address: clientAddress(context), email });
+  if (!limit.ok) {
+    return data(
+      { sent: false as const, fieldError: null, email, message: limit.message },
+      { status: 429, headers: { "Retry-After": String(limit.retryAfterSeconds) } },
+    );
+  }
+  await sendSignInLink(db, email, safeNext(next));
+  return { sent: true as const, fieldError: null, email, message: null };
+}
+
+export const meta: Route.MetaFunction = () => [{ title: "Sign in — Fringe Docket" }];
+
+export default function SignIn({ loaderData, actionData }: Route.ComponentProps) {
+  const navigation = useNavigation();
+  const busy = navigation.state === "submitting";
+  return (
+    <div className="mx-auto max-w-lg space-y-6">
+      <h1 className="text-2xl font-semibold">Sign in to Fringe Docket</h1>
+      {loaderData.error ? (
+        <p role="alert" className="rounded-lg border border-danger-700/30 bg-danger-50 p-3 text-sm text-danger-700">
+          {loaderData.error}
+        </p>
+      ) : null}
+      <Card title="With your observatory account">
+        <p className="mb-4 text-night-700">Most people sign in through the observatory's single sign-on.</p>
+        <a
+          href={`/auth/sso/start?next=${encodeURIComponent(loaderData.next)}`}
+          className="inline-flex h-10 items-center rounded-lg bg-ember-700 px-4 font-medium text-white hover:bg-ember-800"
+        >
+          Continue with {loaderData.providerName}
+        </a>
+        {loaderData.usingFakeProvider ? (
+          <p className="mt-3 text-sm text-night-600">
+            This installation uses the local stand-in sign-on service: you pick one of the demo people or type any identity.
+          </p>
+        ) : null}
+      </Card>
+      <Card title="With a link by e-mail">
+        {actionData?.sent ? (
+          <div role="status" className="space-y-2">
+            <p className="font-medium text-ok-700">A sign-in link is on its way to {actionData.email}.</p>
+            <p className="text-sm text-night-700">It works once, for 15 minutes. Your first sign-in creates your account.</p>
+            {loaderData.demoMode ? (
+              <p className="text-sm text-night-700">
+                Demo mode: the message also appears in the <Link className="font-medium text-ember-700 underline" to="/mailbox">mailbox</Link> once you are signed in, and in the local mail catcher.
+              </p>
+            ) : null}
+          </div>
+        ) : (
+          <Form method="post" className="space-y-3" noValidate>
+            <input type="hidden" name="next" value={loaderData.next} />
+            {actionData?.message ? (
+              <p role="alert" className="rounded-lg border border-caution-700/30 bg-caution-50 p-3 text-sm text-caution-700">
+                {actionData.message}
+              </p>
+            ) : null}
+            <TextField
+              label="E-mail address"
+              name="email"
+              type="email"
+              autoComplete="email"
+              required
+              defaultValue={actionData?.email ?? ""}
+              error={actionData?.fieldError ?? undefined}
+              hint="No single sign-on? We send you a one-time link."
+            />
+            <Button type="submit" variant="secondary" disabled={busy}>
+              {busy ? "Sending…" : "Send me a sign-in link"}
+            </Button>
+          </Form>
+        )}
+      </Card>
+    </div>
+  );
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}

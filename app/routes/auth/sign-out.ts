@@ -1,0 +1,17 @@
+import { redirect } from "react-router";
+import type { Route } from "./+types/sign-out";
+import { database } from "~/db/client.server";
+import { getViewer } from "~/services/auth.server";
+import { clearSessionCookieHeader, revokeSession } from "~/services/auth/sessions.server";
+
+export async function loader(_: Route.LoaderArgs) {
+  // Signing out is a POST; a GET just goes home.
+  return redirect("/");
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  // Anyone may sign out; only their own session is ended.
+  const viewer = await getViewer(request);
+  if (viewer?.sessionId) await revokeSession(database(), viewer.user.id, viewer.sessionId);
+  return redirect("/", { headers: { "Set-Cookie": clearSessionCookieHeader() } });
+}

@@ -1,0 +1,20 @@
+import { redirect } from "react-router";
+import type { Route } from "./+types/sso-start";
+import { database } from "~/db/client.server";
+import { clientAddress } from "~/services/auth/client-address.server";
+import { beginSso, SsoError } from "~/services/auth/oidc.server";
+import { recordSignInAttempt } from "~/services/auth/rate-limit.server";
+
+export async function loader({ url, context }: Route.LoaderArgs) {
+  // Public: the first step of signing in; rate-limited per address.
+  const next = url.searchParams.get("next") ?? "/";
+  const limit = await recordSignInAttempt(database(), { address: clientAddress(context) });
+  if (!limit.ok) throw redirect(`/sign-in?error=${encodeURIComponent(limit.message)}`);
+  try {
+    const { url: target, cookie } = await beginSso(next);
+    return redirect(target, { headers: { "Set-Cookie": cookie } });
+  } catch (e) {
+    const reason = e instanceof SsoError ? e.message : "the sign-on service could not be reached";
+    throw redirect(`/sign-in?error=${encodeURIComponent(`Single sign-on is unavailable: ${reason}. Try the e-mail link instead.`)}`);
+  }
+}

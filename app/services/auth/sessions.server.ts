@@ -1,0 +1,129 @@
+/** Session rows behind the `fd_session` cookie: random token in the cookie, its SHA-256 in the table. */
+import { and, eq, gt, lt, ne } from "drizzle-orm";
+import type { Database } from "~/db/client.server";
+import { sessions } from "~/db/schema/auth";
+import { users } from "~/db/schema/users";
+import { env } from "~/env.server";
+import { SESSION_COOKIE, SESSION_LIFETIME_MS, SESSION_RENEW_BEFORE_MS } from "./config.server";
+import { generateSecret, hashSecret } from "./tokens.server";
+
+export type SessionMethod = "sso" | "email-link";
+
+export async function createSession(
+  db: Database,
+  userId: number,
+  meta: { method: SessionMethod; userAgent?: string; ipAddress?: string },
+  now = new Date(),
+) {
+  const token = generateSecret();
+  const [session] = await db
+    .insert(sessions)
+    .values({
+      id: hashSecret(token),
+      userId,
+      method: meta.method,
+      userAgent: (meta.userAgent ?? "").slice(0, 300),
+      ipAddress: meta.ipAddress ?? "",
+      createdAt: now,
+      lastSeenAt: now,
+      expiresAt: new Date(now.getTime() + SESSION_LIFETIME_MS),
+    })
+    .returning();
+  await db.update(users).set({ lastSignInAt: now }).where(eq(users.id, userId));
+  return { token, session };
+}
+
+/**
+ * The live session for a cookie token, or null when unknown, expired or the account is inactive.
+ * Slides the expiry forward when less than half the lifetime remains.
+ */
+export async function validateSessionToken(db: Database, token: string, now = new Date()) {
+  if (!/^[a-z2-7]{32}$/.test(token)) return null;
+  const id = hashSecret(token);
+  const [row] = await db
+    .select({ session: sessions, user: users })
+    .from(sessions)
+    .innerJoin(users, eq(users.id, sessions.userId))
+    .where(eq(sessions.id, id));
+  if (!row) return null;
+  if (row.session.expiresAt.getTime() <= now.getTime() || !row.user.active) {
+    await db.delete(sessions).where(eq(sessions.id, id));
+    return null;
+  }
+  let session = row.session;
+  const renew = session.expiresAt.getTime() - now.getTime() < SESSION_RENEW_BEFORE_MS;
+  const touch = now.getTime() - session.lastSeenAt.getTime() > 60_000;
+  if (renew || touch) {
+    const [updated] = await db
+      .update(sessions)
+      .set({
+        lastSeenAt: now,
+        ...(renew ? { expiresAt: new Date(now.getTime() + SESSION_LIFETIME_MS) } : {}),
+      })
+      .where(eq(sessions.id, id))
+      .returning();
+    session = updated ?? session;
+  }
+  return { session, user: row.user, renewed: renew };
+}
+
+export async function listUserSessions(db: Database, userId: number, now = new Date()) {
+  return db
+    .select()
+    .from(sessions)
+    .where(and(eq(sessions.userId, userId), gt(sessions.expiresAt, now)))
+    .orderBy(sessions.lastSeenAt);
+}
+
+export async function revokeSession(db: Database, userId: number, sessionId: string) {
+  const deleted = await db
+    .delete(sessions)
+    .where(and(eq(sessions.id, sessionId), eq(sessions.userId, userId)))
+    .returning({ id: sessions.id });
+  return deleted.length > 0;
+}
+
+export async function revokeOtherSessions(db: Database, userId: number, keepSessionId: string) {
+  await db.delete(sessions).where(and(eq(sessions.userId, userId), ne(sessions.id, keepSessionId)));
+}
+
+export async function revokeAllSessions(db: Database, userId: number) {
+  await db.delete(sessions).where(eq(sessions.userId, userId));
+}
+
+export async function deleteExpiredSessions(db: Database, now = new Date()) {
+  await db.delete(sessions).where(lt(sessions.expiresAt, now));
+}
+
+/** Secure cookies whenever the app is served over https (plain-http loopback servers excepted). */
+export function cookieIsSecure(): boolean {
+  return env().APP_ORIGIN.startsWith("https:");
+}
+
+export function sessionCookieHeader(token: string, expiresAt: Date): string {
+  const parts = [
+    `${SESSION_COOKIE}=${token}`,
+    "Path=/",
+    "HttpOnly",
+    "SameSite=Lax",
+    `Expires=${expiresAt.toUTCString()}`,
+  ];
+  if (cookieIsSecure()) parts.push("Secure");
+  return parts.join("; ");
+}
+
+export function clearSessionCookieHeader(): string {
+  const parts = [`${SESSION_COOKIE}=`, "Path=/", "HttpOnly", "SameSite=Lax", "Max-Age=0"];
+  if (cookieIsSecure()) parts.push("Secure");
+  return parts.join("; ");
+}
+
+export function readCookie(request: Request, name: string): string | null {
+  const header = request.headers.get("Cookie");
+  if (!header) return null;
+  for (const part of header.split(";")) {
+    const [k, ...rest] = part.trim().split("=");
+    if (k === name) return decodeURIComponent(rest.join("="));
+  }
+  return null;
+}

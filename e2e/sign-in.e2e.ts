@@ -1,0 +1,92 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import type { Browser, Page } from "playwright-core";
+import { DEMO_PEOPLE } from "~/db/demo-scenario";
+import { launchBrowser, screenshot, watchPage } from "./browser";
+
+const baseUrl = inject("baseUrl");
+let browser: Browser;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+  ({ browser, close } = await launchBrowser());
+});
+afterAll(async () => {
+  await close?.();
+});
+
+/** Signs in through the local sign-on service by picking a demo person; returns the page. */
+export async function signInAs(page: Page, name: string) {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByRole("link", { name: /Continue with/ }).click();
+  await page.getByRole("button", { name: new RegExp(name) }).click();
+  await page.waitForURL(`${baseUrl}/`);
+}
+
+// The sections each demo role must see in the menu (app/services/permissions.ts), demo mode on.
+const expectedMenus: Record<string, string[]> = {
+  "Inés Arroyo-Vidal": ["Array registry", "Mailbox"],
+  "Kenji Morrow": ["Array registry", "Mailbox"],
+  "Henrik Solberg": ["Array registry", "Mailbox"],
+  "Mei-Lin Chao": ["Array registry", "Mailbox"],
+  "Rafael Quispe": ["Array registry", "Mailbox", "People"],
+};
+
+describe("sign-in through the local sign-on service", () => {
+  for (const [name, menu] of Object.entries(expectedMenus)) {
+    const person = DEMO_PEOPLE.find((p) => p.name === name)!;
+    it(`signs in ${name} (${person.roles.join(", ")}) and shows that role's menu`, async () => {
+      const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+      const page = await context.newPage();
+      const seen = watchPage(page);
+      await signInAs(page, name);
+      await page.getByRole("link", { name: "Account" }).waitFor();
+      const items = await page.getByRole("navigation", { name: "Sections" }).getByRole("link").allTextContents();
+      expect(items).toEqual(menu);
+      await page.getByRole("link", { name: "Account" }).click();
+      await page.getByRole("heading", { level: 1, name: "Your account" }).waitFor();
+      for (const role of person.roles) await expect(page.getByText(role, { exact: true }).first().isVisible()).resolves.toBe(true);
+      expect(seen.errors).toEqual([]);
+      if (person.roles.includes("admin")) await screenshot(page, "account-admin");
+      await context.close();
+    });
+  }
+
+  it("keeps people out of pages their roles do not allow, with a kind 403", async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signInAs(page, "Inés Arroyo-Vidal");
+    const response = await page.goto(`${baseUrl}/admin/users`);
+    expect(response?.status()).toBe(403);
+    await page.getByRole("heading", { level: 1, name: "This page is not yours to open" }).waitFor();
+    await screenshot(page, "forbidden");
+    await context.close();
+  });
+
+  it("lets an administrator grant a role, records it in the audit log and notifies the person", async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    await signInAs(page, "Rafael Quispe");
+    await page.goto(`${baseUrl}/admin/users?q=Kenji`);
+    const roles = page.getByRole("form", { name: "Roles of Kenji Morrow" });
+    await roles.getByLabel("scheduler").check();
+    await roles.getByRole("button", { name: "Save roles" }).click();
+    await page.getByText("Roles of Kenji Morrow updated; granted scheduler.").waitFor();
+    await page.getByText(/Rafael Quispe role granted \(scheduler\) for Kenji Morrow/).waitFor();
+    await screenshot(page, "admin-people");
+    await page.goto(`${baseUrl}/mailbox`);
+    await page.getByText("Your roles in Fringe Docket have changed").first().waitFor();
+    await context.close();
+  });
+
+  it("signs out", async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signInAs(page, "Mei-Lin Chao");
+    await page.getByRole("button", { name: "Sign out" }).click();
+    await page.getByRole("link", { name: "Sign in" }).waitFor();
+    const response = await page.goto(`${baseUrl}/account`);
+    expect(new URL(page.url()).pathname).toBe("/sign-in");
+    expect(response?.status()).toBe(200);
+    await context.close();
+  });
+});

@@ -1,0 +1,132 @@
+import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
+import { eq } from "drizzle-orm";
+import { seedDemoScenario } from "~/db/factories.server";
+import { users } from "~/db/schema/users";
+import { loader as ssoCallback } from "~/routes/auth/sso-callback";
+import { loader as ssoStart } from "~/routes/auth/sso-start";
+import { getViewer } from "~/services/auth.server";
+import { startFakeIdentityProvider } from "../../scripts/fakes/identity-provider";
+import { cookiesFrom, routeArgs, settle, testDb } from "../helpers";
+
+const CLIENT = { clientId: "fringe-docket-test", clientSecret: "test-secret-value" };
+let idp: Awaited<ReturnType<typeof startFakeIdentityProvider>>;
+let shortIdp: Awaited<ReturnType<typeof startFakeIdentityProvider>>;
+
+function useProvider(issuer: string) {
+  process.env.OIDC_ISSUER = issuer;
+  process.env.OIDC_CLIENT_ID = CLIENT.clientId;
+  process.env.OIDC_CLIENT_SECRET = CLIENT.clientSecret;
+}
+
+beforeAll(async () => {
+  const clients = [{ ...CLIENT, redirectUris: ["http://localhost:3000/auth/sso/callback"] }];
+  idp = await startFakeIdentityProvider({ clients });
+  shortIdp = await startFakeIdentityProvider({ clients, codeTtlMs: 30 });
+  await seedDemoScenario(testDb());
+});
+afterAll(async () => {
+  await idp.stop();
+  await shortIdp.stop();
+  delete process.env.OIDC_ISSUER;
+});
+afterEach(() => useProvider(idp.issuer));
+
+/** The browser's part: start, pick an identity on the provider's page, come back with a code. */
+async function authorize(identity: { email: string; name: string; institute?: string }, next = "/account") {
+  const start = await settle(() => ssoStart(routeArgs(`/auth/sso/start?next=${encodeURIComponent(next)}`)));
+  expect(start.status).toBe(302);
+  const authorizeUrl = new URL(start.headers.get("Location")!);
+  const flowCookie = cookiesFrom(start);
+  expect(flowCookie).toMatch(/^fd_oidc=/);
+  const form = new URLSearchParams(authorizeUrl.searchParams);
+  form.set("email", identity.email);
+  form.set("name", identity.name);
+  form.set("institute", identity.institute ?? "");
+  const consent = await fetch(`${authorizeUrl.origin}/authorize`, { method: "POST", body: form, redirect: "manual" });
+  expect(consent.status).toBe(302);
+  return { callbackUrl: new URL(consent.headers.get("Location")!), flowCookie };
+}
+
+describe("single sign-on through the local provider", () => {
+  it("signs in a known person with PKCE, state and a verified ID token, then returns to `next`", async () => {
+    useProvider(idp.issuer);
+    const { callbackUrl, flowCookie } = await authorize({ email: "henrik.solberg@fjellvik.example", name: "Henrik Solberg" });
+    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    expect(done.status).toBe(302);
+    expect(done.headers.get("Location")).toBe("/account");
+    const sessionCookie = done.headers.getSetCookie().find((c) => c.startsWith("fd_session="))!;
+    expect(sessionCookie).toMatch(/HttpOnly/);
+    expect(sessionCookie).toMatch(/SameSite=Lax/);
+    const viewer = await getViewer(new Request("http://localhost:3000/", { headers: { Cookie: sessionCookie.split(";")[0] } }));
+    expect(viewer?.user.email).toBe("henrik.solberg@fjellvik.example");
+    expect(viewer?.roles).toEqual(["reviewer", "chair"]);
+    // The SSO identity is now linked to the account.
+    const [row] = await testDb().select().from(users).where(eq(users.email, "henrik.solberg@fjellvik.example"));
+    expect(row.ssoSubject).toContain(idp.issuer);
+  });
+
+  it("creates a proposer account for a first-time identity", async () => {
+    useProvider(idp.issuer);
+    const { callbackUrl, flowCookie } = await authorize({ email: "new.person@lagoa-obs.example", name: "Noa Ferreira", institute: "Lagoa Observatory" });
+    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    expect(done.status).toBe(302);
+    const viewer = await getViewer(new Request("http://localhost:3000/", { headers: { Cookie: cookiesFrom(done) } }));
+    expect(viewer?.user).toMatchObject({ name: "Noa Ferreira", institute: "Lagoa Observatory" });
+    expect(viewer?.roles).toEqual(["proposer"]);
+  });
+
+  it("rejects a forged state", async () => {
+    useProvider(idp.issuer);
+    const { callbackUrl, flowCookie } = await authorize({ email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" });
+    callbackUrl.searchParams.set("state", "forged-state-value");
+    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    expect(done.status).toBe(302);
+    expect(decodeURIComponent(done.headers.get("Location")!)).toContain("the sign-in state did not match");
+    expect(done.headers.getSetCookie().some((c) => c.startsWith("fd_session="))).toBe(false);
+  });
+
+  it("rejects a callback without the flow cookie (started elsewhere)", async () => {
+    useProvider(idp.issuer);
+    const { callbackUrl } = await authorize({ email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" });
+    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search)));
+    expect(decodeURIComponent(done.headers.get("Location")!)).toContain("started in another browser");
+  });
+
+  it("rejects an expired authorization code", async () => {
+    useProvider(shortIdp.issuer);
+    const { callbackUrl, flowCookie } = await authorize({ email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" });
+    await new Promise((r) => setTimeout(r, 80));
+    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    expect(decodeURIComponent(done.headers.get("Location")!)).toContain("rejected the code (invalid_grant)");
+  });
+
+  it("rejects a code used twice", async () => {
+    useProvider(idp.issuer);
+    const { callbackUrl, flowCookie } = await authorize({ email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" });
+    const first = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    expect(first.headers.getSetCookie().some((c) => c.startsWith("fd_session="))).toBe(true);
+    const again = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    expect(decodeURIComponent(again.headers.get("Location")!)).toContain("rejected the code");
+  });
+
+  it("refuses a deactivated account", async () => {
+    useProvider(idp.issuer);
+    await testDb().update(users).set({ active: false }).where(eq(users.email, "mei.chao@sierra-lumbre.example"));
+    const { callbackUrl, flowCookie } = await authorize({ email: "mei.chao@sierra-lumbre.example", name: "Mei-Lin Chao" });
+    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    expect(decodeURIComponent(done.headers.get("Location")!)).toContain("deactivated");
+  });
+
+  it("does not redirect to another site after sign-in", async () => {
+    useProvider(idp.issuer);
+    const { callbackUrl, flowCookie } = await authorize({ email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" }, "//evil.example/steal");
+    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    expect(done.headers.get("Location")).toBe("/");
+  });
+
+  it("explains when the provider is unreachable", async () => {
+    useProvider("http://127.0.0.1:9");
+    const start = await settle(() => ssoStart(routeArgs("/auth/sso/start")));
+    expect(decodeURIComponent(start.headers.get("Location")!)).toContain("Single sign-on is unavailable");
+  });
+});

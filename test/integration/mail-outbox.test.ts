@@ -1,0 +1,435 @@
+import { eq, sql } from "drizzle-orm";
+import { createElement } from "react";
+import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
+import { outboxMessages } from "~/db/schema/mail";
+import { userRoles, users } from "~/db/schema/users";
+import { RoleChangeEmail } from "~/emails/RoleChangeEmail";
+import { SignInLinkEmail } from "~/emails/SignInLinkEmail";
+import { parseMailEnv } from "~/services/mail/config.server";
+import { loader as mailboxLoader } from "~/routes/mailbox/index";
+import { loader as messageLoader } from "~/routes/mailbox/message";
+import { SESSION_COOKIE } from "~/services/auth/config.server";
+import { createSession } from "~/services/auth/sessions.server";
+import { getMessage, listMessages, MAILBOX_PAGE_SIZE, parseMailboxQuery, parseMessageId } from "~/services/mail/mailbox.server";
+import { enqueueMail } from "~/services/mail/outbox.server";
+import { deliverDue, retryDelayMs, startOutboxSender } from "~/services/mail/sender.server";
+import { createMailTransport, type MailTransport } from "~/services/mail/transport.server";
+import { startFakeSmtp, type FakeSmtp } from "../../scripts/fakes/smtp";
+import { routeArgs, testDb } from "../helpers";
+
+const LINK = "http://localhost:3000/auth/email/verify?token=abcdefghijklmnopqrstuvwxyz234567";
+
+function signInMail(to: string, subject = "Your sign-in link") {
+  return {
+    kind: "sign-in-link" as const,
+    to,
+    subject,
+    element: createElement(SignInLinkEmail, { name: "Ines Calderón", url: LINK }),
+  };
+}
+
+function transportTo(port: number): MailTransport {
+  return createMailTransport({ ...parseMailEnv({}), SMTP_PORT: port }, { connectionMs: 2_000, greetingMs: 2_000, socketMs: 5_000 });
+}
+
+async function row(id: number) {
+  const [r] = await testDb().select().from(outboxMessages).where(eq(outboxMessages.id, id));
+  return r;
+}
+
+async function waitFor(check: () => boolean | Promise<boolean>, timeoutMs = 5_000) {
+  const deadline = Date.now() + timeoutMs;
+  while (!(await check())) {
+    if (Date.now() > deadline) throw new Error("timed out waiting");
+    await new Promise((r) => setTimeout(r, 20));
+  }
+}
+
+let smtp: FakeSmtp | null = null;
+const transports: MailTransport[] = [];
+
+function track(t: MailTransport) {
+  transports.push(t);
+  return t;
+}
+
+beforeEach(async () => {
+  await testDb().execute(sql`truncate outbox_messages restart identity`);
+  smtp = await startFakeSmtp({ port: 0 });
+});
+
+afterEach(async () => {
+  for (const t of transports.splice(0)) t.close();
+  await smtp?.stop();
+  smtp = null;
+});
+
+describe("enqueueMail", () => {
+  it("writes nothing when the surrounding transaction rolls back", async () => {
+    const db = testDb();
+    await expect(
+      db.transaction(async (tx) => {
+        await enqueueMail(tx, signInMail("rollback@example.org"));
+        const inside = await tx.select().from(outboxMessages);
+        expect(inside).toHaveLength(1);
+        throw new Error("the change failed");
+      }),
+    ).rejects.toThrow("the change failed");
+    expect(await db.select().from(outboxMessages)).toHaveLength(0);
+  });
+
+  it("keeps the message when the transaction commits, rendered as HTML and plain text", async () => {
+    const db = testDb();
+    const [user] = await db.insert(users).values({ email: "ines@example.org", name: "Ines Calderón" }).returning();
+    const id = await db.transaction(async (tx) => {
+      const m = await enqueueMail(tx, { ...signInMail("ines@example.org"), userId: user.id, relatedUrl: LINK });
+      return m.id;
+    });
+    const r = await row(id);
+    expect(r.kind).toBe("sign-in-link");
+    expect(r.toAddress).toBe("ines@example.org");
+    expect(r.html).toMatch(/^<!DOCTYPE html/);
+    expect(r.html).toContain(`href="${LINK}"`);
+    expect(r.text).toContain(LINK);
+    expect(r.text).not.toMatch(/<[a-z][^>]*>/i);
+    expect(r.attempts).toBe(0);
+    expect(r.sentAt).toBeNull();
+    expect(r.userId).toBe(user.id);
+    // The message outlives the account it was about.
+    await db.delete(users).where(eq(users.id, user.id));
+    expect((await row(id)).userId).toBeNull();
+  });
+
+  it("refuses malformed input before writing anything", async () => {
+    const db = testDb();
+    await expect(enqueueMail(db, signInMail("not an address"))).rejects.toThrow(/to: not an e-mail address/);
+    await expect(enqueueMail(db, signInMail("a@example.org", "two\nlines"))).rejects.toThrow(/subject spans lines/);
+    await expect(enqueueMail(db, { ...signInMail("a@example.org"), relatedUrl: "javascript:alert(1)" })).rejects.toThrow(/relatedUrl/);
+    await expect(enqueueMail(db, { ...signInMail("a@example.org"), kind: "gossip" as never })).rejects.toThrow(/kind/);
+    expect(await db.select().from(outboxMessages)).toHaveLength(0);
+  });
+});
+
+describe("deliverDue", () => {
+  it("delivers a due message once, with subject, recipient, HTML and text intact, and marks it sent", async () => {
+    const db = testDb();
+    const m = await enqueueMail(db, signInMail("ines@example.org", "Sign in to Fringe Docket"));
+    const transport = track(transportTo(smtp!.port));
+
+    const report = await deliverDue(db, transport);
+    expect(report).toEqual({ sent: [m.id], failed: [] });
+
+    const got = smtp!.messages();
+    expect(got).toHaveLength(1);
+    expect(got[0].subject).toBe("Sign in to Fringe Docket");
+    expect(got[0].to).toEqual(["ines@example.org"]);
+    expect(got[0].envelope.to).toEqual(["ines@example.org"]);
+    expect(got[0].from).toBe("docket@sierra-lumbre.example");
+    expect(got[0].html).toContain(`href="${LINK}"`);
+    expect(got[0].html).toContain("#161c2d");
+    expect(got[0].text).toContain(LINK);
+    expect(got[0].headers["x-fringe-docket-kind"]).toBe("sign-in-link");
+
+    const r = await row(m.id);
+    expect(r.sentAt).not.toBeNull();
+    expect(r.smtpMessageId).toBe(got[0].messageId);
+    expect(r.smtpMessageId).toMatch(new RegExp(`^<outbox-${m.id}-\\d+@sierra-lumbre\\.example>$`));
+    expect(r.attempts).toBe(0);
+
+    // A second pass finds nothing to do.
+    expect(await deliverDue(db, transport)).toEqual({ sent: [], failed: [] });
+    expect(smtp!.messages()).toHaveLength(1);
+  });
+
+  it("leaves messages that are not due yet", async () => {
+    const db = testDb();
+    const m = await enqueueMail(db, signInMail("later@example.org"));
+    await db
+      .update(outboxMessages)
+      .set({ nextAttemptAt: new Date(Date.now() + 60_000) })
+      .where(eq(outboxMessages.id, m.id));
+    const transport = track(transportTo(smtp!.port));
+    expect(await deliverDue(db, transport)).toEqual({ sent: [], failed: [] });
+    expect(await deliverDue(db, transport, { now: new Date(Date.now() + 61_000) })).toEqual({ sent: [m.id], failed: [] });
+    expect(smtp!.messages()).toHaveLength(1);
+  });
+
+  it("survives an SMTP outage: retries with back-off and delivers exactly once when the server is back", async () => {
+    const db = testDb();
+    const port = smtp!.port;
+    const transport = track(transportTo(port));
+    await smtp!.stop();
+    smtp = null;
+
+    const m = await enqueueMail(db, {
+      kind: "role-change",
+      to: "tomas@example.org",
+      subject: "Your roles in Fringe Docket have changed",
+      element: createElement(RoleChangeEmail, { name: "Tomás", rolesGranted: ["reviewer"], rolesRevoked: [], byName: "Ada" }),
+    });
+
+    // Just after the message was written (its stamp has microseconds; a JS date only milliseconds).
+    const t0 = new Date(m.nextAttemptAt.getTime() + 1);
+    const first = await deliverDue(db, transport, { now: t0 });
+    expect(first.sent).toEqual([]);
+    expect(first.failed).toHaveLength(1);
+    let r = await row(m.id);
+    expect(r.sentAt).toBeNull();
+    expect(r.attempts).toBe(1);
+    expect(r.nextAttemptAt.getTime()).toBe(t0.getTime() + 5_000);
+    expect(r.nextAttemptAt.getTime()).toBeGreaterThan(Date.now());
+    expect(r.lastError).toMatch(/ECONNREFUSED/);
+
+    // Still away at the next attempt: the wait doubles.
+    const t1 = new Date(r.nextAttemptAt.getTime() + 1);
+    await deliverDue(db, transport, { now: t1 });
+    r = await row(m.id);
+    expect(r.attempts).toBe(2);
+    expect(r.nextAttemptAt.getTime()).toBe(t1.getTime() + 10_000);
+
+    // Before that instant nothing is tried, even with the server back.
+    smtp = await startFakeSmtp({ port });
+    expect(smtp.port).toBe(port);
+    expect(await deliverDue(db, transport, { now: new Date(r.nextAttemptAt.getTime() - 1) })).toEqual({ sent: [], failed: [] });
+    expect(smtp.messages()).toHaveLength(0);
+
+    const t2 = new Date(r.nextAttemptAt.getTime() + 1);
+    expect((await deliverDue(db, transport, { now: t2 })).sent).toEqual([m.id]);
+    expect(smtp.messages()).toHaveLength(1);
+    expect(smtp.messages()[0].subject).toBe("Your roles in Fringe Docket have changed");
+    r = await row(m.id);
+    expect(r.sentAt?.getTime()).toBe(t2.getTime());
+    expect(r.lastError).toBeNull();
+
+    // No duplicates on later passes, however late.
+    await deliverDue(db, transport, { now: new Date(t2.getTime() + 3_600_000) });
+    expect(smtp.messages()).toHaveLength(1);
+  });
+
+  it("gives each message to one sender only when two run at once", async () => {
+    const db = testDb();
+    await smtp!.stop();
+    smtp = await startFakeSmtp({ port: 0, delayMs: 15 });
+    const ids: number[] = [];
+    for (let i = 0; i < 12; i++) ids.push((await enqueueMail(db, signInMail(`p${i}@example.org`, `Message ${i}`))).id);
+
+    const [a, b] = await Promise.all([
+      deliverDue(db, track(transportTo(smtp.port)), { batch: 50 }),
+      deliverDue(db, track(transportTo(smtp.port)), { batch: 50 }),
+    ]);
+    expect(a.failed).toEqual([]);
+    expect(b.failed).toEqual([]);
+    // Both took part, and no message went to both.
+    expect(a.sent.length).toBeGreaterThan(0);
+    expect(b.sent.length).toBeGreaterThan(0);
+    expect([...a.sent, ...b.sent].sort((x, y) => x - y)).toEqual(ids);
+
+    const subjects = smtp.messages().map((m) => m.subject);
+    expect(subjects).toHaveLength(12);
+    expect(new Set(subjects).size).toBe(12);
+    const unsent = await db.select().from(outboxMessages).where(sql`${outboxMessages.sentAt} is null`);
+    expect(unsent).toHaveLength(0);
+  });
+
+  it("keeps delivering the others when the server refuses one recipient", async () => {
+    const db = testDb();
+    await smtp!.stop();
+    smtp = await startFakeSmtp({ port: 0, rejectRecipient: (a) => a.startsWith("nobody@") });
+    const bad = await enqueueMail(db, signInMail("nobody@example.org", "Refused"));
+    const good = await enqueueMail(db, signInMail("somebody@example.org", "Accepted"));
+    const report = await deliverDue(db, track(transportTo(smtp.port)));
+    expect(report.sent).toEqual([good.id]);
+    expect(report.failed.map((f) => f.id)).toEqual([bad.id]);
+    expect((await row(bad.id)).lastError).toMatch(/550|nobody@example\.org/);
+    expect(smtp.messages().map((m) => m.subject)).toEqual(["Accepted"]);
+  });
+
+  it("honours the batch size", async () => {
+    const db = testDb();
+    for (let i = 0; i < 5; i++) await enqueueMail(db, signInMail(`b${i}@example.org`));
+    const transport = track(transportTo(smtp!.port));
+    expect((await deliverDue(db, transport, { batch: 2 })).sent).toHaveLength(2);
+    expect((await deliverDue(db, transport, { batch: 2 })).sent).toHaveLength(2);
+    expect((await deliverDue(db, transport, { batch: 2 })).sent).toHaveLength(1);
+    expect(smtp!.messages()).toHaveLength(5);
+  });
+});
+
+describe("retryDelayMs", () => {
+  it("doubles from 5 s and stops at 10 min", () => {
+    expect([1, 2, 3, 4, 5, 6, 7, 8].map(retryDelayMs)).toEqual([5_000, 10_000, 20_000, 40_000, 80_000, 160_000, 320_000, 600_000]);
+    expect(retryDelayMs(50)).toBe(600_000);
+    expect(retryDelayMs(5000)).toBe(600_000);
+    expect(retryDelayMs(0)).toBe(5_000);
+  });
+});
+
+describe("startOutboxSender", () => {
+  it("delivers a message written through the database as soon as it is woken", async () => {
+    const db = testDb();
+    // A long interval: only the wake-up from enqueueMail can deliver within the test.
+    const sender = startOutboxSender({ db, transport: track(transportTo(smtp!.port)), intervalMs: 3_600_000 });
+    try {
+      await new Promise((r) => setTimeout(r, 100)); // the first, empty pass
+      await enqueueMail(db, signInMail("woken@example.org", "Woken"));
+      await waitFor(() => smtp!.messages().length === 1);
+      expect(smtp!.messages()[0].subject).toBe("Woken");
+    } finally {
+      await sender.stop();
+    }
+  });
+
+  it("warns (never errors) while the server is away, and delivers once it is back", async () => {
+    const db = testDb();
+    const port = smtp!.port;
+    await smtp!.stop();
+    smtp = null;
+    const warn = vi.spyOn(console, "warn").mockImplementation(() => {});
+    const m = await enqueueMail(db, signInMail("outage@example.org", "After the outage"));
+    const sender = startOutboxSender({ db, transport: track(transportTo(port)), intervalMs: 50 });
+    try {
+      await waitFor(() => warn.mock.calls.length > 0);
+      expect(String(warn.mock.calls[0][0])).toMatch(/\[outbox\] 1 message\(s\) not delivered.*ECONNREFUSED/);
+      expect((await row(m.id)).attempts).toBeGreaterThanOrEqual(1);
+      smtp = await startFakeSmtp({ port });
+      // Move the message's next attempt to now instead of waiting out the back-off.
+      await db.update(outboxMessages).set({ nextAttemptAt: new Date() }).where(eq(outboxMessages.id, m.id));
+      // Marked sent once its transaction commits, a moment after the server took it.
+      await waitFor(async () => (await row(m.id)).sentAt !== null);
+      expect(smtp!.messages()).toHaveLength(1);
+    } finally {
+      await sender.stop();
+    }
+    expect(smtp.messages()).toHaveLength(1);
+  });
+
+  it("never runs two passes at once, however often it is woken", async () => {
+    const db = testDb();
+    let inFlight = 0;
+    let most = 0;
+    let sends = 0;
+    const slow: MailTransport = {
+      from: "Fringe Docket <docket@sierra-lumbre.example>",
+      async send(mail) {
+        inFlight += 1;
+        most = Math.max(most, inFlight);
+        await new Promise((r) => setTimeout(r, 10));
+        inFlight -= 1;
+        sends += 1;
+        return { messageId: mail.messageId };
+      },
+      close() {},
+    };
+    for (let i = 0; i < 6; i++) await db.insert(outboxMessages).values({ kind: "reminder", toAddress: `r${i}@example.org`, subject: "R", html: "<p>R</p>", text: "R" });
+    const sender = startOutboxSender({ db, transport: slow, intervalMs: 3_600_000, batch: 2 });
+    try {
+      for (let i = 0; i < 20; i++) sender.wake();
+      await waitFor(() => sends === 6);
+      expect(most).toBe(1);
+    } finally {
+      await sender.stop();
+    }
+  });
+});
+
+describe("mailbox reads", () => {
+  it("lists newest first, searches address and subject, pages by 50 and finds one message", async () => {
+    const db = testDb();
+    const base = Date.now() - 1_000_000;
+    const values = Array.from({ length: 120 }, (_, i) => ({
+      kind: "submission" as const,
+      toAddress: i % 3 === 0 ? `pi${i}@lumbre.example` : `coi${i}@example.org`,
+      subject: i === 7 ? "100% done_now" : `Proposal ${i} received`,
+      html: "<p>x</p>",
+      text: "x",
+      createdAt: new Date(base + i * 1000),
+    }));
+    await db.insert(outboxMessages).values(values);
+
+    const first = await listMessages(db, { page: 1 });
+    expect(first.total).toBe(120);
+    expect(first.pageCount).toBe(3);
+    expect(first.rows).toHaveLength(MAILBOX_PAGE_SIZE);
+    expect(first.rows[0].subject).toBe("Proposal 119 received");
+    const third = await listMessages(db, { page: 3 });
+    expect(third.rows).toHaveLength(20);
+    // Beyond the end: the last page.
+    expect((await listMessages(db, { page: 99 })).page).toBe(3);
+
+    expect((await listMessages(db, { q: "LUMBRE.example" })).total).toBe(40);
+    expect((await listMessages(db, { q: "Proposal 11" })).total).toBe(11); // 11, 110–119
+    // LIKE wildcards in the search match themselves.
+    const literal = await listMessages(db, { q: "100%" });
+    expect(literal.rows.map((r) => r.subject)).toEqual(["100% done_now"]);
+    expect((await listMessages(db, { q: "_" })).total).toBe(1);
+
+    const one = await getMessage(db, first.rows[0].id);
+    expect(one?.html).toBe("<p>x</p>");
+    expect(await getMessage(db, 999_999)).toBeNull();
+  });
+
+  it("reads the query string and the message number defensively", () => {
+    const q = (s: string) => parseMailboxQuery(new URLSearchParams(s));
+    expect(q("")).toEqual({ q: "", page: 1 });
+    expect(q("q=%20ines%20&page=2")).toEqual({ q: "ines", page: 2 });
+    for (const bad of ["page=0", "page=-3", "page=abc", "page=1.5", "page=99999999999", "page="]) expect(q(bad).page).toBe(1);
+    expect(q(`q=${"x".repeat(500)}`).q).toHaveLength(200);
+
+    expect(parseMessageId("42")).toBe(42);
+    for (const bad of [undefined, "", "0", "-1", "042", "4e2", "1.0", "abc", "99999999999", "2147483648"]) expect(parseMessageId(bad)).toBeNull();
+  });
+});
+
+describe("mailbox pages", () => {
+  async function signedIn(email: string) {
+    const db = testDb();
+    const [user] = await db.insert(users).values({ email, name: "Mara Oyarzún" }).returning();
+    await db.insert(userRoles).values({ userId: user.id, role: "admin" });
+    const { token } = await createSession(db, user.id, { method: "sso" });
+    return { headers: { Cookie: `${SESSION_COOKIE}=${token}` } };
+  }
+
+  async function thrownBy(fn: () => Promise<unknown>) {
+    try {
+      await fn();
+    } catch (e) {
+      return e as { status?: number; init?: { status?: number }; headers?: Headers };
+    }
+    throw new Error("expected the loader to throw");
+  }
+
+  it("sends anonymous visitors to sign in", async () => {
+    const thrown = await thrownBy(() => mailboxLoader(routeArgs("/mailbox")));
+    expect(thrown.status).toBe(302);
+    expect(thrown.headers?.get("Location")).toMatch(/^\/sign-in\?next=%2Fmailbox/);
+    const again = await thrownBy(() => messageLoader(routeArgs("/mailbox/1", { params: { messageId: "1" } })));
+    expect(again.status).toBe(302);
+  });
+
+  it("lists and shows messages, treats a bad page as page 1 and a bad number as 404", async () => {
+    const db = testDb();
+    const init = await signedIn("mara@example.org");
+    const mine = await enqueueMail(db, signInMail("MARA@example.org", "For the viewer"));
+    await enqueueMail(db, signInMail("other@example.org", "For someone else"));
+
+    const list = await mailboxLoader(routeArgs("/mailbox?page=banana&q=", init));
+    expect(list.page).toBe(1);
+    expect(list.total).toBe(2);
+    expect(list.rows.map((r) => [r.subject, r.status, r.toViewer])).toEqual([
+      ["For someone else", "pending", false],
+      ["For the viewer", "pending", true],
+    ]);
+    const found = await mailboxLoader(routeArgs("/mailbox?q=viewer", init));
+    expect(found.rows.map((r) => r.id)).toEqual([mine.id]);
+
+    const one = await messageLoader(routeArgs(`/mailbox/${mine.id}`, { ...init, params: { messageId: String(mine.id) } }));
+    expect(one.message.subject).toBe("For the viewer");
+    expect(one.message.html).toContain(LINK);
+    expect(one.message.status).toBe("pending");
+
+    for (const bad of ["0", "abc", "1e3", "99999999999", String(mine.id + 1000)]) {
+      const thrown = await thrownBy(() => messageLoader(routeArgs(`/mailbox/${bad}`, { ...init, params: { messageId: bad } })));
+      expect(thrown.init?.status).toBe(404);
+    }
+  });
+});
