@@ -1,6 +1,16 @@
 import { relations } from "drizzle-orm";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "./schema/array";
 import { userRoles, users } from "./schema/users";
+import {
+  cycleConfigurations,
+  cycles,
+  proposalHours,
+  proposalMembers,
+  proposals,
+  proposalTargets,
+  proposalVersions,
+  targets,
+} from "./schema/proposals";
 
 export const sitesRelations = relations(sites, ({ many }) => ({
   stations: many(stations),
@@ -41,4 +51,47 @@ export const usersRelations = relations(users, ({ many }) => ({
 
 export const userRolesRelations = relations(userRoles, ({ one }) => ({
   user: one(users, { fields: [userRoles.userId], references: [users.id] }),
+}));
+
+export const cyclesRelations = relations(cycles, ({ many }) => ({
+  configurations: many(cycleConfigurations),
+  proposals: many(proposals),
+}));
+
+export const cycleConfigurationsRelations = relations(cycleConfigurations, ({ one }) => ({
+  cycle: one(cycles, { fields: [cycleConfigurations.cycleId], references: [cycles.id] }),
+  configuration: one(configurations, { fields: [cycleConfigurations.configurationId], references: [configurations.id] }),
+}));
+
+export const targetsRelations = relations(targets, ({ one }) => ({
+  owner: one(users, { fields: [targets.ownerId], references: [users.id] }),
+}));
+
+export const proposalsRelations = relations(proposals, ({ one, many }) => ({
+  cycle: one(cycles, { fields: [proposals.cycleId], references: [cycles.id] }),
+  pi: one(users, { fields: [proposals.piId], references: [users.id] }),
+  instrument: one(instruments, { fields: [proposals.instrumentId], references: [instruments.id] }),
+  band: one(bands, { fields: [proposals.bandId], references: [bands.id] }),
+  members: many(proposalMembers),
+  hours: many(proposalHours),
+  targets: many(proposalTargets),
+  versions: many(proposalVersions),
+}));
+
+export const proposalMembersRelations = relations(proposalMembers, ({ one }) => ({
+  proposal: one(proposals, { fields: [proposalMembers.proposalId], references: [proposals.id] }),
+  user: one(users, { fields: [proposalMembers.userId], references: [users.id] }),
+}));
+
+export const proposalHoursRelations = relations(proposalHours, ({ one }) => ({
+  proposal: one(proposals, { fields: [proposalHours.proposalId], references: [proposals.id] }),
+  configuration: one(configurations, { fields: [proposalHours.configurationId], references: [configurations.id] }),
+}));
+
+export const proposalTargetsRelations = relations(proposalTargets, ({ one }) => ({
+  proposal: one(proposals, { fields: [proposalTargets.proposalId], references: [proposals.id] }),
+}));
+
+export const proposalVersionsRelations = relations(proposalVersions, ({ one }) => ({
+  proposal: one(proposals, { fields: [proposalVersions.proposalId], references: [proposals.id] }),
 }));

@@ -3,4 +3,5 @@ export * from "./array";
 export * from "./users";
 export * from "./auth";
 export * from "./mail";
+export * from "./proposals";
 export * from "../relations";

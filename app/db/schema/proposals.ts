@@ -1,0 +1,230 @@
+import { sql } from "drizzle-orm";
+import {
+  check,
+  customType,
+  date,
+  doublePrecision,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  serial,
+  text,
+  timestamp,
+  uniqueIndex,
+} from "drizzle-orm/pg-core";
+import { bands, configurations, instruments } from "./array";
+import { timestamps } from "./columns";
+import { users } from "./users";
+
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({
+  dataType: () => "bytea",
+});
+
+/**
+ * A target model as the API takes it (CONVENTIONS.md): `{type: "uniformDisk", diameterMas: 3}` etc.
+ * Validated by the request schemas in app/services/requests.ts before it is stored.
+ */
+export type TargetModelJson = { type: string; [key: string]: unknown };
+/** Magnitude per band name, e.g. `{ "H": 4.2, "K": 3.9 }`. */
+export type MagnitudesJson = Record<string, number>;
+/** A time-critical window, ISO-8601 UTC instants. */
+export type TimeWindowJson = { startUtc: string; endUtc: string; note?: string };
+export type CalibratorJson = { name: string; raDeg: number; decDeg: number; diameterMas?: number; magnitude?: number };
+
+/** An observing cycle: its period, the submission deadline, and the configurations on offer. */
+export const cycles = pgTable(
+  "cycles",
+  {
+    id: serial("id").primaryKey(),
+    name: text("name").notNull(),
+    description: text("description").notNull().default(""),
+    /** First and last night of the observing period (nights of date D begin on the evening of D). */
+    observingStart: date("observing_start").notNull(),
+    observingEnd: date("observing_end").notNull(),
+    submissionDeadline: timestamp("submission_deadline", { withTimezone: true }).notNull(),
+    createdById: integer("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    ...timestamps,
+  },
+  (t) => [
+    uniqueIndex("cycles_name_key").on(t.name),
+    check("cycles_period_check", sql`${t.observingEnd} >= ${t.observingStart}`),
+  ],
+);
+
+export const cycleConfigurations = pgTable(
+  "cycle_configurations",
+  {
+    cycleId: integer("cycle_id")
+      .notNull()
+      .references(() => cycles.id, { onDelete: "cascade" }),
+    configurationId: integer("configuration_id")
+      .notNull()
+      .references(() => configurations.id, { onDelete: "restrict" }),
+    /** Nights the configuration is on the array this cycle (the committee's capacity), if known. */
+    nightsAvailable: doublePrecision("nights_available"),
+  },
+  (t) => [primaryKey({ columns: [t.cycleId, t.configurationId] })],
+);
+
+/** A proposer's own list of targets ("My targets"), reused across sketches and proposals. */
+export const targets = pgTable(
+  "targets",
+  {
+    id: serial("id").primaryKey(),
+    ownerId: integer("owner_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    /** J2000 right ascension and declination, degrees. */
+    raDeg: doublePrecision("ra_deg").notNull(),
+    decDeg: doublePrecision("dec_deg").notNull(),
+    model: jsonb("model").$type<TargetModelJson>().notNull(),
+    magnitudes: jsonb("magnitudes").$type<MagnitudesJson>().notNull().default({}),
+    notes: text("notes").notNull().default(""),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("targets_owner_name_key").on(t.ownerId, sql`lower(${t.name})`)],
+);
+
+export const PROPOSAL_STATUSES = [
+  "draft",
+  "submitted",
+  "under_review",
+  "accepted",
+  "waitlisted",
+  "declined",
+  "scheduled",
+  "withdrawn",
+] as const;
+export type ProposalStatus = (typeof PROPOSAL_STATUSES)[number];
+export const proposalStatusEnum = pgEnum("proposal_status", PROPOSAL_STATUSES);
+
+export const SCIENCE_CATEGORIES = [
+  "Stellar surfaces and diameters",
+  "Binary and multiple stars",
+  "Circumstellar environments",
+  "Young stellar objects and discs",
+  "Evolved stars and mass loss",
+  "Active galactic nuclei",
+  "Solar system",
+  "Other",
+] as const;
+
+export const proposals = pgTable(
+  "proposals",
+  {
+    id: serial("id").primaryKey(),
+    cycleId: integer("cycle_id")
+      .notNull()
+      .references(() => cycles.id, { onDelete: "restrict" }),
+    piId: integer("pi_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "restrict" }),
+    title: text("title").notNull().default(""),
+    abstract: text("abstract").notNull().default(""),
+    scienceCategory: text("science_category").notNull().default(""),
+    instrumentId: integer("instrument_id").references(() => instruments.id, { onDelete: "restrict" }),
+    bandId: integer("band_id").references(() => bands.id, { onDelete: "restrict" }),
+    status: proposalStatusEnum("status").notNull().default("draft"),
+    /** When the latest version was submitted (null while a draft). */
+    submittedAt: timestamp("submitted_at", { withTimezone: true }),
+    /** Number of the latest frozen version; 0 while never submitted. */
+    currentVersion: integer("current_version").notNull().default(0),
+    ...timestamps,
+  },
+  (t) => [index("proposals_cycle_idx").on(t.cycleId), index("proposals_pi_idx").on(t.piId)],
+);
+
+/** Co-investigators, invited by e-mail; linked to an account once one exists for that address. */
+export const proposalMembers = pgTable(
+  "proposal_members",
+  {
+    id: serial("id").primaryKey(),
+    proposalId: integer("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    email: text("email").notNull(),
+    userId: integer("user_id").references(() => users.id, { onDelete: "set null" }),
+    invitedAt: timestamp("invited_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("proposal_members_email_key").on(t.proposalId, sql`lower(${t.email})`)],
+);
+
+/** Hours requested per configuration. */
+export const proposalHours = pgTable(
+  "proposal_hours",
+  {
+    proposalId: integer("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    configurationId: integer("configuration_id")
+      .notNull()
+      .references(() => configurations.id, { onDelete: "restrict" }),
+    hours: doublePrecision("hours").notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.proposalId, t.configurationId] }), check("proposal_hours_positive", sql`${t.hours} > 0`)],
+);
+
+/**
+ * The targets of a proposal. Coordinates, model and magnitudes are copied in (from "My targets" or
+ * typed), so the proposal's team can edit them and a submitted version stays as it was.
+ */
+export const proposalTargets = pgTable(
+  "proposal_targets",
+  {
+    id: serial("id").primaryKey(),
+    proposalId: integer("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    position: integer("position").notNull().default(0),
+    sourceTargetId: integer("source_target_id").references(() => targets.id, { onDelete: "set null" }),
+    name: text("name").notNull(),
+    raDeg: doublePrecision("ra_deg").notNull(),
+    decDeg: doublePrecision("dec_deg").notNull(),
+    model: jsonb("model").$type<TargetModelJson>().notNull(),
+    magnitudes: jsonb("magnitudes").$type<MagnitudesJson>().notNull().default({}),
+    /** Minimum elevation for this target, degrees; null = the site's. */
+    minElevationDeg: doublePrecision("min_elevation_deg"),
+    timeWindows: jsonb("time_windows").$type<TimeWindowJson[]>().notNull().default([]),
+    calibrators: jsonb("calibrators").$type<CalibratorJson[]>().notNull().default([]),
+    notes: text("notes").notNull().default(""),
+  },
+  (t) => [index("proposal_targets_proposal_idx").on(t.proposalId)],
+);
+
+/** The science case, a PDF stored in the database (one per proposal). */
+export const proposalDocuments = pgTable("proposal_documents", {
+  proposalId: integer("proposal_id")
+    .primaryKey()
+    .references(() => proposals.id, { onDelete: "cascade" }),
+  filename: text("filename").notNull(),
+  contentType: text("content_type").notNull(),
+  sizeBytes: integer("size_bytes").notNull(),
+  sha256: text("sha256").notNull(),
+  data: bytea("data").notNull(),
+  uploadedById: integer("uploaded_by_id").references(() => users.id, { onDelete: "set null" }),
+  uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** A frozen copy of a proposal at submission: what the committee reviews. */
+export const proposalVersions = pgTable(
+  "proposal_versions",
+  {
+    id: serial("id").primaryKey(),
+    proposalId: integer("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    version: integer("version").notNull(),
+    submittedAt: timestamp("submitted_at", { withTimezone: true }).notNull().defaultNow(),
+    submittedById: integer("submitted_by_id").references(() => users.id, { onDelete: "set null" }),
+    /** Everything the proposal said, with its feasibility report, as JSON. */
+    snapshot: jsonb("snapshot").$type<Record<string, unknown>>().notNull(),
+    /** The science case as it was at submission. */
+    documentSha256: text("document_sha256"),
+    documentData: bytea("document_data"),
+  },
+  (t) => [uniqueIndex("proposal_versions_key").on(t.proposalId, t.version)],
+);
