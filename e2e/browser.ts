@@ -1,6 +1,7 @@
 import { mkdirSync } from "node:fs";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
+import { inject } from "vitest";
 import { chromium, type Browser, type Page } from "playwright-core";
 
 export const ARTIFACTS = fileURLToPath(new URL("./artifacts", import.meta.url));
@@ -36,14 +37,31 @@ export async function screenshot(page: Page, name: string) {
   await page.screenshot({ path: join(ARTIFACTS, `${name}.png`), fullPage: true });
 }
 
-/** Collects browser console errors and failed requests so a test can assert there were none. */
+/**
+ * Collects browser console errors and failed requests so a test can assert there were none.
+ * The browser also logs every 4xx answer as a console error; those are expected answers to bad input
+ * (a form's 400 with field errors, a 404 page) and are kept apart in `clientErrors`.
+ */
 export function watchPage(page: Page) {
   const errors: string[] = [];
+  const clientErrors: string[] = [];
   const requests: string[] = [];
   page.on("console", (msg) => {
-    if (msg.type() === "error") errors.push(`${msg.text()} ${msg.location().url ?? ""}`.trim());
+    if (msg.type() !== "error") return;
+    const text = `${msg.text()} ${msg.location().url ?? ""}`.trim();
+    if (/Failed to load resource: the server responded with a status of 4\d\d/.test(text)) clientErrors.push(text);
+    else errors.push(text);
   });
   page.on("pageerror", (err) => errors.push(err.message));
   page.on("request", (req) => requests.push(req.url()));
-  return { errors, requests };
+  return { errors, clientErrors, requests };
+}
+
+/** Signs in through the local sign-on page by picking a demo person; ends on the home page. */
+export async function signInAs(page: Page, name: string) {
+  const baseUrl = inject("baseUrl");
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByRole("link", { name: /Continue with/ }).click();
+  await page.getByRole("button", { name: new RegExp(name) }).click();
+  await page.waitForURL(`${baseUrl}/`);
 }

@@ -34,17 +34,37 @@ export function routeArgs(
 export function formPost(fields: Record<string, string | string[]>, headers: Record<string, string> = {}): RequestInit {
   const body = new URLSearchParams();
   for (const [k, val] of Object.entries(fields)) for (const one of Array.isArray(val) ? val : [val]) body.append(k, one);
-  return { method: "POST", body, headers: { "Content-Type": "application/x-www-form-urlencoded", ...headers } };
+  const text = body.toString();
+  return {
+    method: "POST",
+    body: text,
+    headers: { "Content-Type": "application/x-www-form-urlencoded", "Content-Length": String(Buffer.byteLength(text)), ...headers },
+  };
 }
 
-/** Runs a loader or action and gives back its Response whether it was returned or thrown. */
+/** `data(body, {status})` as React Router represents it. */
+type DataWithInit = { type: "DataWithResponseInit"; data: unknown; init: ResponseInit | null };
+const isDataWithInit = (x: unknown): x is DataWithInit =>
+  typeof x === "object" && x !== null && (x as { type?: unknown }).type === "DataWithResponseInit";
+
+/**
+ * Runs a loader or action and gives back what it answered as a Response, whether it returned or
+ * threw a Response or a `data(…, {status})`.
+ */
 export async function settle(fn: () => unknown): Promise<Response> {
+  const asResponse = (x: unknown): Response | null => {
+    if (x instanceof Response) return x;
+    if (isDataWithInit(x)) return new Response(JSON.stringify(x.data), { ...(x.init ?? {}), headers: x.init?.headers });
+    return null;
+  };
   try {
     const out = await fn();
-    if (out instanceof Response) return out;
+    const res = asResponse(out);
+    if (res) return res;
     throw new Error(`expected a Response, got ${JSON.stringify(out)}`);
   } catch (e) {
-    if (e instanceof Response) return e;
+    const res = asResponse(e);
+    if (res) return res;
     throw e;
   }
 }

@@ -127,3 +127,17 @@ export const DEMO_PEOPLE: DemoPerson[] = [
   { email: "mei.chao@sierra-lumbre.example", name: "Mei-Lin Chao", institute: "Sierra Lumbre Array Operations", roles: ["scheduler"] },
   { email: "rafael.quispe@sierra-lumbre.example", name: "Rafael Quispe", institute: "Sierra Lumbre Array Operations", roles: ["admin"] },
 ];
+
+/** The demo's open cycle (its deadline lies ahead of the demo's "today", 2026-12-01). */
+export const DEMO_CYCLE = {
+  name: "2027A",
+  description: "First semester of 2027: all three configurations on offer.",
+  observingStart: "2027-03-01",
+  observingEnd: "2027-08-31",
+  submissionDeadline: new Date("2027-01-15T12:00:00Z"),
+  offers: [
+    { configurationName: "compact-3", nightsAvailable: 40 },
+    { configurationName: "medium-4", nightsAvailable: 55 },
+    { configurationName: "extended-6", nightsAvailable: 35 },
+  ],
+};

@@ -4,8 +4,10 @@
  */
 import { and, eq, sql } from "drizzle-orm";
 import type { Database } from "./client.server";
+import { ensureCycle } from "~/services/cycles.server";
 import {
   DEMO_CONFIGURATIONS,
+  DEMO_CYCLE,
   DEMO_INSTRUMENTS,
   DEMO_PEOPLE,
   DEMO_SITE,
@@ -108,7 +110,8 @@ export async function seedDemoScenario(db: Database) {
   for (const config of DEMO_CONFIGURATIONS) await ensureConfiguration(db, site.id, config);
   for (const instrument of DEMO_INSTRUMENTS) await ensureInstrument(db, site.id, instrument);
   for (const person of DEMO_PEOPLE) await ensureUser(db, person);
-  return { site, stations: siteStations.length };
+  const cycle = await ensureCycle(db, { ...DEMO_CYCLE, siteId: site.id });
+  return { site, stations: siteStations.length, cycle };
 }
 
 /** True when the database holds no site yet (a fresh install): `npm start` then seeds. */

@@ -1,0 +1,82 @@
+import type { Route } from "./+types/index";
+import { ErrorPage } from "~/components/ErrorPage";
+import { Badge, ButtonLink, Card, EmptyState, PageHeader, type BadgeTone } from "~/components/ui";
+import { database } from "~/db/client.server";
+import { requireUser } from "~/services/auth.server";
+import { cyclePhase, listCycles } from "~/services/cycles.server";
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const viewer = await requireUser(request);
+  const list = await listCycles(database());
+  const now = new Date();
+  return {
+    canManage: viewer.permissions.has("cycles:manage"),
+    cycles: list.map((c) => ({
+      id: c.id,
+      name: c.name,
+      description: c.description,
+      observingStart: c.observingStart,
+      observingEnd: c.observingEnd,
+      submissionDeadline: c.submissionDeadline.toISOString(),
+      phase: cyclePhase(c, now),
+      offers: c.offers.map((o) => ({ name: o.name, nightsAvailable: o.nightsAvailable })),
+    })),
+  };
+}
+
+export const meta: Route.MetaFunction = () => [{ title: "Cycles — Fringe Docket" }];
+
+const phaseTone: Record<string, BadgeTone> = { open: "ok", "in review": "info", observing: "accent", finished: "neutral" };
+
+export default function Cycles({ loaderData }: Route.ComponentProps) {
+  return (
+    <>
+      <PageHeader
+        title="Cycles"
+        lead="Each observing cycle has a submission deadline and the configurations it offers, with the nights each will be on the array."
+        actions={loaderData.canManage ? <ButtonLink to="/cycles/new">New cycle</ButtonLink> : null}
+      />
+      {loaderData.cycles.length === 0 ? (
+        <EmptyState title="No cycles yet">The chair opens a cycle with its dates and deadline.</EmptyState>
+      ) : (
+        <div className="grid gap-4">
+          {loaderData.cycles.map((c) => (
+            <Card
+              key={c.id}
+              title={
+                <span className="flex items-center gap-2">
+                  {c.name} <Badge tone={phaseTone[c.phase]}>{c.phase}</Badge>
+                </span>
+              }
+              actions={loaderData.canManage ? <ButtonLink to={`/cycles/${c.id}/edit`} variant="secondary" size="sm" aria-label={`Edit cycle ${c.name}`}>Edit</ButtonLink> : null}
+            >
+              {c.description ? <p className="mb-3 text-night-700">{c.description}</p> : null}
+              <dl className="grid gap-3 sm:grid-cols-3">
+                <div>
+                  <dt className="text-sm text-night-600">Nights</dt>
+                  <dd className="num font-medium">
+                    {c.observingStart} → {c.observingEnd}
+                  </dd>
+                </div>
+                <div>
+                  <dt className="text-sm text-night-600">Submission deadline</dt>
+                  <dd className="num font-medium">{c.submissionDeadline.replace("T", " ").slice(0, 16)} UTC</dd>
+                </div>
+                <div>
+                  <dt className="text-sm text-night-600">Configurations on offer</dt>
+                  <dd className="font-medium">
+                    {c.offers.map((o) => `${o.name}${o.nightsAvailable != null ? ` (${o.nightsAvailable} nights)` : ""}`).join(", ") || "—"}
+                  </dd>
+                </div>
+              </dl>
+            </Card>
+          ))}
+        </div>
+      )}
+    </>
+  );
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}

@@ -1,0 +1,18 @@
+import type { Route } from "./+types/export";
+import { database } from "~/db/client.server";
+import { requirePermission } from "~/services/auth.server";
+import { targetsToCsv } from "~/services/target-io";
+import { listTargets } from "~/services/targets.server";
+
+/** My targets as CSV, in the columns the import reads. */
+export async function loader({ request }: Route.LoaderArgs) {
+  const viewer = await requirePermission(request, "proposals:own");
+  const list = await listTargets(database(), viewer.user.id);
+  return new Response(targetsToCsv(list), {
+    headers: {
+      "Content-Type": "text/csv; charset=utf-8",
+      "Content-Disposition": 'attachment; filename="my-targets.csv"',
+      "Cache-Control": "no-store",
+    },
+  });
+}

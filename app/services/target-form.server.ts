@@ -1,0 +1,83 @@
+/** Shared by the target pages: reading the target form and showing a stored target in it. */
+import type { targets } from "~/db/schema/proposals";
+import { formatDeclination, formatRightAscension } from "./coordinates";
+import { readTargetCells, type ImportedTarget } from "./target-io";
+
+export const TARGET_FIELDS = ["name", "ra", "dec", "model", "size_mas", "ld_coefficient", "separation_mas", "position_angle_deg", "flux_ratio", "notes"];
+
+export function targetFormValues(form: FormData, bands: string[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const k of [...TARGET_FIELDS, ...bands.map((b) => `mag_${b}`)]) {
+    const x = form.get(k);
+    out[k] = typeof x === "string" ? x : "";
+  }
+  return out;
+}
+
+/** Checks a submitted target form: the target, or messages keyed by field. */
+export function readTargetForm(values: Record<string, string>, bands: string[]) {
+  const read = readTargetCells(values, bands.map((b) => `mag_${b}`));
+  const errors: Record<string, string> = {};
+  for (const e of read.errors) {
+    if (!errors[e.column]) errors[e.column] = e.message.startsWith(fieldLabel(e.column)) ? e.message : `${fieldLabel(e.column)}: ${e.message}`;
+  }
+  return { target: read.target as Omit<ImportedTarget, "row"> | null, errors };
+}
+
+function fieldLabel(column: string) {
+  const labels: Record<string, string> = {
+    name: "Name",
+    ra: "Right ascension",
+    dec: "Declination",
+    model: "Model",
+    size_mas: "Size",
+    ld_coefficient: "Limb-darkening coefficient",
+    separation_mas: "Separation",
+    position_angle_deg: "Position angle",
+    flux_ratio: "Flux ratio",
+    notes: "Notes",
+  };
+  return labels[column] ?? (column.startsWith("mag_") ? `${column.slice(4)} magnitude` : column);
+}
+
+/** A stored target as form values (coordinates in sexagesimal). */
+export function valuesOfTarget(t: typeof targets.$inferSelect): Record<string, string> {
+  const m = t.model as Record<string, unknown>;
+  const str = (x: unknown) => (x === undefined || x === null ? "" : String(x));
+  const out: Record<string, string> = {
+    name: t.name,
+    ra: formatRightAscension(t.raDeg, 3),
+    dec: formatDeclination(t.decDeg, 2),
+    model: t.model.type,
+    size_mas: str(m.diameterMas ?? m.fwhmMas),
+    ld_coefficient: str(m.coefficient),
+    separation_mas: str(m.separationMas),
+    position_angle_deg: str(m.positionAngleDeg),
+    flux_ratio: str(m.fluxRatio),
+    notes: t.notes,
+  };
+  for (const [band, mag] of Object.entries(t.magnitudes)) out[`mag_${band}`] = String(mag);
+  return out;
+}
+
+/** One line describing a model, with units. */
+export function describeModel(model: { type: string; [k: string]: unknown }): string {
+  switch (model.type) {
+    case "point":
+      return "point";
+    case "uniformDisk":
+      return `uniform disk ${model.diameterMas} mas`;
+    case "limbDarkenedDisk":
+      return `limb-darkened disk ${model.diameterMas} mas, u = ${model.coefficient}`;
+    case "gaussian":
+      return `Gaussian FWHM ${model.fwhmMas} mas`;
+    case "ring":
+      return `ring ${model.diameterMas} mas`;
+    case "binary":
+      return `binary ${model.separationMas} mas at PA ${model.positionAngleDeg}°, ratio ${model.fluxRatio}`;
+    case "sum":
+      return `${Array.isArray(model.components) ? model.components.length : "several"} components`;
+    default:
+      return model.type;
+  }
+}

@@ -1,0 +1,95 @@
+import { writeFileSync, mkdtempSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import type { Browser } from "playwright-core";
+import { launchBrowser, screenshot, signInAs, watchPage } from "./browser";
+
+const baseUrl = inject("baseUrl");
+let browser: Browser;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+  ({ browser, close } = await launchBrowser());
+});
+afterAll(async () => {
+  await close?.();
+});
+
+describe("My targets and cycles", () => {
+  it("a proposer imports a CSV target list: a broken row blocks it, the fixed list goes in", async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    const seen = watchPage(page);
+    await signInAs(page, "Tomasz Wierzbicki");
+    await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "My targets" }).click();
+    await page.getByRole("heading", { level: 1, name: "My targets" }).waitFor();
+    await page.getByRole("link", { name: "Import CSV" }).click();
+    await page.getByRole("heading", { level: 1, name: "Import targets" }).waitFor();
+
+    const dir = mkdtempSync(join(tmpdir(), "fd-targets-"));
+    const broken = join(dir, "broken.csv");
+    writeFileSync(broken, "name,ra,dec,model,size_mas,mag_K\nCeniza Pair,06:12:00,-24:30:00,uniformDisk,2.4,3.1\nBrizna,27:00:00,+05:00:00,point,,6.5\n");
+    await page.setInputFiles("#file", broken);
+    await page.getByRole("button", { name: "Check the list" }).click();
+    await page.getByText("1 problem to fix — nothing has been imported.").waitFor();
+    const problems = page.getByRole("table", { name: "Problems by row" });
+    await expect(problems.locator("tbody tr").first().textContent()).resolves.toMatch(/3\s*ra\s*Right ascension/);
+    await screenshot(page, "targets-import-error");
+
+    const good = join(dir, "good.csv");
+    writeFileSync(good, "name,ra,dec,model,size_mas,mag_K\nCeniza Pair,06:12:00,-24:30:00,uniformDisk,2.4,3.1\nBrizna,07:00:00,+05:00:00,point,,6.5\n");
+    await page.setInputFiles("#file", good);
+    await page.getByRole("button", { name: "Check the list" }).click();
+    await page.getByRole("button", { name: "Import 2 targets" }).click();
+    await page.getByText("Imported 2 new targets.").waitFor();
+    const table = page.getByRole("table", { name: "My targets" });
+    await expect(table.locator("tbody tr").count()).resolves.toBe(2);
+    await expect(table.textContent()).resolves.toContain("uniform disk 2.4 mas");
+    expect(seen.errors).toEqual([]);
+    await screenshot(page, "targets-list");
+    await context.close();
+  });
+
+  it("a proposer adds a target by hand and sees the field named when the declination is wrong", async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    await signInAs(page, "Inés Arroyo-Vidal");
+    await page.goto(`${baseUrl}/targets`);
+    await page.getByLabel("Name").fill("Lumbre Nova 12");
+    await page.getByLabel("Right ascension").fill("05:36:12.8");
+    await page.getByLabel("Declination").fill("-91:00:00");
+    await page.getByLabel("Model").selectOption("binary");
+    await page.getByLabel(/Separation/).fill("12");
+    await page.getByLabel(/Position angle/).fill("40");
+    await page.getByLabel(/Flux ratio/).fill("0.4");
+    await page.getByRole("button", { name: "Add target" }).click();
+    await page.getByText(/Declination.*-90/).first().waitFor();
+    await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("05:36:12.8");
+    await screenshot(page, "targets-form-error");
+    await page.getByLabel("Declination").fill("-01:12:07");
+    await page.getByRole("button", { name: "Add target" }).click();
+    await page.getByText("Lumbre Nova 12 added to My targets.").waitFor();
+    await context.close();
+  });
+
+  it("the chair opens a new cycle with its configurations and nights", async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    const seen = watchPage(page);
+    await signInAs(page, "Henrik Solberg");
+    await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "Cycles" }).click();
+    await page.getByRole("link", { name: "New cycle" }).click();
+    await page.getByLabel("Name").fill("2027B");
+    await page.getByLabel(/Submission deadline/).fill("2027-06-15T12:00");
+    await page.getByLabel("First night").fill("2027-09-01");
+    await page.getByLabel("Last night").fill("2028-02-28");
+    await page.getByLabel(/Nights for compact-3/).fill("30");
+    await page.getByRole("button", { name: "Create cycle" }).click();
+    await page.getByText("Cycle 2027B created.").waitFor();
+    await expect(page.getByText("compact-3 (30 nights)").first().isVisible()).resolves.toBe(true);
+    expect(seen.errors).toEqual([]);
+    await screenshot(page, "cycles");
+    await context.close();
+  });
+});
