@@ -13,7 +13,48 @@ export default [
   route("admin/users", "routes/admin/users.tsx"),
 
   // Array registry
-  ...prefix("registry", [index("routes/registry/overview.tsx")]),
+  ...prefix("registry", [
+    index("routes/registry/overview.tsx"),
+    route("sites/new", "routes/registry/site-new.tsx"),
+    route("sites/:siteId/edit", "routes/registry/site-edit.tsx"),
+    route("stations/new", "routes/registry/station-new.tsx"),
+    route("stations/:stationId", "routes/registry/station.tsx"),
+    route("stations/:stationId/edit", "routes/registry/station-edit.tsx"),
+    route("configurations/new", "routes/registry/configuration-new.tsx"),
+    route("configurations/:configurationId/edit", "routes/registry/configuration-edit.tsx"),
+    route("instruments/new", "routes/registry/instrument-new.tsx"),
+    route("instruments/:instrumentId/edit", "routes/registry/instrument-edit.tsx"),
+    route("instruments/:instrumentId/bands/new", "routes/registry/band-new.tsx"),
+    route("bands/:bandId/edit", "routes/registry/band-edit.tsx"),
+    route("import", "routes/registry/import.tsx"),
+    route("export/:file", "routes/api/registry-export.ts"),
+  ]),
+
+  // Sketchpad and Triangle finder
+  route("sketchpad", "routes/sketchpad/index.tsx"),
+  route("triangles", "routes/triangles/index.tsx"),
+
+  // Cycles
+  ...prefix("cycles", [index("routes/cycles/index.tsx"), route("new", "routes/cycles/new.tsx"), route(":cycleId/edit", "routes/cycles/edit.tsx")]),
+
+  // My targets
+  ...prefix("targets", [
+    index("routes/targets/index.tsx"),
+    route("import", "routes/targets/import.tsx"),
+    route("export.csv", "routes/targets/export.ts"),
+    route(":targetId", "routes/targets/edit.tsx"),
+  ]),
+
+  // Proposals
+  ...prefix("proposals", [
+    index("routes/proposals/list.tsx"),
+    route("new", "routes/proposals/new.tsx"),
+    route(":proposalId", "routes/proposals/editor.tsx"),
+    route(":proposalId/targets/:targetId", "routes/proposals/target.tsx"),
+    route(":proposalId/feasibility", "routes/proposals/feasibility.tsx"),
+    route(":proposalId/science-case", "routes/proposals/science-case.ts"),
+    route(":proposalId/versions/:version", "routes/proposals/version.tsx"),
+  ]),
 
   // Notices
   ...prefix("mailbox", [index("routes/mailbox/index.tsx"), route(":messageId", "routes/mailbox/message.tsx")]),

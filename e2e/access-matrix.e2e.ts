@@ -22,6 +22,8 @@ type Outcome = "ok" | "sign-in" | "forbidden" | "unauthorized" | number;
 type Row = { pattern: string; method: "GET" | "POST"; path: string; body?: unknown; expect: Record<Who, Outcome> };
 const all = (o: Outcome): Record<Who, Outcome> => ({ anonymous: o, proposer: o, reviewer: o, chair: o, scheduler: o, admin: o });
 const signedIn = (o: Outcome): Record<Who, Outcome> => ({ ...all(o), anonymous: "sign-in" });
+const proposerOnly: Record<Who, Outcome> = { anonymous: "sign-in", proposer: "ok", reviewer: "forbidden", chair: "forbidden", scheduler: "forbidden", admin: "forbidden" };
+const chairOnly: Record<Who, Outcome> = { anonymous: "sign-in", proposer: "forbidden", reviewer: "forbidden", chair: "ok", scheduler: "forbidden", admin: "forbidden" };
 const adminOnly: Record<Who, Outcome> = { anonymous: "sign-in", proposer: "forbidden", reviewer: "forbidden", chair: "forbidden", scheduler: "forbidden", admin: "ok" };
 
 const coverageBody = {
@@ -48,6 +50,43 @@ const MATRIX: Row[] = [
   { pattern: "/account", method: "GET", path: "/account", expect: signedIn("ok") },
   { pattern: "/admin/users", method: "GET", path: "/admin/users", expect: adminOnly },
   { pattern: "/registry", method: "GET", path: "/registry", expect: all("ok") },
+  // Registry pages by id: the seeded site, its first station, configuration, instrument and band are number 1.
+  { pattern: "/registry/stations/:stationId", method: "GET", path: "/registry/stations/1", expect: all("ok") },
+  { pattern: "/registry/export/:file", method: "GET", path: "/registry/export/stations.csv", expect: all("ok") },
+  { pattern: "/registry/export/:file", method: "GET", path: "/registry/export/registry.json", expect: all("ok") },
+  { pattern: "/registry/export/:file", method: "GET", path: "/registry/export/nothing.txt", expect: all(404) },
+  { pattern: "/registry/sites/new", method: "GET", path: "/registry/sites/new", expect: adminOnly },
+  { pattern: "/registry/sites/:siteId/edit", method: "GET", path: "/registry/sites/1/edit", expect: adminOnly },
+  { pattern: "/registry/stations/new", method: "GET", path: "/registry/stations/new", expect: adminOnly },
+  { pattern: "/registry/stations/:stationId/edit", method: "GET", path: "/registry/stations/1/edit", expect: adminOnly },
+  { pattern: "/registry/configurations/new", method: "GET", path: "/registry/configurations/new", expect: adminOnly },
+  { pattern: "/registry/configurations/:configurationId/edit", method: "GET", path: "/registry/configurations/1/edit", expect: adminOnly },
+  { pattern: "/registry/instruments/new", method: "GET", path: "/registry/instruments/new", expect: adminOnly },
+  { pattern: "/registry/instruments/:instrumentId/edit", method: "GET", path: "/registry/instruments/1/edit", expect: adminOnly },
+  { pattern: "/registry/instruments/:instrumentId/bands/new", method: "GET", path: "/registry/instruments/1/bands/new", expect: adminOnly },
+  { pattern: "/registry/bands/:bandId/edit", method: "GET", path: "/registry/bands/1/edit", expect: adminOnly },
+  { pattern: "/registry/import", method: "GET", path: "/registry/import", expect: adminOnly },
+  // The guard comes before the body is read: nobody but an administrator gets as far as the form.
+  { pattern: "/registry/import", method: "POST", path: "/registry/import", body: {}, expect: { ...adminOnly, admin: 400 } },
+  { pattern: "/sketchpad", method: "GET", path: "/sketchpad?config=compact-3&ra=05:36:12&dec=-01:12:07", expect: signedIn("ok") },
+  { pattern: "/triangles", method: "GET", path: "/triangles?pool=all", expect: signedIn("ok") },
+  { pattern: "/cycles", method: "GET", path: "/cycles", expect: signedIn("ok") },
+  { pattern: "/targets", method: "GET", path: "/targets", expect: proposerOnly },
+  { pattern: "/targets/import", method: "GET", path: "/targets/import", expect: proposerOnly },
+  { pattern: "/targets/export.csv", method: "GET", path: "/targets/export.csv", expect: proposerOnly },
+  // Somebody else's (or no) target: not found, never revealed.
+  { pattern: "/targets/:targetId", method: "GET", path: "/targets/999999", expect: { ...proposerOnly, proposer: 404 } },
+  // Proposals: proposers only; a proposal of someone else (or none at all) is the same 404.
+  { pattern: "/proposals", method: "GET", path: "/proposals", expect: proposerOnly },
+  { pattern: "/proposals/new", method: "GET", path: "/proposals/new", expect: proposerOnly },
+  { pattern: "/proposals/:proposalId", method: "GET", path: "/proposals/999999", expect: { ...proposerOnly, proposer: 404 } },
+  { pattern: "/proposals/:proposalId", method: "POST", path: "/proposals/1", body: {}, expect: { ...proposerOnly, proposer: 404 } },
+  { pattern: "/proposals/:proposalId/targets/:targetId", method: "GET", path: "/proposals/1/targets/new", expect: { ...proposerOnly, proposer: 404 } },
+  { pattern: "/proposals/:proposalId/feasibility", method: "GET", path: "/proposals/1/feasibility", expect: { ...proposerOnly, proposer: 404 } },
+  { pattern: "/proposals/:proposalId/science-case", method: "GET", path: "/proposals/4/science-case", expect: { ...proposerOnly, proposer: 404 } },
+  { pattern: "/proposals/:proposalId/versions/:version", method: "GET", path: "/proposals/4/versions/1", expect: { ...proposerOnly, proposer: 404 } },
+  { pattern: "/cycles/new", method: "GET", path: "/cycles/new", expect: chairOnly },
+  { pattern: "/cycles/:cycleId/edit", method: "GET", path: "/cycles/1/edit", expect: chairOnly },
   // Demo mode (as the test server runs): every signed-in person may read the mailbox.
   { pattern: "/mailbox", method: "GET", path: "/mailbox", expect: signedIn("ok") },
   { pattern: "/mailbox/:messageId", method: "GET", path: "/mailbox/999999", expect: signedIn(404) },

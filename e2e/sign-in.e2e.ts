@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser, Page } from "playwright-core";
+import type { Browser } from "playwright-core";
 import { DEMO_PEOPLE } from "~/db/demo-scenario";
-import { launchBrowser, screenshot, watchPage } from "./browser";
+import { launchBrowser, screenshot, signInAs, watchPage } from "./browser";
 
 const baseUrl = inject("baseUrl");
 let browser: Browser;
@@ -14,21 +14,13 @@ afterAll(async () => {
   await close?.();
 });
 
-/** Signs in through the local sign-on service by picking a demo person; returns the page. */
-export async function signInAs(page: Page, name: string) {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByRole("link", { name: /Continue with/ }).click();
-  await page.getByRole("button", { name: new RegExp(name) }).click();
-  await page.waitForURL(`${baseUrl}/`);
-}
-
 // The sections each demo role must see in the menu (app/services/permissions.ts), demo mode on.
 const expectedMenus: Record<string, string[]> = {
-  "Inés Arroyo-Vidal": ["Array registry", "Mailbox"],
-  "Kenji Morrow": ["Array registry", "Mailbox"],
-  "Henrik Solberg": ["Array registry", "Mailbox"],
-  "Mei-Lin Chao": ["Array registry", "Mailbox"],
-  "Rafael Quispe": ["Array registry", "Mailbox", "People"],
+  "Inés Arroyo-Vidal": ["Sketchpad", "Triangle finder", "Array registry", "My targets", "Proposals", "Mailbox"],
+  "Kenji Morrow": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox"],
+  "Henrik Solberg": ["Sketchpad", "Triangle finder", "Array registry", "Cycles", "Mailbox"],
+  "Mei-Lin Chao": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox"],
+  "Rafael Quispe": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox", "People"],
 };
 
 describe("sign-in through the local sign-on service", () => {

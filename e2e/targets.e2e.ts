@@ -70,6 +70,18 @@ describe("My targets and cycles", () => {
     await page.getByLabel("Declination").fill("-01:12:07");
     await page.getByRole("button", { name: "Add target" }).click();
     await page.getByText("Lumbre Nova 12 added to My targets.").waitFor();
+
+    // The saved target fills the Sketchpad: name, coordinates and the binary model.
+    await page.goto(`${baseUrl}/sketchpad?config=compact-3`);
+    await page.getByLabel("From My targets").selectOption({ label: "Lumbre Nova 12" });
+    await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("05:36:12.80");
+    await expect(page.getByLabel("Model", { exact: true }).inputValue()).resolves.toBe("binary");
+    await page.waitForURL(/ra=05%3A36%3A12\.80/);
+    await page.waitForFunction(
+      () => ((document.querySelector('figure[aria-label^="uv plane"] .js-plotly-plot') as unknown as { data?: unknown[] } | null)?.data?.length ?? 0) > 0,
+      undefined,
+      { timeout: 20_000 },
+    );
     await context.close();
   });
 

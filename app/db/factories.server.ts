@@ -5,11 +5,13 @@
 import { and, eq, sql } from "drizzle-orm";
 import type { Database } from "./client.server";
 import { ensureCycle } from "~/services/cycles.server";
+import { ensureDemoProposals } from "~/services/proposals-seed.server";
 import {
   DEMO_CONFIGURATIONS,
   DEMO_CYCLE,
   DEMO_INSTRUMENTS,
   DEMO_PEOPLE,
+  DEMO_PROPOSALS,
   DEMO_SITE,
   DEMO_STATIONS,
   type DemoBand,
@@ -111,7 +113,8 @@ export async function seedDemoScenario(db: Database) {
   for (const instrument of DEMO_INSTRUMENTS) await ensureInstrument(db, site.id, instrument);
   for (const person of DEMO_PEOPLE) await ensureUser(db, person);
   const cycle = await ensureCycle(db, { ...DEMO_CYCLE, siteId: site.id });
-  return { site, stations: siteStations.length, cycle };
+  const proposals = await ensureDemoProposals(db, cycle.id, DEMO_PROPOSALS);
+  return { site, stations: siteStations.length, cycle, proposals };
 }
 
 /** True when the database holds no site yet (a fresh install): `npm start` then seeds. */

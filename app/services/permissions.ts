@@ -55,10 +55,40 @@ export type Section = {
  */
 export const SECTIONS: readonly Section[] = [
   {
+    label: "Sketchpad",
+    to: "/sketchpad",
+    permission: "sketch:use",
+    summary: "uv coverage, elevation, dirty beam, visibilities and closure phases of a target, live as you type.",
+  },
+  {
+    label: "Triangle finder",
+    to: "/triangles",
+    permission: "sketch:use",
+    summary: "Station triangles ranked by the closure-phase signal of your model, uv spread and hours.",
+  },
+  {
     label: "Array registry",
     to: "/registry",
     permission: "registry:read",
     summary: "The site, its stations, the configurations on offer and the instruments with their bands.",
+  },
+  {
+    label: "My targets",
+    to: "/targets",
+    permission: "proposals:own",
+    summary: "Your target list with coordinates, models and magnitudes; CSV import and export.",
+  },
+  {
+    label: "Proposals",
+    to: "/proposals",
+    permission: "proposals:own",
+    summary: "Your proposals: text, team, targets with constraints, the PDF science case, a feasibility report, and submission.",
+  },
+  {
+    label: "Cycles",
+    to: "/cycles",
+    permission: "cycles:manage",
+    summary: "Observing cycles: dates, deadline and the configurations on offer with their nights.",
   },
   {
     label: "Mailbox",

@@ -46,4 +46,10 @@ export async function loadSiteRegistry(db: Database, siteId: number) {
   };
 }
 
+/** The site a station belongs to, or null when there is no such station. */
+export async function stationSiteId(db: Database, stationId: number): Promise<number | null> {
+  const [row] = await db.select({ siteId: stations.siteId }).from(stations).where(eq(stations.id, stationId));
+  return row?.siteId ?? null;
+}
+
 export type SiteRegistry = NonNullable<Awaited<ReturnType<typeof loadSiteRegistry>>>;

@@ -111,7 +111,7 @@ describe("cycles", () => {
   });
 
   it("keeps a configuration on offer while proposals of the cycle request it", async () => {
-    const [cycle] = await testDb().select().from(cycles).where(eq(cycles.name, "2027A"));
+    const [cycle] = await testDb().select().from(cycles).where(eq(cycles.name, "2027B"));
     const pi = await findUserByEmail(testDb(), "ines.arroyo@valle-alto.example");
     const [p] = await testDb().insert(proposals).values({ cycleId: cycle.id, piId: pi!.id, title: "Test" }).returning();
     await testDb().insert(proposalHours).values({ proposalId: p.id, configurationId: configIds["medium-4"], hours: 10 });

@@ -24,6 +24,22 @@ export const baseLayout = {
   hoverlabel: { font: { family: '"IBM Plex Sans", sans-serif' } },
 };
 
+type LayoutObject = Record<string, unknown>;
+
+/**
+ * baseLayout merged with a plot's own layout: every axis it names (xaxis, xaxis2, yaxis2, …) gets the
+ * house axis style under its own settings, and margin and legend are merged key by key.
+ */
+export function plotLayout(own: LayoutObject): LayoutObject {
+  const out: LayoutObject = { ...baseLayout, ...own };
+  for (const [key, value] of Object.entries(own)) {
+    if (/^[xy]axis\d*$/.test(key) && value && typeof value === "object") out[key] = { ...baseLayout.xaxis, ...(value as LayoutObject) };
+  }
+  if (own.margin) out.margin = { ...baseLayout.margin, ...(own.margin as LayoutObject) };
+  if (own.legend) out.legend = { ...baseLayout.legend, ...(own.legend as LayoutObject) };
+  return out;
+}
+
 /** One colour per series, chosen for contrast on white and told apart by people with common colour-vision deficiencies. */
 export const SERIES_COLOURS = [
   "#a03611", "#1d4f8c", "#21603a", "#7a4d00", "#6b2f8f", "#0f6f73", "#b4234a", "#4d5a14",
@@ -55,8 +71,13 @@ export function Plot({
           <LazyPlot
             useResizeHandler
             style={box}
-            config={{ displaylogo: false, responsive: true, toImageButtonOptions: { format: "png", scale: 2 } }}
             {...params}
+            config={{
+              displaylogo: false,
+              responsive: true,
+              toImageButtonOptions: { format: "png", scale: 2 },
+              ...(params.config as Record<string, unknown> | undefined),
+            }}
           />
         </Suspense>
       ) : (

@@ -10,6 +10,8 @@ export const MAIL_KINDS = [
   "sign-in-link",
   "role-change",
   "submission",
+  "withdrawal",
+  "co-investigator",
   "assignment",
   "reminder",
   "decision",

@@ -1,0 +1,107 @@
+/**
+ * Stations for a sketch: a configuration from the registry, or a free pick on the station map (click a
+ * station) or with the checkboxes below it (keyboard). Picking on the map while a configuration is
+ * chosen starts a free pick from that configuration's stations.
+ */
+import { Plot, plotLayout } from "~/components/plots/Plot";
+import { SelectField } from "~/components/ui";
+import { type FieldErrors, type RegistryLike, pickedStations } from "~/services/sketch-request";
+import type { SketchState } from "~/services/sketch-state";
+import { InputGroup } from "./InputFields";
+
+const FREE = "";
+
+export function StationPicker({
+  state,
+  set,
+  errors,
+  registry,
+}: {
+  state: SketchState;
+  set: (patch: Partial<SketchState>) => void;
+  errors: FieldErrors;
+  registry: RegistryLike;
+}) {
+  const picked = pickedStations(state, registry);
+  const pickedSet = new Set(picked);
+
+  function toggle(name: string) {
+    const next = new Set(picked);
+    if (next.has(name)) next.delete(name);
+    else next.add(name);
+    set({ config: FREE, stations: registry.stations.filter((s) => next.has(s.name)).map((s) => s.name) });
+  }
+
+  const on = registry.stations.filter((s) => pickedSet.has(s.name));
+  const off = registry.stations.filter((s) => !pickedSet.has(s.name));
+  const trace = (list: typeof registry.stations, chosen: boolean) => ({
+    type: "scatter",
+    mode: "markers+text",
+    name: chosen ? "In the sketch" : "Not used",
+    x: list.map((s) => s.eastM),
+    y: list.map((s) => s.northM),
+    text: list.map((s) => s.name),
+    customdata: list.map((s) => s.name),
+    textposition: "top center",
+    textfont: { size: 10, color: chosen ? "#7f2e14" : "#56637f" },
+    marker: chosen
+      ? { size: 12, color: "#a03611", line: { color: "#672813", width: 1 } }
+      : { size: 9, color: "#ffffff", line: { color: "#7583a3", width: 1.5 } },
+    hovertemplate: `%{customdata}<br>east %{x:.1f} m, north %{y:.1f} m<br>${chosen ? "click to remove" : "click to add"}<extra></extra>`,
+    cliponaxis: false,
+  });
+
+  return (
+    <InputGroup title="Stations">
+      <SelectField
+        label="Configuration"
+        name="config"
+        value={state.config}
+        error={errors.stations}
+        hint={state.config === FREE ? `${picked.length} stations picked on the map or below.` : `${picked.join(" · ")}`}
+        onChange={(e) => {
+          const config = e.target.value;
+          // Switching to a free pick starts from the stations shown now.
+          set(config === FREE ? { config, stations: picked } : { config });
+        }}
+      >
+        {registry.configurations.map((c) => (
+          <option key={c.name} value={c.name}>
+            {c.name} ({c.stationNames.length} stations)
+          </option>
+        ))}
+        <option value={FREE}>Free pick of stations</option>
+      </SelectField>
+      <Plot
+        label="Station map: east and north of each station in metres; picked stations are filled"
+        height={260}
+        data={[trace(off, false), trace(on, true)]}
+        layout={plotLayout({
+          margin: { l: 44, r: 8, t: 8, b: 40 },
+          showlegend: false,
+          xaxis: { title: { text: "East (m) →", standoff: 4 }, zeroline: false },
+          yaxis: { title: { text: "North (m)", standoff: 4 }, scaleanchor: "x", scaleratio: 1, zeroline: false },
+          dragmode: "pan",
+          uirevision: "stations",
+          font: { size: 11 },
+        })}
+        config={{ displayModeBar: false, scrollZoom: false }}
+        onClick={(event: { points?: { customdata?: unknown }[] }) => {
+          const name = event.points?.[0]?.customdata;
+          if (typeof name === "string") toggle(name);
+        }}
+      />
+      <details className="text-sm" open={state.config === FREE}>
+        <summary className="cursor-pointer font-medium text-night-800">Pick stations with checkboxes</summary>
+        <div className="mt-2 grid grid-cols-4 gap-x-2 gap-y-1">
+          {registry.stations.map((s) => (
+            <label key={s.name} className="flex items-center gap-1">
+              <input type="checkbox" name="station" value={s.name} checked={pickedSet.has(s.name)} onChange={() => toggle(s.name)} />
+              <span className="num">{s.name}</span>
+            </label>
+          ))}
+        </div>
+      </details>
+    </InputGroup>
+  );
+}

@@ -1,0 +1,84 @@
+/**
+ * A small typed client for the computation API (POST /api/coverage, /api/ephemeris, /api/triangles),
+ * authenticated by the session cookie, and an SWR hook keyed by the request body so an unchanged
+ * sketch is never asked twice and the last answer stays on screen while the next one is computed.
+ */
+import useSWR from "swr";
+import type { CoverageResponse, TrianglesResponse } from "~/services/interferometry";
+import type { EphemerisResponse } from "~/services/astro";
+
+export type { CoverageResponse, EphemerisResponse, TrianglesResponse };
+
+/** A refused or failed API call: the HTTP status, the API's message and the field it names (docs/cli.md). */
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    message: string,
+    readonly field: string | null,
+  ) {
+    super(message);
+    this.name = "ApiError";
+  }
+}
+
+export interface Timed<T> {
+  result: T;
+  /** Round trip in milliseconds, request to parsed answer. */
+  elapsedMs: number;
+  /** The JSON request text this answers (the panels read their inputs from it, not from the form). */
+  request: string;
+}
+
+/** Posts JSON text to an API route and returns the parsed answer with its round-trip time. */
+export async function postJson<T>(url: string, bodyText: string): Promise<Timed<T>> {
+  const started = performance.now();
+  let res: Response;
+  try {
+    res = await fetch(url, {
+      method: "POST",
+      credentials: "same-origin",
+      headers: { "Content-Type": "application/json", Accept: "application/json" },
+      body: bodyText,
+    });
+  } catch {
+    throw new ApiError(0, "The server could not be reached. Check the connection and try again.", null);
+  }
+  const text = await res.text();
+  let json: unknown = null;
+  try {
+    json = JSON.parse(text);
+  } catch {
+    // not JSON: handled below
+  }
+  if (!res.ok) {
+    const body = (json ?? {}) as { error?: unknown; field?: unknown };
+    const message =
+      res.status === 401
+        ? "Your session has ended: sign in again to continue."
+        : typeof body.error === "string"
+          ? body.error
+          : `The server answered ${res.status}.`;
+    throw new ApiError(res.status, message, typeof body.field === "string" ? body.field : null);
+  }
+  if (json === null) throw new ApiError(res.status, "The server's answer was not JSON.", null);
+  return { result: json as T, elapsedMs: performance.now() - started, request: bodyText };
+}
+
+type Key = readonly [string, string];
+
+const fetcher = <T,>([url, body]: Key) => postJson<T>(url, body);
+
+/**
+ * SWR over a POST route. `body` null means "nothing to ask" (no request). The previous answer is kept
+ * while a new one loads; errors are not retried (a 400 stays a 400 until the input changes).
+ */
+export function useApi<T>(url: string, body: unknown | null) {
+  const key: Key | null = body === null ? null : [url, JSON.stringify(body)];
+  return useSWR<Timed<T>, ApiError, Key | null>(key, fetcher<T>, {
+    keepPreviousData: true,
+    revalidateOnFocus: false,
+    revalidateOnReconnect: false,
+    revalidateIfStale: false,
+    shouldRetryOnError: false,
+  });
+}

@@ -1,0 +1,118 @@
+import { Link } from "react-router";
+import type { Route } from "./+types/list";
+import { ErrorPage } from "~/components/ErrorPage";
+import { ButtonLink, Card, DataTable, EmptyState, PageHeader, type Column } from "~/components/ui";
+import { database } from "~/db/client.server";
+import { requirePermission } from "~/services/auth.server";
+import { deadlineCountdown, listMyProposals, openCycles, STATUS_WORDS } from "~/services/proposals.server";
+import { fmtUtc, StatusBadge, type StatusKey } from "./parts";
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const viewer = await requirePermission(request, "proposals:own");
+  const db = database();
+  const now = new Date();
+  const [rows, open] = await Promise.all([listMyProposals(db, viewer), openCycles(db, now)]);
+  return {
+    proposals: rows.map((r) => ({
+      id: r.id,
+      title: r.title,
+      status: r.status as StatusKey,
+      statusLabel: STATUS_WORDS[r.status],
+      role: r.role,
+      piName: r.piName,
+      cycleName: r.cycleName,
+      deadline: r.deadline.toISOString(),
+      countdown: r.status === "draft" ? deadlineCountdown(r.deadline, now) : null,
+      hoursLeft: r.status === "draft" ? Math.max(0, (r.deadline.getTime() - now.getTime()) / 3_600_000) : null,
+      submittedAt: r.submittedAt?.toISOString() ?? null,
+      version: r.currentVersion,
+      targets: r.targets,
+      hours: r.hours,
+      updatedAt: r.updatedAt.toISOString(),
+    })),
+    openCycles: open.map((c) => ({ id: c.id, name: c.name, deadline: c.submissionDeadline.toISOString(), countdown: deadlineCountdown(c.submissionDeadline, now) })),
+  };
+}
+
+export const meta: Route.MetaFunction = () => [{ title: "My proposals — Fringe Docket" }];
+
+type Row = Route.ComponentProps["loaderData"]["proposals"][number];
+
+const columns: Column<Row>[] = [
+  { key: "cycle", header: "Cycle", value: (r) => r.cycleName },
+  {
+    key: "title",
+    header: "Title",
+    value: (r) => r.title || "(untitled)",
+    render: (r) => (
+      <Link to={`/proposals/${r.id}`} className="font-medium text-ember-800 underline-offset-2 hover:underline">
+        {r.title || "(untitled)"}
+      </Link>
+    ),
+  },
+  { key: "role", header: "Role", value: (r) => r.role },
+  { key: "pi", header: "PI", value: (r) => r.piName },
+  { key: "status", header: "Status", value: (r) => r.statusLabel, render: (r) => <StatusBadge status={r.status} label={r.statusLabel} /> },
+  {
+    key: "deadline",
+    header: "Deadline",
+    value: (r) => (r.hoursLeft === null ? null : Math.round(r.hoursLeft * 10) / 10),
+    render: (r) =>
+      r.countdown ? (
+        <span title={fmtUtc(r.deadline)} className={r.hoursLeft !== null && r.hoursLeft < 72 ? "font-semibold text-caution-700" : undefined}>
+          {r.countdown}
+        </span>
+      ) : (
+        <span className="text-night-500">—</span>
+      ),
+  },
+  { key: "targets", header: "Targets", align: "right", value: (r) => r.targets },
+  { key: "hours", header: "Hours", unit: "h", align: "right", value: (r) => Math.round(r.hours * 10) / 10 },
+  { key: "version", header: "Version", align: "right", value: (r) => (r.version > 0 ? r.version : null) },
+  { key: "updated", header: "Last change", value: (r) => r.updatedAt.slice(0, 16).replace("T", " ") },
+];
+
+export default function MyProposals({ loaderData }: Route.ComponentProps) {
+  const { proposals, openCycles } = loaderData;
+  const canStart = openCycles.length > 0;
+  return (
+    <>
+      <PageHeader
+        title="My proposals"
+        lead="The proposals you lead or work on as a co-investigator. Drafts can be changed until the cycle's deadline; a submitted proposal is frozen."
+        actions={
+          canStart ? (
+            <ButtonLink to="/proposals/new">New proposal</ButtonLink>
+          ) : null
+        }
+      />
+      {canStart ? (
+        <p className="mb-4 text-sm text-night-700">
+          Open for proposals:{" "}
+          {openCycles.map((c, i) => (
+            <span key={c.id}>
+              {i > 0 ? ", " : ""}
+              <span className="font-medium">{c.name}</span> (deadline {fmtUtc(c.deadline)}, {c.countdown})
+            </span>
+          ))}
+          .
+        </p>
+      ) : (
+        <p className="mb-4 text-sm text-night-700">No cycle is open for proposals right now.</p>
+      )}
+      {proposals.length === 0 ? (
+        <EmptyState title="No proposals yet" action={canStart ? <ButtonLink to="/proposals/new">Start a proposal</ButtonLink> : undefined}>
+          A proposal you start, or one a PI adds you to, appears here.
+        </EmptyState>
+      ) : (
+        <Card>
+          <DataTable caption="My proposals with cycle, status and deadline" columns={columns} rows={proposals} rowKey={(r) => r.id} exportName="my-proposals" />
+        </Card>
+      )}
+    </>
+  );
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}

@@ -1,0 +1,36 @@
+import type { Route } from "./+types/science-case";
+import { database } from "~/db/client.server";
+import { requirePermission } from "~/services/auth.server";
+import { loadProposalForViewer, proposalIdFrom, proposalNotFound } from "~/services/proposals-access.server";
+import { readScienceCase } from "~/services/proposals.server";
+
+/**
+ * The science case as a download, for those who may see the proposal (everyone else: 404).
+ * `?version=N` gives the PDF frozen with version N; without it, the current one.
+ */
+export async function loader({ request, params, url }: Route.LoaderArgs) {
+  const viewer = await requirePermission(request, "proposals:own");
+  const id = proposalIdFrom(params.proposalId);
+  const db = database();
+  await loadProposalForViewer(db, viewer, id);
+  const raw = url.searchParams.get("version");
+  let version: number | null = null;
+  if (raw !== null) {
+    if (!/^\d{1,6}$/.test(raw) || Number(raw) < 1) proposalNotFound();
+    version = Number(raw);
+  }
+  const doc = await readScienceCase(db, id, version);
+  if (!doc) throw new Response("This proposal has no science case here.", { status: 404, headers: { "Content-Type": "text/plain; charset=utf-8" } });
+  const ascii = doc.filename.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
+  return new Response(new Uint8Array(doc.data), {
+    status: 200,
+    headers: {
+      "Content-Type": "application/pdf",
+      "Content-Length": String(doc.data.length),
+      "Content-Disposition": `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(doc.filename)}`,
+      "X-Content-Type-Options": "nosniff",
+      "Cache-Control": "private, no-store",
+      ETag: `"${doc.sha256}"`,
+    },
+  });
+}

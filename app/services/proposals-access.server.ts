@@ -1,0 +1,161 @@
+/**
+ * Who may see and change a proposal: the one place these rules live. Route modules and services ask
+ * here; nothing else decides.
+ *
+ *  - Seeing: the PI and the co-investigators (a proposal_members row matched by account, or by
+ *    e-mail without regard to case for someone invited before they had an account). Everybody
+ *    else is answered 404, so a proposal's existence is not revealed. The committee's rule (a
+ *    reviewer assigned to the proposal, the chair of its cycle) belongs in `canViewProposal`.
+ *  - Changing (text, hours, targets, science case): PI and co-investigators, only while the
+ *    proposal is a draft and the cycle's submission deadline has not passed.
+ *  - The team (adding and removing co-investigators): the PI, on an editable draft.
+ *  - Submitting: PI or co-investigator, a draft, before the deadline (completeness is checked by
+ *    the submission itself).
+ *  - Withdrawing: the PI, while the proposal is submitted or under review (the committee has not
+ *    decided yet); allowed after the deadline too.
+ *  - Reopening a withdrawn proposal as a draft: the PI, before the deadline. A later submission
+ *    freezes a new version; the earlier versions stay.
+ */
+import { and, eq, isNull, sql } from "drizzle-orm";
+import { data } from "react-router";
+import type { Database } from "~/db/client.server";
+import { cycles, proposalMembers, proposals, type ProposalStatus } from "~/db/schema/proposals";
+import type { Role } from "~/db/schema/users";
+import type { DbOrTx } from "./mail/outbox.server";
+
+/** What the rules need to know about the person asking. */
+export type ProposalViewer = { user: { id: number; email: string }; roles: readonly Role[] };
+
+/** What the rules need to know about a proposal. */
+export type ProposalAccessSubject = {
+  piId: number;
+  status: ProposalStatus;
+  members: readonly { email: string; userId: number | null }[];
+};
+
+export type ProposalRelation = "pi" | "co-investigator";
+
+const sameEmail = (a: string, b: string) => a.trim().toLowerCase() === b.trim().toLowerCase();
+
+/** The member row that stands for the viewer: linked to the account, or unlinked with the same e-mail. */
+export function membershipOf<M extends { email: string; userId: number | null }>(viewer: ProposalViewer, proposal: { members: readonly M[] }): M | null {
+  return (
+    proposal.members.find((m) => m.userId === viewer.user.id) ??
+    proposal.members.find((m) => m.userId === null && sameEmail(m.email, viewer.user.email)) ??
+    null
+  );
+}
+
+/** The viewer's place on the proposal's team, or null. */
+export function relationTo(viewer: ProposalViewer, proposal: ProposalAccessSubject): ProposalRelation | null {
+  if (proposal.piId === viewer.user.id) return "pi";
+  return membershipOf(viewer, proposal) ? "co-investigator" : null;
+}
+
+/**
+ * May the viewer see this proposal at all? Today: its team. The committee's rule (an assigned
+ * reviewer without a conflict, the chair of its cycle) is added here when the review desk exists.
+ */
+export function canViewProposal(viewer: ProposalViewer, proposal: ProposalAccessSubject): boolean {
+  return relationTo(viewer, proposal) !== null;
+}
+
+/** Statuses in which the PI may still pull the proposal back. */
+export const WITHDRAWABLE: readonly ProposalStatus[] = ["submitted", "under_review"];
+
+export type ProposalAbilities = {
+  relation: ProposalRelation | null;
+  canView: boolean;
+  /** Text, hours, targets, science case. */
+  canEdit: boolean;
+  /** Add and remove co-investigators. */
+  canManageTeam: boolean;
+  canSubmit: boolean;
+  canWithdraw: boolean;
+  canReopen: boolean;
+  deadlinePassed: boolean;
+  /** Why the proposal cannot be edited, in plain words; null when it can. */
+  lockedBecause: string | null;
+};
+
+/** Every ability at once, for a loader to hand to its page and for the actions to check. */
+export function abilitiesFor(
+  viewer: ProposalViewer,
+  proposal: ProposalAccessSubject,
+  cycle: { submissionDeadline: Date },
+  now: Date = new Date(),
+): ProposalAbilities {
+  const relation = relationTo(viewer, proposal);
+  const deadlinePassed = now.getTime() >= cycle.submissionDeadline.getTime();
+  const onTeam = relation !== null;
+  const draft = proposal.status === "draft";
+  const canEdit = onTeam && draft && !deadlinePassed;
+  let lockedBecause: string | null = null;
+  if (!onTeam) lockedBecause = "You are not on this proposal's team.";
+  else if (!draft) lockedBecause = "Only a draft can be changed; this proposal has been submitted or decided.";
+  else if (deadlinePassed) lockedBecause = "The cycle's submission deadline has passed; the draft can no longer be changed.";
+  return {
+    relation,
+    canView: canViewProposal(viewer, proposal),
+    canEdit,
+    canManageTeam: canEdit && relation === "pi",
+    canSubmit: canEdit,
+    canWithdraw: relation === "pi" && WITHDRAWABLE.includes(proposal.status),
+    canReopen: relation === "pi" && proposal.status === "withdrawn" && !deadlinePassed,
+    deadlinePassed,
+    lockedBecause,
+  };
+}
+
+/** Thrown for a proposal the viewer may not see (or that does not exist): the same 404 either way. */
+export function proposalNotFound(): never {
+  throw data("No proposal of yours has this number.", { status: 404 });
+}
+
+/** Parses a route's proposal id; anything else is the same 404. */
+export function proposalIdFrom(param: string | undefined): number {
+  const id = Number(param);
+  if (!param || !/^\d{1,9}$/.test(param) || !Number.isSafeInteger(id) || id < 1) proposalNotFound();
+  return id;
+}
+
+/**
+ * Loads a proposal with its cycle and team for the viewer, or throws the 404. A co-investigator
+ * invited by e-mail before they had an account is linked to it here, the first time they open it.
+ */
+export async function loadProposalForViewer(db: Database, viewer: ProposalViewer, proposalId: number, now: Date = new Date()) {
+  const [row] = await db
+    .select({ proposal: proposals, cycle: cycles })
+    .from(proposals)
+    .innerJoin(cycles, eq(cycles.id, proposals.cycleId))
+    .where(eq(proposals.id, proposalId));
+  if (!row) proposalNotFound();
+  const members = await db.select().from(proposalMembers).where(eq(proposalMembers.proposalId, proposalId)).orderBy(proposalMembers.id);
+  const subject: ProposalAccessSubject = { piId: row.proposal.piId, status: row.proposal.status, members };
+  if (!canViewProposal(viewer, subject)) proposalNotFound();
+  const mine = membershipOf(viewer, { members });
+  if (mine && mine.userId === null) {
+    await linkMember(db, mine.id, viewer.user.id);
+    mine.userId = viewer.user.id;
+  }
+  return { ...row, members, abilities: abilitiesFor(viewer, subject, row.cycle, now) };
+}
+
+export type LoadedProposal = Awaited<ReturnType<typeof loadProposalForViewer>>;
+
+async function linkMember(db: DbOrTx, memberId: number, userId: number) {
+  await db
+    .update(proposalMembers)
+    .set({ userId })
+    .where(and(eq(proposalMembers.id, memberId), isNull(proposalMembers.userId)));
+}
+
+/** SQL condition "the viewer is PI or co-investigator of proposals.id" (for lists). */
+export function onTeamCondition(viewer: ProposalViewer) {
+  return sql`(${proposals.piId} = ${viewer.user.id} or exists (
+    select 1 from ${proposalMembers}
+    where ${proposalMembers.proposalId} = ${proposals.id}
+      and (${proposalMembers.userId} = ${viewer.user.id}
+           or (${proposalMembers.userId} is null and lower(${proposalMembers.email}) = lower(${viewer.user.email})))
+  ))`;
+}

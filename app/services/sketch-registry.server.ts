@@ -1,0 +1,66 @@
+/**
+ * The registry as the Sketchpad and the Triangle finder need it: one site (by name, else the first),
+ * its stations, configurations with ordered station names and instruments with bands, plus the date
+ * of the next night there.
+ */
+import { database, type Database } from "~/db/client.server";
+import type { Viewer } from "./auth.server";
+import { listSites, loadSiteRegistry } from "./registry.server";
+import { listTargets } from "./targets.server";
+import { nextNightDate } from "./sketch-night";
+import type { SketchRegistry } from "./sketch-request";
+import type { SavedTarget, StateDefaults } from "./sketch-state";
+
+export async function loadSketchRegistry(db: Database, siteName: string | null, now = new Date()) {
+  const sites = await listSites(db);
+  const chosen = sites.find((s) => s.name === siteName) ?? sites[0];
+  if (!chosen) return null;
+  const full = await loadSiteRegistry(db, chosen.id);
+  if (!full) return null;
+  const registry: SketchRegistry = {
+    site: {
+      name: full.site.name,
+      latitudeDeg: full.site.latitudeDeg,
+      longitudeDeg: full.site.longitudeDeg,
+      altitudeM: full.site.altitudeM,
+      minElevationDeg: full.site.minElevationDeg,
+      delayLineStrokeM: full.site.delayLineStrokeM,
+    },
+    stations: full.stations.map((s) => ({ name: s.name, eastM: s.eastM, northM: s.northM, upM: s.upM, pathOffsetM: s.pathOffsetM })),
+    configurations: full.configurations.map((c) => ({
+      name: c.name,
+      description: c.description,
+      offered: c.offered,
+      stationNames: c.stationNames,
+    })),
+    instruments: full.instruments
+      .filter((i) => i.bands.length > 0)
+      .map((i) => ({
+        name: i.name,
+        maxTelescopes: i.maxTelescopes,
+        bands: i.bands.map((b) => ({
+          name: b.name,
+          centralWavelengthM: b.centralWavelengthM,
+          bandwidthM: b.bandwidthM,
+          channels: b.channels,
+        })),
+      })),
+  };
+  const firstConfig = registry.configurations.find((c) => c.offered) ?? registry.configurations[0];
+  // The instrument that combines the most telescopes suits every configuration best.
+  const firstInstrument = [...registry.instruments].sort((a, b) => b.maxTelescopes - a.maxTelescopes)[0];
+  const defaults: StateDefaults = {
+    date: nextNightDate(now, registry.site.longitudeDeg),
+    config: firstConfig?.name ?? "",
+    instrument: firstInstrument?.name ?? "",
+    band: firstInstrument?.bands[0]?.name ?? "",
+  };
+  return { registry, defaults, siteNames: sites.map((s) => s.name) };
+}
+
+/** The viewer's own targets for the "From My targets" picker (empty for roles without a target list). */
+export async function savedTargetsOf(viewer: Viewer): Promise<SavedTarget[]> {
+  if (!viewer.permissions.has("proposals:own")) return [];
+  const list = await listTargets(database(), viewer.user.id);
+  return list.map((t) => ({ id: t.id, name: t.name, raDeg: t.raDeg, decDeg: t.decDeg, model: t.model }));
+}

@@ -1,0 +1,302 @@
+/**
+ * The inputs of the Sketchpad and the Triangle finder, kept exactly as typed (strings), and their
+ * encoding in URL search parameters so a sketch can be shared by its address. Pure.
+ *
+ * Parameters (all optional; missing ones take the defaults given to the reader):
+ *   name, ra, dec            target name and coordinates as typed
+ *   date                     night (YYYY-MM-DD; the night that begins on that local evening)
+ *   config | st              a configuration by name, or a free pick: st=C01,C05,X02
+ *   pool                     Triangle finder: a configuration name, or "all"
+ *   inst, band               instrument and band by name
+ *   model, diam, fwhm, ld, sep, pa, ratio
+ *                            model type and parameters (only the type's own parameters are written)
+ *   c2, c2diam … c2ratio, c2flux, c2east, c2north
+ *                            optional second component (the model becomes a two-component sum)
+ *   step | ha=from,to,step   night sampling every `step` minutes, or an hour-angle range in hours
+ *   minel, dl=off, wt, uv=m  minimum elevation, delay-line check off, beam weighting, uv plane in metres
+ */
+
+export const SIMPLE_MODEL_TYPES = ["point", "uniformDisk", "gaussian", "limbDarkenedDisk", "ring", "binary"] as const;
+export type SimpleModelType = (typeof SIMPLE_MODEL_TYPES)[number];
+
+export const MODEL_PARAMS_LIST = [
+  "diameterMas",
+  "fwhmMas",
+  "coefficient",
+  "separationMas",
+  "positionAngleDeg",
+  "fluxRatio",
+] as const;
+export type ModelParam = (typeof MODEL_PARAMS_LIST)[number];
+
+export const MODEL_LABELS: Record<SimpleModelType, string> = {
+  point: "Point source",
+  uniformDisk: "Uniform disk",
+  gaussian: "Gaussian",
+  limbDarkenedDisk: "Limb-darkened disk",
+  ring: "Thin ring",
+  binary: "Binary (two points)",
+};
+
+/** Parameters of each model type, in form order. */
+export const MODEL_PARAMS: Record<SimpleModelType, readonly ModelParam[]> = {
+  point: [],
+  uniformDisk: ["diameterMas"],
+  gaussian: ["fwhmMas"],
+  limbDarkenedDisk: ["diameterMas", "coefficient"],
+  ring: ["diameterMas"],
+  binary: ["separationMas", "positionAngleDeg", "fluxRatio"],
+};
+
+export const PARAM_INFO: Record<ModelParam, { label: string; unit?: string; urlKey: string; fallback: string; hint?: string }> = {
+  diameterMas: { label: "Diameter", unit: "mas", urlKey: "diam", fallback: "2" },
+  fwhmMas: { label: "FWHM", unit: "mas", urlKey: "fwhm", fallback: "2" },
+  coefficient: {
+    label: "Limb-darkening coefficient",
+    urlKey: "ld",
+    fallback: "0.3",
+    hint: "Linear law I(μ) = 1 − a(1 − μ), a from 0 (uniform) to 1.",
+  },
+  separationMas: { label: "Separation", unit: "mas", urlKey: "sep", fallback: "4" },
+  positionAngleDeg: { label: "Position angle", unit: "° east of north", urlKey: "pa", fallback: "60" },
+  fluxRatio: { label: "Flux ratio", unit: "secondary / primary", urlKey: "ratio", fallback: "0.5" },
+};
+
+export interface ModelState {
+  type: SimpleModelType;
+  /** Every parameter as typed; only the type's own ones are used. */
+  params: Record<ModelParam, string>;
+}
+
+export interface SecondComponentState extends ModelState {
+  /** Flux relative to the first component (which has flux 1). */
+  flux: string;
+  /** Offset of its centre from the phase centre, mas toward east and north. */
+  east: string;
+  north: string;
+}
+
+export type Weighting = "natural" | "uniform" | "robust";
+export type SamplingMode = "night" | "hourAngle";
+
+/** Inputs shared by both pages. */
+export interface CommonState {
+  name: string;
+  ra: string;
+  dec: string;
+  date: string;
+  instrument: string;
+  band: string;
+  model: ModelState;
+  second: SecondComponentState | null;
+  sampling: SamplingMode;
+  stepMin: string;
+  haFrom: string;
+  haTo: string;
+  haStep: string;
+  /** Minimum elevation in degrees as typed; "" means the site's own. */
+  minElevation: string;
+  delayLines: boolean;
+}
+
+export interface SketchState extends CommonState {
+  /** Configuration name, or "" for a free pick of stations. */
+  config: string;
+  /** The free pick (used when config is ""). */
+  stations: string[];
+  weighting: Weighting;
+  uvUnit: "mlambda" | "m";
+}
+
+export interface TriangleState extends CommonState {
+  /** A configuration name, or ALL_STATIONS. */
+  pool: string;
+}
+
+export const ALL_STATIONS = "all";
+
+export const DEFAULT_STEP_MIN = "10";
+export const STEP_CHOICES_MIN = ["2", "5", "10", "15", "20", "30"] as const;
+const DEFAULT_HA = { from: "-4", to: "4", step: "0.25" };
+
+/** Defaults that depend on the registry and today's date (the reader cannot know them). */
+export interface StateDefaults {
+  date: string;
+  config: string;
+  instrument: string;
+  band: string;
+}
+
+export function defaultModel(type: SimpleModelType = "uniformDisk"): ModelState {
+  const params = Object.fromEntries(MODEL_PARAMS_LIST.map((p) => [p, PARAM_INFO[p].fallback])) as Record<ModelParam, string>;
+  return { type, params };
+}
+
+export function defaultSecond(): SecondComponentState {
+  return { ...defaultModel("gaussian"), params: { ...defaultModel().params, fwhmMas: "8" }, flux: "0.2", east: "0", north: "0" };
+}
+
+function isModelType(t: string | null): t is SimpleModelType {
+  return t !== null && (SIMPLE_MODEL_TYPES as readonly string[]).includes(t);
+}
+
+function readModel(params: URLSearchParams, prefix: string, fallbackType: SimpleModelType): ModelState {
+  const typeText = params.get(prefix === "" ? "model" : prefix);
+  const model = defaultModel(isModelType(typeText) ? typeText : fallbackType);
+  for (const p of MODEL_PARAMS_LIST) {
+    const v = params.get(prefix + PARAM_INFO[p].urlKey);
+    if (v !== null) model.params[p] = v;
+  }
+  return model;
+}
+
+function writeModel(out: URLSearchParams, model: ModelState, prefix: string) {
+  out.set(prefix === "" ? "model" : prefix, model.type);
+  for (const p of MODEL_PARAMS[model.type]) out.set(prefix + PARAM_INFO[p].urlKey, model.params[p]);
+}
+
+function readCommon(params: URLSearchParams, defaults: StateDefaults): CommonState {
+  const get = (k: string, d: string) => params.get(k) ?? d;
+  const c2 = params.get("c2");
+  let second: SecondComponentState | null = null;
+  if (isModelType(c2)) {
+    const m = readModel(params, "c2", "gaussian");
+    const base = defaultSecond();
+    second = { ...m, flux: get("c2flux", base.flux), east: get("c2east", base.east), north: get("c2north", base.north) };
+  }
+  const ha = params.get("ha");
+  let haParts = [DEFAULT_HA.from, DEFAULT_HA.to, DEFAULT_HA.step];
+  if (ha !== null) {
+    const parts = ha.split(",");
+    haParts = [parts[0] ?? "", parts[1] ?? "", parts[2] ?? ""];
+  }
+  return {
+    name: get("name", ""),
+    ra: get("ra", ""),
+    dec: get("dec", ""),
+    date: get("date", defaults.date),
+    instrument: get("inst", defaults.instrument),
+    band: get("band", defaults.band),
+    model: readModel(params, "", "uniformDisk"),
+    second,
+    sampling: ha !== null ? "hourAngle" : "night",
+    stepMin: get("step", DEFAULT_STEP_MIN),
+    haFrom: haParts[0],
+    haTo: haParts[1],
+    haStep: haParts[2],
+    minElevation: get("minel", ""),
+    delayLines: params.get("dl") !== "off",
+  };
+}
+
+function writeCommon(out: URLSearchParams, s: CommonState) {
+  if (s.name !== "") out.set("name", s.name);
+  if (s.ra !== "") out.set("ra", s.ra);
+  if (s.dec !== "") out.set("dec", s.dec);
+  out.set("date", s.date);
+  out.set("inst", s.instrument);
+  out.set("band", s.band);
+  writeModel(out, s.model, "");
+  if (s.second) {
+    writeModel(out, s.second, "c2");
+    out.set("c2flux", s.second.flux);
+    out.set("c2east", s.second.east);
+    out.set("c2north", s.second.north);
+  }
+  if (s.sampling === "hourAngle") out.set("ha", `${s.haFrom},${s.haTo},${s.haStep}`);
+  else if (s.stepMin !== DEFAULT_STEP_MIN) out.set("step", s.stepMin);
+  if (s.minElevation !== "") out.set("minel", s.minElevation);
+  if (!s.delayLines) out.set("dl", "off");
+}
+
+/** Splits "C01, C05,X02" into distinct names in order. */
+export function splitStationList(text: string | null): string[] {
+  if (!text) return [];
+  const out: string[] = [];
+  for (const raw of text.split(",")) {
+    const name = raw.trim();
+    if (name !== "" && !out.includes(name)) out.push(name);
+  }
+  return out;
+}
+
+export function readSketchState(params: URLSearchParams, defaults: StateDefaults): SketchState {
+  const st = params.get("st");
+  const wt = params.get("wt");
+  return {
+    ...readCommon(params, defaults),
+    config: st !== null ? "" : (params.get("config") ?? defaults.config),
+    stations: splitStationList(st),
+    weighting: wt === "uniform" || wt === "robust" ? wt : "natural",
+    uvUnit: params.get("uv") === "m" ? "m" : "mlambda",
+  };
+}
+
+export function writeSketchState(s: SketchState): URLSearchParams {
+  const out = new URLSearchParams();
+  writeCommon(out, s);
+  if (s.config !== "") out.set("config", s.config);
+  else out.set("st", s.stations.join(","));
+  if (s.weighting !== "natural") out.set("wt", s.weighting);
+  if (s.uvUnit === "m") out.set("uv", "m");
+  return out;
+}
+
+export function readTriangleState(params: URLSearchParams, defaults: StateDefaults): TriangleState {
+  return { ...readCommon(params, defaults), pool: params.get("pool") ?? defaults.config };
+}
+
+export function writeTriangleState(s: TriangleState): URLSearchParams {
+  const out = new URLSearchParams();
+  writeCommon(out, s);
+  out.set("pool", s.pool);
+  return out;
+}
+
+/** The Sketchpad address of a station pick with the target, model, date, band and sampling of `s`. */
+export function sketchpadHref(s: CommonState, stations: readonly string[]): string {
+  const state: SketchState = { ...s, config: "", stations: [...stations], weighting: "natural", uvUnit: "mlambda" };
+  return `/sketchpad?${writeSketchState(state).toString()}`;
+}
+
+/** A saved target as the Sketchpad and Triangle finder offer it ("From My targets"). */
+export interface SavedTarget {
+  id: number;
+  name: string;
+  raDeg: number;
+  decDeg: number;
+  model: { type: string; [key: string]: unknown };
+}
+
+function paramsFrom(model: { [key: string]: unknown }): Record<ModelParam, string> {
+  const params = { ...defaultModel().params };
+  for (const p of MODEL_PARAMS_LIST) {
+    const x = model[p];
+    if (typeof x === "number" && Number.isFinite(x)) params[p] = String(x);
+  }
+  return params;
+}
+
+/**
+ * The model inputs for a stored model: simple types directly; a sum keeps its first two components
+ * (the first at the phase centre, the second with its relative flux and offset). Anything else
+ * falls back to a point source.
+ */
+export function modelInputsOf(model: SavedTarget["model"]): { model: ModelState; second: SecondComponentState | null } {
+  if (isModelType(model.type)) return { model: { type: model.type, params: paramsFrom(model) }, second: null };
+  const components = Array.isArray(model.components) ? (model.components as { model: SavedTarget["model"]; flux: number; offsetEastMas?: number; offsetNorthMas?: number }[]) : [];
+  const [a, b] = components;
+  if (!a || !isModelType(a.model.type)) return { model: defaultModel("point"), second: null };
+  const first: ModelState = { type: a.model.type, params: paramsFrom(a.model) };
+  if (!b || !isModelType(b.model.type)) return { model: first, second: null };
+  return {
+    model: first,
+    second: {
+      type: b.model.type,
+      params: paramsFrom(b.model),
+      flux: String(b.flux / (a.flux || 1)),
+      east: String((b.offsetEastMas ?? 0) - (a.offsetEastMas ?? 0)),
+      north: String((b.offsetNorthMas ?? 0) - (a.offsetNorthMas ?? 0)),
+    },
+  };
+}
