@@ -1,7 +1,7 @@
 import { mkdirSync } from "node:fs";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
-import { inject } from "vitest";
+import { afterAll, beforeAll, inject } from "vitest";
 import { chromium, type Browser, type Page } from "playwright-core";
 
 export const ARTIFACTS = fileURLToPath(new URL("./artifacts", import.meta.url));
@@ -28,6 +28,28 @@ export async function launchBrowser(): Promise<{ browser: Browser; close: () => 
   return {
     browser,
     close: () => browser.close(),
+  };
+}
+
+/**
+ * One Chromium for the test file: launched before its tests, closed after them. Returns a handle
+ * with the two methods tests use, so a file writes `const browser = useBrowser();` at the top.
+ */
+export function useBrowser(): Pick<Browser, "newPage" | "newContext"> {
+  let launched: Awaited<ReturnType<typeof launchBrowser>> | undefined;
+  beforeAll(async () => {
+    launched = await launchBrowser();
+  });
+  afterAll(async () => {
+    await launched?.close();
+  });
+  const current = () => {
+    if (!launched) throw new Error("the browser is not running: call useBrowser() at the top of the test file");
+    return launched.browser;
+  };
+  return {
+    newPage: (...args) => current().newPage(...args),
+    newContext: (...args) => current().newContext(...args),
   };
 }
 

@@ -1,21 +1,12 @@
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { describe, expect, inject, it } from "vitest";
 import { makeTinyPdf } from "~/services/pdf";
-import { launchBrowser, screenshot, signInAs, watchPage } from "./browser";
+import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(async () => {
-  await close?.();
-});
+const browser = useBrowser();
 
 describe("proposals", () => {
   it("a proposer writes a proposal, uploads the science case, reads the report, submits and gets the notice", async () => {

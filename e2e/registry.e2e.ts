@@ -2,21 +2,19 @@ import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { and, eq, inArray } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser, Page } from "playwright-core";
+import type { Page } from "playwright-core";
 import { createDatabase } from "~/db/client.server";
 import { sites, stations } from "~/db/schema/array";
-import { ARTIFACTS, launchBrowser, screenshot, signInAs, watchPage } from "./browser";
+import { ARTIFACTS, screenshot, signInAs, useBrowser, watchPage } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const NEW_STATIONS = ["W25", "W26"];
-let browser: Browser;
-let close: () => Promise<void>;
+const browser = useBrowser();
 let db: ReturnType<typeof createDatabase>["db"];
 let endDb: () => Promise<unknown>;
 let siteId: number;
 
 beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
   const handle = createDatabase(inject("databaseUrl"), { max: 2 });
   db = handle.db;
   endDb = () => handle.client.end();
@@ -27,7 +25,6 @@ afterAll(async () => {
   // The browser tests share one database: leave the demo registry as it was found.
   await db?.delete(stations).where(and(eq(stations.siteId, siteId), inArray(stations.name, NEW_STATIONS)));
   await endDb?.();
-  await close?.();
 });
 
 async function station(name: string) {

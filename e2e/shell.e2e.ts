@@ -1,17 +1,8 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser } from "playwright-core";
-import { launchBrowser, screenshot, watchPage } from "./browser";
+import { describe, expect, inject, it } from "vitest";
+import { screenshot, useBrowser, watchPage } from "./browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(async () => {
-  await close?.();
-});
+const browser = useBrowser();
 
 describe("app shell", () => {
   it("renders the home page in IBM Plex Sans served by the app itself", async () => {

@@ -1,18 +1,9 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { describe, expect, inject, it } from "vitest";
 import { DEMO_PEOPLE } from "~/db/demo-scenario";
-import { launchBrowser, screenshot, signInAs, watchPage } from "./browser";
+import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(async () => {
-  await close?.();
-});
+const browser = useBrowser();
 
 // The sections each demo role must see in the menu (app/services/permissions.ts), demo mode on.
 const expectedMenus: Record<string, string[]> = {

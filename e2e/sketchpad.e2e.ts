@@ -3,20 +3,12 @@
  * sign-on page: plots are drawn by Plotly, follow the inputs, the address carries the inputs, input
  * errors appear beside their field, and a ranked triangle opens in the Sketchpad.
  */
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { describe, expect, inject, it } from "vitest";
 import type { Browser, Locator, Page } from "playwright-core";
-import { launchBrowser, screenshot, signInAs, watchPage } from "./browser";
+import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(async () => {
-  await close?.();
-});
+const browser = useBrowser();
 
 // A target near the meridian at local midnight in mid-March at the demo site, a binary so closure
 // phases are not trivially zero.

@@ -1,20 +1,11 @@
 import { writeFileSync, mkdtempSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser } from "playwright-core";
-import { launchBrowser, screenshot, signInAs, watchPage } from "./browser";
+import { describe, expect, inject, it } from "vitest";
+import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(async () => {
-  await close?.();
-});
+const browser = useBrowser();
 
 describe("My targets and cycles", () => {
   it("a proposer imports a CSV target list: a broken row blocks it, the fixed list goes in", async () => {

@@ -4,6 +4,10 @@ import { env } from "~/env.server";
 import * as schema from "./schema";
 
 export type Database = PostgresJsDatabase<typeof schema>;
+/** The handle inside `db.transaction(async (tx) => …)`. */
+export type Transaction = Parameters<Parameters<Database["transaction"]>[0]>[0];
+/** Either: for functions that write alone or as part of a caller's transaction. */
+export type DbOrTx = Database | Transaction;
 
 export function createDatabase(url: string, options: { max?: number } = {}) {
   const client = postgres(url, { max: options.max ?? 10, onnotice: () => {} });

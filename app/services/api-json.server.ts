@@ -7,6 +7,7 @@
  * for the body itself); 405 for any method but POST; 413 for a body over 2 MB.
  * A bad request never produces a 500.
  */
+import { readBodyCapped } from "./http-body.server";
 import type { ParseResult } from "./requests";
 
 /** Largest accepted request body, bytes. */
@@ -52,34 +53,10 @@ export async function readJsonBody(request: Request, limitBytes = MAX_BODY_BYTES
     response: jsonResponse({ error, field: null } satisfies ApiError, 400),
   });
 
-  const declared = Number(request.headers.get("content-length") ?? "NaN");
-  if (Number.isFinite(declared) && declared > limitBytes) return tooLarge();
-  if (!request.body) return bad("request body is empty: send a JSON object");
-
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  try {
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) break;
-      total += value.byteLength;
-      if (total > limitBytes) {
-        await reader.cancel().catch(() => undefined);
-        return tooLarge();
-      }
-      chunks.push(value);
-    }
-  } catch {
-    return bad("request body could not be read");
-  }
-  if (total === 0) return bad("request body is empty: send a JSON object");
-  const bytes = new Uint8Array(total);
-  let offset = 0;
-  for (const c of chunks) {
-    bytes.set(c, offset);
-    offset += c.byteLength;
-  }
+  const read = await readBodyCapped(request, limitBytes);
+  if (!read.ok) return read.reason === "too-large" ? tooLarge() : bad("request body could not be read");
+  if (read.bytes.byteLength === 0) return bad("request body is empty: send a JSON object");
+  const bytes = read.bytes;
   let text: string;
   try {
     text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);

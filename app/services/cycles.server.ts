@@ -1,10 +1,10 @@
 /** Observing cycles: their period, deadline and the configurations on offer (with nights available). */
 import { asc, desc, eq, gt, inArray } from "drizzle-orm";
-import type { Database } from "~/db/client.server";
+import type { Database, Transaction } from "~/db/client.server";
 import { configurations } from "~/db/schema/array";
 import { cycleConfigurations, cycles, proposalHours, proposals } from "~/db/schema/proposals";
 
-type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+type Tx = Transaction;
 type Db = Database | Tx;
 
 export type CycleInput = {
@@ -50,9 +50,9 @@ export async function getCycle(db: Db, id: number) {
   return { ...cycle, offers };
 }
 
-/** Cycles still taking proposals at `now`. */
+/** Cycles still taking proposals at `now` (deadline in the future), soonest deadline first. */
 export async function openCycles(db: Db, now = new Date()) {
-  return db.select().from(cycles).where(gt(cycles.submissionDeadline, now)).orderBy(asc(cycles.submissionDeadline));
+  return db.select().from(cycles).where(gt(cycles.submissionDeadline, now)).orderBy(asc(cycles.submissionDeadline), asc(cycles.name));
 }
 
 export async function findCycleByName(db: Db, name: string) {

@@ -21,7 +21,7 @@ import { data } from "react-router";
 import type { Database } from "~/db/client.server";
 import { cycles, proposalMembers, proposals, type ProposalStatus } from "~/db/schema/proposals";
 import type { Role } from "~/db/schema/users";
-import type { DbOrTx } from "./mail/outbox.server";
+import type { DbOrTx } from "~/db/client.server";
 
 /** What the rules need to know about the person asking. */
 export type ProposalViewer = { user: { id: number; email: string }; roles: readonly Role[] };

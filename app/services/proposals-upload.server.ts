@@ -5,6 +5,7 @@
  * body handed to the platform's form-data parser.
  */
 import { MAX_PDF_BYTES, formatBytes } from "./pdf";
+import { parseForm, readBodyCapped } from "./http-body.server";
 
 /** Room for the multipart boundaries, part headers and the small text fields beside the file. */
 export const MULTIPART_OVERHEAD_BYTES = 64 * 1024;
@@ -54,40 +55,9 @@ export async function readFormCapped(request: Request, maxBytes: number = MAX_FO
 }
 
 async function readCapped(request: Request, maxBytes: number, tooBig: () => CappedForm): Promise<CappedForm> {
-  const contentType = request.headers.get("Content-Type") ?? "";
-  const declared = Number(request.headers.get("Content-Length"));
-  if (Number.isFinite(declared) && declared > maxBytes) {
-    await request.body?.cancel().catch(() => {});
-    return tooBig();
-  }
-  if (!request.body) return { ok: false, status: 400, message: "The form arrived empty; please try again." };
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  try {
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) break;
-      total += value.byteLength;
-      if (total > maxBytes) {
-        await reader.cancel().catch(() => {});
-        return tooBig();
-      }
-      chunks.push(value);
-    }
-  } catch {
-    return { ok: false, status: 400, message: "The upload was interrupted; please try again." };
-  }
-  const body = new Uint8Array(total);
-  let at = 0;
-  for (const c of chunks) {
-    body.set(c, at);
-    at += c.byteLength;
-  }
-  try {
-    const form = await new Response(body, { headers: { "Content-Type": contentType } }).formData();
-    return { ok: true, form };
-  } catch {
-    return { ok: false, status: 400, message: "The form could not be read; please try again." };
-  }
+  const read = await readBodyCapped(request, maxBytes);
+  if (!read.ok) return read.reason === "too-large" ? tooBig() : { ok: false, status: 400, message: "The upload was interrupted; please try again." };
+  if (read.bytes.byteLength === 0) return { ok: false, status: 400, message: "The form arrived empty; please try again." };
+  const form = await parseForm(request, read.bytes);
+  return form ? { ok: true, form } : { ok: false, status: 400, message: "The form could not be read; please try again." };
 }

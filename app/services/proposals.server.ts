@@ -7,7 +7,7 @@
 import { createHash } from "node:crypto";
 import { createElement } from "react";
 import { and, asc, desc, eq, gt, inArray, sql } from "drizzle-orm";
-import type { Database } from "~/db/client.server";
+import type { Database, DbOrTx, Transaction } from "~/db/client.server";
 import { bands, configurationStations, configurations, instruments, stations } from "~/db/schema/array";
 import {
   cycleConfigurations,
@@ -33,7 +33,7 @@ import { ProposalWithdrawnEmail } from "~/emails/ProposalWithdrawnEmail";
 import { env } from "~/env.server";
 import { computeFeasibility, type FeasibilityReport } from "./feasibility";
 import { loadFeasibilityInput } from "./feasibility.server";
-import { enqueueMail, type DbOrTx } from "./mail/outbox.server";
+import { enqueueMail } from "./mail/outbox.server";
 import { checkPdf, formatBytes } from "./pdf";
 import {
   abilitiesFor,
@@ -98,7 +98,7 @@ export function deadlineCountdown(deadline: Date, now: Date = new Date()): strin
   return `${Math.floor(hours / 24)} days left`;
 }
 
-type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+type Tx = Transaction;
 
 type Need = "canEdit" | "canManageTeam" | "canSubmit" | "canWithdraw" | "canReopen";
 
@@ -163,11 +163,6 @@ export const STATUS_WORDS: Record<ProposalStatus, string> = {
 };
 
 // ---------------------------------------------------------------- reading
-
-/** Cycles still taking proposals (deadline in the future), soonest deadline first. */
-export async function openCycles(db: DbOrTx, now: Date = new Date()) {
-  return db.select().from(cycles).where(gt(cycles.submissionDeadline, now)).orderBy(asc(cycles.submissionDeadline), asc(cycles.name));
-}
 
 /** The proposals where the viewer is PI or co-investigator, newest change first. */
 export async function listMyProposals(db: Database, viewer: ProposalViewer) {

@@ -5,7 +5,9 @@
  */
 import { and, asc, count, eq, inArray, max, ne } from "drizzle-orm";
 import { data } from "react-router";
-import type { Database } from "~/db/client.server";
+import type { Database, Transaction } from "~/db/client.server";
+import { parseForm, readBodyCapped } from "./http-body.server";
+import { loadSiteRegistry } from "./registry.server";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "~/db/schema/array";
 import type {
   BandRecord,
@@ -18,7 +20,7 @@ import type {
   StationRecord,
 } from "./registry-io";
 
-type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+type Tx = Transaction;
 type Db = Database | Tx;
 
 // ---------------------------------------------------------------------------------------------
@@ -55,39 +57,12 @@ export async function readForm(
   limitBytes = 64_000,
   tooLargeMessage = "The form is too large to be a registry entry.",
 ): Promise<{ form: FormData } | { error: string; status: number }> {
-  const declared = Number(request.headers.get("Content-Length") ?? "0");
-  const tooLarge = { error: tooLargeMessage, status: 413 };
-  if (declared > limitBytes) {
-    await request.body?.cancel().catch(() => {});
-    return tooLarge;
+  const read = await readBodyCapped(request, limitBytes);
+  if (!read.ok) {
+    return read.reason === "too-large" ? { error: tooLargeMessage, status: 413 } : { error: "The form could not be read; please send it again.", status: 400 };
   }
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  if (request.body) {
-    const reader = request.body.getReader();
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) break;
-      total += value.byteLength;
-      if (total > limitBytes) {
-        await reader.cancel().catch(() => {});
-        return tooLarge;
-      }
-      chunks.push(value);
-    }
-  }
-  const body = new Uint8Array(total);
-  let at = 0;
-  for (const c of chunks) {
-    body.set(c, at);
-    at += c.byteLength;
-  }
-  try {
-    const form = await new Response(body, { headers: { "Content-Type": request.headers.get("Content-Type") ?? "" } }).formData();
-    return { form };
-  } catch {
-    return { error: "The form could not be read; please send it again.", status: 400 };
-  }
+  const form = await parseForm(request, read.bytes);
+  return form ? { form } : { error: "The form could not be read; please send it again.", status: 400 };
 }
 
 /** The text fields of a form, as typed, for the schema and for refilling the form. */
@@ -360,47 +335,28 @@ const siteRecord = (s: typeof sites.$inferSelect): SiteRecord => ({
 
 /** A site's registry as plain records (no ids), the shape the import planner and the exports use. */
 export async function loadSnapshot(db: Db, siteId: number): Promise<RegistrySnapshot | null> {
-  const site = await getSite(db, siteId);
-  if (!site) return null;
-  const [stationRows, configRows, memberRows, instrumentRows, bandRows] = await Promise.all([
-    db.select().from(stations).where(eq(stations.siteId, siteId)).orderBy(asc(stations.name)),
-    db.select().from(configurations).where(eq(configurations.siteId, siteId)).orderBy(asc(configurations.name)),
-    db
-      .select({ configurationId: configurationStations.configurationId, name: stations.name })
-      .from(configurationStations)
-      .innerJoin(stations, eq(stations.id, configurationStations.stationId))
-      .where(eq(stations.siteId, siteId))
-      .orderBy(asc(configurationStations.position)),
-    db.select().from(instruments).where(eq(instruments.siteId, siteId)).orderBy(asc(instruments.name)),
-    db
-      .select({ band: bands })
-      .from(bands)
-      .innerJoin(instruments, eq(instruments.id, bands.instrumentId))
-      .where(eq(instruments.siteId, siteId))
-      .orderBy(asc(bands.centralWavelengthM)),
-  ]);
+  const registry = await loadSiteRegistry(db, siteId);
+  if (!registry) return null;
   return {
-    site: siteRecord(site),
-    stations: stationRows.map((s) => ({ name: s.name, eastM: s.eastM, northM: s.northM, upM: s.upM, pathOffsetM: s.pathOffsetM })),
-    configurations: configRows.map((c) => ({
+    site: siteRecord(registry.site),
+    stations: registry.stations.map((s) => ({ name: s.name, eastM: s.eastM, northM: s.northM, upM: s.upM, pathOffsetM: s.pathOffsetM })),
+    configurations: registry.configurations.map((c) => ({
       name: c.name,
       description: c.description,
       offered: c.offered,
-      stations: memberRows.filter((m) => m.configurationId === c.id).map((m) => m.name),
+      stations: c.stationNames,
     })),
-    instruments: instrumentRows.map((i) => ({
+    instruments: registry.instruments.map((i) => ({
       name: i.name,
       description: i.description,
       maxTelescopes: i.maxTelescopes,
-      bands: bandRows
-        .filter((b) => b.band.instrumentId === i.id)
-        .map(({ band: b }) => ({
-          name: b.name,
-          centralWavelengthM: b.centralWavelengthM,
-          channels: b.channels,
-          bandwidthM: b.bandwidthM,
-          limitingMagnitude: b.limitingMagnitude,
-        })),
+      bands: i.bands.map((b) => ({
+        name: b.name,
+        centralWavelengthM: b.centralWavelengthM,
+        channels: b.channels,
+        bandwidthM: b.bandwidthM,
+        limitingMagnitude: b.limitingMagnitude,
+      })),
     })),
   };
 }

@@ -1,14 +1,16 @@
 /** Reads of the array registry (everyone may read it; edits are the admin's). */
 import { asc, eq } from "drizzle-orm";
-import type { Database } from "~/db/client.server";
+import type { Database, Transaction } from "~/db/client.server";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "~/db/schema/array";
 
 export async function listSites(db: Database) {
   return db.select().from(sites).orderBy(asc(sites.name));
 }
 
+type Tx = Transaction;
+
 /** One site with its stations, configurations (stations in order) and instruments with bands. */
-export async function loadSiteRegistry(db: Database, siteId: number) {
+export async function loadSiteRegistry(db: Database | Tx, siteId: number) {
   const [site] = await db.select().from(sites).where(eq(sites.id, siteId));
   if (!site) return null;
   const [stationRows, configRows, memberRows, instrumentRows, bandRows] = await Promise.all([

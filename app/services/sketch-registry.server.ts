@@ -3,6 +3,7 @@
  * its stations, configurations with ordered station names and instruments with bands, plus the date
  * of the next night there.
  */
+import { data } from "react-router";
 import { database, type Database } from "~/db/client.server";
 import type { Viewer } from "./auth.server";
 import { listSites, loadSiteRegistry } from "./registry.server";
@@ -63,4 +64,18 @@ export async function savedTargetsOf(viewer: Viewer): Promise<SavedTarget[]> {
   if (!viewer.permissions.has("proposals:own")) return [];
   const list = await listTargets(database(), viewer.user.id);
   return list.map((t) => ({ id: t.id, name: t.name, raDeg: t.raDeg, decDeg: t.decDeg, model: t.model }));
+}
+
+/**
+ * The loader data of the Sketchpad and the Triangle finder: the registry of the site in the URL,
+ * and the viewer's own targets. `purpose` finishes the sentence of the 404 when the registry is too
+ * thin to work with.
+ */
+export async function loadSketchPage(viewer: Viewer, url: URL, purpose: string) {
+  const loaded = await loadSketchRegistry(database(), url.searchParams.get("site"));
+  if (!loaded) return { loaded: null, savedTargets: [] as SavedTarget[] };
+  if (loaded.registry.stations.length < 2 || loaded.registry.instruments.length === 0) {
+    throw data(`The array registry needs at least two stations and one instrument band before ${purpose}.`, { status: 404 });
+  }
+  return { loaded, savedTargets: await savedTargetsOf(viewer) };
 }

@@ -4,7 +4,8 @@ import { ErrorPage } from "~/components/ErrorPage";
 import { ButtonLink, Card, DataTable, EmptyState, PageHeader, type Column } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { deadlineCountdown, listMyProposals, openCycles, STATUS_WORDS } from "~/services/proposals.server";
+import { openCycles } from "~/services/cycles.server";
+import { deadlineCountdown, listMyProposals, STATUS_WORDS } from "~/services/proposals.server";
 import { fmtUtc, StatusBadge, type StatusKey } from "./parts";
 
 export async function loader({ request }: Route.LoaderArgs) {

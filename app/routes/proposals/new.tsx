@@ -6,7 +6,8 @@ import { Button, ButtonLink, Card, EmptyState, FormErrors, PageHeader, SelectFie
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/services/flash.server";
-import { createProposal, deadlineCountdown, formatUtc, openCycles, PROPOSAL_LIMITS, ProposalRefusal } from "~/services/proposals.server";
+import { openCycles } from "~/services/cycles.server";
+import { createProposal, deadlineCountdown, formatUtc, PROPOSAL_LIMITS, ProposalRefusal } from "~/services/proposals.server";
 
 const NewProposalSchema = v.object({
   cycleId: v.pipe(

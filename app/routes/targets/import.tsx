@@ -6,6 +6,7 @@ import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
 import { formatDeclination, formatRightAscension } from "~/services/coordinates";
 import { redirectWithFlash } from "~/services/flash.server";
+import { parseForm, readBodyCapped } from "~/services/http-body.server";
 import { describeModel } from "~/services/target-form.server";
 import { MAX_TARGET_CSV_BYTES, parseTargetCsv, type RowError } from "~/services/target-io";
 import { importTargets, targetNames } from "~/services/targets.server";
@@ -32,15 +33,14 @@ function refuse(message: string) {
 
 export async function action({ request }: Route.ActionArgs) {
   const viewer = await requirePermission(request, "proposals:own");
-  const length = Number(request.headers.get("Content-Length") ?? "NaN");
-  if (!Number.isFinite(length)) return refuse("The upload did not say how large it is; please try again from the form.");
-  if (length > MAX_REQUEST_BYTES) return refuse(`The file is larger than ${MAX_TARGET_CSV_BYTES / 1024} KB; split the list.`);
-  let form: FormData;
-  try {
-    form = await request.formData();
-  } catch {
-    return refuse("The upload could not be read; please choose the file again.");
+  const read = await readBodyCapped(request, MAX_REQUEST_BYTES);
+  if (!read.ok) {
+    return read.reason === "too-large"
+      ? refuse(`The file is larger than ${MAX_TARGET_CSV_BYTES / 1024} KB; split the list.`)
+      : refuse("The upload was interrupted; please choose the file again.");
   }
+  const form = await parseForm(request, read.bytes);
+  if (!form) return refuse("The upload could not be read; please choose the file again.");
   const file = form.get("file");
   let csv = typeof form.get("csv") === "string" ? String(form.get("csv")) : "";
   if (file instanceof File && file.size > 0) {

@@ -1,29 +1,17 @@
-import { data, type ShouldRevalidateFunctionArgs } from "react-router";
 import type { Route } from "./+types/index";
 import { ErrorPage } from "~/components/ErrorPage";
+import { sketchShouldRevalidate } from "~/components/sketch/revalidate";
 import { TriangleFinder } from "~/components/sketch/TriangleFinder";
 import { EmptyState, PageHeader } from "~/components/ui";
-import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { loadSketchRegistry, savedTargetsOf } from "~/services/sketch-registry.server";
+import { loadSketchPage } from "~/services/sketch-registry.server";
 
 export async function loader({ request, url }: Route.LoaderArgs) {
   const viewer = await requirePermission(request, "sketch:use");
-  const loaded = await loadSketchRegistry(database(), url.searchParams.get("site"));
-  if (!loaded) return { loaded: null, savedTargets: [] };
-  if (loaded.registry.stations.length < 2 || loaded.registry.instruments.length === 0) {
-    throw data("The array registry needs at least two stations and one instrument band before triangles can be ranked.", { status: 404 });
-  }
-  return { loaded, savedTargets: await savedTargetsOf(viewer) };
+  return loadSketchPage(viewer, url, "triangles can be ranked");
 }
 
-/** The registry does not change while the inputs are edited: only a different site needs the loader again. */
-export function shouldRevalidate({ currentUrl, nextUrl, formMethod, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) {
-  if (!formMethod && currentUrl.pathname === nextUrl.pathname && currentUrl.searchParams.get("site") === nextUrl.searchParams.get("site")) {
-    return false;
-  }
-  return defaultShouldRevalidate;
-}
+export const shouldRevalidate = sketchShouldRevalidate;
 
 export const meta: Route.MetaFunction = () => [{ title: "Triangle finder — Fringe Docket" }];
 

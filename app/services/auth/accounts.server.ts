@@ -1,11 +1,11 @@
 /** Finding, creating and changing accounts; every change of roles or status is written to the audit log. */
 import { and, asc, eq, ilike, inArray, or, sql } from "drizzle-orm";
-import type { Database } from "~/db/client.server";
+import type { Database, Transaction } from "~/db/client.server";
 import { auditLog } from "~/db/schema/auth";
 import { ROLES, userRoles, users, type Role } from "~/db/schema/users";
 import { revokeAllSessions } from "./sessions.server";
 
-type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+type Tx = Transaction;
 type Db = Database | Tx;
 
 export async function rolesOf(db: Db, userId: number): Promise<Role[]> {

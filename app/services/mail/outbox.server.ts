@@ -2,12 +2,11 @@ import { render, toPlainText } from "@react-email/render";
 import { PgTransaction } from "drizzle-orm/pg-core";
 import type { ReactElement } from "react";
 import * as v from "valibot";
-import type { Database } from "~/db/client.server";
+import type { Database, DbOrTx } from "~/db/client.server";
 import { MAIL_KINDS, outboxMessages, type MailKind, type OutboxMessage } from "~/db/schema/mail";
 import { wakeOutboxSender } from "./sender.server";
 
 /** The database itself or the `tx` of `db.transaction(async (tx) => …)`. */
-export type DbOrTx = Database | Parameters<Parameters<Database["transaction"]>[0]>[0];
 
 export type NewMail = {
   kind: MailKind;
