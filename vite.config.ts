@@ -9,4 +9,6 @@ export default defineConfig({
     alias: { "~": fileURLToPath(new URL("./app", import.meta.url)) },
   },
   server: { host: "127.0.0.1" },
+  // Plotly is one large chunk, loaded lazily in the browser by the pages with plots only.
+  build: { chunkSizeWarningLimit: 5000 },
 });

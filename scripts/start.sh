@@ -5,6 +5,7 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 
 ./docker-less-pg.sh start
+mkdir -p .data
 export DATABASE_URL="${DATABASE_URL:-$(./docker-less-pg.sh url)}"
 export NODE_ENV=production
 
@@ -12,10 +13,13 @@ npx tsx scripts/migrate.ts
 npx tsx scripts/seed.ts --if-empty
 
 # Build when there is no build yet or any source is newer than it.
-stamp=build/server/index.js
+stamp="${BUILD_DIR:-build}/server/index.js"
 if [ ! -f "$stamp" ] || [ -n "$(find app public react-router.config.ts vite.config.ts package-lock.json -newer "$stamp" -print -quit 2>/dev/null)" ]; then
   echo "[build] building the production bundle"
-  npx react-router build >/dev/null
+  if ! npx react-router build >.data/build.log 2>&1; then
+    cat .data/build.log
+    exit 1
+  fi
 fi
 
 exec node --import tsx scripts/serve.ts

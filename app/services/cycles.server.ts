@@ -136,3 +136,15 @@ export function cyclePhase(cycle: { submissionDeadline: Date; observingStart: st
   return "finished" as const;
 }
 
+
+/** For each configuration id, the names of the cycles that offer it, latest cycle first. */
+export async function cyclesOfferingConfigurations(db: Db): Promise<Record<number, string[]>> {
+  const rows = await db
+    .select({ configurationId: cycleConfigurations.configurationId, name: cycles.name })
+    .from(cycleConfigurations)
+    .innerJoin(cycles, eq(cycles.id, cycleConfigurations.cycleId))
+    .orderBy(desc(cycles.observingStart));
+  const out: Record<number, string[]> = {};
+  for (const r of rows) (out[r.configurationId] ??= []).push(r.name);
+  return out;
+}

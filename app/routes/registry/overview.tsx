@@ -5,6 +5,7 @@ import { StationMap } from "~/components/registry/StationMap";
 import { registryPaths } from "~/components/registry/paths";
 import { Badge, ButtonLink, Card, DataTable, EmptyState, PageHeader, type Column } from "~/components/ui";
 import { database } from "~/db/client.server";
+import { cyclesOfferingConfigurations } from "~/services/cycles.server";
 import { getViewer } from "~/services/auth.server";
 import { listSites, loadSiteRegistry, type SiteRegistry } from "~/services/registry.server";
 
@@ -17,10 +18,10 @@ export async function loader({ request, url }: Route.LoaderArgs) {
   const wanted = url.searchParams.get("site");
   const chosen = wanted ? sites.find((s) => String(s.id) === wanted) : sites[0];
   if (wanted && !chosen) throw data("There is no site with that number.", { status: 404 });
-  if (!chosen) return { registry: null, sites, canEdit };
-  const registry = await loadSiteRegistry(db, chosen.id);
+  if (!chosen) return { registry: null, sites, canEdit, offeredIn: {} as Record<number, string[]> };
+  const [registry, offeredIn] = await Promise.all([loadSiteRegistry(db, chosen.id), cyclesOfferingConfigurations(db)]);
   if (!registry) throw data("The site was removed while loading.", { status: 404 });
-  return { registry, sites, canEdit };
+  return { registry, sites, canEdit, offeredIn };
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "Array registry — Fringe Docket" }];
@@ -235,6 +236,10 @@ export default function RegistryOverview({ loaderData }: Route.ComponentProps) {
                   <p className="mt-1 text-sm text-night-700">{c.description}</p>
                   <p className="mt-2 text-sm">
                     <span className="text-night-600">Stations:</span> <span className="font-medium">{c.stationNames.join(" · ")}</span>
+                  </p>
+                  <p className="mt-1 text-sm">
+                    <span className="text-night-600">Cycles:</span>{" "}
+                    <span className="font-medium">{loaderData.offeredIn[c.id]?.join(", ") || "none yet"}</span>
                   </p>
                   {widest > 0 && c.stationNames.length > widest ? (
                     <p className="mt-2 text-sm font-medium text-caution-700">More stations than any instrument combines ({widest}).</p>
