@@ -499,18 +499,9 @@ function windowLines(
   return out;
 }
 
-function assessCell(
-  input: FeasibilityInput,
-  band: FeasibilityBand,
-  config: FeasibilityConfiguration,
-  target: FeasibilityTarget,
-  stepMin: number,
-): FeasibilityCell {
-  const t = FEASIBILITY_THRESHOLDS;
-  const lines: FeasibilityLine[] = [];
-  const nStations = config.stations.length;
-  const nTriangles = stationTriangles(nStations).count;
-  const empty: FeasibilityCell = {
+/** A failed cell with no figures yet, to which the assessment adds its lines. */
+function emptyCell(target: FeasibilityTarget, config: FeasibilityConfiguration, lines: FeasibilityLine[]): FeasibilityCell {
+  return {
     target: target.name,
     configuration: config.name,
     verdict: "fail",
@@ -523,10 +514,24 @@ function assessCell(
       vis2Min: null,
       vis2Max: null,
       observableTriangles: null,
-      triangles: nTriangles,
+      triangles: stationTriangles(config.stations.length).count,
     },
     lines,
   };
+}
+
+function assessCell(
+  input: FeasibilityInput,
+  band: FeasibilityBand,
+  config: FeasibilityConfiguration,
+  target: FeasibilityTarget,
+  stepMin: number,
+): FeasibilityCell {
+  const t = FEASIBILITY_THRESHOLDS;
+  const lines: FeasibilityLine[] = [];
+  const nStations = config.stations.length;
+  const nTriangles = stationTriangles(nStations).count;
+  const empty = emptyCell(target, config, lines);
 
   if (nStations > band.maxTelescopes) {
     lines.push({
@@ -702,23 +707,11 @@ export function computeFeasibility(input: FeasibilityInput, now: Date = new Date
           cells.push(assessCell(input, input.band, config, target, stepMin));
         } catch (e) {
           if (!(e instanceof FeasibilityInputError)) throw e;
-          cells.push({
-            target: target.name,
-            configuration: config.name,
-            verdict: "fail",
-            nights: [],
-            figures: {
-              longestBaselineM: null,
-              shortestBaselineM: null,
-              resolutionMas: null,
-              sizeMas: null,
-              vis2Min: null,
-              vis2Max: null,
-              observableTriangles: null,
-              triangles: stationTriangles(config.stations.length).count,
-            },
-            lines: [{ check: "model", label: "Input", verdict: "fail", reason: `The engine refused this target or configuration: ${e.message}.` }],
-          });
+          cells.push(
+            emptyCell(target, config, [
+              { check: "model", label: "Input", verdict: "fail", reason: `The engine refused this target or configuration: ${e.message}.` },
+            ]),
+          );
         }
       }
     }

@@ -323,10 +323,49 @@ function waitingForTarget(s: CommonState): boolean {
   return s.ra.trim() === "" && s.dec.trim() === "";
 }
 
+/**
+ * What both pages share once the station list is known: the request-size check, silence while no
+ * target is typed, and the body without the page's own extras (beam, triangle count).
+ */
+function finishRequest(
+  s: CommonState,
+  r: RegistryLike,
+  names: string[],
+  errors: FieldErrors,
+  { tgt, found, samp, minEl }: ReturnType<typeof common>,
+): Built<Omit<CoverageBody, "beam">> {
+  if (found && samp && !errors.stations) {
+    const size = sizeFailure(names.length, samp.bound, found.band.channels);
+    const field = s.sampling === "hourAngle" ? "ha" : "step";
+    if (size) errors[field] = `${INPUT_LABELS[field]}: ${size}`;
+  }
+  const waiting = waitingForTarget(s);
+  if (waiting) {
+    delete errors.ra;
+    delete errors.dec;
+  }
+  if (waiting || Object.keys(errors).length > 0 || !tgt || !found || !samp || minEl === null) {
+    return { ok: false, errors, waiting };
+  }
+  return {
+    ok: true,
+    body: {
+      site: siteBody(r),
+      stations: stationBodies(names, r),
+      target: tgt,
+      wavelengthsM: channelWavelengthsM(found.band.centralWavelengthM, found.band.bandwidthM, found.band.channels),
+      ...samp.body,
+      minElevationDeg: minEl,
+      delayLineStrokeM: s.delayLines ? r.site.delayLineStrokeM : null,
+    },
+  };
+}
+
 /** The POST /api/coverage body of a Sketchpad state (with the beam and model images). */
 export function buildCoverageRequest(s: SketchState, r: RegistryLike): Built<CoverageBody> {
   const errors: FieldErrors = {};
-  const { tgt, found, samp, minEl } = common(s, r, errors);
+  const parts = common(s, r, errors);
+  const { found } = parts;
   const names = pickedStations(s, r);
   if (s.config !== "" && !r.configurations.some((c) => c.name === s.config)) {
     errors.stations = `${INPUT_LABELS.stations}: there is no configuration "${s.config}"`;
@@ -337,37 +376,15 @@ export function buildCoverageRequest(s: SketchState, r: RegistryLike): Built<Cov
       `${INPUT_LABELS.stations}: ${found.instrument.name} combines at most ${found.instrument.maxTelescopes} telescopes ` +
       `(${names.length} ${s.config !== "" ? `in ${s.config}` : "picked"}); pick fewer stations or another instrument`;
   }
-  if (found && samp && !errors.stations) {
-    const size = sizeFailure(names.length, samp.bound, found.band.channels);
-    if (size) errors[s.sampling === "hourAngle" ? "ha" : "step"] = `${INPUT_LABELS[s.sampling === "hourAngle" ? "ha" : "step"]}: ${size}`;
-  }
-  const waiting = waitingForTarget(s);
-  if (waiting) {
-    delete errors.ra;
-    delete errors.dec;
-  }
-  if (waiting || Object.keys(errors).length > 0 || !tgt || !found || !samp || minEl === null) {
-    return { ok: false, errors, waiting };
-  }
-  return {
-    ok: true,
-    body: {
-      site: siteBody(r),
-      stations: stationBodies(names, r),
-      target: tgt,
-      wavelengthsM: channelWavelengthsM(found.band.centralWavelengthM, found.band.bandwidthM, found.band.channels),
-      ...samp.body,
-      minElevationDeg: minEl,
-      delayLineStrokeM: s.delayLines ? r.site.delayLineStrokeM : null,
-      beam: { gridSize: SKETCH_GRID_SIZE, weighting: s.weighting, includeImages: true },
-    },
-  };
+  const done = finishRequest(s, r, names, errors, parts);
+  if (!done.ok) return done;
+  return { ok: true, body: { ...done.body, beam: { gridSize: SKETCH_GRID_SIZE, weighting: s.weighting, includeImages: true } } };
 }
 
 /** The POST /api/triangles body of a Triangle finder state. */
 export function buildTrianglesRequest(s: TriangleState, r: RegistryLike): Built<TrianglesBody> {
   const errors: FieldErrors = {};
-  const { tgt, found, samp, minEl } = common(s, r, errors);
+  const parts = common(s, r, errors);
   let names: string[] = [];
   if (s.pool === ALL_STATIONS) names = r.stations.map((st) => st.name);
   else {
@@ -378,31 +395,9 @@ export function buildTrianglesRequest(s: TriangleState, r: RegistryLike): Built<
   if (!errors.stations && names.length < 3) {
     errors.stations = `${INPUT_LABELS.stations}: a triangle needs at least 3 stations (${names.length} in the pool)`;
   }
-  if (found && samp && !errors.stations) {
-    const size = sizeFailure(names.length, samp.bound, found.band.channels);
-    if (size) errors[s.sampling === "hourAngle" ? "ha" : "step"] = `${INPUT_LABELS[s.sampling === "hourAngle" ? "ha" : "step"]}: ${size}`;
-  }
-  const waiting = waitingForTarget(s);
-  if (waiting) {
-    delete errors.ra;
-    delete errors.dec;
-  }
-  if (waiting || Object.keys(errors).length > 0 || !tgt || !found || !samp || minEl === null) {
-    return { ok: false, errors, waiting };
-  }
-  return {
-    ok: true,
-    body: {
-      site: siteBody(r),
-      stations: stationBodies(names, r),
-      target: tgt,
-      wavelengthsM: channelWavelengthsM(found.band.centralWavelengthM, found.band.bandwidthM, found.band.channels),
-      ...samp.body,
-      minElevationDeg: minEl,
-      delayLineStrokeM: s.delayLines ? r.site.delayLineStrokeM : null,
-      maxTriangles: TRIANGLE_ROWS,
-    },
-  };
+  const done = finishRequest(s, r, names, errors, parts);
+  if (!done.ok) return done;
+  return { ok: true, body: { ...done.body, maxTriangles: TRIANGLE_ROWS } };
 }
 
 /** The POST /api/ephemeris body for the night of the state's date, or null without a date. */

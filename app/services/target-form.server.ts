@@ -40,8 +40,8 @@ function fieldLabel(column: string) {
   return labels[column] ?? (column.startsWith("mag_") ? `${column.slice(4)} magnitude` : column);
 }
 
-/** A stored target as form values (coordinates in sexagesimal). */
-export function valuesOfTarget(t: typeof targets.$inferSelect): Record<string, string> {
+/** A stored target (of My targets or of a proposal) as form values, coordinates in sexagesimal. */
+export function valuesOfTarget(t: Pick<typeof targets.$inferSelect, "name" | "raDeg" | "decDeg" | "model" | "magnitudes" | "notes">): Record<string, string> {
   const m = t.model as Record<string, unknown>;
   const str = (x: unknown) => (x === undefined || x === null ? "" : String(x));
   const out: Record<string, string> = {
@@ -58,26 +58,4 @@ export function valuesOfTarget(t: typeof targets.$inferSelect): Record<string, s
   };
   for (const [band, mag] of Object.entries(t.magnitudes)) out[`mag_${band}`] = String(mag);
   return out;
-}
-
-/** One line describing a model, with units. */
-export function describeModel(model: { type: string; [k: string]: unknown }): string {
-  switch (model.type) {
-    case "point":
-      return "point";
-    case "uniformDisk":
-      return `uniform disk ${model.diameterMas} mas`;
-    case "limbDarkenedDisk":
-      return `limb-darkened disk ${model.diameterMas} mas, u = ${model.coefficient}`;
-    case "gaussian":
-      return `Gaussian FWHM ${model.fwhmMas} mas`;
-    case "ring":
-      return `ring ${model.diameterMas} mas`;
-    case "binary":
-      return `binary ${model.separationMas} mas at PA ${model.positionAngleDeg}°, ratio ${model.fluxRatio}`;
-    case "sum":
-      return `${Array.isArray(model.components) ? model.components.length : "several"} components`;
-    default:
-      return model.type;
-  }
 }

@@ -14,29 +14,14 @@ const MODELS: { value: string; label: string }[] = [
 ];
 
 /**
- * One target: name, coordinates (sexagesimal or degrees), model with its parameters, magnitudes per
- * band, notes. Field names are the CSV column names, so one reader checks both.
+ * The fields of one target: name, coordinates (sexagesimal or degrees), model with its parameters,
+ * magnitudes per band. Field names are the CSV column names, so one reader checks forms and files.
  */
-export function TargetForm({
-  values,
-  errors,
-  bands,
-  submitLabel,
-  intent,
-}: {
-  values: TargetFormValues;
-  errors: Record<string, string>;
-  bands: string[];
-  submitLabel: string;
-  intent: string;
-}) {
+export function TargetFields({ values, errors, bands }: { values: TargetFormValues; errors: Record<string, string>; bands: string[] }) {
   const [model, setModel] = useState(values.model || "point");
-  const busy = useNavigation().state === "submitting";
   const sized = model === "uniformDisk" || model === "limbDarkenedDisk" || model === "ring" || model === "gaussian";
   return (
-    <Form method="post" className="grid gap-4" noValidate>
-      <input type="hidden" name="intent" value={intent} />
-      <FormErrors errors={Object.values(errors)} />
+    <>
       <div className="grid gap-4 md:grid-cols-3">
         <TextField label="Name" name="name" defaultValue={values.name} error={errors.name} maxLength={80} required />
         <TextField
@@ -107,6 +92,30 @@ export function TargetForm({
           ))}
         </fieldset>
       ) : null}
+    </>
+  );
+}
+
+/** A form for one target of My targets: the target's fields and notes. */
+export function TargetForm({
+  values,
+  errors,
+  bands,
+  submitLabel,
+  intent,
+}: {
+  values: TargetFormValues;
+  errors: Record<string, string>;
+  bands: string[];
+  submitLabel: string;
+  intent: string;
+}) {
+  const busy = useNavigation().state === "submitting";
+  return (
+    <Form method="post" className="grid gap-4" noValidate>
+      <input type="hidden" name="intent" value={intent} />
+      <FormErrors errors={Object.values(errors)} />
+      <TargetFields values={values} errors={errors} bands={bands} />
       <TextArea label="Notes" name="notes" defaultValue={values.notes} error={errors.notes} maxLength={1000} className="min-h-20" />
       <div>
         <Button type="submit" disabled={busy}>

@@ -35,7 +35,8 @@ import {
   uploadScienceCase,
   withdrawProposal,
 } from "~/services/proposals.server";
-import { countWords, describeMagnitudes, describeModel, fmtUtc, StatusBadge, type StatusKey } from "./parts";
+import { describeModel } from "~/services/describe-model";
+import { countWords, describeMagnitudes, fmtUtc, StatusBadge, type StatusKey } from "./parts";
 
 // ---------------------------------------------------------------- schemas
 

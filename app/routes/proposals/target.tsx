@@ -2,7 +2,7 @@ import { useRef, useState } from "react";
 import { data, Form, useNavigation } from "react-router";
 import type { Route } from "./+types/target";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Button, ButtonLink, Card, FormErrors, PageHeader, SelectField, TextArea, TextField } from "~/components/ui";
+import { Button, ButtonLink, Card, FormErrors, PageHeader, TextArea, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { proposalTargets, type CalibratorJson, type TimeWindowJson } from "~/db/schema/proposals";
 import { sites } from "~/db/schema/array";
@@ -12,10 +12,11 @@ import { redirectWithFlash } from "~/services/flash.server";
 import { loadProposalForViewer, proposalIdFrom, proposalNotFound } from "~/services/proposals-access.server";
 import { readFormCapped } from "~/services/proposals-upload.server";
 import { PROPOSAL_LIMITS, ProposalRefusal, saveTarget } from "~/services/proposals.server";
-import { readTargetForm, targetFormValues } from "~/services/target-form.server";
+import { TargetFields } from "~/components/targets/TargetForm";
+import { readTargetForm, targetFormValues, valuesOfTarget } from "~/services/target-form.server";
 import { bandNames } from "~/services/targets.server";
 import { and, asc, eq } from "drizzle-orm";
-import { describeModel } from "./parts";
+import { describeModel } from "~/services/describe-model";
 
 const L = PROPOSAL_LIMITS;
 
@@ -137,22 +138,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   }
   const [t] = await db.select().from(proposalTargets).where(and(eq(proposalTargets.id, targetId), eq(proposalTargets.proposalId, id)));
   if (!t) proposalNotFound();
-  const m = t.model as Record<string, unknown>;
-  const str = (x: unknown) => (x === undefined || x === null ? "" : String(x));
   const values: TargetValues = {
-    name: t.name,
-    ra: formatRightAscension(t.raDeg, 3),
-    dec: formatDeclination(t.decDeg, 2),
-    model: t.model.type,
-    size_mas: str(m.diameterMas ?? m.fwhmMas),
-    ld_coefficient: str(m.coefficient),
-    separation_mas: str(m.separationMas),
-    position_angle_deg: str(m.positionAngleDeg),
-    flux_ratio: str(m.fluxRatio),
-    notes: t.notes,
+    ...valuesOfTarget(t),
     minElevationDeg: t.minElevationDeg === null ? "" : String(t.minElevationDeg),
   };
-  for (const [band, mag] of Object.entries(t.magnitudes)) values[`mag_${band}`] = String(mag);
   return {
     ...base,
     targetId: t.id,
@@ -207,26 +196,15 @@ export async function action({ request, params }: Route.ActionArgs) {
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.name ?? "Target"} — Proposal — Fringe Docket` }];
 
-const MODELS: { value: string; label: string }[] = [
-  { value: "point", label: "Point source" },
-  { value: "uniformDisk", label: "Uniform disk" },
-  { value: "limbDarkenedDisk", label: "Limb-darkened disk (linear law)" },
-  { value: "gaussian", label: "Gaussian" },
-  { value: "ring", label: "Thin ring" },
-  { value: "binary", label: "Binary (two points)" },
-];
-
 export default function ProposalTarget({ loaderData, actionData }: Route.ComponentProps) {
   const d = loaderData;
   const values: TargetValues = actionData?.values ?? d.values;
   const errors: Record<string, string> = actionData?.errors ?? {};
-  const [model, setModel] = useState(values.model || "point");
   const counter = useRef(0);
   const keyed = <T,>(rows: T[]) => rows.map((row) => ({ key: ++counter.current, row }));
   const [windows, setWindows] = useState(() => keyed(actionData?.windows ?? d.windows));
   const [calibrators, setCalibrators] = useState(() => keyed(actionData?.calibrators ?? d.calibrators));
   const busy = useNavigation().state === "submitting";
-  const sized = model === "uniformDisk" || model === "limbDarkenedDisk" || model === "ring" || model === "gaussian";
   const back = `/proposals/${d.proposalId}`;
   const readOnly = !d.editable;
 
@@ -247,41 +225,7 @@ export default function ProposalTarget({ loaderData, actionData }: Route.Compone
         <fieldset disabled={readOnly} className="grid gap-6">
           <Card title="Target and model">
             <div className="grid gap-4">
-              <div className="grid gap-4 md:grid-cols-3">
-                <TextField label="Name" name="name" defaultValue={values.name} error={errors.name} maxLength={80} />
-                <TextField label="Right ascension" name="ra" defaultValue={values.ra} error={errors.ra} hint="J2000; hours 05:36:12.8 or degrees 84.05" />
-                <TextField label="Declination" name="dec" defaultValue={values.dec} error={errors.dec} hint="J2000; −01:12:07 or −1.202" />
-              </div>
-              <div className="grid gap-4 md:grid-cols-3">
-                <SelectField label="Model" name="model" value={model} onChange={(e) => setModel(e.target.value)} error={errors.model}>
-                  {MODELS.map((m) => (
-                    <option key={m.value} value={m.value}>
-                      {m.label}
-                    </option>
-                  ))}
-                </SelectField>
-                {sized ? (
-                  <TextField label={model === "gaussian" ? "FWHM" : "Diameter"} unit="mas" name="size_mas" inputMode="decimal" defaultValue={values.size_mas} error={errors.size_mas} />
-                ) : null}
-                {model === "limbDarkenedDisk" ? (
-                  <TextField label="Limb-darkening coefficient" name="ld_coefficient" inputMode="decimal" defaultValue={values.ld_coefficient} error={errors.ld_coefficient} hint="Linear law, 0 to 1" />
-                ) : null}
-                {model === "binary" ? (
-                  <>
-                    <TextField label="Separation" unit="mas" name="separation_mas" inputMode="decimal" defaultValue={values.separation_mas} error={errors.separation_mas} />
-                    <TextField label="Position angle" unit="° east of north" name="position_angle_deg" inputMode="decimal" defaultValue={values.position_angle_deg} error={errors.position_angle_deg} />
-                    <TextField label="Flux ratio" unit="secondary / primary" name="flux_ratio" inputMode="decimal" defaultValue={values.flux_ratio} error={errors.flux_ratio} />
-                  </>
-                ) : null}
-              </div>
-              {d.bands.length ? (
-                <fieldset className="grid gap-4 sm:grid-cols-3">
-                  <legend className="mb-1 text-sm font-medium text-night-800">Magnitudes (leave empty when unknown)</legend>
-                  {d.bands.map((b) => (
-                    <TextField key={b} label={`${b} band`} unit="mag" name={`mag_${b}`} inputMode="decimal" defaultValue={values[`mag_${b}`]} error={errors[`mag_${b}`]} />
-                  ))}
-                </fieldset>
-              ) : null}
+              <TargetFields values={values} errors={errors} bands={d.bands} />
             </div>
           </Card>
 

@@ -6,7 +6,8 @@ import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
 import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals-access.server";
 import { formatBytes, readVersion } from "~/services/proposals.server";
-import { describeMagnitudes, describeModel, FeasibilityView, fmtUtc } from "./parts";
+import { describeModel } from "~/services/describe-model";
+import { describeMagnitudes, FeasibilityView, fmtUtc } from "./parts";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const viewer = await requirePermission(request, "proposals:own");

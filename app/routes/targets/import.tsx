@@ -7,7 +7,7 @@ import { requirePermission } from "~/services/auth.server";
 import { formatDeclination, formatRightAscension } from "~/services/coordinates";
 import { redirectWithFlash } from "~/services/flash.server";
 import { parseForm, readBodyCapped } from "~/services/http-body.server";
-import { describeModel } from "~/services/target-form.server";
+import { describeModel } from "~/services/describe-model";
 import { MAX_TARGET_CSV_BYTES, parseTargetCsv, type RowError } from "~/services/target-io";
 import { importTargets, targetNames } from "~/services/targets.server";
 

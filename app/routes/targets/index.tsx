@@ -7,7 +7,8 @@ import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
 import { formatDeclination, formatRightAscension } from "~/services/coordinates";
 import { redirectWithFlash } from "~/services/flash.server";
-import { describeModel, readTargetForm, targetFormValues } from "~/services/target-form.server";
+import { describeModel } from "~/services/describe-model";
+import { readTargetForm, targetFormValues } from "~/services/target-form.server";
 import { bandNames, createTarget, listTargets, nameTaken } from "~/services/targets.server";
 
 export async function loader({ request }: Route.LoaderArgs) {
