@@ -22,10 +22,15 @@ describe("sign-in through the local sign-on service", () => {
       const page = await context.newPage();
       const seen = watchPage(page);
       await signInAs(page, name);
-      await page.getByRole("link", { name: "Account" }).waitFor();
+      await page.getByRole("link", { name: "Account", exact: true }).waitFor();
       const items = await page.getByRole("navigation", { name: "Sections" }).getByRole("link").allTextContents();
       expect(items).toEqual(menu);
-      await page.getByRole("link", { name: "Account" }).click();
+      // The home page lists the same sections, each with a line on what it is for.
+      await page.getByRole("heading", { name: `Your sections, ${name}` }).waitFor();
+      const cards = await page.getByRole("region", { name: `Your sections, ${name}` }).getByRole("link").count();
+      expect(cards).toBe(menu.length);
+      if (person.roles.includes("proposer")) await screenshot(page, "home-signed-in");
+      await page.getByRole("link", { name: "Account", exact: true }).click();
       await page.getByRole("heading", { level: 1, name: "Your account" }).waitFor();
       for (const role of person.roles) await expect(page.getByText(role, { exact: true }).first().isVisible()).resolves.toBe(true);
       expect(seen.errors).toEqual([]);
@@ -66,7 +71,7 @@ describe("sign-in through the local sign-on service", () => {
     const page = await context.newPage();
     await signInAs(page, "Mei-Lin Chao");
     await page.getByRole("button", { name: "Sign out" }).click();
-    await page.getByRole("link", { name: "Sign in" }).waitFor();
+    await page.getByRole("banner").getByRole("link", { name: "Sign in", exact: true }).waitFor();
     const response = await page.goto(`${baseUrl}/account`);
     expect(new URL(page.url()).pathname).toBe("/sign-in");
     expect(response?.status()).toBe(200);

@@ -1,4 +1,5 @@
-import { Link } from "react-router";
+import { Link, useRouteLoaderData } from "react-router";
+import type { loader as rootLoader } from "~/root";
 import type { Route } from "./+types/home";
 import { Card } from "~/components/ui";
 import { database } from "~/db/client.server";
@@ -49,6 +50,51 @@ const roles = [
   { role: "Administrators", text: "manage accounts and roles and keep the array registry up to date." },
 ];
 
+/** The viewer's own sections with a line each, or an invitation to sign in. */
+function YourSections() {
+  const root = useRouteLoaderData<typeof rootLoader>("root");
+  if (!root) return null;
+  if (!root.viewer) {
+    return (
+      <section aria-labelledby="start" className="rounded-[var(--radius-card)] bg-white p-5 shadow-[var(--shadow-card)] ring-1 ring-night-200">
+        <h2 id="start" className="text-lg font-semibold">
+          Start here
+        </h2>
+        <p className="mt-1 text-night-700">
+          <Link to="/sign-in" className="font-medium text-ember-700 underline underline-offset-2">
+            Sign in
+          </Link>{" "}
+          with the observatory's single sign-on or an e-mail link to sketch coverage, keep a target list and write proposals. The{" "}
+          <Link to="/registry" className="font-medium text-ember-700 underline underline-offset-2">
+            array registry
+          </Link>{" "}
+          is open to everyone.
+        </p>
+      </section>
+    );
+  }
+  return (
+    <section aria-labelledby="yours">
+      <h2 id="yours" className="text-xl font-semibold">
+        Your sections, {root.viewer.name}
+      </h2>
+      <ul className="mt-4 grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
+        {root.sections.map((s) => (
+          <li key={s.to}>
+            <Link
+              to={s.to}
+              className="block h-full rounded-[var(--radius-card)] bg-white p-4 shadow-[var(--shadow-card)] ring-1 ring-night-200 hover:ring-ember-500"
+            >
+              <span className="font-semibold text-ember-800">{s.label}</span>
+              <span className="mt-1 block text-sm text-night-700">{s.summary}</span>
+            </Link>
+          </li>
+        ))}
+      </ul>
+    </section>
+  );
+}
+
 export default function Home({ loaderData }: Route.ComponentProps) {
   const { array } = loaderData;
   return (
@@ -65,6 +111,8 @@ export default function Home({ loaderData }: Route.ComponentProps) {
           turns the accepted programs into night plans.
         </p>
       </section>
+
+      <YourSections />
 
       <section aria-labelledby="how">
         <h2 id="how" className="text-xl font-semibold">
