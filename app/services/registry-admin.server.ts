@@ -5,6 +5,7 @@
  */
 import { and, asc, count, eq, inArray, max, ne } from "drizzle-orm";
 import { data } from "react-router";
+import * as v from "valibot";
 import type { Database, Transaction } from "~/db/client.server";
 import { parseForm, readBodyCapped } from "./http-body.server";
 import { loadSiteRegistry } from "./registry.server";
@@ -63,6 +64,19 @@ export async function readForm(
   }
   const form = await parseForm(request, read.bytes);
   return form ? { form } : { error: "The form could not be read; please send it again.", status: 400 };
+}
+
+const EditIntent = v.picklist(["save", "delete"], "Unknown action.");
+
+/** An edit page's post: the form (read with `readForm`) and whether it saves or deletes. */
+export async function readEditForm(
+  request: Request,
+): Promise<{ form: FormData; intent: "save" | "delete" } | { error: string; status: number }> {
+  const read = await readForm(request);
+  if ("error" in read) return read;
+  const intent = v.safeParse(EditIntent, read.form.get("intent"));
+  if (!intent.success) return { error: intent.issues[0].message, status: 400 };
+  return { form: read.form, intent: intent.output };
 }
 
 /** The text fields of a form, as typed, for the schema and for refilling the form. */
@@ -248,6 +262,13 @@ export async function getInstrument(db: Db, id: number) {
   if (!row) return null;
   const bandRows = await db.select().from(bands).where(eq(bands.instrumentId, id)).orderBy(asc(bands.centralWavelengthM));
   return { ...row, bands: bandRows };
+}
+
+/** The instrument a route parameter names, or a 404 page. */
+export async function instrumentOr404(db: Db, raw: string | undefined) {
+  const instrument = await getInstrument(db, idParam(raw, "instrument"));
+  if (!instrument) throw data("There is no instrument with that number.", { status: 404 });
+  return instrument;
 }
 
 export async function instrumentNameTaken(db: Db, siteId: number, name: string, exceptId?: number) {

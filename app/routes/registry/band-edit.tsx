@@ -8,10 +8,8 @@ import { Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/services/flash.server";
-import { bandNameTaken, deleteBand, formValues, getBand, idParam, pgCode, readForm, updateBand } from "~/services/registry-admin.server";
+import { bandNameTaken, deleteBand, formValues, getBand, idParam, pgCode, readEditForm, updateBand } from "~/services/registry-admin.server";
 import { BandFormSchema, fieldErrors, metresToMicrons, micronsToMetres } from "~/services/registry-io";
-
-const Intent = v.picklist(["save", "delete"], "Unknown action.");
 
 async function bandOr404(params: { bandId?: string }) {
   const found = await getBand(database(), idParam(params.bandId, "band"));
@@ -29,12 +27,10 @@ export async function action({ request, params }: Route.ActionArgs) {
   await requirePermission(request, "registry:edit");
   const db = database();
   const { band, instrument } = await bandOr404(params);
-  const read = await readForm(request);
+  const read = await readEditForm(request);
   if ("error" in read) return data({ errors: { form: read.error }, values: {} as Record<string, string> }, { status: read.status });
-  const intent = v.safeParse(Intent, read.form.get("intent"));
-  if (!intent.success) return data({ errors: { form: intent.issues[0].message }, values: {} as Record<string, string> }, { status: 400 });
 
-  if (intent.output === "delete") {
+  if (read.intent === "delete") {
     try {
       await deleteBand(db, band.id);
     } catch (e) {

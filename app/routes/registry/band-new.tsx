@@ -8,25 +8,19 @@ import { Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/services/flash.server";
-import { bandNameTaken, createBand, formValues, getInstrument, idParam, pgCode, readForm } from "~/services/registry-admin.server";
+import { bandNameTaken, createBand, formValues, instrumentOr404, pgCode, readForm } from "~/services/registry-admin.server";
 import { BandFormSchema, fieldErrors, micronsToMetres } from "~/services/registry-io";
-
-async function instrumentOr404(params: { instrumentId?: string }) {
-  const instrument = await getInstrument(database(), idParam(params.instrumentId, "instrument"));
-  if (!instrument) throw data("There is no instrument with that number.", { status: 404 });
-  return instrument;
-}
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   await requirePermission(request, "registry:edit");
-  const instrument = await instrumentOr404(params);
+  const instrument = await instrumentOr404(database(), params.instrumentId);
   return { instrument: { id: instrument.id, name: instrument.name } };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
   await requirePermission(request, "registry:edit");
   const db = database();
-  const instrument = await instrumentOr404(params);
+  const instrument = await instrumentOr404(database(), params.instrumentId);
   const read = await readForm(request);
   if ("error" in read) return data({ errors: { form: read.error }, values: {} as Record<string, string> }, { status: read.status });
   const values = formValues(read.form, BAND_FIELDS);

@@ -16,14 +16,12 @@ import {
   getSite,
   idParam,
   pgCode,
-  readForm,
+  readEditForm,
   saveConfiguration,
   widestInstrument,
 } from "~/services/registry-admin.server";
 import { ConfigurationSchema, fieldErrors } from "~/services/registry-io";
 import { loadSiteRegistry } from "~/services/registry.server";
-
-const Intent = v.picklist(["save", "delete"], "Unknown action.");
 
 async function configurationOr404(params: { configurationId?: string }) {
   const configuration = await getConfiguration(database(), idParam(params.configurationId, "configuration"));
@@ -48,12 +46,10 @@ export async function action({ request, params }: Route.ActionArgs) {
   await requirePermission(request, "registry:edit");
   const db = database();
   const configuration = await configurationOr404(params);
-  const read = await readForm(request);
+  const read = await readEditForm(request);
   if ("error" in read) return data({ errors: { form: read.error }, values: {} as Record<string, string> }, { status: read.status });
-  const intent = v.safeParse(Intent, read.form.get("intent"));
-  if (!intent.success) return data({ errors: { form: intent.issues[0].message }, values: {} as Record<string, string> }, { status: 400 });
 
-  if (intent.output === "delete") {
+  if (read.intent === "delete") {
     try {
       await deleteConfiguration(db, configuration.id);
     } catch (e) {

@@ -11,29 +11,20 @@ import { redirectWithFlash } from "~/services/flash.server";
 import {
   deleteInstrument,
   formValues,
-  getInstrument,
+  instrumentOr404,
   getSite,
-  idParam,
   instrumentNameTaken,
   largestConfiguration,
   pgCode,
-  readForm,
+  readEditForm,
   updateInstrument,
 } from "~/services/registry-admin.server";
 import { InstrumentSchema, fieldErrors, metresToMicrons } from "~/services/registry-io";
 
-const Intent = v.picklist(["save", "delete"], "Unknown action.");
-
-async function instrumentOr404(params: { instrumentId?: string }) {
-  const instrument = await getInstrument(database(), idParam(params.instrumentId, "instrument"));
-  if (!instrument) throw data("There is no instrument with that number.", { status: 404 });
-  return instrument;
-}
-
 export async function loader({ request, params }: Route.LoaderArgs) {
   await requirePermission(request, "registry:edit");
   const db = database();
-  const instrument = await instrumentOr404(params);
+  const instrument = await instrumentOr404(database(), params.instrumentId);
   const [site, largest] = await Promise.all([getSite(db, instrument.siteId), largestConfiguration(db, instrument.siteId)]);
   return { instrument, siteName: site?.name ?? "", largest };
 }
@@ -41,13 +32,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 export async function action({ request, params }: Route.ActionArgs) {
   await requirePermission(request, "registry:edit");
   const db = database();
-  const instrument = await instrumentOr404(params);
-  const read = await readForm(request);
+  const instrument = await instrumentOr404(database(), params.instrumentId);
+  const read = await readEditForm(request);
   if ("error" in read) return data({ errors: { form: read.error }, values: {} as Record<string, string> }, { status: read.status });
-  const intent = v.safeParse(Intent, read.form.get("intent"));
-  if (!intent.success) return data({ errors: { form: intent.issues[0].message }, values: {} as Record<string, string> }, { status: 400 });
 
-  if (intent.output === "delete") {
+  if (read.intent === "delete") {
     try {
       await deleteInstrument(db, instrument.id);
     } catch (e) {

@@ -8,10 +8,8 @@ import { Card, PageHeader, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/services/flash.server";
-import { deleteSite, formValues, getSite, idParam, pgCode, readForm, siteContents, siteNameTaken, updateSite } from "~/services/registry-admin.server";
+import { deleteSite, formValues, getSite, idParam, pgCode, readEditForm, siteContents, siteNameTaken, updateSite } from "~/services/registry-admin.server";
 import { SiteSchema, fieldErrors, sentence } from "~/services/registry-io";
-
-const Intent = v.picklist(["save", "delete"], "Unknown action.");
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   await requirePermission(request, "registry:edit");
@@ -27,12 +25,10 @@ export async function action({ request, params }: Route.ActionArgs) {
   const db = database();
   const site = await getSite(db, idParam(params.siteId, "site"));
   if (!site) throw data("There is no site with that number.", { status: 404 });
-  const read = await readForm(request);
+  const read = await readEditForm(request);
   if ("error" in read) return data({ errors: { form: read.error }, values: {} as Record<string, string> }, { status: read.status });
-  const intent = v.safeParse(Intent, read.form.get("intent"));
-  if (!intent.success) return data({ errors: { form: intent.issues[0].message }, values: {} as Record<string, string> }, { status: 400 });
 
-  if (intent.output === "delete") {
+  if (read.intent === "delete") {
     const confirmName = String(read.form.get("confirmName") ?? "").trim();
     if (confirmName !== site.name) {
       return data({ errors: { confirmName: `type the site's name, ${site.name}, to confirm` }, values: { confirmName } as Record<string, string> }, { status: 400 });

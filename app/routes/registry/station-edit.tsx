@@ -16,14 +16,12 @@ import {
   getStation,
   idParam,
   pgCode,
-  readForm,
+  readEditForm,
   stationNameTaken,
   updateStation,
 } from "~/services/registry-admin.server";
 import { StationSchema, fieldErrors } from "~/services/registry-io";
 import { loadSiteRegistry } from "~/services/registry.server";
-
-const Intent = v.picklist(["save", "delete"], "Unknown action.");
 
 async function stationOr404(params: { stationId?: string }) {
   const station = await getStation(database(), idParam(params.stationId, "station"));
@@ -48,12 +46,10 @@ export async function action({ request, params }: Route.ActionArgs) {
   await requirePermission(request, "registry:edit");
   const db = database();
   const station = await stationOr404(params);
-  const read = await readForm(request);
+  const read = await readEditForm(request);
   if ("error" in read) return data({ errors: { form: read.error }, values: {} as Record<string, string>, deleteRefused: null }, { status: read.status });
-  const intent = v.safeParse(Intent, read.form.get("intent"));
-  if (!intent.success) return data({ errors: { form: intent.issues[0].message }, values: {} as Record<string, string>, deleteRefused: null }, { status: 400 });
 
-  if (intent.output === "delete") {
+  if (read.intent === "delete") {
     const result = await deleteStation(db, station.id);
     if (!result.deleted) {
       const message = `${station.name} cannot be deleted while ${result.usedBy.length > 1 ? "configurations use" : "a configuration uses"} it: ${result.usedBy.join(", ")}. Take it out of ${result.usedBy.length > 1 ? "them" : "it"} first.`;
