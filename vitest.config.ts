@@ -1,11 +1,14 @@
-import { defineConfig } from "vitest/config";
 import { fileURLToPath } from "node:url";
+import { defineConfig } from "vitest/config";
 
 // Separate from vite.config.ts: the React Router plugin is not wanted in tests.
-// Three projects: "unit" needs nothing running; "integration" gets a PostgreSQL
+// Three projects: "unit" (*.test.ts) needs nothing running; "integration" (*.db.test.ts) gets a PostgreSQL
 // cluster on loopback and a fresh database per test file (see test/setup/); "e2e" drives
 // Debian's Chromium against the production build (run `npm run build` first; see e2e/setup/).
-const alias = { "~": fileURLToPath(new URL("./app", import.meta.url)) };
+const alias = {
+  "~": fileURLToPath(new URL("./app", import.meta.url)),
+  "@test": fileURLToPath(new URL("./test/support", import.meta.url)),
+};
 
 export default defineConfig({
   resolve: { alias },
@@ -15,7 +18,9 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: "unit",
-          include: ["test/unit/**/*.test.{ts,tsx}"],
+          // test/ mirrors app/: pure code in *.test.ts; *.db.test.ts needs PostgreSQL.
+          include: ["test/**/*.test.{ts,tsx}"],
+          exclude: ["test/**/*.db.test.{ts,tsx}", "test/integration/**"],
           environment: "node",
           setupFiles: ["test/setup/fail-on-console-error.ts"],
         },
@@ -24,7 +29,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: "integration",
-          include: ["test/integration/**/*.test.{ts,tsx}"],
+          include: ["test/**/*.db.test.{ts,tsx}", "test/integration/**/*.test.{ts,tsx}"],
           environment: "node",
           globalSetup: ["test/setup/global.ts"],
           setupFiles: ["test/setup/fail-on-console-error.ts", "test/setup/database.ts"],

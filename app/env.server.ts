@@ -16,9 +16,15 @@ const EnvSchema = v.object({
     "3000",
   ),
   HOST: v.optional(v.string(), "0.0.0.0"),
-  APP_ORIGIN: v.optional(v.pipe(v.string(), v.url("must be a URL such as http://localhost:3000")), "http://localhost:3000"),
+  APP_ORIGIN: v.optional(
+    v.pipe(v.string(), v.url("must be a URL such as http://localhost:3000")),
+    "http://localhost:3000",
+  ),
   /** Signs the flash-message cookie; set a long random value in production. */
-  COOKIE_SECRET: v.optional(v.pipe(v.string(), v.minLength(16, "must be at least 16 characters")), "fringe-docket-development-secret"),
+  COOKIE_SECRET: v.optional(
+    v.pipe(v.string(), v.minLength(16, "must be at least 16 characters")),
+    "fringe-docket-development-secret",
+  ),
   /** "1" shows the demo sign-ins and everybody's mailbox: for the demo scenario only. */
   DEMO_MODE: v.optional(v.picklist(["0", "1"]), "1"),
   ...MAIL_ENV_ENTRIES,

@@ -2,13 +2,15 @@ import type { ReactNode } from "react";
 import { data, Form, Link, Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
 import type { Route } from "./+types/root";
 import stylesheet from "./app.css?url";
-import { AppShell } from "./components/layout/AppShell";
 import { ErrorPage } from "./components/ErrorPage";
+import { AppShell } from "./components/layout/AppShell";
 import { Toast } from "./components/ui/Toast";
+import { dbContext } from "./context";
+import { database } from "./db/client.server";
 import { env } from "./env.server";
-import { getViewer } from "./services/auth.server";
 import { crossSiteReason } from "./services/auth/origin.server";
-import { readFlash } from "./services/flash.server";
+import { getViewer } from "./services/auth.server";
+import { readFlash } from "./lib/flash.server";
 import { sectionsFor } from "./services/permissions";
 
 /** Refuses cross-site form posts and API writes before any action runs. */
@@ -23,11 +25,29 @@ const refuseCrossSite: Route.MiddlewareFunction = async ({ request }, next) => {
   return next();
 };
 
-export const middleware: Route.MiddlewareFunction[] = [refuseCrossSite];
+/** Hands every loader and action the database handle through the router context. */
+const provideDatabase: Route.MiddlewareFunction = async ({ context }, next) => {
+  context.set(dbContext, database());
+  return next();
+};
+
+export const middleware: Route.MiddlewareFunction[] = [refuseCrossSite, provideDatabase];
 
 export const links: Route.LinksFunction = () => [
-  { rel: "preload", href: "/fonts/ibm-plex-sans-latin-400-normal.woff2", as: "font", type: "font/woff2", crossOrigin: "anonymous" },
-  { rel: "preload", href: "/fonts/ibm-plex-sans-latin-600-normal.woff2", as: "font", type: "font/woff2", crossOrigin: "anonymous" },
+  {
+    rel: "preload",
+    href: "/fonts/ibm-plex-sans-latin-400-normal.woff2",
+    as: "font",
+    type: "font/woff2",
+    crossOrigin: "anonymous",
+  },
+  {
+    rel: "preload",
+    href: "/fonts/ibm-plex-sans-latin-600-normal.woff2",
+    as: "font",
+    type: "font/woff2",
+    crossOrigin: "anonymous",
+  },
   { rel: "stylesheet", href: stylesheet },
   { rel: "icon", href: "/favicon.svg", type: "image/svg+xml" },
 ];
@@ -85,7 +105,10 @@ function AccountControls({ signedIn }: { signedIn: boolean }) {
         Account
       </Link>
       <Form method="post" action="/sign-out">
-        <button type="submit" className="rounded-md px-2 py-1.5 text-night-100 ring-1 ring-night-600 hover:bg-night-800 hover:text-white">
+        <button
+          type="submit"
+          className="rounded-md px-2 py-1.5 text-night-100 ring-1 ring-night-600 hover:bg-night-800 hover:text-white"
+        >
           Sign out
         </button>
       </Form>
@@ -95,7 +118,11 @@ function AccountControls({ signedIn }: { signedIn: boolean }) {
 
 export default function App({ loaderData }: Route.ComponentProps) {
   return (
-    <AppShell sections={loaderData.sections} viewer={loaderData.viewer} account={<AccountControls signedIn={!!loaderData.viewer} />}>
+    <AppShell
+      sections={loaderData.sections}
+      viewer={loaderData.viewer}
+      account={<AccountControls signedIn={!!loaderData.viewer} />}
+    >
       <Toast flash={loaderData.flash} />
       <Outlet />
     </AppShell>

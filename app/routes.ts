@@ -1,4 +1,4 @@
-import { type RouteConfig, index, prefix, route } from "@react-router/dev/routes";
+import { index, prefix, type RouteConfig, route } from "@react-router/dev/routes";
 
 export default [
   index("routes/home.tsx"),
@@ -35,7 +35,11 @@ export default [
   route("triangles", "routes/triangles/index.tsx"),
 
   // Cycles
-  ...prefix("cycles", [index("routes/cycles/index.tsx"), route("new", "routes/cycles/new.tsx"), route(":cycleId/edit", "routes/cycles/edit.tsx")]),
+  ...prefix("cycles", [
+    index("routes/cycles/index.tsx"),
+    route("new", "routes/cycles/new.tsx"),
+    route(":cycleId/edit", "routes/cycles/edit.tsx"),
+  ]),
 
   // My targets
   ...prefix("targets", [

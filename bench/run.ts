@@ -11,15 +11,19 @@
  *     direct sum costs N² × points), next to the FFT beam of those points.
  */
 import { readFileSync, writeFileSync } from "node:fs";
-import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "../app/db/demo-scenario";
-import { computeFeasibility, type FeasibilityInput } from "../app/services/feasibility";
 import { cpus } from "node:os";
 import { fileURLToPath } from "node:url";
-import { computeCoverage, computeCoverageArrays } from "../app/services/interferometry/coverage";
-import { directDirtyBeam } from "../app/services/interferometry/direct-dft";
-import { dirtyBeam } from "../app/services/interferometry/dirty-beam";
-import { HermitianImager } from "../app/services/interferometry/fft2d";
-import { type CoverageRequest, parseCoverageRequest } from "../app/services/requests";
+import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "../app/db/demo-scenario";
+import {
+  type CoverageRequest,
+  computeCoverage,
+  computeCoverageArrays,
+  directDirtyBeam,
+  dirtyBeam,
+  HermitianImager,
+  parseCoverageRequest,
+} from "../app/engine";
+import { computeFeasibility, type FeasibilityInput } from "../app/services/feasibility";
 
 interface Timing {
   medianMs: number;

@@ -2,13 +2,14 @@
  * Who may open what: one table of route families × roles, checked by status code against the
  * production server. Every route in app/routes.ts must appear here, so a new route cannot skip it.
  */
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+
 import { eq } from "drizzle-orm";
-import routes from "~/routes";
-import { apiTokens } from "~/db/schema/auth";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDatabase } from "~/db/client.server";
 import { ensureUser } from "~/db/factories.server";
+import { apiTokens } from "~/db/schema/auth";
 import type { Role } from "~/db/schema/users";
+import routes from "~/routes";
 import { createApiToken } from "~/services/auth/api-tokens.server";
 import { createSession } from "~/services/auth/sessions.server";
 
@@ -20,11 +21,39 @@ const WHO: Who[] = ["anonymous", "proposer", "reviewer", "chair", "scheduler", "
 // "unauthorized" = 401 JSON, a number = that exact status. One row per route pattern.
 type Outcome = "ok" | "sign-in" | "forbidden" | "unauthorized" | number;
 type Row = { pattern: string; method: "GET" | "POST"; path: string; body?: unknown; expect: Record<Who, Outcome> };
-const all = (o: Outcome): Record<Who, Outcome> => ({ anonymous: o, proposer: o, reviewer: o, chair: o, scheduler: o, admin: o });
+const all = (o: Outcome): Record<Who, Outcome> => ({
+  anonymous: o,
+  proposer: o,
+  reviewer: o,
+  chair: o,
+  scheduler: o,
+  admin: o,
+});
 const signedIn = (o: Outcome): Record<Who, Outcome> => ({ ...all(o), anonymous: "sign-in" });
-const proposerOnly: Record<Who, Outcome> = { anonymous: "sign-in", proposer: "ok", reviewer: "forbidden", chair: "forbidden", scheduler: "forbidden", admin: "forbidden" };
-const chairOnly: Record<Who, Outcome> = { anonymous: "sign-in", proposer: "forbidden", reviewer: "forbidden", chair: "ok", scheduler: "forbidden", admin: "forbidden" };
-const adminOnly: Record<Who, Outcome> = { anonymous: "sign-in", proposer: "forbidden", reviewer: "forbidden", chair: "forbidden", scheduler: "forbidden", admin: "ok" };
+const proposerOnly: Record<Who, Outcome> = {
+  anonymous: "sign-in",
+  proposer: "ok",
+  reviewer: "forbidden",
+  chair: "forbidden",
+  scheduler: "forbidden",
+  admin: "forbidden",
+};
+const chairOnly: Record<Who, Outcome> = {
+  anonymous: "sign-in",
+  proposer: "forbidden",
+  reviewer: "forbidden",
+  chair: "ok",
+  scheduler: "forbidden",
+  admin: "forbidden",
+};
+const adminOnly: Record<Who, Outcome> = {
+  anonymous: "sign-in",
+  proposer: "forbidden",
+  reviewer: "forbidden",
+  chair: "forbidden",
+  scheduler: "forbidden",
+  admin: "ok",
+};
 
 const coverageBody = {
   site: { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 },
@@ -58,17 +87,48 @@ const MATRIX: Row[] = [
   { pattern: "/registry/sites/new", method: "GET", path: "/registry/sites/new", expect: adminOnly },
   { pattern: "/registry/sites/:siteId/edit", method: "GET", path: "/registry/sites/1/edit", expect: adminOnly },
   { pattern: "/registry/stations/new", method: "GET", path: "/registry/stations/new", expect: adminOnly },
-  { pattern: "/registry/stations/:stationId/edit", method: "GET", path: "/registry/stations/1/edit", expect: adminOnly },
+  {
+    pattern: "/registry/stations/:stationId/edit",
+    method: "GET",
+    path: "/registry/stations/1/edit",
+    expect: adminOnly,
+  },
   { pattern: "/registry/configurations/new", method: "GET", path: "/registry/configurations/new", expect: adminOnly },
-  { pattern: "/registry/configurations/:configurationId/edit", method: "GET", path: "/registry/configurations/1/edit", expect: adminOnly },
+  {
+    pattern: "/registry/configurations/:configurationId/edit",
+    method: "GET",
+    path: "/registry/configurations/1/edit",
+    expect: adminOnly,
+  },
   { pattern: "/registry/instruments/new", method: "GET", path: "/registry/instruments/new", expect: adminOnly },
-  { pattern: "/registry/instruments/:instrumentId/edit", method: "GET", path: "/registry/instruments/1/edit", expect: adminOnly },
-  { pattern: "/registry/instruments/:instrumentId/bands/new", method: "GET", path: "/registry/instruments/1/bands/new", expect: adminOnly },
+  {
+    pattern: "/registry/instruments/:instrumentId/edit",
+    method: "GET",
+    path: "/registry/instruments/1/edit",
+    expect: adminOnly,
+  },
+  {
+    pattern: "/registry/instruments/:instrumentId/bands/new",
+    method: "GET",
+    path: "/registry/instruments/1/bands/new",
+    expect: adminOnly,
+  },
   { pattern: "/registry/bands/:bandId/edit", method: "GET", path: "/registry/bands/1/edit", expect: adminOnly },
   { pattern: "/registry/import", method: "GET", path: "/registry/import", expect: adminOnly },
   // The guard comes before the body is read: nobody but an administrator gets as far as the form.
-  { pattern: "/registry/import", method: "POST", path: "/registry/import", body: {}, expect: { ...adminOnly, admin: 400 } },
-  { pattern: "/sketchpad", method: "GET", path: "/sketchpad?config=compact-3&ra=05:36:12&dec=-01:12:07", expect: signedIn("ok") },
+  {
+    pattern: "/registry/import",
+    method: "POST",
+    path: "/registry/import",
+    body: {},
+    expect: { ...adminOnly, admin: 400 },
+  },
+  {
+    pattern: "/sketchpad",
+    method: "GET",
+    path: "/sketchpad?config=compact-3&ra=05:36:12&dec=-01:12:07",
+    expect: signedIn("ok"),
+  },
   { pattern: "/triangles", method: "GET", path: "/triangles?pool=all", expect: signedIn("ok") },
   { pattern: "/cycles", method: "GET", path: "/cycles", expect: signedIn("ok") },
   { pattern: "/targets", method: "GET", path: "/targets", expect: proposerOnly },
@@ -79,18 +139,55 @@ const MATRIX: Row[] = [
   // Proposals: proposers only; a proposal of someone else (or none at all) is the same 404.
   { pattern: "/proposals", method: "GET", path: "/proposals", expect: proposerOnly },
   { pattern: "/proposals/new", method: "GET", path: "/proposals/new", expect: proposerOnly },
-  { pattern: "/proposals/:proposalId", method: "GET", path: "/proposals/999999", expect: { ...proposerOnly, proposer: 404 } },
-  { pattern: "/proposals/:proposalId", method: "POST", path: "/proposals/1", body: {}, expect: { ...proposerOnly, proposer: 404 } },
-  { pattern: "/proposals/:proposalId/targets/:targetId", method: "GET", path: "/proposals/1/targets/new", expect: { ...proposerOnly, proposer: 404 } },
-  { pattern: "/proposals/:proposalId/feasibility", method: "GET", path: "/proposals/1/feasibility", expect: { ...proposerOnly, proposer: 404 } },
-  { pattern: "/proposals/:proposalId/science-case", method: "GET", path: "/proposals/4/science-case", expect: { ...proposerOnly, proposer: 404 } },
-  { pattern: "/proposals/:proposalId/versions/:version", method: "GET", path: "/proposals/4/versions/1", expect: { ...proposerOnly, proposer: 404 } },
+  {
+    pattern: "/proposals/:proposalId",
+    method: "GET",
+    path: "/proposals/999999",
+    expect: { ...proposerOnly, proposer: 404 },
+  },
+  {
+    pattern: "/proposals/:proposalId",
+    method: "POST",
+    path: "/proposals/1",
+    body: {},
+    expect: { ...proposerOnly, proposer: 404 },
+  },
+  {
+    pattern: "/proposals/:proposalId/targets/:targetId",
+    method: "GET",
+    path: "/proposals/1/targets/new",
+    expect: { ...proposerOnly, proposer: 404 },
+  },
+  {
+    pattern: "/proposals/:proposalId/feasibility",
+    method: "GET",
+    path: "/proposals/1/feasibility",
+    expect: { ...proposerOnly, proposer: 404 },
+  },
+  {
+    pattern: "/proposals/:proposalId/science-case",
+    method: "GET",
+    path: "/proposals/4/science-case",
+    expect: { ...proposerOnly, proposer: 404 },
+  },
+  {
+    pattern: "/proposals/:proposalId/versions/:version",
+    method: "GET",
+    path: "/proposals/4/versions/1",
+    expect: { ...proposerOnly, proposer: 404 },
+  },
   { pattern: "/cycles/new", method: "GET", path: "/cycles/new", expect: chairOnly },
   { pattern: "/cycles/:cycleId/edit", method: "GET", path: "/cycles/1/edit", expect: chairOnly },
   // Demo mode (as the test server runs): every signed-in person may read the mailbox.
   { pattern: "/mailbox", method: "GET", path: "/mailbox", expect: signedIn("ok") },
   { pattern: "/mailbox/:messageId", method: "GET", path: "/mailbox/999999", expect: signedIn(404) },
-  { pattern: "/api/coverage", method: "POST", path: "/api/coverage", body: coverageBody, expect: { ...all("ok"), anonymous: "unauthorized" } },
+  {
+    pattern: "/api/coverage",
+    method: "POST",
+    path: "/api/coverage",
+    body: coverageBody,
+    expect: { ...all("ok"), anonymous: "unauthorized" },
+  },
   {
     pattern: "/api/ephemeris",
     method: "POST",
@@ -98,7 +195,13 @@ const MATRIX: Row[] = [
     body: { site: coverageBody.site, date: "2027-03-15" },
     expect: { ...all("ok"), anonymous: "unauthorized" },
   },
-  { pattern: "/api/triangles", method: "POST", path: "/api/triangles", body: {}, expect: { ...all(400), anonymous: "unauthorized" } },
+  {
+    pattern: "/api/triangles",
+    method: "POST",
+    path: "/api/triangles",
+    body: {},
+    expect: { ...all(400), anonymous: "unauthorized" },
+  },
   { pattern: "/*", method: "GET", path: "/no/such/page", expect: all(404) },
 ];
 
@@ -119,7 +222,11 @@ beforeAll(async () => {
   close = () => client.end();
   for (const role of WHO) {
     if (role === "anonymous") continue;
-    const user = await ensureUser(db, { email: `matrix-${role}@matrix.example`, name: `Matrix ${role}`, roles: [role] });
+    const user = await ensureUser(db, {
+      email: `matrix-${role}@matrix.example`,
+      name: `Matrix ${role}`,
+      roles: [role],
+    });
     const { token } = await createSession(db, user.id, { method: "sso" });
     cookies[role] = `fd_session=${token}`;
     if (role === "proposer") tokenOfProposer = (await createApiToken(db, user.id, "matrix")).token;
@@ -185,14 +292,22 @@ describe("access matrix", () => {
     // way the action never runs.
     const res = await fetch(`${baseUrl}/account`, {
       method: "POST",
-      headers: { Cookie: cookies.admin!, Origin: "http://evil.example", "Content-Type": "application/x-www-form-urlencoded" },
+      headers: {
+        Cookie: cookies.admin!,
+        Origin: "http://evil.example",
+        "Content-Type": "application/x-www-form-urlencoded",
+      },
       body: "intent=create-token&name=stolen",
       redirect: "manual",
     });
     expect([400, 403]).toContain(res.status);
     const marked = await fetch(`${baseUrl}/account`, {
       method: "POST",
-      headers: { Cookie: cookies.admin!, "Sec-Fetch-Site": "cross-site", "Content-Type": "application/x-www-form-urlencoded" },
+      headers: {
+        Cookie: cookies.admin!,
+        "Sec-Fetch-Site": "cross-site",
+        "Content-Type": "application/x-www-form-urlencoded",
+      },
       body: "intent=create-token&name=stolen",
       redirect: "manual",
     });

@@ -1,8 +1,8 @@
 import { mkdirSync } from "node:fs";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
+import { type Browser, chromium, type Page } from "playwright-core";
 import { afterAll, beforeAll, inject } from "vitest";
-import { chromium, type Browser, type Page } from "playwright-core";
 
 export const ARTIFACTS = fileURLToPath(new URL("./artifacts", import.meta.url));
 

@@ -32,10 +32,15 @@ describe("proposals", () => {
 
     // The text autosaves about a second after typing.
     const text = page.getByRole("form", { name: "Proposal text" });
-    await text.getByLabel("Abstract").fill("We will measure the limb darkening of an invented red giant on the compact configuration in the H band.");
+    await text
+      .getByLabel("Abstract")
+      .fill("We will measure the limb darkening of an invented red giant on the compact configuration in the H band.");
     await text.getByLabel("Science category").selectOption("Stellar surfaces and diameters");
     await text.getByLabel("Instrument and band").selectOption({ label: "Brasa — H (1.65 µm, limit 7.5 mag)" });
-    await page.getByTestId("autosave-status").getByText(/^Saved \d{1,2}:\d{2}/).waitFor();
+    await page
+      .getByTestId("autosave-status")
+      .getByText(/^Saved \d{1,2}:\d{2}/)
+      .waitFor();
     await expect(page.getByText("19 / 300 words").isVisible()).resolves.toBe(true);
 
     // Hours on the compact configuration.
@@ -117,7 +122,9 @@ describe("proposals", () => {
     await page.getByRole("button", { name: "Upload" }).click();
     await page.getByText(/The file is not a PDF/).waitFor();
     // What is missing before submission is listed.
-    await expect(page.getByRole("list", { name: "Missing before submission" }).textContent()).resolves.toContain("the science case (PDF)");
+    await expect(page.getByRole("list", { name: "Missing before submission" }).textContent()).resolves.toContain(
+      "the science case (PDF)",
+    );
     await screenshot(page, "proposal-upload-refused");
     await context.close();
   });

@@ -1,8 +1,8 @@
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { and, eq, inArray } from "drizzle-orm";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDatabase } from "~/db/client.server";
 import { sites, stations } from "~/db/schema/array";
 import { ARTIFACTS, screenshot, signInAs, useBrowser, watchPage } from "./browser";
@@ -28,7 +28,10 @@ afterAll(async () => {
 });
 
 async function station(name: string) {
-  const [row] = await db.select().from(stations).where(and(eq(stations.siteId, siteId), eq(stations.name, name)));
+  const [row] = await db
+    .select()
+    .from(stations)
+    .where(and(eq(stations.siteId, siteId), eq(stations.name, name)));
   return row ?? null;
 }
 
@@ -44,7 +47,9 @@ async function plotTraces(page: Page, until: string) {
     { timeout: 20_000 },
   );
   return page.evaluate(() => {
-    const el = document.querySelector(".js-plotly-plot") as HTMLElement & { data: { name: string; text?: string[]; x: (number | null)[]; y: (number | null)[] }[] };
+    const el = document.querySelector(".js-plotly-plot") as HTMLElement & {
+      data: { name: string; text?: string[]; x: (number | null)[]; y: (number | null)[] }[];
+    };
     return el.data.map((t) => ({ name: t.name, text: t.text ?? [], x: t.x, y: t.y }));
   });
 }
@@ -91,9 +96,17 @@ describe("array registry", () => {
     expect([all.x[at], all.y[at]]).toEqual([-60, 75]);
     expect(await station("W25")).toMatchObject({ eastM: -60, northM: 75, upM: 0, pathOffsetM: 3.5 });
 
-    await page.getByRole("group", { name: "Configuration drawn on the map" }).getByRole("button", { name: "extended-6" }).click();
+    await page
+      .getByRole("group", { name: "Configuration drawn on the map" })
+      .getByRole("button", { name: "extended-6" })
+      .click();
     const drawn = await plotTraces(page, "data.length === 4");
-    expect(drawn.map((t) => t.name)).toEqual(["Other stations", "Station names", "extended-6: 15 baselines", "extended-6: 6 stations"]);
+    expect(drawn.map((t) => t.name)).toEqual([
+      "Other stations",
+      "Station names",
+      "extended-6: 15 baselines",
+      "extended-6: 6 stations",
+    ]);
     expect(drawn[3].text).toEqual(["C02", "X01", "X02", "X03", "X04", "X05"]);
     // 15 baselines, each a segment with a gap after it.
     expect(drawn[2].x.filter((x) => x === null)).toHaveLength(15);
@@ -101,7 +114,10 @@ describe("array registry", () => {
     expect(drawn[1].text).toEqual(expect.arrayContaining(["W25", "X06"]));
     expect(drawn[1].text).not.toContain("C09");
     await screenshot(page, "registry-map-extended");
-    await page.locator("section").filter({ has: page.getByRole("heading", { name: "Station map" }) }).screenshot({ path: join(ARTIFACTS, "registry-map-card.png") });
+    await page
+      .locator("section")
+      .filter({ has: page.getByRole("heading", { name: "Station map" }) })
+      .screenshot({ path: join(ARTIFACTS, "registry-map-card.png") });
     expect(seen.errors).toEqual([]);
     await context.close();
   });
@@ -116,7 +132,11 @@ describe("array registry", () => {
     await page.getByRole("heading", { level: 1, name: "Import into the registry" }).waitFor();
 
     const header = "name,eastM,northM,upM,pathOffsetM\n";
-    await page.getByLabel(/^File/).setInputFiles({ name: "new-pads.csv", mimeType: "text/csv", buffer: Buffer.from(`${header}W25,-61,75,0,3.5\nW26,abc,10,0,0\n`) });
+    await page.getByLabel(/^File/).setInputFiles({
+      name: "new-pads.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from(`${header}W25,-61,75,0,3.5\nW26,abc,10,0,0\n`),
+    });
     await page.getByRole("button", { name: "Preview the import" }).click();
     const problems = page.getByRole("alert").filter({ hasText: "Nothing was imported" });
     await problems.getByText("row 2, eastM: must be a number").waitFor();
@@ -127,11 +147,16 @@ describe("array registry", () => {
 
     const c01 = (await station("C01"))!;
     const c01Row = [c01.name, c01.eastM, c01.northM, c01.upM, c01.pathOffsetM].join(",");
-    await page.getByLabel(/^File/).setInputFiles({ name: "new-pads.csv", mimeType: "text/csv", buffer: Buffer.from(`${header}W25,-61,75,0,3.5\nW26,5,-90,0.1,1\n${c01Row}\n`) });
+    await page.getByLabel(/^File/).setInputFiles({
+      name: "new-pads.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from(`${header}W25,-61,75,0,3.5\nW26,5,-90,0.1,1\n${c01Row}\n`),
+    });
     await page.getByRole("button", { name: "Preview the import" }).click();
     const previewTable = page.getByRole("table", { name: "What the import would do to each station" });
     await previewTable.waitFor();
-    const rowOf = (name: string) => previewTable.locator("tbody tr").filter({ has: page.getByText(name, { exact: true }) });
+    const rowOf = (name: string) =>
+      previewTable.locator("tbody tr").filter({ has: page.getByText(name, { exact: true }) });
     await expect(rowOf("W26").getByText("new").isVisible()).resolves.toBe(true);
     await expect(rowOf("W25").getByText("updated").isVisible()).resolves.toBe(true);
     await expect(rowOf("C01").getByText("unchanged").isVisible()).resolves.toBe(true);
@@ -150,9 +175,14 @@ describe("array registry", () => {
     const context = await browser.newContext({ acceptDownloads: true });
     const page = await context.newPage();
     await page.goto(`${baseUrl}/registry`);
-    const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Stations (CSV)" }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent("download"),
+      page.getByRole("link", { name: "Stations (CSV)" }).click(),
+    ]);
     expect(download.suggestedFilename()).toBe("sierra-lumbre-array-stations.csv");
-    const lines = readFileSync((await download.path())!, "utf8").trim().split("\n");
+    const lines = readFileSync((await download.path())!, "utf8")
+      .trim()
+      .split("\n");
     expect(lines[0]).toBe("name,eastM,northM,upM,pathOffsetM");
     expect(lines).toContain("W26,5,-90,0.1,1");
     expect(lines).toHaveLength(1 + 26);
@@ -173,7 +203,10 @@ describe("array registry", () => {
     await expect(page.getByRole("columnheader", { name: /Edit/ }).count()).resolves.toBe(0);
     await screenshot(page, "registry-proposer");
 
-    await page.getByRole("table", { name: /Stations of the site/ }).getByRole("link", { name: "C04", exact: true }).click();
+    await page
+      .getByRole("table", { name: /Stations of the site/ })
+      .getByRole("link", { name: "C04", exact: true })
+      .click();
     await page.getByRole("heading", { level: 1, name: "Station C04" }).waitFor();
     // Framed on the station and its configuration, drawn to begin with; close neighbours are named.
     const traces = await plotTraces(page, "data.some((t) => t.name === 'Station C04') && data[1].text.includes('C09')");
@@ -195,7 +228,9 @@ describe("array registry", () => {
     const c04 = (await station("C04"))!;
     await page.goto(`${baseUrl}/registry/stations/${c04.id}/edit`);
     await page.getByRole("button", { name: "Delete C04" }).click();
-    await page.getByText("C04 cannot be deleted while a configuration uses it: compact-3. Take it out of it first.").waitFor();
+    await page
+      .getByText("C04 cannot be deleted while a configuration uses it: compact-3. Take it out of it first.")
+      .waitFor();
     await screenshot(page, "registry-delete-refused");
     expect(await station("C04")).not.toBeNull();
 
@@ -206,7 +241,12 @@ describe("array registry", () => {
       await page.getByText(`Station ${name} deleted.`).waitFor();
       expect(await station(name)).toBeNull();
     }
-    await expect(page.getByRole("table", { name: /Stations of the site/ }).locator("tbody tr").count()).resolves.toBe(24);
+    await expect(
+      page
+        .getByRole("table", { name: /Stations of the site/ })
+        .locator("tbody tr")
+        .count(),
+    ).resolves.toBe(24);
     expect(seen.errors).toEqual([]);
     await context.close();
   });

@@ -26,7 +26,9 @@ describe("app shell", () => {
     const origin = new URL(baseUrl).origin;
     const foreign = seen.requests.filter((u) => !u.startsWith(origin) && !u.startsWith("data:"));
     expect(foreign).toEqual([]);
-    expect(seen.requests.some((u) => u.startsWith(`${origin}/fonts/ibm-plex-sans-`) && u.endsWith(".woff2"))).toBe(true);
+    expect(seen.requests.some((u) => u.startsWith(`${origin}/fonts/ibm-plex-sans-`) && u.endsWith(".woff2"))).toBe(
+      true,
+    );
     expect(seen.errors).toEqual([]);
     await screenshot(page, "home-desktop");
     await page.close();
@@ -73,7 +75,9 @@ describe("app shell", () => {
     await menu.focus();
     await page.keyboard.press("Enter");
     await expect(menu.getAttribute("aria-expanded")).resolves.toBe("true");
-    await expect(page.locator("#mobile-nav").getByRole("link", { name: "Array registry" }).isVisible()).resolves.toBe(true);
+    await expect(page.locator("#mobile-nav").getByRole("link", { name: "Array registry" }).isVisible()).resolves.toBe(
+      true,
+    );
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     await screenshot(page, "home-360");

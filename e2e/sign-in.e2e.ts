@@ -27,12 +27,16 @@ describe("sign-in through the local sign-on service", () => {
       expect(items).toEqual(menu);
       // The home page lists the same sections, each with a line on what it is for.
       await page.getByRole("heading", { name: `Your sections, ${name}` }).waitFor();
-      const cards = await page.getByRole("region", { name: `Your sections, ${name}` }).getByRole("link").count();
+      const cards = await page
+        .getByRole("region", { name: `Your sections, ${name}` })
+        .getByRole("link")
+        .count();
       expect(cards).toBe(menu.length);
       if (person.roles.includes("proposer")) await screenshot(page, "home-signed-in");
       await page.getByRole("link", { name: "Account", exact: true }).click();
       await page.getByRole("heading", { level: 1, name: "Your account" }).waitFor();
-      for (const role of person.roles) await expect(page.getByText(role, { exact: true }).first().isVisible()).resolves.toBe(true);
+      for (const role of person.roles)
+        await expect(page.getByText(role, { exact: true }).first().isVisible()).resolves.toBe(true);
       expect(seen.errors).toEqual([]);
       if (person.roles.includes("admin")) await screenshot(page, "account-admin");
       await context.close();

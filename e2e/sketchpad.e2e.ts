@@ -3,8 +3,9 @@
  * sign-on page: plots are drawn by Plotly, follow the inputs, the address carries the inputs, input
  * errors appear beside their field, and a ranked triangle opens in the Sketchpad.
  */
+
+import type { Locator, Page } from "playwright-core";
 import { describe, expect, inject, it } from "vitest";
-import type { Browser, Locator, Page } from "playwright-core";
 import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
 
 const baseUrl = inject("baseUrl");
@@ -12,8 +13,7 @@ const browser = useBrowser();
 
 // A target near the meridian at local midnight in mid-March at the demo site, a binary so closure
 // phases are not trivially zero.
-const SKETCH =
-  "name=Test%20field&ra=11:00:00&dec=-36:00:00&date=2027-03-15&model=binary&sep=4&pa=60&ratio=0.4";
+const SKETCH = "name=Test%20field&ra=11:00:00&dec=-36:00:00&date=2027-03-15&model=binary&sep=4&pa=60&ratio=0.4";
 
 /** Number of Plotly traces per drawn figure, keyed by the start of the figure's accessible name. */
 async function tracesByFigure(page: Page): Promise<Record<string, number>> {
@@ -31,7 +31,10 @@ async function tracesByFigure(page: Page): Promise<Record<string, number>> {
 async function waitForPlots(page: Page, count: number) {
   await page.waitForFunction(
     (n) => {
-      const plots = [...document.querySelectorAll(".js-plotly-plot")] as unknown as { data?: unknown[]; _fullLayout?: unknown }[];
+      const plots = [...document.querySelectorAll(".js-plotly-plot")] as unknown as {
+        data?: unknown[];
+        _fullLayout?: unknown;
+      }[];
       return plots.length >= n && plots.every((p) => Array.isArray(p.data) && p._fullLayout);
     },
     count,
@@ -41,7 +44,9 @@ async function waitForPlots(page: Page, count: number) {
 
 async function uvTraceCount(page: Page): Promise<number> {
   return page.evaluate(() => {
-    const el = document.querySelector('figure[aria-label^="uv plane"] .js-plotly-plot') as unknown as { data?: unknown[] } | null;
+    const el = document.querySelector('figure[aria-label^="uv plane"] .js-plotly-plot') as unknown as {
+      data?: unknown[];
+    } | null;
     return el?.data?.length ?? -1;
   });
 }
@@ -72,11 +77,17 @@ describe("Sketchpad", () => {
     expect(compact["Model squared visibility against spatial frequency"]).toBe(4 + 3);
     expect(compact["Dirty beam"]).toBe(2); // heatmap + fitted ellipse
     expect(compact["Dirty image of the model"]).toBe(1);
-    expect(compact["Target elevation and air mass against UT and local sidereal time, with twilight and the observable window"]).toBeGreaterThanOrEqual(4);
+    expect(
+      compact[
+        "Target elevation and air mass against UT and local sidereal time, with twilight and the observable window"
+      ],
+    ).toBeGreaterThanOrEqual(4);
     // Plotly really drew points in the uv plane and cells in the beam heatmap.
     const drawn = await page.evaluate(() => ({
       uvPoints: document.querySelectorAll('figure[aria-label^="uv plane"] .scatterlayer .point').length,
-      heatmaps: document.querySelectorAll('figure[aria-label^="Dirty beam"] .heatmaplayer image, figure[aria-label^="Dirty beam"] .hm image').length,
+      heatmaps: document.querySelectorAll(
+        'figure[aria-label^="Dirty beam"] .heatmaplayer image, figure[aria-label^="Dirty beam"] .hm image',
+      ).length,
     }));
     expect(drawn.uvPoints).toBeGreaterThan(100);
     expect(drawn.heatmaps).toBeGreaterThan(0);
@@ -101,7 +112,12 @@ describe("Sketchpad", () => {
     // Another configuration: 4 stations → 6 baselines → 12 uv traces, 4 triangles.
     await page.getByLabel("Configuration", { exact: true }).selectOption("medium-4");
     await page.waitForFunction(
-      () => (document.querySelector('figure[aria-label^="uv plane"] .js-plotly-plot') as unknown as { data?: unknown[] } | null)?.data?.length === 12,
+      () =>
+        (
+          document.querySelector('figure[aria-label^="uv plane"] .js-plotly-plot') as unknown as {
+            data?: unknown[];
+          } | null
+        )?.data?.length === 12,
       null,
       { timeout: 30_000 },
     );
@@ -111,7 +127,9 @@ describe("Sketchpad", () => {
 
     // The uv plane in metres: same traces, the axis title says so.
     await page.getByText("metres", { exact: true }).click();
-    await page.waitForFunction(() => document.querySelector('figure[aria-label^="uv plane"]')?.getAttribute("aria-label")?.includes(" in m,"));
+    await page.waitForFunction(() =>
+      document.querySelector('figure[aria-label^="uv plane"]')?.getAttribute("aria-label")?.includes(" in m,"),
+    );
     await page.waitForURL(/uv=m/);
     expect(await uvTraceCount(page)).toBe(12);
 
@@ -151,7 +169,9 @@ describe("Sketchpad", () => {
     await page.goto(`${baseUrl}/sketchpad?config=medium-4&${SKETCH}`);
     await page.getByText(/^Up to date/).waitFor({ timeout: 30_000 });
     await waitForPlots(page, 7);
-    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    const overflow = await page.evaluate(
+      () => document.documentElement.scrollWidth - document.documentElement.clientWidth,
+    );
     expect(overflow).toBeLessThanOrEqual(0);
     await screenshot(page, "sketchpad-360px");
     expect(seen.errors).toEqual([]);

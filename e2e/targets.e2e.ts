@@ -1,4 +1,4 @@
-import { writeFileSync, mkdtempSync } from "node:fs";
+import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, inject, it } from "vitest";
@@ -20,7 +20,10 @@ describe("My targets and cycles", () => {
 
     const dir = mkdtempSync(join(tmpdir(), "fd-targets-"));
     const broken = join(dir, "broken.csv");
-    writeFileSync(broken, "name,ra,dec,model,size_mas,mag_K\nCeniza Pair,06:12:00,-24:30:00,uniformDisk,2.4,3.1\nBrizna,27:00:00,+05:00:00,point,,6.5\n");
+    writeFileSync(
+      broken,
+      "name,ra,dec,model,size_mas,mag_K\nCeniza Pair,06:12:00,-24:30:00,uniformDisk,2.4,3.1\nBrizna,27:00:00,+05:00:00,point,,6.5\n",
+    );
     await page.setInputFiles("#file", broken);
     await page.getByRole("button", { name: "Check the list" }).click();
     await page.getByText("1 problem to fix — nothing has been imported.").waitFor();
@@ -29,7 +32,10 @@ describe("My targets and cycles", () => {
     await screenshot(page, "targets-import-error");
 
     const good = join(dir, "good.csv");
-    writeFileSync(good, "name,ra,dec,model,size_mas,mag_K\nCeniza Pair,06:12:00,-24:30:00,uniformDisk,2.4,3.1\nBrizna,07:00:00,+05:00:00,point,,6.5\n");
+    writeFileSync(
+      good,
+      "name,ra,dec,model,size_mas,mag_K\nCeniza Pair,06:12:00,-24:30:00,uniformDisk,2.4,3.1\nBrizna,07:00:00,+05:00:00,point,,6.5\n",
+    );
     await page.setInputFiles("#file", good);
     await page.getByRole("button", { name: "Check the list" }).click();
     await page.getByRole("button", { name: "Import 2 targets" }).click();
@@ -55,7 +61,10 @@ describe("My targets and cycles", () => {
     await page.getByLabel(/Position angle/).fill("40");
     await page.getByLabel(/Flux ratio/).fill("0.4");
     await page.getByRole("button", { name: "Add target" }).click();
-    await page.getByText(/Declination.*-90/).first().waitFor();
+    await page
+      .getByText(/Declination.*-90/)
+      .first()
+      .waitFor();
     await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("05:36:12.8");
     await screenshot(page, "targets-form-error");
     await page.getByLabel("Declination").fill("-01:12:07");
@@ -69,7 +78,12 @@ describe("My targets and cycles", () => {
     await expect(page.getByLabel("Model", { exact: true }).inputValue()).resolves.toBe("binary");
     await page.waitForURL(/ra=05%3A36%3A12\.80/);
     await page.waitForFunction(
-      () => ((document.querySelector('figure[aria-label^="uv plane"] .js-plotly-plot') as unknown as { data?: unknown[] } | null)?.data?.length ?? 0) > 0,
+      () =>
+        ((
+          document.querySelector('figure[aria-label^="uv plane"] .js-plotly-plot') as unknown as {
+            data?: unknown[];
+          } | null
+        )?.data?.length ?? 0) > 0,
       undefined,
       { timeout: 20_000 },
     );

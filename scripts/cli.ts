@@ -80,24 +80,24 @@ async function readRequest(input: string | null): Promise<unknown> {
 async function run(opts: Options): Promise<unknown> {
   switch (opts.command) {
     case "coverage": {
-      const { parseCoverageRequest } = await import("../app/services/requests");
+      const { parseCoverageRequest } = await import("../app/engine");
       const parsed = parseCoverageRequest(await readRequest(opts.input));
       if (!parsed.ok) throw new UsageError(parsed.message);
-      const { computeCoverage } = await import("../app/services/interferometry/coverage");
+      const { computeCoverage } = await import("../app/engine");
       return computeCoverage(parsed.value);
     }
     case "triangles": {
-      const { parseTrianglesRequest } = await import("../app/services/requests");
+      const { parseTrianglesRequest } = await import("../app/engine");
       const parsed = parseTrianglesRequest(await readRequest(opts.input));
       if (!parsed.ok) throw new UsageError(parsed.message);
-      const { rankTriangles } = await import("../app/services/interferometry/triangles");
+      const { rankTriangles } = await import("../app/engine");
       return rankTriangles(parsed.value);
     }
     case "ephemeris": {
-      const { parseEphemerisRequest } = await import("../app/services/requests");
+      const { parseEphemerisRequest } = await import("../app/engine");
       const parsed = parseEphemerisRequest(await readRequest(opts.input));
       if (!parsed.ok) throw new UsageError(parsed.message);
-      const { computeEphemeris } = await import("../app/services/astro/ephemeris");
+      const { computeEphemeris } = await import("../app/engine");
       return computeEphemeris(parsed.value);
     }
     default:

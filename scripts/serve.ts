@@ -4,7 +4,7 @@
  * OIDC_ISSUER is unset, the SMTP server when SMTP_HOST is unset), and the outbox sender loop.
  * Prints where everything lives and who can sign in; stops everything on Ctrl-C or SIGTERM.
  */
-import { spawn, type ChildProcess } from "node:child_process";
+import { type ChildProcess, spawn } from "node:child_process";
 import type { Server } from "node:http";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { createRequestHandler } from "@react-router/express";
@@ -52,7 +52,11 @@ if (auth.usingFakeProvider) {
   const idp = await startFakeIdentityProvider({
     port: auth.FAKE_IDP_PORT,
     clients: [
-      { clientId: auth.OIDC_CLIENT_ID, clientSecret: auth.OIDC_CLIENT_SECRET, redirectUris: [`${config.APP_ORIGIN}/auth/sso/callback`] },
+      {
+        clientId: auth.OIDC_CLIENT_ID,
+        clientSecret: auth.OIDC_CLIENT_SECRET,
+        redirectUris: [`${config.APP_ORIGIN}/auth/sso/callback`],
+      },
     ],
     people: config.DEMO_MODE === "1" ? DEMO_PEOPLE : [],
   });

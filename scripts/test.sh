@@ -24,6 +24,9 @@ if ! ./docker-less-pg.sh start; then
   exit 1
 fi
 
+step "Lint and format (biome)"
+npx biome ci --reporter=summary . || failed_steps+=("lint")
+
 step "Typecheck"
 npm run -s typecheck || failed_steps+=("typecheck")
 
@@ -54,8 +57,8 @@ for (const f of ["tests.json", "e2e.json"]) {
   // A file that failed to load counts as a failure even when none of its tests ran.
   failed += r.testResults.filter((t) => t.status === "failed" && t.assertionResults.length === 0).length;
 }
-// Typecheck or build failures count as failed checks of their own.
-const stepFailures = failedSteps.filter((s) => s === "typecheck" || s === "build").length;
+// Lint, typecheck or build failures count as failed checks of their own.
+const stepFailures = failedSteps.filter((s) => s === "lint" || s === "typecheck" || s === "build").length;
 failed += stepFailures;
 if (failedSteps.length) console.log(`\nFailed steps: ${failedSteps.join(", ")}`);
 console.log(`\nSummary: ${passed} passed, ${failed} failed, ${skipped} skipped`);

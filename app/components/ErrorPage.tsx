@@ -2,14 +2,20 @@ import { isRouteErrorResponse, Link } from "react-router";
 import { buttonClass } from "./ui/Button";
 
 const copy: Record<number, { title: string; text: string }> = {
-  400: { title: "That request did not make sense", text: "Something in the address or the form was not what this page expects." },
+  400: {
+    title: "That request did not make sense",
+    text: "Something in the address or the form was not what this page expects.",
+  },
   401: { title: "Please sign in", text: "This page belongs to a signed-in account." },
   403: {
     title: "This page is not yours to open",
     text: "Your account does not have the role this page needs. If you think it should, ask the array's administrator.",
   },
   404: { title: "Nothing here", text: "The page you asked for does not exist, or it has moved." },
-  500: { title: "Something went wrong on our side", text: "The error has been logged. Your saved work is safe; please try again in a moment." },
+  500: {
+    title: "Something went wrong on our side",
+    text: "The error has been logged. Your saved work is safe; please try again in a moment.",
+  },
 };
 
 /** The one error page for 403/404/500 and friends, used by every route's boundary. */

@@ -3,9 +3,9 @@
  * twice (idempotent by natural key), so `npm run db:seed` can be repeated.
  */
 import { and, eq, sql } from "drizzle-orm";
-import type { Database } from "./client.server";
 import { ensureCycle } from "~/services/cycles.server";
 import { ensureDemoProposals } from "~/services/proposals-seed.server";
+import type { Database } from "./client.server";
 import {
   DEMO_CONFIGURATIONS,
   DEMO_CYCLE,
@@ -18,7 +18,7 @@ import {
   type DemoStation,
 } from "./demo-scenario";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "./schema/array";
-import { userRoles, users, type Role } from "./schema/users";
+import { type Role, userRoles, users } from "./schema/users";
 
 type SiteInput = typeof sites.$inferInsert;
 

@@ -1,7 +1,7 @@
+import { fileURLToPath } from "node:url";
 import { drizzle } from "drizzle-orm/postgres-js";
 import { migrate } from "drizzle-orm/postgres-js/migrator";
 import postgres from "postgres";
-import { fileURLToPath } from "node:url";
 
 export const MIGRATIONS_FOLDER = fileURLToPath(new URL("../../migrations", import.meta.url));
 

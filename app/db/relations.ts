@@ -1,6 +1,5 @@
 import { relations } from "drizzle-orm";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "./schema/array";
-import { userRoles, users } from "./schema/users";
 import {
   cycleConfigurations,
   cycles,
@@ -11,6 +10,7 @@ import {
   proposalVersions,
   targets,
 } from "./schema/proposals";
+import { userRoles, users } from "./schema/users";
 
 export const sitesRelations = relations(sites, ({ many }) => ({
   stations: many(stations),
@@ -60,7 +60,10 @@ export const cyclesRelations = relations(cycles, ({ many }) => ({
 
 export const cycleConfigurationsRelations = relations(cycleConfigurations, ({ one }) => ({
   cycle: one(cycles, { fields: [cycleConfigurations.cycleId], references: [cycles.id] }),
-  configuration: one(configurations, { fields: [cycleConfigurations.configurationId], references: [configurations.id] }),
+  configuration: one(configurations, {
+    fields: [cycleConfigurations.configurationId],
+    references: [configurations.id],
+  }),
 }));
 
 export const targetsRelations = relations(targets, ({ one }) => ({

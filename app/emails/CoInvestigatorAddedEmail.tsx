@@ -16,14 +16,22 @@ export type CoInvestigatorAddedEmailProps = {
 };
 
 /** Tells a person that a PI put them on a proposal's team, and where to find it. */
-export function CoInvestigatorAddedEmail({ name, piName, title, cycleName, deadline, url, hasAccount }: CoInvestigatorAddedEmailProps) {
+export function CoInvestigatorAddedEmail({
+  name,
+  piName,
+  title,
+  cycleName,
+  deadline,
+  url,
+  hasAccount,
+}: CoInvestigatorAddedEmailProps) {
   const shown = title.trim() === "" ? "an untitled proposal" : `“${title}”`;
   return (
     <EmailLayout preview={`${piName} added you as a co-investigator on ${shown}.`}>
       <Text style={emailStyles.heading}>{name ? `Hello ${name},` : "Hello,"}</Text>
       <Text style={emailStyles.paragraph}>
-        {piName} added you as a co-investigator on {shown}, a proposal for the {cycleName} cycle. As a co-investigator you
-        can read and edit the draft, and submit it, until the deadline: <strong>{deadline}</strong>.
+        {piName} added you as a co-investigator on {shown}, a proposal for the {cycleName} cycle. As a co-investigator
+        you can read and edit the draft, and submit it, until the deadline: <strong>{deadline}</strong>.
       </Text>
       <Section style={{ margin: "8px 0 24px" }}>
         <Button href={url} style={emailStyles.button}>
@@ -32,8 +40,8 @@ export function CoInvestigatorAddedEmail({ name, piName, title, cycleName, deadl
       </Section>
       {hasAccount ? null : (
         <Text style={emailStyles.paragraph}>
-          You do not have a Fringe Docket account with this address yet. Sign in with this e-mail address (single sign-on or
-          an e-mail link) and the proposal appears under “My proposals”.
+          You do not have a Fringe Docket account with this address yet. Sign in with this e-mail address (single
+          sign-on or an e-mail link) and the proposal appears under “My proposals”.
         </Text>
       )}
       <Text style={emailStyles.small}>If the button does nothing, copy this address into your browser:</Text>

@@ -46,7 +46,14 @@ const frame: CSSProperties = {
   overflow: "hidden",
 };
 const header: CSSProperties = { backgroundColor: emailColors.night900, padding: "18px 28px" };
-const brand: CSSProperties = { margin: 0, fontSize: "18px", lineHeight: "24px", fontWeight: 600, color: emailColors.white, letterSpacing: "0.01em" };
+const brand: CSSProperties = {
+  margin: 0,
+  fontSize: "18px",
+  lineHeight: "24px",
+  fontWeight: 600,
+  color: emailColors.white,
+  letterSpacing: "0.01em",
+};
 const tagline: CSSProperties = { margin: "2px 0 0", fontSize: "12px", lineHeight: "16px", color: emailColors.night300 };
 const content: CSSProperties = { padding: "28px 28px 8px" };
 const rule: CSSProperties = { borderColor: emailColors.night200, margin: "0 28px" };

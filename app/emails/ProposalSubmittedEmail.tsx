@@ -29,8 +29,8 @@ export function ProposalSubmittedEmail(p: ProposalSubmittedEmailProps) {
     <EmailLayout preview={`“${p.title}” was submitted to ${p.cycleName} (version ${p.version}).`}>
       <Text style={emailStyles.heading}>{p.name ? `Hello ${p.name},` : "Hello,"}</Text>
       <Text style={emailStyles.paragraph}>
-        {p.submittedBy} submitted <strong>“{p.title}”</strong> to the {p.cycleName} cycle on {p.submittedAt}. This is version{" "}
-        {p.version}; it is frozen as it is now and is what the committee will read.
+        {p.submittedBy} submitted <strong>“{p.title}”</strong> to the {p.cycleName} cycle on {p.submittedAt}. This is
+        version {p.version}; it is frozen as it is now and is what the committee will read.
       </Text>
       <ul style={emailStyles.list}>
         <li>
@@ -40,8 +40,8 @@ export function ProposalSubmittedEmail(p: ProposalSubmittedEmailProps) {
         {p.documentSha256 ? <li>Science case PDF, SHA-256 {p.documentSha256.slice(0, 16)}…</li> : null}
       </ul>
       <Text style={emailStyles.paragraph}>
-        To change anything, the PI can withdraw the proposal and reopen it as a draft before the deadline ({p.deadline}), then
-        submit it again.
+        To change anything, the PI can withdraw the proposal and reopen it as a draft before the deadline ({p.deadline}
+        ), then submit it again.
       </Text>
       <Section style={{ margin: "8px 0 24px" }}>
         <Button href={p.url} style={emailStyles.button}>

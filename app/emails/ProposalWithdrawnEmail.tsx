@@ -12,13 +12,20 @@ export type ProposalWithdrawnEmailProps = {
 };
 
 /** The notice when the PI withdraws a submitted proposal. */
-export function ProposalWithdrawnEmail({ name, title, cycleName, withdrawnBy, reopenUntil, url }: ProposalWithdrawnEmailProps) {
+export function ProposalWithdrawnEmail({
+  name,
+  title,
+  cycleName,
+  withdrawnBy,
+  reopenUntil,
+  url,
+}: ProposalWithdrawnEmailProps) {
   return (
     <EmailLayout preview={`“${title}” was withdrawn from ${cycleName}.`}>
       <Text style={emailStyles.heading}>{name ? `Hello ${name},` : "Hello,"}</Text>
       <Text style={emailStyles.paragraph}>
-        {withdrawnBy} withdrew <strong>“{title}”</strong> from the {cycleName} cycle. The committee will not review it. The
-        versions submitted so far are kept.
+        {withdrawnBy} withdrew <strong>“{title}”</strong> from the {cycleName} cycle. The committee will not review it.
+        The versions submitted so far are kept.
       </Text>
       <Text style={emailStyles.paragraph}>
         {reopenUntil

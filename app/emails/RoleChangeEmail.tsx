@@ -50,11 +50,15 @@ export function RoleChangeEmail({ name, rolesGranted, rolesRevoked, byName, acco
     <EmailLayout preview={`${byName} changed your roles in Fringe Docket.`}>
       <Text style={emailStyles.heading}>Hello {name},</Text>
       <Text style={emailStyles.paragraph}>
-        {nothing ? `${byName} reviewed your roles in Fringe Docket and left them as they were.` : `${byName} changed your roles in Fringe Docket.`}
+        {nothing
+          ? `${byName} reviewed your roles in Fringe Docket and left them as they were.`
+          : `${byName} changed your roles in Fringe Docket.`}
       </Text>
       {rolesGranted.length > 0 ? (
         <>
-          <Text style={{ ...emailStyles.paragraph, margin: "0 0 4px", fontWeight: 600 }}>From now on you can act as</Text>
+          <Text style={{ ...emailStyles.paragraph, margin: "0 0 4px", fontWeight: 600 }}>
+            From now on you can act as
+          </Text>
           <RoleList roles={rolesGranted} />
         </>
       ) : null}

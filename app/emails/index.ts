@@ -1,3 +1,3 @@
 export { EmailLayout, emailColors, emailStyles } from "./EmailLayout";
-export { RoleChangeEmail, ROLE_CHANGE_SUBJECT, type RoleChangeEmailProps } from "./RoleChangeEmail";
-export { SignInLinkEmail, SIGN_IN_LINK_SUBJECT, type SignInLinkEmailProps } from "./SignInLinkEmail";
+export { ROLE_CHANGE_SUBJECT, RoleChangeEmail, type RoleChangeEmailProps } from "./RoleChangeEmail";
+export { SIGN_IN_LINK_SUBJECT, SignInLinkEmail, type SignInLinkEmailProps } from "./SignInLinkEmail";

@@ -1,9 +1,9 @@
 import { Link, useRouteLoaderData } from "react-router";
-import type { loader as rootLoader } from "~/root";
-import type { Route } from "./+types/home";
 import { Card } from "~/components/ui";
 import { database } from "~/db/client.server";
+import type { loader as rootLoader } from "~/root";
 import { listSites, loadSiteRegistry } from "~/services/registry.server";
+import type { Route } from "./+types/home";
 
 export async function loader(_: Route.LoaderArgs) {
   // Public page: no guard needed; it shows only the public array registry summary.
@@ -25,7 +25,9 @@ export async function loader(_: Route.LoaderArgs) {
   };
 }
 
-export const meta: Route.MetaFunction = () => [{ title: "Fringe Docket — the observing cycle of an interferometric array" }];
+export const meta: Route.MetaFunction = () => [
+  { title: "Fringe Docket — the observing cycle of an interferometric array" },
+];
 
 const steps = [
   {
@@ -45,7 +47,10 @@ const steps = [
 const roles = [
   { role: "Proposers", text: "sketch coverage, model targets, write and submit proposals, read decisions." },
   { role: "Reviewers", text: "read assigned proposals, declare conflicts, score and comment." },
-  { role: "The chair", text: "runs the cycle: dates, nights per configuration, reviewers, ranking, allocation, decisions." },
+  {
+    role: "The chair",
+    text: "runs the cycle: dates, nights per configuration, reviewers, ranking, allocation, decisions.",
+  },
   { role: "Schedulers", text: "build, export and publish night plans from accepted programs." },
   { role: "Administrators", text: "manage accounts and roles and keep the array registry up to date." },
 ];
@@ -56,7 +61,10 @@ function YourSections() {
   if (!root) return null;
   if (!root.viewer) {
     return (
-      <section aria-labelledby="start" className="rounded-[var(--radius-card)] bg-white p-5 shadow-[var(--shadow-card)] ring-1 ring-night-200">
+      <section
+        aria-labelledby="start"
+        className="rounded-[var(--radius-card)] bg-white p-5 shadow-[var(--shadow-card)] ring-1 ring-night-200"
+      >
         <h2 id="start" className="text-lg font-semibold">
           Start here
         </h2>
@@ -64,7 +72,8 @@ function YourSections() {
           <Link to="/sign-in" className="font-medium text-ember-700 underline underline-offset-2">
             Sign in
           </Link>{" "}
-          with the observatory's single sign-on or an e-mail link to sketch coverage, keep a target list and write proposals. The{" "}
+          with the observatory's single sign-on or an e-mail link to sketch coverage, keep a target list and write
+          proposals. The{" "}
           <Link to="/registry" className="font-medium text-ember-700 underline underline-offset-2">
             array registry
           </Link>{" "}
@@ -105,10 +114,10 @@ export default function Home({ loaderData }: Route.ComponentProps) {
           From the first uv sketch to the night plan.
         </h1>
         <p className="mt-4 max-w-3xl text-night-100">
-          Fringe Docket runs the observing cycle of an optical/infrared interferometric array. Astronomers check
-          that a configuration on offer samples the spatial frequencies their science needs and write proposals;
-          the time-allocation committee reviews, scores and ranks them against the nights available; operations
-          turns the accepted programs into night plans.
+          Fringe Docket runs the observing cycle of an optical/infrared interferometric array. Astronomers check that a
+          configuration on offer samples the spatial frequencies their science needs and write proposals; the
+          time-allocation committee reviews, scores and ranks them against the nights available; operations turns the
+          accepted programs into night plans.
         </p>
       </section>
 
@@ -120,7 +129,10 @@ export default function Home({ loaderData }: Route.ComponentProps) {
         </h2>
         <ol className="mt-4 grid gap-4 md:grid-cols-3">
           {steps.map((s, i) => (
-            <li key={s.title} className="rounded-[var(--radius-card)] bg-white p-5 shadow-[var(--shadow-card)] ring-1 ring-night-200">
+            <li
+              key={s.title}
+              className="rounded-[var(--radius-card)] bg-white p-5 shadow-[var(--shadow-card)] ring-1 ring-night-200"
+            >
               <p className="num text-sm font-semibold text-ember-700">Step {i + 1}</p>
               <h3 className="mt-1 text-lg font-semibold">{s.title}</h3>
               <p className="mt-2 text-night-700">{s.text}</p>
@@ -138,7 +150,9 @@ export default function Home({ loaderData }: Route.ComponentProps) {
               </li>
             ))}
           </ul>
-          <p className="mt-3 text-sm text-night-600">One person may hold several roles; nobody reviews a proposal they are on or conflicted with.</p>
+          <p className="mt-3 text-sm text-night-600">
+            One person may hold several roles; nobody reviews a proposal they are on or conflicted with.
+          </p>
         </Card>
 
         <Card title="The array">
@@ -172,12 +186,17 @@ export default function Home({ loaderData }: Route.ComponentProps) {
                 ))}
                 .
               </p>
-              <Link to="/registry" className="inline-block font-medium text-ember-700 underline underline-offset-2 hover:text-ember-800">
+              <Link
+                to="/registry"
+                className="inline-block font-medium text-ember-700 underline underline-offset-2 hover:text-ember-800"
+              >
                 Open the array registry
               </Link>
             </div>
           ) : (
-            <p className="text-night-700">No array is registered yet. An administrator adds the site and its stations.</p>
+            <p className="text-night-700">
+              No array is registered yet. An administrator adds the site and its stations.
+            </p>
           )}
         </Card>
       </div>

@@ -7,11 +7,11 @@ import { data, redirect } from "react-router";
 import { database } from "~/db/client.server";
 import type { Role } from "~/db/schema/users";
 import { env } from "~/env.server";
-import { authenticateApiToken } from "./auth/api-tokens.server";
 import { rolesOf } from "./auth/accounts.server";
+import { authenticateApiToken } from "./auth/api-tokens.server";
 import { SESSION_COOKIE } from "./auth/config.server";
 import { readCookie, validateSessionToken } from "./auth/sessions.server";
-import { permissionsFor, type Permission } from "./permissions";
+import { type Permission, permissionsFor } from "./permissions";
 
 export type Viewer = {
   user: { id: number; email: string; name: string; institute: string };
@@ -38,7 +38,13 @@ async function resolveViewer(request: Request): Promise<Viewer | null> {
   const found = await validateSessionToken(db, token);
   if (!found) return null;
   const roles = await rolesOf(db, found.user.id);
-  return { user: pick(found.user), roles, permissions: permissionsFor(roles), sessionId: found.session.id, via: "session" };
+  return {
+    user: pick(found.user),
+    roles,
+    permissions: permissionsFor(roles),
+    sessionId: found.session.id,
+    via: "session",
+  };
 }
 
 function pick(u: { id: number; email: string; name: string; institute: string }) {

@@ -8,11 +8,19 @@ const isoDate = (label: string) =>
   v.pipe(
     v.string(),
     v.regex(/^\d{4}-\d{2}-\d{2}$/, `${label}: use the form YYYY-MM-DD`),
-    v.check((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), `${label}: not a real date`),
+    v.check(
+      (s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
+      `${label}: not a real date`,
+    ),
   );
 
 const CycleFormSchema = v.object({
-  name: v.pipe(v.string(), v.trim(), v.nonEmpty("Name: give the cycle a name, e.g. 2027B"), v.maxLength(40, "Name: at most 40 characters")),
+  name: v.pipe(
+    v.string(),
+    v.trim(),
+    v.nonEmpty("Name: give the cycle a name, e.g. 2027B"),
+    v.maxLength(40, "Name: at most 40 characters"),
+  ),
   description: v.pipe(v.string(), v.trim(), v.maxLength(500, "Description: at most 500 characters")),
   observingStart: isoDate("First night"),
   observingEnd: isoDate("Last night"),
@@ -44,7 +52,10 @@ export type ParsedCycleForm = {
 };
 
 /** Reads the submitted form (FormData-like) into plain values, so they can be shown again on error. */
-export function cycleFormValues(form: { get(name: string): unknown; getAll(name: string): unknown[] }, configurationIds: number[]): CycleFormValues {
+export function cycleFormValues(
+  form: { get(name: string): unknown; getAll(name: string): unknown[] },
+  configurationIds: number[],
+): CycleFormValues {
   const str = (k: string) => {
     const x = form.get(k);
     return typeof x === "string" ? x : "";

@@ -28,7 +28,12 @@ export async function listCycles(db: Db) {
         })
         .from(cycleConfigurations)
         .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
-        .where(inArray(cycleConfigurations.cycleId, rows.map((c) => c.id)))
+        .where(
+          inArray(
+            cycleConfigurations.cycleId,
+            rows.map((c) => c.id),
+          ),
+        )
         .orderBy(asc(configurations.name))
     : [];
   return rows.map((c) => ({ ...c, offers: offers.filter((o) => o.cycleId === c.id) }));
@@ -52,7 +57,11 @@ export async function getCycle(db: Db, id: number) {
 
 /** Cycles still taking proposals at `now` (deadline in the future), soonest deadline first. */
 export async function openCycles(db: Db, now = new Date()) {
-  return db.select().from(cycles).where(gt(cycles.submissionDeadline, now)).orderBy(asc(cycles.submissionDeadline), asc(cycles.name));
+  return db
+    .select()
+    .from(cycles)
+    .where(gt(cycles.submissionDeadline, now))
+    .orderBy(asc(cycles.submissionDeadline), asc(cycles.name));
 }
 
 export async function findCycleByName(db: Db, name: string) {
@@ -63,7 +72,9 @@ export async function findCycleByName(db: Db, name: string) {
 async function writeOffers(tx: Db, cycleId: number, offers: CycleInput["offers"]) {
   await tx.delete(cycleConfigurations).where(eq(cycleConfigurations.cycleId, cycleId));
   if (offers.length) {
-    await tx.insert(cycleConfigurations).values(offers.map((o) => ({ cycleId, configurationId: o.configurationId, nightsAvailable: o.nightsAvailable })));
+    await tx
+      .insert(cycleConfigurations)
+      .values(offers.map((o) => ({ cycleId, configurationId: o.configurationId, nightsAvailable: o.nightsAvailable })));
   }
 }
 
@@ -116,7 +127,13 @@ export async function updateCycle(db: Database, id: number, input: CycleInput) {
 }
 
 /** Idempotent by name, for the seed and tests: creates the cycle with its offers when missing. */
-export async function ensureCycle(db: Database, input: Omit<CycleInput, "offers"> & { offers: { configurationName: string; nightsAvailable: number | null }[]; siteId: number }) {
+export async function ensureCycle(
+  db: Database,
+  input: Omit<CycleInput, "offers"> & {
+    offers: { configurationName: string; nightsAvailable: number | null }[];
+    siteId: number;
+  },
+) {
   const existing = await findCycleByName(db, input.name);
   if (existing) return existing;
   const configs = await db.select().from(configurations).where(eq(configurations.siteId, input.siteId));
@@ -128,14 +145,16 @@ export async function ensureCycle(db: Database, input: Omit<CycleInput, "offers"
   return createCycle(db, { ...input, offers }, null);
 }
 
-export function cyclePhase(cycle: { submissionDeadline: Date; observingStart: string; observingEnd: string }, now = new Date()) {
+export function cyclePhase(
+  cycle: { submissionDeadline: Date; observingStart: string; observingEnd: string },
+  now = new Date(),
+) {
   if (now < cycle.submissionDeadline) return "open" as const;
   const today = now.toISOString().slice(0, 10);
   if (today < cycle.observingStart) return "in review" as const;
   if (today <= cycle.observingEnd) return "observing" as const;
   return "finished" as const;
 }
-
 
 /** For each configuration id, the names of the cycles that offer it, latest cycle first. */
 export async function cyclesOfferingConfigurations(db: Db): Promise<Record<number, string[]>> {

@@ -5,10 +5,10 @@
  * report frozen with its latest version.
  */
 import { and, asc, eq, inArray } from "drizzle-orm";
+import type { DbOrTx } from "~/db/client.server";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "~/db/schema/array";
 import { cycles, proposalHours, proposals, proposalTargets, proposalVersions } from "~/db/schema/proposals";
 import { computeFeasibility, type FeasibilityInput, type FeasibilityReport } from "./feasibility";
-import type { DbOrTx } from "~/db/client.server";
 
 /** The inputs of the report for a proposal (the caller has checked who may see it). */
 export async function loadFeasibilityInput(db: DbOrTx, proposalId: number): Promise<FeasibilityInput> {
@@ -40,7 +40,12 @@ export async function loadFeasibilityInput(db: DbOrTx, proposalId: number): Prom
           })
           .from(configurationStations)
           .innerJoin(stations, eq(stations.id, configurationStations.stationId))
-          .where(inArray(configurationStations.configurationId, requested.map((c) => c.id)))
+          .where(
+            inArray(
+              configurationStations.configurationId,
+              requested.map((c) => c.id),
+            ),
+          )
           .orderBy(asc(configurationStations.position));
 
   const [bandRow] = proposal.bandId
@@ -53,7 +58,10 @@ export async function loadFeasibilityInput(db: DbOrTx, proposalId: number): Prom
 
   // The site: that of the requested configurations, else of the instrument, else the first one.
   const siteId = requested[0]?.siteId ?? bandRow?.instrument.siteId ?? null;
-  const [site] = siteId !== null ? await db.select().from(sites).where(eq(sites.id, siteId)) : await db.select().from(sites).orderBy(asc(sites.id)).limit(1);
+  const [site] =
+    siteId !== null
+      ? await db.select().from(sites).where(eq(sites.id, siteId))
+      : await db.select().from(sites).orderBy(asc(sites.id)).limit(1);
   if (!site) throw new Error("no site in the array registry");
 
   const targetRows = await db
@@ -101,12 +109,20 @@ export async function loadFeasibilityInput(db: DbOrTx, proposalId: number): Prom
 }
 
 /** The report of a draft, computed now from the proposal as it stands. */
-export async function computeProposalFeasibility(db: DbOrTx, proposalId: number, now: Date = new Date()): Promise<FeasibilityReport> {
+export async function computeProposalFeasibility(
+  db: DbOrTx,
+  proposalId: number,
+  now: Date = new Date(),
+): Promise<FeasibilityReport> {
   return computeFeasibility(await loadFeasibilityInput(db, proposalId), now);
 }
 
 /** The report frozen with a version (null when the version has none). */
-export async function frozenFeasibility(db: DbOrTx, proposalId: number, version: number): Promise<FeasibilityReport | null> {
+export async function frozenFeasibility(
+  db: DbOrTx,
+  proposalId: number,
+  version: number,
+): Promise<FeasibilityReport | null> {
   const [row] = await db
     .select({ snapshot: proposalVersions.snapshot })
     .from(proposalVersions)

@@ -21,8 +21,18 @@
  * everything, including proposal-level problems (no band, no target, no configuration).
  */
 import * as v from "valibot";
-import { computeCoverageArrays, independentClosurePhaseCount, RAD_TO_MAS, roundTo, stationTriangles } from "./interferometry";
-import { parseCoverageRequest, TargetModelSchema, type StationInput, type TargetModel } from "./requests";
+import {
+  channelWavelengthsM,
+  computeCoverageArrays,
+  independentClosurePhaseCount,
+  parseCoverageRequest,
+  RAD_TO_MAS,
+  roundTo,
+  type StationInput,
+  stationTriangles,
+  type TargetModel,
+  TargetModelSchema,
+} from "~/engine";
 
 // ---------------------------------------------------------------- documented choices
 
@@ -107,7 +117,15 @@ export interface FeasibilityInput {
 
 // ---------------------------------------------------------------- outputs
 
-export type FeasibilityCheck = "combiner" | "observable-time" | "windows" | "resolution" | "visibility" | "magnitude" | "closure" | "model";
+export type FeasibilityCheck =
+  | "combiner"
+  | "observable-time"
+  | "windows"
+  | "resolution"
+  | "visibility"
+  | "magnitude"
+  | "closure"
+  | "model";
 
 export interface FeasibilityLine {
   check: FeasibilityCheck;
@@ -184,26 +202,16 @@ export function daysBetween(a: string, b: string): number {
 }
 
 /** The first, middle and last night of an observing period. */
-export function cycleNights(observingStart: string, observingEnd: string): { date: string; when: FeasibilityNight["when"] }[] {
+export function cycleNights(
+  observingStart: string,
+  observingEnd: string,
+): { date: string; when: FeasibilityNight["when"] }[] {
   const span = Math.max(0, daysBetween(observingStart, observingEnd));
   return [
     { date: observingStart, when: "start" },
     { date: addDays(observingStart, Math.floor(span / 2)), when: "middle" },
     { date: observingEnd, when: "end" },
   ];
-}
-
-/**
- * Channel wavelengths across a band: `channels` equal slices of the bandwidth, each at its centre
- * (one channel: the central wavelength), metres.
- */
-export function bandWavelengthsM(band: Pick<FeasibilityBand, "centralWavelengthM" | "bandwidthM" | "channels">): number[] {
-  const n = Math.max(1, Math.floor(band.channels));
-  if (n === 1 || band.bandwidthM <= 0) return [band.centralWavelengthM];
-  const slice = band.bandwidthM / n;
-  const out: number[] = [];
-  for (let c = 0; c < n; c++) out.push(band.centralWavelengthM - band.bandwidthM / 2 + (c + 0.5) * slice);
-  return out;
 }
 
 /**
@@ -229,7 +237,10 @@ export function modelSizeMas(model: TargetModel): number {
       for (let i = 0; i < c.length; i++) {
         size = Math.max(size, modelSizeMas(c[i].model));
         for (let j = i + 1; j < c.length; j++) {
-          size = Math.max(size, Math.hypot(c[i].offsetEastMas - c[j].offsetEastMas, c[i].offsetNorthMas - c[j].offsetNorthMas));
+          size = Math.max(
+            size,
+            Math.hypot(c[i].offsetEastMas - c[j].offsetEastMas, c[i].offsetNorthMas - c[j].offsetNorthMas),
+          );
         }
       }
       return size;
@@ -246,15 +257,28 @@ export function magnitudeIn(magnitudes: Record<string, number>, bandName: string
 }
 
 /** The magnitude line: pass, caution within the margin of the limit, fail beyond it. */
-export function magnitudeLine(magnitude: number | null, band: Pick<FeasibilityBand, "name" | "limitingMagnitude">): FeasibilityLine {
+export function magnitudeLine(
+  magnitude: number | null,
+  band: Pick<FeasibilityBand, "name" | "limitingMagnitude">,
+): FeasibilityLine {
   const label = "Magnitude";
   const limit = band.limitingMagnitude;
   if (magnitude === null) {
-    return { check: "magnitude", label, verdict: "caution", reason: `No ${band.name}-band magnitude given, so it cannot be compared with the limit of ${fmt(limit, 1)} mag.` };
+    return {
+      check: "magnitude",
+      label,
+      verdict: "caution",
+      reason: `No ${band.name}-band magnitude given, so it cannot be compared with the limit of ${fmt(limit, 1)} mag.`,
+    };
   }
   const margin = FEASIBILITY_THRESHOLDS.magnitudeMarginMag;
   if (magnitude > limit) {
-    return { check: "magnitude", label, verdict: "fail", reason: `${band.name} = ${fmt(magnitude, 2)} mag is fainter than the band's limit of ${fmt(limit, 1)} mag.` };
+    return {
+      check: "magnitude",
+      label,
+      verdict: "fail",
+      reason: `${band.name} = ${fmt(magnitude, 2)} mag is fainter than the band's limit of ${fmt(limit, 1)} mag.`,
+    };
   }
   if (magnitude > limit - margin) {
     return {
@@ -264,7 +288,12 @@ export function magnitudeLine(magnitude: number | null, band: Pick<FeasibilityBa
       reason: `${band.name} = ${fmt(magnitude, 2)} mag is within ${fmt(margin, 1)} mag of the band's limit of ${fmt(limit, 1)} mag: fringe tracking may be marginal.`,
     };
   }
-  return { check: "magnitude", label, verdict: "pass", reason: `${band.name} = ${fmt(magnitude, 2)} mag, ${fmt(limit - magnitude, 1)} mag brighter than the limit of ${fmt(limit, 1)} mag.` };
+  return {
+    check: "magnitude",
+    label,
+    verdict: "pass",
+    reason: `${band.name} = ${fmt(magnitude, 2)} mag, ${fmt(limit - magnitude, 1)} mag brighter than the limit of ${fmt(limit, 1)} mag.`,
+  };
 }
 
 /**
@@ -293,7 +322,12 @@ export function visibilityLine(vis2AtShortest: number, vis2Min: number, vis2Max:
       reason: `Barely resolved: V² stays above ${t.unresolvedVis2} on every baseline (${range}); a size would need very precise calibration. Longer baselines or a shorter wavelength would help.`,
     };
   }
-  return { check: "visibility", label, verdict: "pass", reason: `${range[0].toUpperCase()}${range.slice(1)}: the baselines sample the drop of the visibility.` };
+  return {
+    check: "visibility",
+    label,
+    verdict: "pass",
+    reason: `${range[0].toUpperCase()}${range.slice(1)}: the baselines sample the drop of the visibility.`,
+  };
 }
 
 /** The resolution line: λ/(2 B_max) against the model's size. */
@@ -353,7 +387,11 @@ function observeNight(
   stepMin: number,
 ): NightResult {
   const parsed = parseCoverageRequest({
-    site: { latitudeDeg: input.site.latitudeDeg, longitudeDeg: input.site.longitudeDeg, altitudeM: input.site.altitudeM },
+    site: {
+      latitudeDeg: input.site.latitudeDeg,
+      longitudeDeg: input.site.longitudeDeg,
+      altitudeM: input.site.altitudeM,
+    },
     stations: config.stations,
     target: { name: target.name, raDeg: target.raDeg, decDeg: target.decDeg, model },
     wavelengthsM,
@@ -421,7 +459,8 @@ function observeNight(
     }
   }
   const night = samples.night;
-  const darkHours = night?.darkStartJd != null && night.darkEndJd != null ? (night.darkEndJd - night.darkStartJd) * 24 : 0;
+  const darkHours =
+    night?.darkStartJd != null && night.darkEndJd != null ? (night.darkEndJd - night.darkStartJd) * 24 : 0;
   const has = points > 0;
   return {
     observableHours: observable * samples.sampleDurationH,
@@ -479,7 +518,9 @@ function windowLines(
     const count = Math.max(1, daysBetween(first, last) + 1);
     const dates: string[] = [];
     if (count <= t.maxWindowNights) for (let d = 0; d < count; d++) dates.push(addDays(first, d));
-    else for (let d = 0; d < t.maxWindowNights; d++) dates.push(addDays(first, Math.round((d * (count - 1)) / (t.maxWindowNights - 1))));
+    else
+      for (let d = 0; d < t.maxWindowNights; d++)
+        dates.push(addDays(first, Math.round((d * (count - 1)) / (t.maxWindowNights - 1))));
     let hours = 0;
     for (const date of dates) {
       if (date < addDays(input.cycle.observingStart, -1) || date > input.cycle.observingEnd) continue;
@@ -491,16 +532,30 @@ function windowLines(
     }
     const sampled = count > t.maxWindowNights ? ` (${t.maxWindowNights} of its ${count} nights sampled)` : "";
     if (hours === 0) {
-      out.push({ check: "windows", label, verdict: "fail", reason: `The target is never observable inside ${span}${sampled}.` });
+      out.push({
+        check: "windows",
+        label,
+        verdict: "fail",
+        reason: `The target is never observable inside ${span}${sampled}.`,
+      });
     } else {
-      out.push({ check: "windows", label, verdict: "pass", reason: `${fmt(hours, 2)} h observable inside ${span}${sampled}.` });
+      out.push({
+        check: "windows",
+        label,
+        verdict: "pass",
+        reason: `${fmt(hours, 2)} h observable inside ${span}${sampled}.`,
+      });
     }
   });
   return out;
 }
 
 /** A failed cell with no figures yet, to which the assessment adds its lines. */
-function emptyCell(target: FeasibilityTarget, config: FeasibilityConfiguration, lines: FeasibilityLine[]): FeasibilityCell {
+function emptyCell(
+  target: FeasibilityTarget,
+  config: FeasibilityConfiguration,
+  lines: FeasibilityLine[],
+): FeasibilityCell {
   return {
     target: target.name,
     configuration: config.name,
@@ -541,17 +596,27 @@ function assessCell(
       reason: `${band.instrumentName} combines at most ${band.maxTelescopes} telescopes; ${config.name} has ${nStations} stations.`,
     });
   } else {
-    lines.push({ check: "combiner", label: "Combiner", verdict: "pass", reason: `${band.instrumentName} takes the ${nStations} stations of ${config.name}.` });
+    lines.push({
+      check: "combiner",
+      label: "Combiner",
+      verdict: "pass",
+      reason: `${band.instrumentName} takes the ${nStations} stations of ${config.name}.`,
+    });
   }
 
   const modelParse = v.safeParse(TargetModelSchema, target.model);
   if (!modelParse.success) {
-    lines.push({ check: "model", label: "Model", verdict: "fail", reason: "The target's model could not be read; edit the target and choose a model again." });
+    lines.push({
+      check: "model",
+      label: "Model",
+      verdict: "fail",
+      reason: "The target's model could not be read; edit the target and choose a model again.",
+    });
     return empty;
   }
   const model = modelParse.output;
   const minElevationDeg = Math.max(input.site.minElevationDeg, target.minElevationDeg ?? -Infinity);
-  const wavelengthsM = bandWavelengthsM(band);
+  const wavelengthsM = channelWavelengthsM(band.centralWavelengthM, band.bandwidthM, band.channels);
 
   const nights: FeasibilityNight[] = [];
   const results: NightResult[] = [];
@@ -568,7 +633,10 @@ function assessCell(
   }
 
   // Observable time.
-  const elevationNote = minElevationDeg > input.site.minElevationDeg ? ` (elevation limit ${fmt(minElevationDeg, 0)}° set for this target)` : "";
+  const elevationNote =
+    minElevationDeg > input.site.minElevationDeg
+      ? ` (elevation limit ${fmt(minElevationDeg, 0)}° set for this target)`
+      : "";
   const hoursText = nights.map((n) => `${fmt(n.observableHours, 2)} h on ${n.date}`).join(", ");
   const never = nights.every((n) => n.observableHours === 0);
   const short = nights.filter((n) => n.observableHours < t.minHoursPerNight);
@@ -596,7 +664,12 @@ function assessCell(
       reason: `Less than ${t.minHoursPerNight} h on the ${listWords(short.map((n) => `${NIGHT_WORDS[n.when]} night`))} of the cycle: ${hoursText}${elevationNote}.${delayNote}`,
     });
   } else {
-    lines.push({ check: "observable-time", label: "Observable time", verdict: "pass", reason: `Observable ${hoursText}${elevationNote}.${delayNote}` });
+    lines.push({
+      check: "observable-time",
+      label: "Observable time",
+      verdict: "pass",
+      reason: `Observable ${hoursText}${elevationNote}.${delayNote}`,
+    });
   }
 
   if (target.timeWindows.length > 0) {
@@ -624,7 +697,8 @@ function assessCell(
   const resolutionMas = maxLen !== null && maxLen > 0 ? (band.centralWavelengthM / (2 * maxLen)) * RAD_TO_MAS : null;
 
   if (resolutionMas === null || atShortest === null || vMin === null || vMax === null) {
-    const reason = "No baseline can observe on the sampled nights (target down, or beyond the delay-line stroke), so resolution and visibilities cannot be predicted.";
+    const reason =
+      "No baseline can observe on the sampled nights (target down, or beyond the delay-line stroke), so resolution and visibilities cannot be predicted.";
     lines.push({ check: "resolution", label: "Resolution", verdict: "fail", reason });
     lines.push({ check: "visibility", label: "Squared visibility", verdict: "fail", reason });
   } else {
@@ -636,7 +710,12 @@ function assessCell(
 
   let observableTriangles: number | null = null;
   if (nStations < 3) {
-    lines.push({ check: "closure", label: "Closure phases", verdict: "caution", reason: `${config.name} has ${nStations} stations: no closure phases (a triangle needs 3).` });
+    lines.push({
+      check: "closure",
+      label: "Closure phases",
+      verdict: "caution",
+      reason: `${config.name} has ${nStations} stations: no closure phases (a triangle needs 3).`,
+    });
   } else {
     observableTriangles = seen.reduce((a, b) => a + b, 0);
     const independent = independentClosurePhaseCount(nStations);
@@ -694,10 +773,27 @@ export function computeFeasibility(input: FeasibilityInput, now: Date = new Date
   const started = performance.now();
   const stepMin = input.stepMin ?? FEASIBILITY_THRESHOLDS.stepMin;
   const problems: FeasibilityLine[] = [];
-  if (!input.band) problems.push({ check: "combiner", label: "Instrument and band", verdict: "fail", reason: "No instrument band chosen: choose one in the proposal." });
-  if (input.targets.length === 0) problems.push({ check: "observable-time", label: "Targets", verdict: "fail", reason: "The proposal has no target yet." });
+  if (!input.band)
+    problems.push({
+      check: "combiner",
+      label: "Instrument and band",
+      verdict: "fail",
+      reason: "No instrument band chosen: choose one in the proposal.",
+    });
+  if (input.targets.length === 0)
+    problems.push({
+      check: "observable-time",
+      label: "Targets",
+      verdict: "fail",
+      reason: "The proposal has no target yet.",
+    });
   if (input.configurations.length === 0) {
-    problems.push({ check: "observable-time", label: "Configurations", verdict: "fail", reason: "No hours requested for any configuration yet." });
+    problems.push({
+      check: "observable-time",
+      label: "Configurations",
+      verdict: "fail",
+      reason: "No hours requested for any configuration yet.",
+    });
   }
   const cells: FeasibilityCell[] = [];
   if (input.band) {
@@ -709,7 +805,12 @@ export function computeFeasibility(input: FeasibilityInput, now: Date = new Date
           if (!(e instanceof FeasibilityInputError)) throw e;
           cells.push(
             emptyCell(target, config, [
-              { check: "model", label: "Input", verdict: "fail", reason: `The engine refused this target or configuration: ${e.message}.` },
+              {
+                check: "model",
+                label: "Input",
+                verdict: "fail",
+                reason: `The engine refused this target or configuration: ${e.message}.`,
+              },
             ]),
           );
         }

@@ -40,13 +40,24 @@ export type PdfCheck = { ok: true; version: string } | { ok: false; reason: stri
 export function checkPdf(bytes: Uint8Array): PdfCheck {
   if (bytes.length === 0) return { ok: false, reason: "The file is empty." };
   if (bytes.length > MAX_PDF_BYTES) {
-    return { ok: false, reason: `The file is ${formatBytes(bytes.length)}; the limit is ${formatBytes(MAX_PDF_BYTES)}.` };
+    return {
+      ok: false,
+      reason: `The file is ${formatBytes(bytes.length)}; the limit is ${formatBytes(MAX_PDF_BYTES)}.`,
+    };
   }
   if (!startsWith(bytes, HEADER) || !isDigit(bytes[5]) || bytes[6] !== 0x2e || !isDigit(bytes[7])) {
-    return { ok: false, reason: "The file is not a PDF: it does not begin with a PDF header (%PDF-1.x or %PDF-2.0), whatever its name says." };
+    return {
+      ok: false,
+      reason:
+        "The file is not a PDF: it does not begin with a PDF header (%PDF-1.x or %PDF-2.0), whatever its name says.",
+    };
   }
   if (lastIndexOf(bytes, EOF_MARK, Math.max(0, bytes.length - PDF_EOF_WINDOW)) < 0) {
-    return { ok: false, reason: "The PDF is incomplete: its end-of-file marker (%%EOF) is missing, so the upload may have been cut short." };
+    return {
+      ok: false,
+      reason:
+        "The PDF is incomplete: its end-of-file marker (%%EOF) is missing, so the upload may have been cut short.",
+    };
   }
   return { ok: true, version: String.fromCharCode(bytes[5], bytes[6], bytes[7]) };
 }

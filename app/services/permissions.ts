@@ -82,7 +82,8 @@ export const SECTIONS: readonly Section[] = [
     label: "Proposals",
     to: "/proposals",
     permission: "proposals:own",
-    summary: "Your proposals: text, team, targets with constraints, the PDF science case, a feasibility report, and submission.",
+    summary:
+      "Your proposals: text, team, targets with constraints, the PDF science case, a feasibility report, and submission.",
   },
   {
     label: "Cycles",
@@ -108,7 +109,10 @@ export const SECTIONS: readonly Section[] = [
  * The sections a person sees. In demo mode every signed-in person may read the mailbox, so the
  * demo's e-mails can be followed without a real inbox.
  */
-export function sectionsFor(roles: readonly Role[], options: { signedIn?: boolean; demoMode?: boolean } = {}): Section[] {
+export function sectionsFor(
+  roles: readonly Role[],
+  options: { signedIn?: boolean; demoMode?: boolean } = {},
+): Section[] {
   const granted = permissionsFor(roles);
   if (options.signedIn && options.demoMode) granted.add("mailbox:read");
   return SECTIONS.filter((s) => granted.has(s.permission));

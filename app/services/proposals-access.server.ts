@@ -18,10 +18,9 @@
  */
 import { and, eq, isNull, sql } from "drizzle-orm";
 import { data } from "react-router";
-import type { Database } from "~/db/client.server";
-import { cycles, proposalMembers, proposals, type ProposalStatus } from "~/db/schema/proposals";
+import type { Database, DbOrTx } from "~/db/client.server";
+import { cycles, type ProposalStatus, proposalMembers, proposals } from "~/db/schema/proposals";
 import type { Role } from "~/db/schema/users";
-import type { DbOrTx } from "~/db/client.server";
 
 /** What the rules need to know about the person asking. */
 export type ProposalViewer = { user: { id: number; email: string }; roles: readonly Role[] };
@@ -38,7 +37,10 @@ export type ProposalRelation = "pi" | "co-investigator";
 const sameEmail = (a: string, b: string) => a.trim().toLowerCase() === b.trim().toLowerCase();
 
 /** The member row that stands for the viewer: linked to the account, or unlinked with the same e-mail. */
-export function membershipOf<M extends { email: string; userId: number | null }>(viewer: ProposalViewer, proposal: { members: readonly M[] }): M | null {
+export function membershipOf<M extends { email: string; userId: number | null }>(
+  viewer: ProposalViewer,
+  proposal: { members: readonly M[] },
+): M | null {
   return (
     proposal.members.find((m) => m.userId === viewer.user.id) ??
     proposal.members.find((m) => m.userId === null && sameEmail(m.email, viewer.user.email)) ??
@@ -93,7 +95,8 @@ export function abilitiesFor(
   let lockedBecause: string | null = null;
   if (!onTeam) lockedBecause = "You are not on this proposal's team.";
   else if (!draft) lockedBecause = "Only a draft can be changed; this proposal has been submitted or decided.";
-  else if (deadlinePassed) lockedBecause = "The cycle's submission deadline has passed; the draft can no longer be changed.";
+  else if (deadlinePassed)
+    lockedBecause = "The cycle's submission deadline has passed; the draft can no longer be changed.";
   return {
     relation,
     canView: canViewProposal(viewer, proposal),
@@ -123,14 +126,23 @@ export function proposalIdFrom(param: string | undefined): number {
  * Loads a proposal with its cycle and team for the viewer, or throws the 404. A co-investigator
  * invited by e-mail before they had an account is linked to it here, the first time they open it.
  */
-export async function loadProposalForViewer(db: Database, viewer: ProposalViewer, proposalId: number, now: Date = new Date()) {
+export async function loadProposalForViewer(
+  db: Database,
+  viewer: ProposalViewer,
+  proposalId: number,
+  now: Date = new Date(),
+) {
   const [row] = await db
     .select({ proposal: proposals, cycle: cycles })
     .from(proposals)
     .innerJoin(cycles, eq(cycles.id, proposals.cycleId))
     .where(eq(proposals.id, proposalId));
   if (!row) proposalNotFound();
-  const members = await db.select().from(proposalMembers).where(eq(proposalMembers.proposalId, proposalId)).orderBy(proposalMembers.id);
+  const members = await db
+    .select()
+    .from(proposalMembers)
+    .where(eq(proposalMembers.proposalId, proposalId))
+    .orderBy(proposalMembers.id);
   const subject: ProposalAccessSubject = { piId: row.proposal.piId, status: row.proposal.status, members };
   if (!canViewProposal(viewer, subject)) proposalNotFound();
   const mine = membershipOf(viewer, { members });

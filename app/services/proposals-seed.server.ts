@@ -8,7 +8,14 @@ import { and, eq, sql } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
 import type { DemoProposal } from "~/db/demo-scenario";
 import { bands, configurations, instruments } from "~/db/schema/array";
-import { cycles, proposalDocuments, proposalHours, proposalMembers, proposals, proposalTargets } from "~/db/schema/proposals";
+import {
+  cycles,
+  proposalDocuments,
+  proposalHours,
+  proposalMembers,
+  proposals,
+  proposalTargets,
+} from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { makeTinyPdf } from "./pdf";
 import { freezeVersion, sha256Hex } from "./proposals.server";
@@ -39,7 +46,9 @@ async function ensureDemoProposal(db: Database, cycleId: number, demo: DemoPropo
       .innerJoin(instruments, eq(instruments.id, bands.instrumentId))
       .where(and(eq(instruments.name, demo.instrument), eq(bands.name, demo.band)));
     if (!band) throw new Error(`demo proposal "${demo.title}": no band ${demo.instrument} ${demo.band}`);
-    const created = new Date(demo.submittedAt ? Date.parse(demo.submittedAt) - 3 * 86_400_000 : Date.parse("2026-11-20T10:00:00Z"));
+    const created = new Date(
+      demo.submittedAt ? Date.parse(demo.submittedAt) - 3 * 86_400_000 : Date.parse("2026-11-20T10:00:00Z"),
+    );
     const [proposal] = await tx
       .insert(proposals)
       .values({
@@ -55,11 +64,19 @@ async function ensureDemoProposal(db: Database, cycleId: number, demo: DemoPropo
       })
       .returning();
     for (const email of demo.coInvestigators) {
-      const [account] = await tx.select({ id: users.id }).from(users).where(sql`lower(${users.email}) = lower(${email})`);
-      await tx.insert(proposalMembers).values({ proposalId: proposal.id, email, userId: account?.id ?? null, invitedAt: created });
+      const [account] = await tx
+        .select({ id: users.id })
+        .from(users)
+        .where(sql`lower(${users.email}) = lower(${email})`);
+      await tx
+        .insert(proposalMembers)
+        .values({ proposalId: proposal.id, email, userId: account?.id ?? null, invitedAt: created });
     }
     for (const [configurationName, hours] of Object.entries(demo.hours)) {
-      const [config] = await tx.select({ id: configurations.id }).from(configurations).where(eq(configurations.name, configurationName));
+      const [config] = await tx
+        .select({ id: configurations.id })
+        .from(configurations)
+        .where(eq(configurations.name, configurationName));
       if (!config) throw new Error(`demo proposal "${demo.title}": no configuration ${configurationName}`);
       await tx.insert(proposalHours).values({ proposalId: proposal.id, configurationId: config.id, hours });
     }
@@ -88,7 +105,10 @@ async function ensureDemoProposal(db: Database, cycleId: number, demo: DemoPropo
       ]);
       await tx.insert(proposalDocuments).values({
         proposalId: proposal.id,
-        filename: `${demo.title.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "")}.pdf`,
+        filename: `${demo.title
+          .toLowerCase()
+          .replace(/[^a-z0-9]+/g, "-")
+          .replace(/^-|-$/g, "")}.pdf`,
         contentType: "application/pdf",
         sizeBytes: bytes.length,
         sha256: sha256Hex(bytes),
@@ -102,7 +122,10 @@ async function ensureDemoProposal(db: Database, cycleId: number, demo: DemoPropo
       const [locked] = await tx.select().from(proposals).where(eq(proposals.id, proposal.id)).for("update");
       await freezeVersion(tx, locked, cycle, pi.id, submittedAt);
       if (demo.status !== "submitted") {
-        await tx.update(proposals).set({ status: demo.status, updatedAt: submittedAt }).where(eq(proposals.id, proposal.id));
+        await tx
+          .update(proposals)
+          .set({ status: demo.status, updatedAt: submittedAt })
+          .where(eq(proposals.id, proposal.id));
       }
     }
   });

@@ -4,8 +4,9 @@
  * chunk by chunk and abandoned as soon as the total passes the cap. Only then is the (small enough)
  * body handed to the platform's form-data parser.
  */
-import { MAX_PDF_BYTES, formatBytes } from "./pdf";
-import { parseForm, readBodyCapped } from "./http-body.server";
+
+import { parseForm, readBodyCapped } from "~/lib/body.server";
+import { formatBytes, MAX_PDF_BYTES } from "./pdf";
 
 /** Room for the multipart boundaries, part headers and the small text fields beside the file. */
 export const MULTIPART_OVERHEAD_BYTES = 64 * 1024;
@@ -16,9 +17,7 @@ export const MAX_UPLOAD_BODY_BYTES = MAX_PDF_BYTES + MULTIPART_OVERHEAD_BYTES;
 /** Largest body of an ordinary (URL-encoded) form of the proposal pages. */
 export const MAX_FORM_BODY_BYTES = 256 * 1024;
 
-export type CappedForm =
-  | { ok: true; form: FormData }
-  | { ok: false; status: 400 | 413 | 415; message: string };
+export type CappedForm = { ok: true; form: FormData } | { ok: false; status: 400 | 413 | 415; message: string };
 
 export function isMultipart(request: Request): boolean {
   return /^multipart\/form-data\b/i.test(request.headers.get("Content-Type") ?? "");
@@ -35,8 +34,12 @@ const tooLarge = (): CappedForm => ({
  * `maxBytes` + one chunk; answers 413 beyond it, 415 for another content type, 400 for a body
  * the parser cannot read.
  */
-export async function readMultipartCapped(request: Request, maxBytes: number = MAX_UPLOAD_BODY_BYTES): Promise<CappedForm> {
-  if (!isMultipart(request)) return { ok: false, status: 415, message: "Science case: send the file as a form upload (multipart/form-data)." };
+export async function readMultipartCapped(
+  request: Request,
+  maxBytes: number = MAX_UPLOAD_BODY_BYTES,
+): Promise<CappedForm> {
+  if (!isMultipart(request))
+    return { ok: false, status: 415, message: "Science case: send the file as a form upload (multipart/form-data)." };
   const read = await readCapped(request, maxBytes, tooLarge);
   if (read.ok || read.status === 413) return read;
   return { ...read, message: `Science case: ${read.message[0].toLowerCase()}${read.message.slice(1)}` };
@@ -56,8 +59,14 @@ export async function readFormCapped(request: Request, maxBytes: number = MAX_FO
 
 async function readCapped(request: Request, maxBytes: number, tooBig: () => CappedForm): Promise<CappedForm> {
   const read = await readBodyCapped(request, maxBytes);
-  if (!read.ok) return read.reason === "too-large" ? tooBig() : { ok: false, status: 400, message: "The upload was interrupted; please try again." };
-  if (read.bytes.byteLength === 0) return { ok: false, status: 400, message: "The form arrived empty; please try again." };
+  if (!read.ok)
+    return read.reason === "too-large"
+      ? tooBig()
+      : { ok: false, status: 400, message: "The upload was interrupted; please try again." };
+  if (read.bytes.byteLength === 0)
+    return { ok: false, status: 400, message: "The form arrived empty; please try again." };
   const form = await parseForm(request, read.bytes);
-  return form ? { ok: true, form } : { ok: false, status: 400, message: "The form could not be read; please try again." };
+  return form
+    ? { ok: true, form }
+    : { ok: false, status: 400, message: "The form could not be read; please try again." };
 }

@@ -5,27 +5,27 @@
  * the route's schema; the limits they are checked against live here.
  */
 import { createHash } from "node:crypto";
+import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import { createElement } from "react";
-import { and, asc, desc, eq, gt, inArray, sql } from "drizzle-orm";
 import type { Database, DbOrTx, Transaction } from "~/db/client.server";
 import { bands, configurationStations, configurations, instruments, stations } from "~/db/schema/array";
+import type { MailKind } from "~/db/schema/mail";
 import {
+  type CalibratorJson,
   cycleConfigurations,
   cycles,
+  type MagnitudesJson,
+  type ProposalStatus,
   proposalDocuments,
   proposalHours,
   proposalMembers,
   proposals,
   proposalTargets,
   proposalVersions,
-  targets,
-  type CalibratorJson,
-  type MagnitudesJson,
-  type ProposalStatus,
   type TargetModelJson,
   type TimeWindowJson,
+  targets,
 } from "~/db/schema/proposals";
-import type { MailKind } from "~/db/schema/mail";
 import { users } from "~/db/schema/users";
 import { CoInvestigatorAddedEmail } from "~/emails/CoInvestigatorAddedEmail";
 import { ProposalSubmittedEmail } from "~/emails/ProposalSubmittedEmail";
@@ -38,9 +38,9 @@ import { checkPdf, formatBytes } from "./pdf";
 import {
   abilitiesFor,
   onTeamCondition,
-  proposalNotFound,
   type ProposalAbilities,
   type ProposalViewer,
+  proposalNotFound,
 } from "./proposals-access.server";
 
 // ---------------------------------------------------------------- limits
@@ -102,26 +102,36 @@ type Tx = Transaction;
 
 type Need = "canEdit" | "canManageTeam" | "canSubmit" | "canWithdraw" | "canReopen";
 
-function refusalFor(need: Need, abilities: ProposalAbilities, cycle: { name: string; submissionDeadline: Date }, status: ProposalStatus): ProposalRefusal {
+function refusalFor(
+  need: Need,
+  abilities: ProposalAbilities,
+  cycle: { name: string; submissionDeadline: Date },
+  status: ProposalStatus,
+): ProposalRefusal {
   const deadline = `${cycle.name} deadline (${formatUtc(cycle.submissionDeadline)})`;
   switch (need) {
     case "canManageTeam":
-      if (abilities.relation === "co-investigator") return new ProposalRefusal(403, "Only the PI adds or removes co-investigators.");
+      if (abilities.relation === "co-investigator")
+        return new ProposalRefusal(403, "Only the PI adds or removes co-investigators.");
       break;
     case "canWithdraw":
       if (abilities.relation !== "pi") return new ProposalRefusal(403, "Only the PI can withdraw the proposal.");
       return new ProposalRefusal(409, `A proposal that is ${STATUS_WORDS[status].toLowerCase()} cannot be withdrawn.`);
     case "canReopen":
       if (abilities.relation !== "pi") return new ProposalRefusal(403, "Only the PI can reopen the proposal.");
-      if (status !== "withdrawn") return new ProposalRefusal(409, "Only a withdrawn proposal can be reopened as a draft.");
+      if (status !== "withdrawn")
+        return new ProposalRefusal(409, "Only a withdrawn proposal can be reopened as a draft.");
       return new ProposalRefusal(409, `The ${deadline} has passed: the proposal can no longer be reopened.`);
     case "canSubmit":
-      if (status !== "draft") return new ProposalRefusal(409, "This proposal has already been submitted; withdraw it first to change it.");
-      if (abilities.deadlinePassed) return new ProposalRefusal(409, `Too late: the ${deadline} has passed, so the proposal cannot be submitted.`);
+      if (status !== "draft")
+        return new ProposalRefusal(409, "This proposal has already been submitted; withdraw it first to change it.");
+      if (abilities.deadlinePassed)
+        return new ProposalRefusal(409, `Too late: the ${deadline} has passed, so the proposal cannot be submitted.`);
       break;
   }
   if (status !== "draft") return new ProposalRefusal(409, "The proposal is no longer a draft: it is read-only.");
-  if (abilities.deadlinePassed) return new ProposalRefusal(409, `The ${deadline} has passed: the draft can no longer be changed.`);
+  if (abilities.deadlinePassed)
+    return new ProposalRefusal(409, `The ${deadline} has passed: the draft can no longer be changed.`);
   return new ProposalRefusal(403, abilities.lockedBecause ?? "You may not change this proposal.");
 }
 
@@ -133,7 +143,11 @@ async function lockFor(tx: Tx, viewer: ProposalViewer, proposalId: number, need:
   const [proposal] = await tx.select().from(proposals).where(eq(proposals.id, proposalId)).for("update");
   if (!proposal) proposalNotFound();
   const [cycle] = await tx.select().from(cycles).where(eq(cycles.id, proposal.cycleId));
-  const members = await tx.select().from(proposalMembers).where(eq(proposalMembers.proposalId, proposalId)).orderBy(proposalMembers.id);
+  const members = await tx
+    .select()
+    .from(proposalMembers)
+    .where(eq(proposalMembers.proposalId, proposalId))
+    .orderBy(proposalMembers.id);
   const abilities = abilitiesFor(viewer, { piId: proposal.piId, status: proposal.status, members }, cycle, now);
   if (!abilities.canView) proposalNotFound();
   if (!abilities[need]) throw refusalFor(need, abilities, cycle, proposal.status);
@@ -198,7 +212,11 @@ export async function loadProposalDetails(db: Database, proposalId: number, cycl
       .innerJoin(configurations, eq(configurations.id, proposalHours.configurationId))
       .where(eq(proposalHours.proposalId, proposalId))
       .orderBy(asc(configurations.name)),
-    db.select().from(proposalTargets).where(eq(proposalTargets.proposalId, proposalId)).orderBy(asc(proposalTargets.position), asc(proposalTargets.id)),
+    db
+      .select()
+      .from(proposalTargets)
+      .where(eq(proposalTargets.proposalId, proposalId))
+      .orderBy(asc(proposalTargets.position), asc(proposalTargets.id)),
     db
       .select({
         filename: proposalDocuments.filename,
@@ -241,7 +259,12 @@ export async function loadProposalDetails(db: Database, proposalId: number, cycl
 /** The configurations a cycle offers, with their stations in order. */
 export async function offeredConfigurations(db: DbOrTx, cycleId: number) {
   const rows = await db
-    .select({ id: configurations.id, name: configurations.name, description: configurations.description, nightsAvailable: cycleConfigurations.nightsAvailable })
+    .select({
+      id: configurations.id,
+      name: configurations.name,
+      description: configurations.description,
+      nightsAvailable: cycleConfigurations.nightsAvailable,
+    })
     .from(cycleConfigurations)
     .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
     .where(eq(cycleConfigurations.cycleId, cycleId))
@@ -251,21 +274,41 @@ export async function offeredConfigurations(db: DbOrTx, cycleId: number) {
     .select({ configurationId: configurationStations.configurationId, name: stations.name })
     .from(configurationStations)
     .innerJoin(stations, eq(stations.id, configurationStations.stationId))
-    .where(inArray(configurationStations.configurationId, rows.map((r) => r.id)))
+    .where(
+      inArray(
+        configurationStations.configurationId,
+        rows.map((r) => r.id),
+      ),
+    )
     .orderBy(asc(configurationStations.position));
-  return rows.map((r) => ({ ...r, stationNames: members.filter((m) => m.configurationId === r.id).map((m) => m.name) }));
+  return rows.map((r) => ({
+    ...r,
+    stationNames: members.filter((m) => m.configurationId === r.id).map((m) => m.name),
+  }));
 }
 
 // ---------------------------------------------------------------- creating
 
-export async function createProposal(db: Database, viewer: ProposalViewer, input: { cycleId: number; title: string }, now: Date = new Date()) {
+export async function createProposal(
+  db: Database,
+  viewer: ProposalViewer,
+  input: { cycleId: number; title: string },
+  now: Date = new Date(),
+) {
   return db.transaction(async (tx) => {
     const [cycle] = await tx.select().from(cycles).where(eq(cycles.id, input.cycleId));
     if (!cycle) throw new ProposalRefusal(400, "Cycle: choose one of the open cycles.", "cycleId");
     if (cycle.submissionDeadline.getTime() <= now.getTime()) {
-      throw new ProposalRefusal(409, `Cycle: the ${cycle.name} deadline (${formatUtc(cycle.submissionDeadline)}) has passed; choose an open cycle.`, "cycleId");
+      throw new ProposalRefusal(
+        409,
+        `Cycle: the ${cycle.name} deadline (${formatUtc(cycle.submissionDeadline)}) has passed; choose an open cycle.`,
+        "cycleId",
+      );
     }
-    const [row] = await tx.insert(proposals).values({ cycleId: cycle.id, piId: viewer.user.id, title: input.title }).returning();
+    const [row] = await tx
+      .insert(proposals)
+      .values({ cycleId: cycle.id, piId: viewer.user.id, title: input.title })
+      .returning();
     return row;
   });
 }
@@ -275,7 +318,13 @@ export async function createProposal(db: Database, viewer: ProposalViewer, input
 export type DetailsInput = { title: string; abstract: string; scienceCategory: string; bandId: number | null };
 
 /** Title, abstract, science category and band (the instrument follows the band). */
-export async function saveDetails(db: Database, viewer: ProposalViewer, proposalId: number, input: DetailsInput, now: Date = new Date()) {
+export async function saveDetails(
+  db: Database,
+  viewer: ProposalViewer,
+  proposalId: number,
+  input: DetailsInput,
+  now: Date = new Date(),
+) {
   return db.transaction(async (tx) => {
     await lockFor(tx, viewer, proposalId, "canEdit", now);
     let instrumentId: number | null = null;
@@ -286,7 +335,14 @@ export async function saveDetails(db: Database, viewer: ProposalViewer, proposal
     }
     const [row] = await tx
       .update(proposals)
-      .set({ title: input.title, abstract: input.abstract, scienceCategory: input.scienceCategory, bandId: input.bandId, instrumentId, updatedAt: now })
+      .set({
+        title: input.title,
+        abstract: input.abstract,
+        scienceCategory: input.scienceCategory,
+        bandId: input.bandId,
+        instrumentId,
+        updatedAt: now,
+      })
       .where(eq(proposals.id, proposalId))
       .returning();
     return row;
@@ -305,7 +361,12 @@ export async function saveHours(
     const { proposal } = await lockFor(tx, viewer, proposalId, "canEdit", now);
     const offered = new Set((await offeredConfigurations(tx, proposal.cycleId)).map((c) => c.id));
     for (const l of lines) {
-      if (!offered.has(l.configurationId)) throw new ProposalRefusal(400, "Requested hours: that configuration is not on offer this cycle.", `hours-${l.configurationId}`);
+      if (!offered.has(l.configurationId))
+        throw new ProposalRefusal(
+          400,
+          "Requested hours: that configuration is not on offer this cycle.",
+          `hours-${l.configurationId}`,
+        );
     }
     await tx.delete(proposalHours).where(eq(proposalHours.proposalId, proposalId));
     if (lines.length > 0) await tx.insert(proposalHours).values(lines.map((l) => ({ proposalId, ...l })));
@@ -316,15 +377,27 @@ export async function saveHours(
 // ---------------------------------------------------------------- the team
 
 /** Adds a co-investigator by e-mail and queues their notice. Returns the member row. */
-export async function addCoInvestigator(db: Database, viewer: ProposalViewer & { user: { name: string } }, proposalId: number, email: string, now: Date = new Date()) {
+export async function addCoInvestigator(
+  db: Database,
+  viewer: ProposalViewer & { user: { name: string } },
+  proposalId: number,
+  email: string,
+  now: Date = new Date(),
+) {
   const member = await db.transaction(async (tx) => {
     const { proposal, cycle, members } = await lockFor(tx, viewer, proposalId, "canManageTeam", now);
     const lower = email.trim().toLowerCase();
     const [pi] = await tx.select().from(users).where(eq(users.id, proposal.piId));
-    if (pi && pi.email.toLowerCase() === lower) throw new ProposalRefusal(400, "Co-investigator e-mail: that is the PI's own address.", "email");
-    if (members.some((m) => m.email.toLowerCase() === lower)) throw new ProposalRefusal(400, `Co-investigator e-mail: ${email} is already on the team.`, "email");
+    if (pi && pi.email.toLowerCase() === lower)
+      throw new ProposalRefusal(400, "Co-investigator e-mail: that is the PI's own address.", "email");
+    if (members.some((m) => m.email.toLowerCase() === lower))
+      throw new ProposalRefusal(400, `Co-investigator e-mail: ${email} is already on the team.`, "email");
     if (members.length >= PROPOSAL_LIMITS.coInvestigatorsMax) {
-      throw new ProposalRefusal(400, `Co-investigator e-mail: a team has at most ${PROPOSAL_LIMITS.coInvestigatorsMax} co-investigators.`, "email");
+      throw new ProposalRefusal(
+        400,
+        `Co-investigator e-mail: a team has at most ${PROPOSAL_LIMITS.coInvestigatorsMax} co-investigators.`,
+        "email",
+      );
     }
     const [account] = await tx.select().from(users).where(sql`lower(${users.email}) = ${lower}`);
     const [row] = await tx
@@ -353,7 +426,13 @@ export async function addCoInvestigator(db: Database, viewer: ProposalViewer & {
   return member;
 }
 
-export async function removeCoInvestigator(db: Database, viewer: ProposalViewer, proposalId: number, memberId: number, now: Date = new Date()) {
+export async function removeCoInvestigator(
+  db: Database,
+  viewer: ProposalViewer,
+  proposalId: number,
+  memberId: number,
+  now: Date = new Date(),
+) {
   return db.transaction(async (tx) => {
     await lockFor(tx, viewer, proposalId, "canManageTeam", now);
     const gone = await tx
@@ -382,10 +461,14 @@ export type TargetFields = {
 
 async function nextPosition(tx: Tx, proposalId: number) {
   const [row] = await tx
-    .select({ n: sql<number>`coalesce(max(${proposalTargets.position}), -1)::int + 1`, count: sql<number>`count(*)::int` })
+    .select({
+      n: sql<number>`coalesce(max(${proposalTargets.position}), -1)::int + 1`,
+      count: sql<number>`count(*)::int`,
+    })
     .from(proposalTargets)
     .where(eq(proposalTargets.proposalId, proposalId));
-  if (row.count >= PROPOSAL_LIMITS.targetsMax) throw new ProposalRefusal(400, `Targets: a proposal has at most ${PROPOSAL_LIMITS.targetsMax} targets.`);
+  if (row.count >= PROPOSAL_LIMITS.targetsMax)
+    throw new ProposalRefusal(400, `Targets: a proposal has at most ${PROPOSAL_LIMITS.targetsMax} targets.`);
   return row.n;
 }
 
@@ -394,18 +477,29 @@ async function refuseDuplicateName(tx: Tx, proposalId: number, name: string, exc
     .select({ id: proposalTargets.id })
     .from(proposalTargets)
     .where(and(eq(proposalTargets.proposalId, proposalId), sql`lower(${proposalTargets.name}) = lower(${name})`));
-  if (same.some((s) => s.id !== exceptId)) throw new ProposalRefusal(400, `Name: the proposal already has a target called "${name}".`, "name");
+  if (same.some((s) => s.id !== exceptId))
+    throw new ProposalRefusal(400, `Name: the proposal already has a target called "${name}".`, "name");
 }
 
 /** Creates (targetId null) or updates a target of the proposal. Returns its id. */
-export async function saveTarget(db: Database, viewer: ProposalViewer, proposalId: number, targetId: number | null, input: TargetFields, now: Date = new Date()) {
+export async function saveTarget(
+  db: Database,
+  viewer: ProposalViewer,
+  proposalId: number,
+  targetId: number | null,
+  input: TargetFields,
+  now: Date = new Date(),
+) {
   return db.transaction(async (tx) => {
     await lockFor(tx, viewer, proposalId, "canEdit", now);
     await refuseDuplicateName(tx, proposalId, input.name, targetId);
     let id: number;
     if (targetId === null) {
       const position = await nextPosition(tx, proposalId);
-      const [row] = await tx.insert(proposalTargets).values({ proposalId, position, ...input }).returning({ id: proposalTargets.id });
+      const [row] = await tx
+        .insert(proposalTargets)
+        .values({ proposalId, position, ...input })
+        .returning({ id: proposalTargets.id });
       id = row.id;
     } else {
       const rows = await tx
@@ -422,10 +516,19 @@ export async function saveTarget(db: Database, viewer: ProposalViewer, proposalI
 }
 
 /** Copies one of the viewer's own targets ("My targets") into the proposal. */
-export async function addTargetFromMine(db: Database, viewer: ProposalViewer, proposalId: number, myTargetId: number, now: Date = new Date()) {
+export async function addTargetFromMine(
+  db: Database,
+  viewer: ProposalViewer,
+  proposalId: number,
+  myTargetId: number,
+  now: Date = new Date(),
+) {
   return db.transaction(async (tx) => {
     await lockFor(tx, viewer, proposalId, "canEdit", now);
-    const [mine] = await tx.select().from(targets).where(and(eq(targets.id, myTargetId), eq(targets.ownerId, viewer.user.id)));
+    const [mine] = await tx
+      .select()
+      .from(targets)
+      .where(and(eq(targets.id, myTargetId), eq(targets.ownerId, viewer.user.id)));
     if (!mine) throw new ProposalRefusal(400, "From my targets: choose one of your own targets.", "myTargetId");
     await refuseDuplicateName(tx, proposalId, mine.name, null);
     const position = await nextPosition(tx, proposalId);
@@ -448,7 +551,13 @@ export async function addTargetFromMine(db: Database, viewer: ProposalViewer, pr
   });
 }
 
-export async function removeTarget(db: Database, viewer: ProposalViewer, proposalId: number, targetId: number, now: Date = new Date()) {
+export async function removeTarget(
+  db: Database,
+  viewer: ProposalViewer,
+  proposalId: number,
+  targetId: number,
+  now: Date = new Date(),
+) {
   return db.transaction(async (tx) => {
     await lockFor(tx, viewer, proposalId, "canEdit", now);
     const gone = await tx
@@ -462,7 +571,14 @@ export async function removeTarget(db: Database, viewer: ProposalViewer, proposa
 }
 
 /** Moves a target one place up or down the list (positions are renumbered 0, 1, 2 …). */
-export async function moveTarget(db: Database, viewer: ProposalViewer, proposalId: number, targetId: number, direction: "up" | "down", now: Date = new Date()) {
+export async function moveTarget(
+  db: Database,
+  viewer: ProposalViewer,
+  proposalId: number,
+  targetId: number,
+  direction: "up" | "down",
+  now: Date = new Date(),
+) {
   return db.transaction(async (tx) => {
     await lockFor(tx, viewer, proposalId, "canEdit", now);
     const list = await tx
@@ -490,7 +606,11 @@ export function sha256Hex(bytes: Uint8Array): string {
 /** Keeps a file name readable and safe for a Content-Disposition header. */
 export function cleanFilename(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? "";
-  const cleaned = base.replace(/[^\w.\- ()]+/g, "_").replace(/^\.+/, "").trim().slice(0, 120);
+  const cleaned = base
+    .replace(/[^\w.\- ()]+/g, "_")
+    .replace(/^\.+/, "")
+    .trim()
+    .slice(0, 120);
   const withName = cleaned === "" ? "science-case" : cleaned;
   return /\.pdf$/i.test(withName) ? withName : `${withName}.pdf`;
 }
@@ -525,7 +645,12 @@ export async function uploadScienceCase(
   });
 }
 
-export async function removeScienceCase(db: Database, viewer: ProposalViewer, proposalId: number, now: Date = new Date()) {
+export async function removeScienceCase(
+  db: Database,
+  viewer: ProposalViewer,
+  proposalId: number,
+  now: Date = new Date(),
+) {
   return db.transaction(async (tx) => {
     await lockFor(tx, viewer, proposalId, "canEdit", now);
     await tx.delete(proposalDocuments).where(eq(proposalDocuments.proposalId, proposalId));
@@ -546,7 +671,7 @@ export async function readScienceCase(db: Database, proposalId: number, version:
     .select()
     .from(proposalVersions)
     .where(and(eq(proposalVersions.proposalId, proposalId), eq(proposalVersions.version, version)));
-  if (!row || !row.documentData) return null;
+  if (!row?.documentData) return null;
   const snap = row.snapshot as { document?: { filename?: string } | null };
   return {
     filename: snap.document?.filename ?? `science-case-v${version}.pdf`,
@@ -561,9 +686,15 @@ export async function readScienceCase(db: Database, proposalId: number, version:
 /** What a proposal still lacks before it can be submitted, in plain words (empty: complete). */
 export async function missingForSubmission(db: DbOrTx, proposal: typeof proposals.$inferSelect): Promise<string[]> {
   const [[t], [h], [d]] = await Promise.all([
-    db.select({ n: sql<number>`count(*)::int` }).from(proposalTargets).where(eq(proposalTargets.proposalId, proposal.id)),
+    db
+      .select({ n: sql<number>`count(*)::int` })
+      .from(proposalTargets)
+      .where(eq(proposalTargets.proposalId, proposal.id)),
     db.select({ n: sql<number>`count(*)::int` }).from(proposalHours).where(eq(proposalHours.proposalId, proposal.id)),
-    db.select({ n: sql<number>`count(*)::int` }).from(proposalDocuments).where(eq(proposalDocuments.proposalId, proposal.id)),
+    db
+      .select({ n: sql<number>`count(*)::int` })
+      .from(proposalDocuments)
+      .where(eq(proposalDocuments.proposalId, proposal.id)),
   ]);
   const missing: string[] = [];
   if (proposal.title.trim() === "") missing.push("a title");
@@ -577,8 +708,16 @@ export async function missingForSubmission(db: DbOrTx, proposal: typeof proposal
 }
 
 /** The proposal as it stands, for a frozen version (everything but the PDF bytes). */
-async function buildSnapshot(tx: Tx, proposal: typeof proposals.$inferSelect, cycle: typeof cycles.$inferSelect, report: FeasibilityReport) {
-  const [pi] = await tx.select({ id: users.id, name: users.name, email: users.email, institute: users.institute }).from(users).where(eq(users.id, proposal.piId));
+async function buildSnapshot(
+  tx: Tx,
+  proposal: typeof proposals.$inferSelect,
+  cycle: typeof cycles.$inferSelect,
+  report: FeasibilityReport,
+) {
+  const [pi] = await tx
+    .select({ id: users.id, name: users.name, email: users.email, institute: users.institute })
+    .from(users)
+    .where(eq(users.id, proposal.piId));
   const members = await tx
     .select({ email: proposalMembers.email, name: users.name, institute: users.institute })
     .from(proposalMembers)
@@ -586,21 +725,40 @@ async function buildSnapshot(tx: Tx, proposal: typeof proposals.$inferSelect, cy
     .where(eq(proposalMembers.proposalId, proposal.id))
     .orderBy(proposalMembers.id);
   const hours = await tx
-    .select({ configurationId: proposalHours.configurationId, configuration: configurations.name, hours: proposalHours.hours })
+    .select({
+      configurationId: proposalHours.configurationId,
+      configuration: configurations.name,
+      hours: proposalHours.hours,
+    })
     .from(proposalHours)
     .innerJoin(configurations, eq(configurations.id, proposalHours.configurationId))
     .where(eq(proposalHours.proposalId, proposal.id))
     .orderBy(asc(configurations.name));
-  const targetRows = await tx.select().from(proposalTargets).where(eq(proposalTargets.proposalId, proposal.id)).orderBy(asc(proposalTargets.position), asc(proposalTargets.id));
+  const targetRows = await tx
+    .select()
+    .from(proposalTargets)
+    .where(eq(proposalTargets.proposalId, proposal.id))
+    .orderBy(asc(proposalTargets.position), asc(proposalTargets.id));
   const [band] = proposal.bandId
     ? await tx
-        .select({ id: bands.id, name: bands.name, instrument: instruments.name, centralWavelengthM: bands.centralWavelengthM, limitingMagnitude: bands.limitingMagnitude })
+        .select({
+          id: bands.id,
+          name: bands.name,
+          instrument: instruments.name,
+          centralWavelengthM: bands.centralWavelengthM,
+          limitingMagnitude: bands.limitingMagnitude,
+        })
         .from(bands)
         .innerJoin(instruments, eq(instruments.id, bands.instrumentId))
         .where(eq(bands.id, proposal.bandId))
     : [];
   const [doc] = await tx
-    .select({ filename: proposalDocuments.filename, sizeBytes: proposalDocuments.sizeBytes, sha256: proposalDocuments.sha256, data: proposalDocuments.data })
+    .select({
+      filename: proposalDocuments.filename,
+      sizeBytes: proposalDocuments.sizeBytes,
+      sha256: proposalDocuments.sha256,
+      data: proposalDocuments.data,
+    })
     .from(proposalDocuments)
     .where(eq(proposalDocuments.proposalId, proposal.id));
   const snapshot: ProposalSnapshot = {
@@ -608,10 +766,24 @@ async function buildSnapshot(tx: Tx, proposal: typeof proposals.$inferSelect, cy
     title: proposal.title,
     abstract: proposal.abstract,
     scienceCategory: proposal.scienceCategory,
-    cycle: { id: cycle.id, name: cycle.name, observingStart: cycle.observingStart, observingEnd: cycle.observingEnd, submissionDeadline: cycle.submissionDeadline.toISOString() },
+    cycle: {
+      id: cycle.id,
+      name: cycle.name,
+      observingStart: cycle.observingStart,
+      observingEnd: cycle.observingEnd,
+      submissionDeadline: cycle.submissionDeadline.toISOString(),
+    },
     pi: pi ?? null,
     coInvestigators: members.map((m) => ({ email: m.email, name: m.name ?? null, institute: m.institute ?? null })),
-    instrument: band ? { name: band.instrument, band: band.name, bandId: band.id, centralWavelengthM: band.centralWavelengthM, limitingMagnitude: band.limitingMagnitude } : null,
+    instrument: band
+      ? {
+          name: band.instrument,
+          band: band.name,
+          bandId: band.id,
+          centralWavelengthM: band.centralWavelengthM,
+          limitingMagnitude: band.limitingMagnitude,
+        }
+      : null,
     hours,
     targets: targetRows.map((t) => ({
       name: t.name,
@@ -638,7 +810,13 @@ export type ProposalSnapshot = {
   cycle: { id: number; name: string; observingStart: string; observingEnd: string; submissionDeadline: string };
   pi: { id: number; name: string; email: string; institute: string } | null;
   coInvestigators: { email: string; name: string | null; institute: string | null }[];
-  instrument: { name: string; band: string; bandId: number; centralWavelengthM: number; limitingMagnitude: number } | null;
+  instrument: {
+    name: string;
+    band: string;
+    bandId: number;
+    centralWavelengthM: number;
+    limitingMagnitude: number;
+  } | null;
   hours: { configurationId: number; configuration: string; hours: number }[];
   targets: (TargetFields & { minElevationDeg: number | null })[];
   document: { filename: string; sizeBytes: number; sha256: string } | null;
@@ -650,12 +828,29 @@ export type ProposalSnapshot = {
  * PDF bytes and their SHA-256) and marks it submitted. Runs inside the caller's transaction, which
  * must hold the proposal's row lock.
  */
-export async function freezeVersion(tx: Tx, proposal: typeof proposals.$inferSelect, cycle: typeof cycles.$inferSelect, submittedById: number, now: Date) {
+export async function freezeVersion(
+  tx: Tx,
+  proposal: typeof proposals.$inferSelect,
+  cycle: typeof cycles.$inferSelect,
+  submittedById: number,
+  now: Date,
+) {
   const report = computeFeasibility(await loadFeasibilityInput(tx, proposal.id), now);
   const { snapshot, documentData, documentSha256 } = await buildSnapshot(tx, proposal, cycle, report);
   const version = proposal.currentVersion + 1;
-  await tx.insert(proposalVersions).values({ proposalId: proposal.id, version, submittedAt: now, submittedById, snapshot, documentData, documentSha256 });
-  await tx.update(proposals).set({ status: "submitted", submittedAt: now, currentVersion: version, updatedAt: now }).where(eq(proposals.id, proposal.id));
+  await tx.insert(proposalVersions).values({
+    proposalId: proposal.id,
+    version,
+    submittedAt: now,
+    submittedById,
+    snapshot,
+    documentData,
+    documentSha256,
+  });
+  await tx
+    .update(proposals)
+    .set({ status: "submitted", submittedAt: now, currentVersion: version, updatedAt: now })
+    .where(eq(proposals.id, proposal.id));
   return { version, report, snapshot, documentSha256 };
 }
 
@@ -670,7 +865,8 @@ async function teamAddresses(tx: Tx, proposal: typeof proposals.$inferSelect) {
     .orderBy(proposalMembers.id);
   const out = [{ email: pi.email, name: pi.name as string | null, userId: pi.id as number | null }];
   for (const m of members) {
-    if (!out.some((o) => o.email.toLowerCase() === m.email.toLowerCase())) out.push({ email: m.email, name: m.name, userId: m.userId });
+    if (!out.some((o) => o.email.toLowerCase() === m.email.toLowerCase()))
+      out.push({ email: m.email, name: m.name, userId: m.userId });
   }
   return { pi, recipients: out };
 }
@@ -686,11 +882,17 @@ const clip = (s: string, n: number) => {
  * feasibility report and the PDF, marks it submitted and queues a notice to the whole team, all
  * in one transaction. Returns the version number.
  */
-export async function submitProposal(db: Database, viewer: ProposalViewer & { user: { name: string } }, proposalId: number, now: Date = new Date()) {
+export async function submitProposal(
+  db: Database,
+  viewer: ProposalViewer & { user: { name: string } },
+  proposalId: number,
+  now: Date = new Date(),
+) {
   return db.transaction(async (tx) => {
     const { proposal, cycle } = await lockFor(tx, viewer, proposalId, "canSubmit", now);
     const missing = await missingForSubmission(tx, proposal);
-    if (missing.length > 0) throw new ProposalRefusal(400, `The proposal is not complete yet. It still needs ${joinWords(missing)}.`);
+    if (missing.length > 0)
+      throw new ProposalRefusal(400, `The proposal is not complete yet. It still needs ${joinWords(missing)}.`);
     const { version, report, snapshot, documentSha256 } = await freezeVersion(tx, proposal, cycle, viewer.user.id, now);
     const { recipients } = await teamAddresses(tx, proposal);
     const totalHours = snapshot.hours.reduce((a, h) => a + h.hours, 0);
@@ -722,7 +924,12 @@ export async function submitProposal(db: Database, viewer: ProposalViewer & { us
 }
 
 /** The PI pulls a submitted proposal back; the team is told. */
-export async function withdrawProposal(db: Database, viewer: ProposalViewer & { user: { name: string } }, proposalId: number, now: Date = new Date()) {
+export async function withdrawProposal(
+  db: Database,
+  viewer: ProposalViewer & { user: { name: string } },
+  proposalId: number,
+  now: Date = new Date(),
+) {
   return db.transaction(async (tx) => {
     const { proposal, cycle } = await lockFor(tx, viewer, proposalId, "canWithdraw", now);
     await tx.update(proposals).set({ status: "withdrawn", updatedAt: now }).where(eq(proposals.id, proposalId));

@@ -7,9 +7,9 @@ import { and, asc, count, eq, inArray, max, ne } from "drizzle-orm";
 import { data } from "react-router";
 import * as v from "valibot";
 import type { Database, Transaction } from "~/db/client.server";
-import { parseForm, readBodyCapped } from "./http-body.server";
-import { loadSiteRegistry } from "./registry.server";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "~/db/schema/array";
+import { parseForm, readBodyCapped } from "~/lib/body.server";
+import { loadSiteRegistry } from "./registry.server";
 import type {
   BandRecord,
   ConfigurationRecord,
@@ -29,7 +29,11 @@ type Db = Database | Tx;
 
 /** The SQLSTATE of a PostgreSQL error, also when the query builder wrapped it. */
 export function pgCode(error: unknown): string | undefined {
-  for (let e = error as { code?: unknown; cause?: unknown } | undefined, depth = 0; e && depth < 4; e = e.cause as typeof e, depth++) {
+  for (
+    let e = error as { code?: unknown; cause?: unknown } | undefined, depth = 0;
+    e && depth < 4;
+    e = e.cause as typeof e, depth++
+  ) {
     if (typeof e.code === "string" && /^[0-9A-Z]{5}$/.test(e.code)) return e.code;
   }
   return undefined;
@@ -60,7 +64,9 @@ export async function readForm(
 ): Promise<{ form: FormData } | { error: string; status: number }> {
   const read = await readBodyCapped(request, limitBytes);
   if (!read.ok) {
-    return read.reason === "too-large" ? { error: tooLargeMessage, status: 413 } : { error: "The form could not be read; please send it again.", status: 400 };
+    return read.reason === "too-large"
+      ? { error: tooLargeMessage, status: 413 }
+      : { error: "The form could not be read; please send it again.", status: 400 };
   }
   const form = await parseForm(request, read.bytes);
   return form ? { form } : { error: "The form could not be read; please send it again.", status: 400 };
@@ -156,7 +162,10 @@ export async function stationNameTaken(db: Db, siteId: number, name: string, exc
 }
 
 export async function createStation(db: Db, siteId: number, values: StationRecord) {
-  const [row] = await db.insert(stations).values({ ...values, siteId }).returning();
+  const [row] = await db
+    .insert(stations)
+    .values({ ...values, siteId })
+    .returning();
   return row;
 }
 
@@ -176,7 +185,10 @@ export async function configurationsUsingStation(db: Db, stationId: number): Pro
 }
 
 /** Deletes a station unless a configuration uses it (then says which ones and deletes nothing). */
-export async function deleteStation(db: Database, stationId: number): Promise<{ deleted: true } | { deleted: false; usedBy: string[] }> {
+export async function deleteStation(
+  db: Database,
+  stationId: number,
+): Promise<{ deleted: true } | { deleted: false; usedBy: string[] }> {
   return db.transaction(async (tx) => {
     const usedBy = await configurationsUsingStation(tx, stationId);
     if (usedBy.length > 0) return { deleted: false as const, usedBy };
@@ -211,7 +223,10 @@ export async function configurationNameTaken(db: Db, siteId: number, name: strin
 
 /** The most telescopes any instrument of the site combines (0 without instruments). */
 export async function widestInstrument(db: Db, siteId: number): Promise<number> {
-  const [row] = await db.select({ n: max(instruments.maxTelescopes) }).from(instruments).where(eq(instruments.siteId, siteId));
+  const [row] = await db
+    .select({ n: max(instruments.maxTelescopes) })
+    .from(instruments)
+    .where(eq(instruments.siteId, siteId));
   return row?.n ?? 0;
 }
 
@@ -236,16 +251,23 @@ export async function saveConfiguration(
     const head = { name: values.name, description: values.description, offered: values.offered };
     let configId: number;
     if (id === null) {
-      const [row] = await tx.insert(configurations).values({ ...head, siteId }).returning({ id: configurations.id });
+      const [row] = await tx
+        .insert(configurations)
+        .values({ ...head, siteId })
+        .returning({ id: configurations.id });
       configId = row.id;
     } else {
       await tx.update(configurations).set(head).where(eq(configurations.id, id));
       await tx.delete(configurationStations).where(eq(configurationStations.configurationId, id));
       configId = id;
     }
-    await tx
-      .insert(configurationStations)
-      .values(values.stations.map((name, position) => ({ configurationId: configId, stationId: byName.get(name)!, position })));
+    await tx.insert(configurationStations).values(
+      values.stations.map((name, position) => ({
+        configurationId: configId,
+        stationId: byName.get(name)!,
+        position,
+      })),
+    );
     return { ok: true as const, id: configId };
   });
 }
@@ -260,7 +282,11 @@ export async function deleteConfiguration(db: Db, id: number) {
 export async function getInstrument(db: Db, id: number) {
   const [row] = await db.select().from(instruments).where(eq(instruments.id, id));
   if (!row) return null;
-  const bandRows = await db.select().from(bands).where(eq(bands.instrumentId, id)).orderBy(asc(bands.centralWavelengthM));
+  const bandRows = await db
+    .select()
+    .from(bands)
+    .where(eq(bands.instrumentId, id))
+    .orderBy(asc(bands.centralWavelengthM));
   return { ...row, bands: bandRows };
 }
 
@@ -281,7 +307,10 @@ export async function instrumentNameTaken(db: Db, siteId: number, name: string, 
 }
 
 export async function createInstrument(db: Db, siteId: number, values: InstrumentValues) {
-  const [row] = await db.insert(instruments).values({ ...values, siteId }).returning();
+  const [row] = await db
+    .insert(instruments)
+    .values({ ...values, siteId })
+    .returning();
   return row;
 }
 
@@ -302,7 +331,10 @@ export async function largestConfiguration(db: Db, siteId: number): Promise<{ na
     .innerJoin(configurationStations, eq(configurationStations.configurationId, configurations.id))
     .where(eq(configurations.siteId, siteId))
     .groupBy(configurations.id, configurations.name);
-  return rows.reduce<{ name: string; size: number } | null>((best, r) => (!best || r.size > best.size ? r : best), null);
+  return rows.reduce<{ name: string; size: number } | null>(
+    (best, r) => (!best || r.size > best.size ? r : best),
+    null,
+  );
 }
 
 export async function getBand(db: Db, id: number) {
@@ -324,7 +356,10 @@ export async function bandNameTaken(db: Db, instrumentId: number, name: string, 
 }
 
 export async function createBand(db: Db, instrumentId: number, values: BandRecord) {
-  const [row] = await db.insert(bands).values({ ...values, instrumentId }).returning();
+  const [row] = await db
+    .insert(bands)
+    .values({ ...values, instrumentId })
+    .returning();
   return row;
 }
 
@@ -360,7 +395,13 @@ export async function loadSnapshot(db: Db, siteId: number): Promise<RegistrySnap
   if (!registry) return null;
   return {
     site: siteRecord(registry.site),
-    stations: registry.stations.map((s) => ({ name: s.name, eastM: s.eastM, northM: s.northM, upM: s.upM, pathOffsetM: s.pathOffsetM })),
+    stations: registry.stations.map((s) => ({
+      name: s.name,
+      eastM: s.eastM,
+      northM: s.northM,
+      upM: s.upM,
+      pathOffsetM: s.pathOffsetM,
+    })),
     configurations: registry.configurations.map((c) => ({
       name: c.name,
       description: c.description,
@@ -397,21 +438,28 @@ export async function stationUsage(db: Db, siteId: number): Promise<Record<strin
 }
 
 async function writeStations(tx: Tx, siteId: number, lines: StationPlan["lines"]) {
-  const existing = await tx.select({ id: stations.id, name: stations.name }).from(stations).where(eq(stations.siteId, siteId));
+  const existing = await tx
+    .select({ id: stations.id, name: stations.name })
+    .from(stations)
+    .where(eq(stations.siteId, siteId));
   const idOf = new Map(existing.map((s) => [s.name, s.id]));
   const fresh = lines.filter((l) => l.change === "new").map((l) => ({ ...l.after!, siteId }));
   if (fresh.length > 0) await tx.insert(stations).values(fresh);
   for (const l of lines) {
     if (l.change === "updated") {
       const { name: _name, ...values } = l.after!;
-      await tx.update(stations).set(values).where(eq(stations.id, idOf.get(l.name)!));
+      await tx
+        .update(stations)
+        .set(values)
+        .where(eq(stations.id, idOf.get(l.name)!));
     }
   }
 }
 
 async function removeStations(tx: Tx, siteId: number, lines: StationPlan["lines"]) {
   const names = lines.filter((l) => l.change === "remove").map((l) => l.name);
-  if (names.length > 0) await tx.delete(stations).where(and(eq(stations.siteId, siteId), inArray(stations.name, names)));
+  if (names.length > 0)
+    await tx.delete(stations).where(and(eq(stations.siteId, siteId), inArray(stations.name, names)));
 }
 
 /** Applies a station import plan in one transaction. */
@@ -436,38 +484,68 @@ export async function applyRegistryPlan(db: Database, plan: RegistryPlan): Promi
     }
 
     await writeStations(tx, siteId, plan.stations);
-    const stationRows = await tx.select({ id: stations.id, name: stations.name }).from(stations).where(eq(stations.siteId, siteId));
+    const stationRows = await tx
+      .select({ id: stations.id, name: stations.name })
+      .from(stations)
+      .where(eq(stations.siteId, siteId));
     const stationId = new Map(stationRows.map((s) => [s.name, s.id]));
 
-    const configRows = await tx.select({ id: configurations.id, name: configurations.name }).from(configurations).where(eq(configurations.siteId, siteId));
+    const configRows = await tx
+      .select({ id: configurations.id, name: configurations.name })
+      .from(configurations)
+      .where(eq(configurations.siteId, siteId));
     const configId = new Map(configRows.map((c) => [c.name, c.id]));
     for (const c of plan.configurations) {
       if (c.change !== "new" && c.change !== "updated") continue;
       const values = c.after!;
       const head = { name: values.name, description: values.description, offered: values.offered };
       let id = configId.get(c.name);
-      if (id === undefined) id = (await tx.insert(configurations).values({ ...head, siteId }).returning({ id: configurations.id }))[0].id;
+      if (id === undefined)
+        id = (
+          await tx
+            .insert(configurations)
+            .values({ ...head, siteId })
+            .returning({ id: configurations.id })
+        )[0].id;
       else {
         await tx.update(configurations).set(head).where(eq(configurations.id, id));
         await tx.delete(configurationStations).where(eq(configurationStations.configurationId, id));
       }
       await tx
         .insert(configurationStations)
-        .values(values.stations.map((name, position) => ({ configurationId: id, stationId: stationId.get(name)!, position })));
+        .values(
+          values.stations.map((name, position) => ({ configurationId: id, stationId: stationId.get(name)!, position })),
+        );
     }
 
-    const instrumentRows = await tx.select({ id: instruments.id, name: instruments.name }).from(instruments).where(eq(instruments.siteId, siteId));
+    const instrumentRows = await tx
+      .select({ id: instruments.id, name: instruments.name })
+      .from(instruments)
+      .where(eq(instruments.siteId, siteId));
     const instrumentId = new Map(instrumentRows.map((i) => [i.name, i.id]));
     for (const i of plan.instruments) {
       if (i.change === "keep") continue;
       let id = instrumentId.get(i.name);
-      if (id === undefined) id = (await tx.insert(instruments).values({ ...i.after!, siteId }).returning({ id: instruments.id }))[0].id;
+      if (id === undefined)
+        id = (
+          await tx
+            .insert(instruments)
+            .values({ ...i.after!, siteId })
+            .returning({ id: instruments.id })
+        )[0].id;
       else if (i.change === "updated") await tx.update(instruments).set(i.after!).where(eq(instruments.id, id));
-      const bandRows = await tx.select({ id: bands.id, name: bands.name }).from(bands).where(eq(bands.instrumentId, id));
+      const bandRows = await tx
+        .select({ id: bands.id, name: bands.name })
+        .from(bands)
+        .where(eq(bands.instrumentId, id));
       const bandId = new Map(bandRows.map((b) => [b.name, b.id]));
       for (const b of i.bands) {
         if (b.change === "new") await tx.insert(bands).values({ ...b.after!, instrumentId: id });
-        else if (b.change === "updated") await tx.update(bands).set(b.after!).where(eq(bands.id, bandId.get(b.name)!));
+        else if (b.change === "updated")
+          await tx
+            .update(bands)
+            .set(b.after!)
+            .where(eq(bands.id, bandId.get(b.name)!));
       }
     }
 

@@ -53,7 +53,8 @@ export function readNumber(raw: unknown): { value: number } | { error: string } 
   const text = raw.trim().replace(/\u2212/g, "-");
   if (text === "") return { error: "is required" };
   if (NUMBER_TEXT.test(text)) return { value: Number(text) };
-  if (/^[+-]?\d*,\d+$/.test(text)) return { error: `must be a number with a point for decimals (${text.replace(",", ".")}, not ${text})` };
+  if (/^[+-]?\d*,\d+$/.test(text))
+    return { error: `must be a number with a point for decimals (${text.replace(",", ".")}, not ${text})` };
   return { error: "must be a number" };
 }
 
@@ -78,7 +79,11 @@ export function numberField(rule: NumberRule) {
       };
       if (rule.integer && !Number.isInteger(x)) return fail("must be a whole number");
       if (rule.above !== undefined && !(x > rule.above)) {
-        return fail(rule.max !== undefined ? `must be greater than ${rule.above} and at most ${withUnit(rule.max, rule.unit)}` : `must be greater than ${withUnit(rule.above, rule.unit)}`);
+        return fail(
+          rule.max !== undefined
+            ? `must be greater than ${rule.above} and at most ${withUnit(rule.max, rule.unit)}`
+            : `must be greater than ${withUnit(rule.above, rule.unit)}`,
+        );
       }
       if (rule.min !== undefined && rule.max !== undefined && (x < rule.min || x > rule.max)) {
         return fail(`must be between ${rule.min} and ${withUnit(rule.max, rule.unit)}`);
@@ -165,7 +170,8 @@ export const stationList = v.pipe(
     const raw = dataset.value;
     let names: string[];
     if (typeof raw === "string") names = raw.split(/[\s,;]+/).filter(Boolean);
-    else if (Array.isArray(raw) && raw.every((n) => typeof n === "string")) names = raw.map((n) => n.trim()).filter(Boolean);
+    else if (Array.isArray(raw) && raw.every((n) => typeof n === "string"))
+      names = raw.map((n) => n.trim()).filter(Boolean);
     else if (raw === undefined || raw === null) names = [];
     else {
       addIssue({ message: "must be a list of station names" });
@@ -260,7 +266,11 @@ export const BandFormSchema = v.pipe(
     limitingMagnitude,
   }),
   v.forward(
-    v.partialCheck([["centralWavelengthUm"], ["bandwidthUm"]], (b) => b.bandwidthUm < 2 * b.centralWavelengthUm, BANDWIDTH_RULE),
+    v.partialCheck(
+      [["centralWavelengthUm"], ["bandwidthUm"]],
+      (b) => b.bandwidthUm < 2 * b.centralWavelengthUm,
+      BANDWIDTH_RULE,
+    ),
     ["bandwidthUm"],
   ),
 );
@@ -275,7 +285,11 @@ export const BandFileSchema = v.pipe(
     limitingMagnitude,
   }),
   v.forward(
-    v.partialCheck([["centralWavelengthM"], ["bandwidthM"]], (b) => b.bandwidthM < 2 * b.centralWavelengthM, BANDWIDTH_RULE),
+    v.partialCheck(
+      [["centralWavelengthM"], ["bandwidthM"]],
+      (b) => b.bandwidthM < 2 * b.centralWavelengthM,
+      BANDWIDTH_RULE,
+    ),
     ["bandwidthM"],
   ),
 );
@@ -330,13 +344,20 @@ const megabytes = (n: number) => `${(n / 1_000_000).toFixed(n < 10_000_000 ? 1 :
 
 /** Bytes of an uploaded file as text, or why not: too large, empty, binary, UTF-16, not UTF-8. */
 export function decodeUpload(bytes: Uint8Array, limit = MAX_IMPORT_BYTES): DecodedUpload {
-  if (bytes.length > limit) return { ok: false, error: `The file is ${megabytes(bytes.length)}; the limit is ${megabytes(limit)}.` };
+  if (bytes.length > limit)
+    return { ok: false, error: `The file is ${megabytes(bytes.length)}; the limit is ${megabytes(limit)}.` };
   if (bytes.length === 0) return { ok: false, error: "The file is empty." };
   if ((bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff)) {
-    return { ok: false, error: "The file is in UTF-16; save it as UTF-8 (in a spreadsheet: “CSV UTF-8”) and try again." };
+    return {
+      ok: false,
+      error: "The file is in UTF-16; save it as UTF-8 (in a spreadsheet: “CSV UTF-8”) and try again.",
+    };
   }
   if (bytes[0] === 0x50 && bytes[1] === 0x4b && bytes[2] === 0x03 && bytes[3] === 0x04) {
-    return { ok: false, error: "This is a spreadsheet workbook or another zipped file; save the sheet as CSV (UTF-8) and import that." };
+    return {
+      ok: false,
+      error: "This is a spreadsheet workbook or another zipped file; save the sheet as CSV (UTF-8) and import that.",
+    };
   }
   if (bytes.includes(0)) return { ok: false, error: "This is not a text file; import a CSV or JSON file." };
   let text: string;
@@ -353,7 +374,10 @@ export type FileFormat = "csv" | "json";
 
 /** JSON when the text starts with “{” or “[”, CSV otherwise. */
 export function detectFormat(text: string): FileFormat {
-  const first = text.replace(/^\uFEFF/, "").trimStart().charAt(0);
+  const first = text
+    .replace(/^\uFEFF/, "")
+    .trimStart()
+    .charAt(0);
   return first === "{" || first === "[" ? "json" : "csv";
 }
 
@@ -371,7 +395,11 @@ const STATION_HEADER: Record<string, StationColumn> = {
   pathoffsetm: "pathOffsetM",
 };
 
-function stationIssues(issues: readonly v.BaseIssue<unknown>[], row: number, section: ImportSection | null): ImportIssue[] {
+function stationIssues(
+  issues: readonly v.BaseIssue<unknown>[],
+  row: number,
+  section: ImportSection | null,
+): ImportIssue[] {
   return Object.entries(fieldErrors(issues)).map(([column, message]) => ({
     section,
     row,
@@ -386,7 +414,13 @@ function duplicateNames(rows: { row: number; name: string }[], section: ImportSe
   const out: ImportIssue[] = [];
   for (const r of rows) {
     const first = firstRow.get(r.name);
-    if (first !== undefined) out.push({ section, row: r.row, column: "name", message: `${r.name} is already on row ${first}; a station may appear only once` });
+    if (first !== undefined)
+      out.push({
+        section,
+        row: r.row,
+        column: "name",
+        message: `${r.name} is already on row ${first}; a station may appear only once`,
+      });
     else firstRow.set(r.name, r.row);
   }
   return out;
@@ -408,7 +442,12 @@ export function parseStationsCsv(text: string): ParsedStations {
   }
   for (const e of parsed.errors) {
     if (e.code === "MissingQuotes") {
-      result.errors.push({ section: null, row: typeof e.row === "number" ? e.row - headerIndex : null, column: null, message: "a quoted value is never closed" });
+      result.errors.push({
+        section: null,
+        row: typeof e.row === "number" ? e.row - headerIndex : null,
+        column: null,
+        message: "a quoted value is never closed",
+      });
     }
   }
   if (result.errors.length > 0) return result;
@@ -423,31 +462,61 @@ export function parseStationsCsv(text: string): ParsedStations {
       return;
     }
     if (columnOf.has(canonical)) {
-      result.errors.push({ section: null, row: null, column: canonical, message: `two columns (${header[columnOf.get(canonical)!].trim()} and ${raw.trim()}) both give ${canonical}` });
+      result.errors.push({
+        section: null,
+        row: null,
+        column: canonical,
+        message: `two columns (${header[columnOf.get(canonical)!].trim()} and ${raw.trim()}) both give ${canonical}`,
+      });
       return;
     }
     columnOf.set(canonical, index);
   });
   const missing = STATION_COLUMNS.filter((c) => !columnOf.has(c));
   for (const c of missing) {
-    result.errors.push({ section: null, row: null, column: c, message: `the column is missing (the header row must name ${STATION_COLUMNS.join(", ")})` });
+    result.errors.push({
+      section: null,
+      row: null,
+      column: c,
+      message: `the column is missing (the header row must name ${STATION_COLUMNS.join(", ")})`,
+    });
   }
-  if (ignored.length > 0) result.notices.push(`Not used and ignored: the column${ignored.length > 1 ? "s" : ""} ${ignored.map((c) => `“${c}”`).join(", ")}.`);
+  if (ignored.length > 0)
+    result.notices.push(
+      `Not used and ignored: the column${ignored.length > 1 ? "s" : ""} ${ignored.map((c) => `“${c}”`).join(", ")}.`,
+    );
   if (result.errors.length > 0) return result;
 
   const body = rows.slice(headerIndex + 1);
-  const filled = body.map((cells, i) => ({ cells, row: i + 1 })).filter(({ cells }) => cells.some((c) => c.trim() !== ""));
+  const filled = body
+    .map((cells, i) => ({ cells, row: i + 1 }))
+    .filter(({ cells }) => cells.some((c) => c.trim() !== ""));
   if (filled.length === 0) {
-    result.errors.push({ section: null, row: null, column: null, message: "The file has a header row but no stations under it." });
+    result.errors.push({
+      section: null,
+      row: null,
+      column: null,
+      message: "The file has a header row but no stations under it.",
+    });
     return result;
   }
   if (filled.length > MAX_IMPORT_STATIONS) {
-    result.errors.push({ section: null, row: null, column: null, message: `The file has ${filled.length} stations; one import takes at most ${MAX_IMPORT_STATIONS}.` });
+    result.errors.push({
+      section: null,
+      row: null,
+      column: null,
+      message: `The file has ${filled.length} stations; one import takes at most ${MAX_IMPORT_STATIONS}.`,
+    });
     return result;
   }
   for (const { cells, row } of filled) {
     if (cells.length !== header.length) {
-      result.errors.push({ section: null, row, column: null, message: `has ${cells.length} values but the header has ${header.length} columns` });
+      result.errors.push({
+        section: null,
+        row,
+        column: null,
+        message: `has ${cells.length} values but the header has ${header.length} columns`,
+      });
       continue;
     }
     const record = Object.fromEntries(STATION_COLUMNS.map((c) => [c, cells[columnOf.get(c)!]]));
@@ -468,7 +537,11 @@ function parseJson(text: string): { ok: true; value: unknown } | { ok: false; er
 }
 
 /** Validates a list of station objects; rows counted from 1. */
-function stationsFromList(list: unknown[], section: ImportSection | null, notices: string[]): { stations: StationRow[]; errors: ImportIssue[] } {
+function stationsFromList(
+  list: unknown[],
+  section: ImportSection | null,
+  notices: string[],
+): { stations: StationRow[]; errors: ImportIssue[] } {
   const stations: StationRow[] = [];
   const errors: ImportIssue[] = [];
   const extra = new Set<string>();
@@ -484,7 +557,10 @@ function stationsFromList(list: unknown[], section: ImportSection | null, notice
     else errors.push(...stationIssues(out.issues, row, section));
   });
   errors.push(...duplicateNames(stations, section));
-  if (extra.size > 0) notices.push(`Not used and ignored${section ? ` in ${section}` : ""}: the field${extra.size > 1 ? "s" : ""} ${[...extra].map((k) => `“${k}”`).join(", ")}.`);
+  if (extra.size > 0)
+    notices.push(
+      `Not used and ignored${section ? ` in ${section}` : ""}: the field${extra.size > 1 ? "s" : ""} ${[...extra].map((k) => `“${k}”`).join(", ")}.`,
+    );
   return { stations, errors };
 }
 
@@ -496,9 +572,18 @@ export function parseStationsJson(text: string): ParsedStations {
     result.errors.push({ section: null, row: null, column: null, message: json.error });
     return result;
   }
-  const list = Array.isArray(json.value) ? json.value : isRecord(json.value) && Array.isArray(json.value.stations) ? json.value.stations : null;
+  const list = Array.isArray(json.value)
+    ? json.value
+    : isRecord(json.value) && Array.isArray(json.value.stations)
+      ? json.value.stations
+      : null;
   if (!list) {
-    result.errors.push({ section: null, row: null, column: null, message: "The JSON must be a list of stations, or an object with a “stations” list." });
+    result.errors.push({
+      section: null,
+      row: null,
+      column: null,
+      message: "The JSON must be a list of stations, or an object with a “stations” list.",
+    });
     return result;
   }
   if (list.length === 0) {
@@ -506,7 +591,12 @@ export function parseStationsJson(text: string): ParsedStations {
     return result;
   }
   if (list.length > MAX_IMPORT_STATIONS) {
-    result.errors.push({ section: null, row: null, column: null, message: `The file has ${list.length} stations; one import takes at most ${MAX_IMPORT_STATIONS}.` });
+    result.errors.push({
+      section: null,
+      row: null,
+      column: null,
+      message: `The file has ${list.length} stations; one import takes at most ${MAX_IMPORT_STATIONS}.`,
+    });
     return result;
   }
   const { stations, errors } = stationsFromList(list, null, result.notices);
@@ -538,19 +628,31 @@ function listOf(obj: Record<string, unknown>, key: ImportSection, errors: Import
     return [];
   }
   if (value.length > (key === "stations" ? MAX_IMPORT_STATIONS : MAX_IMPORT_ITEMS)) {
-    errors.push({ section: key, row: null, column: null, message: `has ${value.length} items; one import takes at most ${key === "stations" ? MAX_IMPORT_STATIONS : MAX_IMPORT_ITEMS}` });
+    errors.push({
+      section: key,
+      row: null,
+      column: null,
+      message: `has ${value.length} items; one import takes at most ${key === "stations" ? MAX_IMPORT_STATIONS : MAX_IMPORT_ITEMS}`,
+    });
     return [];
   }
   return value;
 }
 
-function duplicates<T extends { row: number }>(items: T[], key: (t: T) => string, section: ImportSection, column: string, what: string): ImportIssue[] {
+function duplicates<T extends { row: number }>(
+  items: T[],
+  key: (t: T) => string,
+  section: ImportSection,
+  column: string,
+  what: string,
+): ImportIssue[] {
   const first = new Map<string, number>();
   const out: ImportIssue[] = [];
   for (const item of items) {
     const k = key(item);
     const seen = first.get(k);
-    if (seen !== undefined) out.push({ section, row: item.row, column, message: `${what} ${k} is already on row ${seen}` });
+    if (seen !== undefined)
+      out.push({ section, row: item.row, column, message: `${what} ${k} is already on row ${seen}` });
     else first.set(k, item.row);
   }
   return out;
@@ -561,27 +663,58 @@ export function parseRegistryJson(text: string): ParsedRegistry {
   const errors: ImportIssue[] = [];
   const notices: string[] = [];
   if (detectFormat(text) !== "json") {
-    return { registry: null, errors: [{ section: null, row: null, column: null, message: "A whole-registry import is a JSON file in the format of the registry export; this looks like CSV." }], notices };
+    return {
+      registry: null,
+      errors: [
+        {
+          section: null,
+          row: null,
+          column: null,
+          message: "A whole-registry import is a JSON file in the format of the registry export; this looks like CSV.",
+        },
+      ],
+      notices,
+    };
   }
   const json = parseJson(text);
-  if (!json.ok) return { registry: null, errors: [{ section: null, row: null, column: null, message: json.error }], notices };
+  if (!json.ok)
+    return { registry: null, errors: [{ section: null, row: null, column: null, message: json.error }], notices };
   const root = json.value;
   if (!isRecord(root)) {
-    return { registry: null, errors: [{ section: null, row: null, column: null, message: "The JSON must be an object with site, stations, configurations and instruments." }], notices };
+    return {
+      registry: null,
+      errors: [
+        {
+          section: null,
+          row: null,
+          column: null,
+          message: "The JSON must be an object with site, stations, configurations and instruments.",
+        },
+      ],
+      notices,
+    };
   }
   if (root.format !== undefined && root.format !== REGISTRY_FORMAT) {
     errors.push({ section: null, row: null, column: "format", message: `must be “${REGISTRY_FORMAT}”` });
   }
   if (root.version !== undefined && root.version !== REGISTRY_FORMAT_VERSION) {
-    errors.push({ section: null, row: null, column: "version", message: `version ${String(root.version)} is not one this app reads (it reads ${REGISTRY_FORMAT_VERSION})` });
+    errors.push({
+      section: null,
+      row: null,
+      column: "version",
+      message: `version ${String(root.version)} is not one this app reads (it reads ${REGISTRY_FORMAT_VERSION})`,
+    });
   }
 
   let site: SiteRecord | null = null;
-  if (!isRecord(root.site)) errors.push({ section: "site", row: null, column: null, message: "the file needs a “site” object" });
+  if (!isRecord(root.site))
+    errors.push({ section: "site", row: null, column: null, message: "the file needs a “site” object" });
   else {
     const out = v.safeParse(SiteSchema, root.site);
     if (out.success) site = out.output;
-    else for (const [column, message] of Object.entries(fieldErrors(out.issues))) errors.push({ section: "site", row: null, column, message });
+    else
+      for (const [column, message] of Object.entries(fieldErrors(out.issues)))
+        errors.push({ section: "site", row: null, column, message });
   }
 
   const { stations, errors: stationErrors } = stationsFromList(listOf(root, "stations", errors), "stations", notices);
@@ -590,34 +723,68 @@ export function parseRegistryJson(text: string): ParsedRegistry {
   const configurations: RegistryFile["configurations"] = [];
   listOf(root, "configurations", errors).forEach((item, i) => {
     const row = i + 1;
-    if (!isRecord(item)) return errors.push({ section: "configurations", row, column: null, message: "must be an object with name, description, offered and stations" });
+    if (!isRecord(item))
+      return errors.push({
+        section: "configurations",
+        row,
+        column: null,
+        message: "must be an object with name, description, offered and stations",
+      });
     const out = v.safeParse(ConfigurationSchema, item);
     if (out.success) configurations.push({ ...out.output, row });
-    else for (const [column, message] of Object.entries(fieldErrors(out.issues))) errors.push({ section: "configurations", row, column, message });
+    else
+      for (const [column, message] of Object.entries(fieldErrors(out.issues)))
+        errors.push({ section: "configurations", row, column, message });
   });
   errors.push(...duplicates(configurations, (c) => c.name, "configurations", "name", "configuration"));
 
   const instruments: RegistryFile["instruments"] = [];
   listOf(root, "instruments", errors).forEach((item, i) => {
     const row = i + 1;
-    if (!isRecord(item)) return errors.push({ section: "instruments", row, column: null, message: "must be an object with name, description, maxTelescopes and bands" });
+    if (!isRecord(item))
+      return errors.push({
+        section: "instruments",
+        row,
+        column: null,
+        message: "must be an object with name, description, maxTelescopes and bands",
+      });
     const head = v.safeParse(InstrumentSchema, item);
     const instrumentErrors: ImportIssue[] = head.success
       ? []
-      : Object.entries(fieldErrors(head.issues)).map(([column, message]) => ({ section: "instruments" as const, row, column, message }));
+      : Object.entries(fieldErrors(head.issues)).map(([column, message]) => ({
+          section: "instruments" as const,
+          row,
+          column,
+          message,
+        }));
     const bandList = item.bands ?? [];
     const bandsOut: BandRecord[] = [];
-    if (!Array.isArray(bandList)) instrumentErrors.push({ section: "instruments", row, column: "bands", message: "must be a list" });
+    if (!Array.isArray(bandList))
+      instrumentErrors.push({ section: "instruments", row, column: "bands", message: "must be a list" });
     else {
       bandList.forEach((band, j) => {
-        if (!isRecord(band)) return instrumentErrors.push({ section: "instruments", row, column: `bands[${j + 1}]`, message: "must be an object" });
+        if (!isRecord(band))
+          return instrumentErrors.push({
+            section: "instruments",
+            row,
+            column: `bands[${j + 1}]`,
+            message: "must be an object",
+          });
         const out = v.safeParse(BandFileSchema, band);
         if (out.success) bandsOut.push(out.output);
-        else for (const [field, message] of Object.entries(fieldErrors(out.issues))) instrumentErrors.push({ section: "instruments", row, column: `bands[${j + 1}].${field}`, message });
+        else
+          for (const [field, message] of Object.entries(fieldErrors(out.issues)))
+            instrumentErrors.push({ section: "instruments", row, column: `bands[${j + 1}].${field}`, message });
       });
       const seen = new Set<string>();
       for (const b of bandsOut) {
-        if (seen.has(b.name)) instrumentErrors.push({ section: "instruments", row, column: "bands", message: `band ${b.name} appears twice` });
+        if (seen.has(b.name))
+          instrumentErrors.push({
+            section: "instruments",
+            row,
+            column: "bands",
+            message: `band ${b.name} appears twice`,
+          });
         seen.add(b.name);
       }
     }
@@ -673,23 +840,58 @@ export function planStations(
     const before = byName.get(s.name) ?? null;
     if (!before) return { row, name: s.name, change: "new", before: null, after, changed: [], note: null };
     const changed = STATION_VALUES.filter((k) => before[k] !== after[k]);
-    return { row, name: s.name, change: changed.length > 0 ? "updated" : "unchanged", before, after, changed, note: null };
+    return {
+      row,
+      name: s.name,
+      change: changed.length > 0 ? "updated" : "unchanged",
+      before,
+      after,
+      changed,
+      note: null,
+    };
   });
   const inFile = new Set(incoming.map((s) => s.name));
   for (const s of current) {
     if (inFile.has(s.name)) continue;
     const users = options.usage[s.name] ?? [];
     if (!options.removeMissing) {
-      lines.push({ row: null, name: s.name, change: "keep", before: s, after: s, changed: [], note: "not in the file; left as it is" });
+      lines.push({
+        row: null,
+        name: s.name,
+        change: "keep",
+        before: s,
+        after: s,
+        changed: [],
+        note: "not in the file; left as it is",
+      });
     } else if (users.length > 0) {
-      lines.push({ row: null, name: s.name, change: "keep", before: s, after: s, changed: [], note: `not in the file, but used by ${users.join(", ")}, so it stays` });
+      lines.push({
+        row: null,
+        name: s.name,
+        change: "keep",
+        before: s,
+        after: s,
+        changed: [],
+        note: `not in the file, but used by ${users.join(", ")}, so it stays`,
+      });
     } else {
-      lines.push({ row: null, name: s.name, change: "remove", before: s, after: null, changed: [], note: "not in the file; will be removed" });
+      lines.push({
+        row: null,
+        name: s.name,
+        change: "remove",
+        before: s,
+        after: null,
+        changed: [],
+        note: "not in the file; will be removed",
+      });
     }
   }
   const notices: string[] = [];
   const kept = lines.filter((l) => l.change === "keep" && l.note?.startsWith("not in the file, but used")).length;
-  if (kept > 0) notices.push(`${kept} station${kept > 1 ? "s" : ""} missing from the file stay${kept > 1 ? "" : "s"} because configurations use ${kept > 1 ? "them" : "it"}.`);
+  if (kept > 0)
+    notices.push(
+      `${kept} station${kept > 1 ? "s" : ""} missing from the file stay${kept > 1 ? "" : "s"} because configurations use ${kept > 1 ? "them" : "it"}.`,
+    );
   return { lines, counts: countChanges(lines), notices };
 }
 
@@ -700,7 +902,14 @@ export type RegistrySnapshot = {
   instruments: InstrumentRecord[];
 };
 
-type Line<T, K extends string> = { row: number | null; name: string; change: Change; before: T | null; after: T | null; changed: K[] };
+type Line<T, K extends string> = {
+  row: number | null;
+  name: string;
+  change: Change;
+  before: T | null;
+  after: T | null;
+  changed: K[];
+};
 export type SiteLine = Line<SiteRecord, keyof SiteRecord>;
 export type ConfigurationLine = Line<ConfigurationRecord, keyof ConfigurationRecord>;
 export type BandLine = Line<BandRecord, keyof BandRecord>;
@@ -725,7 +934,13 @@ function compareFields<T extends Record<string, unknown>>(before: T, after: T, k
   });
 }
 
-function line<T extends Record<string, unknown>>(row: number | null, name: string, before: T | null, after: T, keys: (keyof T)[]): Line<T, Extract<keyof T, string>> {
+function line<T extends Record<string, unknown>>(
+  row: number | null,
+  name: string,
+  before: T | null,
+  after: T,
+  keys: (keyof T)[],
+): Line<T, Extract<keyof T, string>> {
   if (!before) return { row, name, change: "new", before: null, after, changed: [] };
   const changed = compareFields(before, after, keys) as Extract<keyof T, string>[];
   return { row, name, change: changed.length > 0 ? "updated" : "unchanged", before, after, changed };
@@ -736,10 +951,21 @@ function line<T extends Record<string, unknown>>(row: number | null, name: strin
  * none yet). References are checked here: every station a configuration lists must be in the file
  * or at the site.
  */
-export function planRegistry(current: RegistrySnapshot | null, file: RegistryFile, options: { removeMissing: boolean }): RegistryPlan {
+export function planRegistry(
+  current: RegistrySnapshot | null,
+  file: RegistryFile,
+  options: { removeMissing: boolean },
+): RegistryPlan {
   const errors: ImportIssue[] = [];
   const notices: string[] = [];
-  const siteKeys: (keyof SiteRecord)[] = ["latitudeDeg", "longitudeDeg", "altitudeM", "minElevationDeg", "delayLineStrokeM", "timeZone"];
+  const siteKeys: (keyof SiteRecord)[] = [
+    "latitudeDeg",
+    "longitudeDeg",
+    "altitudeM",
+    "minElevationDeg",
+    "delayLineStrokeM",
+    "timeZone",
+  ];
   const site = line(null, file.site.name, current?.site ?? null, file.site, siteKeys);
 
   const known = new Set([...file.stations.map((s) => s.name), ...(current?.stations ?? []).map((s) => s.name)]);
@@ -762,7 +988,10 @@ export function planRegistry(current: RegistrySnapshot | null, file: RegistryFil
   const usage: Record<string, string[]> = {};
   for (const [name, list] of finalConfigs) for (const s of list) (usage[s] ??= []).push(name);
 
-  const stationPlan = planStations(current?.stations ?? [], file.stations, { removeMissing: options.removeMissing, usage });
+  const stationPlan = planStations(current?.stations ?? [], file.stations, {
+    removeMissing: options.removeMissing,
+    usage,
+  });
   notices.push(...stationPlan.notices);
 
   const currentConfigs = new Map((current?.configurations ?? []).map((c) => [c.name, c]));
@@ -771,19 +1000,33 @@ export function planRegistry(current: RegistrySnapshot | null, file: RegistryFil
   );
   const inFileConfigs = new Set(file.configurations.map((c) => c.name));
   for (const c of current?.configurations ?? []) {
-    if (!inFileConfigs.has(c.name)) configurations.push({ row: null, name: c.name, change: "keep", before: c, after: c, changed: [] });
+    if (!inFileConfigs.has(c.name))
+      configurations.push({ row: null, name: c.name, change: "keep", before: c, after: c, changed: [] });
   }
 
   const currentInstruments = new Map((current?.instruments ?? []).map((i) => [i.name, i]));
   const instruments: InstrumentLine[] = file.instruments.map(({ row, bands, ...values }) => {
     const before = currentInstruments.get(values.name) ?? null;
-    const head = line(row, values.name, before ? { name: before.name, description: before.description, maxTelescopes: before.maxTelescopes } : null, values, ["description", "maxTelescopes"]);
+    const head = line(
+      row,
+      values.name,
+      before ? { name: before.name, description: before.description, maxTelescopes: before.maxTelescopes } : null,
+      values,
+      ["description", "maxTelescopes"],
+    );
     const currentBands = new Map((before?.bands ?? []).map((b) => [b.name, b]));
     const bandLines: BandLine[] = bands.map((b) =>
-      line(null, b.name, currentBands.get(b.name) ?? null, b, ["centralWavelengthM", "channels", "bandwidthM", "limitingMagnitude"]),
+      line(null, b.name, currentBands.get(b.name) ?? null, b, [
+        "centralWavelengthM",
+        "channels",
+        "bandwidthM",
+        "limitingMagnitude",
+      ]),
     );
     const inFileBands = new Set(bands.map((b) => b.name));
-    for (const b of before?.bands ?? []) if (!inFileBands.has(b.name)) bandLines.push({ row: null, name: b.name, change: "keep", before: b, after: b, changed: [] });
+    for (const b of before?.bands ?? [])
+      if (!inFileBands.has(b.name))
+        bandLines.push({ row: null, name: b.name, change: "keep", before: b, after: b, changed: [] });
     return { ...head, bands: bandLines };
   });
   for (const i of current?.instruments ?? []) {
@@ -806,7 +1049,9 @@ export function planRegistry(current: RegistrySnapshot | null, file: RegistryFil
   if (widest > 0) {
     for (const c of configurations) {
       if (c.after && c.change !== "keep" && c.after.stations.length > widest) {
-        notices.push(`Configuration ${c.name} has ${c.after.stations.length} stations; no instrument combines more than ${widest}.`);
+        notices.push(
+          `Configuration ${c.name} has ${c.after.stations.length} stations; no instrument combines more than ${widest}.`,
+        );
       }
     }
   }
@@ -854,9 +1099,25 @@ export function configurationsToCsv(configurations: ConfigurationRecord[]): stri
 export function bandsToCsv(instruments: InstrumentRecord[]): string {
   return Papa.unparse(
     {
-      fields: ["instrument", "maxTelescopes", "band", "centralWavelengthUm", "bandwidthUm", "channels", "limitingMagnitude"],
+      fields: [
+        "instrument",
+        "maxTelescopes",
+        "band",
+        "centralWavelengthUm",
+        "bandwidthUm",
+        "channels",
+        "limitingMagnitude",
+      ],
       data: instruments.flatMap((i) =>
-        i.bands.map((b) => [i.name, i.maxTelescopes, b.name, metresToMicrons(b.centralWavelengthM), metresToMicrons(b.bandwidthM), b.channels, b.limitingMagnitude]),
+        i.bands.map((b) => [
+          i.name,
+          i.maxTelescopes,
+          b.name,
+          metresToMicrons(b.centralWavelengthM),
+          metresToMicrons(b.bandwidthM),
+          b.channels,
+          b.limitingMagnitude,
+        ]),
       ),
     },
     { escapeFormulae: true, newline: "\n" },
@@ -870,7 +1131,13 @@ export function registryToJson(snapshot: RegistrySnapshot, exportedAt: Date) {
     version: REGISTRY_FORMAT_VERSION,
     exportedAt: exportedAt.toISOString(),
     site: snapshot.site,
-    stations: snapshot.stations.map((s) => ({ name: s.name, eastM: s.eastM, northM: s.northM, upM: s.upM, pathOffsetM: s.pathOffsetM })),
+    stations: snapshot.stations.map((s) => ({
+      name: s.name,
+      eastM: s.eastM,
+      northM: s.northM,
+      upM: s.upM,
+      pathOffsetM: s.pathOffsetM,
+    })),
     configurations: snapshot.configurations,
     instruments: snapshot.instruments,
   };

@@ -3,8 +3,7 @@
  * their Hermitian twins, spatial frequencies, dense model curves, the beam's fitted ellipse and image
  * axes, a summary of why samples are unobservable, and cautions. Pure (no React, no Plotly).
  */
-import type { TargetModel } from "./requests";
-import { compileModel, evaluateVisibilities } from "./interferometry/models";
+import { compileModel, evaluateVisibilities, type TargetModel } from "~/engine";
 
 // ---------------------------------------------------------------- uv plane
 
@@ -67,7 +66,12 @@ export function isCircular(model: TargetModel): boolean {
  * A circular model gives one curve; others one per position angle (degrees east of north: the
  * baseline direction (u, v) = r (sin PA, cos PA)).
  */
-export function modelVis2Curves(model: TargetModel, maxFreqMl: number, positionAnglesDeg = [0, 45, 90, 135], points = 241) {
+export function modelVis2Curves(
+  model: TargetModel,
+  maxFreqMl: number,
+  positionAnglesDeg = [0, 45, 90, 135],
+  points = 241,
+) {
   const compiled = compileModel(model);
   const pas = isCircular(model) ? [0] : positionAnglesDeg;
   return pas.map((pa) => {
@@ -224,7 +228,9 @@ export function cautions(opts: {
   }
   const tol = opts.stepMin * 60_000;
   const edge = opts.windows.some(
-    (w) => (opts.duskMs !== null && w.startMs - opts.duskMs <= tol) || (opts.dawnMs !== null && opts.dawnMs - w.endMs <= tol),
+    (w) =>
+      (opts.duskMs !== null && w.startMs - opts.duskMs <= tol) ||
+      (opts.dawnMs !== null && opts.dawnMs - w.endMs <= tol),
   );
   if (edge) {
     out.push(

@@ -4,14 +4,20 @@
  * ticks, air-mass ticks, twilight bands and observable windows. Pure; it reuses the engine's time
  * and sky functions so the curves agree with the API's samples.
  */
-import { airmassKastenYoung } from "./astro/airmass";
-import { elevationRad } from "./astro/horizon";
-import { moonPosition } from "./astro/moon";
-import { precessFromJ2000 } from "./astro/precession";
-import { gastRad, lmstHours, lmstRad } from "./astro/sidereal";
-import { sunPosition } from "./astro/sun";
-import { jdeFromJd, julianDayFromDate } from "./astro/time";
-import { DEG_TO_RAD, RAD_TO_DEG } from "./interferometry/math";
+import {
+  airmassKastenYoung,
+  DEG_TO_RAD,
+  elevationRad,
+  gastRad,
+  jdeFromJd,
+  julianDayFromDate,
+  lmstHours,
+  lmstRad,
+  moonPosition,
+  precessFromJ2000,
+  RAD_TO_DEG,
+  sunPosition,
+} from "~/engine";
 
 const MS_PER_HOUR = 3_600_000;
 /** Sidereal hours per solar hour (Meeus 12.4: 360.98564736629° per day / 360°). */
@@ -42,7 +48,13 @@ export function raTransitingAtMidnight(date: string, longitudeDeg: number): numb
  * Geometric elevation of a position of date at an instant, degrees (sin e = sin φ sin δ + cos φ cos δ cos H,
  * H = local mean sidereal time − α).
  */
-export function elevationAtDeg(jd: number, latDeg: number, lonEastDeg: number, raOfDateDeg: number, decOfDateDeg: number): number {
+export function elevationAtDeg(
+  jd: number,
+  latDeg: number,
+  lonEastDeg: number,
+  raOfDateDeg: number,
+  decOfDateDeg: number,
+): number {
   const ha = lmstRad(jd, lonEastDeg * DEG_TO_RAD) - raOfDateDeg * DEG_TO_RAD;
   return elevationRad(latDeg * DEG_TO_RAD, decOfDateDeg * DEG_TO_RAD, ha) * RAD_TO_DEG;
 }
@@ -80,7 +92,13 @@ export function targetAltitudeCurve(opts: {
   const midJd = julianDayFromDate(new Date((opts.startMs + opts.endMs) / 2));
   const ofDate = precessFromJ2000(opts.raDeg * DEG_TO_RAD, opts.decDeg * DEG_TO_RAD, jdeFromJd(midJd));
   const elevationDeg = timesMs.map((t) =>
-    elevationAtDeg(julianDayFromDate(new Date(t)), opts.latDeg, opts.lonDeg, ofDate.raRad * RAD_TO_DEG, ofDate.decRad * RAD_TO_DEG),
+    elevationAtDeg(
+      julianDayFromDate(new Date(t)),
+      opts.latDeg,
+      opts.lonDeg,
+      ofDate.raRad * RAD_TO_DEG,
+      ofDate.decRad * RAD_TO_DEG,
+    ),
   );
   const airmass = elevationDeg.map((e) => {
     const x = airmassKastenYoung(e);
@@ -90,7 +108,13 @@ export function targetAltitudeCurve(opts: {
 }
 
 /** Geocentric altitude of the Moon across an interval, degrees (apparent place with apparent sidereal time). */
-export function moonAltitudeCurve(opts: { latDeg: number; lonDeg: number; startMs: number; endMs: number; stepMin: number }) {
+export function moonAltitudeCurve(opts: {
+  latDeg: number;
+  lonDeg: number;
+  startMs: number;
+  endMs: number;
+  stepMin: number;
+}) {
   const timesMs = timeGrid(opts.startMs, opts.endMs, opts.stepMin);
   const altitudeDeg = timesMs.map((t) => {
     const jd = julianDayFromDate(new Date(t));
@@ -115,14 +139,24 @@ export function sunSeparationDeg(raDeg: number, decDeg: number, atMs: number): n
   const jde = jdeFromJd(julianDayFromDate(new Date(atMs)));
   const sun = sunPosition(jde);
   const ofDate = precessFromJ2000(raDeg * DEG_TO_RAD, decDeg * DEG_TO_RAD, jde);
-  return angularSeparationDeg(ofDate.raRad * RAD_TO_DEG, ofDate.decRad * RAD_TO_DEG, sun.raRad * RAD_TO_DEG, sun.decRad * RAD_TO_DEG);
+  return angularSeparationDeg(
+    ofDate.raRad * RAD_TO_DEG,
+    ofDate.decRad * RAD_TO_DEG,
+    sun.raRad * RAD_TO_DEG,
+    sun.decRad * RAD_TO_DEG,
+  );
 }
 
 /**
  * Instants where the local mean sidereal time is a whole multiple of `everyH` hours, within
  * [startMs, endMs], with labels such as "LST 7h".
  */
-export function lstTicks(startMs: number, endMs: number, lonDeg: number, everyH = 1): { timesMs: number[]; labels: string[] } {
+export function lstTicks(
+  startMs: number,
+  endMs: number,
+  lonDeg: number,
+  everyH = 1,
+): { timesMs: number[]; labels: string[] } {
   const lst0 = lmstHours(julianDayFromDate(new Date(startMs)), lonDeg * DEG_TO_RAD);
   const first = Math.ceil(lst0 / everyH - 1e-9) * everyH;
   const timesMs: number[] = [];
@@ -198,7 +232,10 @@ export function twilightBands(n: NightTimes, startMs: number, endMs: number): Tw
  * Runs of consecutive observable samples as time windows. Each sample stands for one step centred
  * on it, so a run from t₁ to t₂ covers [t₁ − step/2, t₂ + step/2] and its length is samples × step.
  */
-export function observableWindows(samples: { utc?: string; observable: boolean }[], stepMin: number): { startMs: number; endMs: number }[] {
+export function observableWindows(
+  samples: { utc?: string; observable: boolean }[],
+  stepMin: number,
+): { startMs: number; endMs: number }[] {
   const half = (stepMin * 60_000) / 2;
   const out: { startMs: number; endMs: number }[] = [];
   let run: { first: number; last: number } | null = null;

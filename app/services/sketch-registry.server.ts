@@ -4,13 +4,13 @@
  * of the next night there.
  */
 import { data } from "react-router";
-import { database, type Database } from "~/db/client.server";
+import { type Database, database } from "~/db/client.server";
 import type { Viewer } from "./auth.server";
 import { listSites, loadSiteRegistry } from "./registry.server";
-import { listTargets } from "./targets.server";
 import { nextNightDate } from "./sketch-night";
 import type { SketchRegistry } from "./sketch-request";
 import type { SavedTarget, StateDefaults } from "./sketch-state";
+import { listTargets } from "./targets.server";
 
 export async function loadSketchRegistry(db: Database, siteName: string | null, now = new Date()) {
   const sites = await listSites(db);
@@ -27,7 +27,13 @@ export async function loadSketchRegistry(db: Database, siteName: string | null, 
       minElevationDeg: full.site.minElevationDeg,
       delayLineStrokeM: full.site.delayLineStrokeM,
     },
-    stations: full.stations.map((s) => ({ name: s.name, eastM: s.eastM, northM: s.northM, upM: s.upM, pathOffsetM: s.pathOffsetM })),
+    stations: full.stations.map((s) => ({
+      name: s.name,
+      eastM: s.eastM,
+      northM: s.northM,
+      upM: s.upM,
+      pathOffsetM: s.pathOffsetM,
+    })),
     configurations: full.configurations.map((c) => ({
       name: c.name,
       description: c.description,
@@ -75,7 +81,9 @@ export async function loadSketchPage(viewer: Viewer, url: URL, purpose: string) 
   const loaded = await loadSketchRegistry(database(), url.searchParams.get("site"));
   if (!loaded) return { loaded: null, savedTargets: [] as SavedTarget[] };
   if (loaded.registry.stations.length < 2 || loaded.registry.instruments.length === 0) {
-    throw data(`The array registry needs at least two stations and one instrument band before ${purpose}.`, { status: 404 });
+    throw data(`The array registry needs at least two stations and one instrument band before ${purpose}.`, {
+      status: 404,
+    });
   }
   return { loaded, savedTargets: await savedTargetsOf(viewer) };
 }

@@ -8,10 +8,16 @@
  * API already checks (a negative diameter, a minimum elevation above 90°) are left to it, and its
  * message is shown beside the input it names.
  */
-import type { TargetModel } from "./requests";
-import { MAX_CLOSURE_VALUES, MAX_SAMPLES, MAX_UV_POINTS, maxNightSamples } from "./requests";
-import { parseDeclination, parseRightAscension } from "./coordinates";
-import { type BandLike, channelWavelengthsM } from "./sketch-wavelengths";
+import {
+  type BandLike,
+  channelWavelengthsM,
+  MAX_CLOSURE_VALUES,
+  MAX_SAMPLES,
+  MAX_UV_POINTS,
+  maxNightSamples,
+  type TargetModel,
+} from "~/engine";
+import { parseDeclination, parseRightAscension } from "~/lib/coordinates";
 import {
   ALL_STATIONS,
   type CommonState,
@@ -25,7 +31,13 @@ import {
 
 /** The parts of the array registry the builders need (a subset of the registry loader's data). */
 export interface RegistryLike {
-  site: { latitudeDeg: number; longitudeDeg: number; altitudeM: number; minElevationDeg: number; delayLineStrokeM: number };
+  site: {
+    latitudeDeg: number;
+    longitudeDeg: number;
+    altitudeM: number;
+    minElevationDeg: number;
+    delayLineStrokeM: number;
+  };
   stations: { name: string; eastM: number; northM: number; upM: number; pathOffsetM: number }[];
   configurations: { name: string; stationNames: string[] }[];
   instruments: { name: string; maxTelescopes: number; bands: BandLike[] }[];
@@ -131,10 +143,15 @@ export const TRIANGLE_ROWS = 50;
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)(e[+-]?\d+)?$/i;
 
 /** Reads a number as typed; the message names the input and its unit. */
-export function readNumber(text: string, label: string, unit?: string): { ok: true; value: number } | { ok: false; message: string } {
+export function readNumber(
+  text: string,
+  label: string,
+  unit?: string,
+): { ok: true; value: number } | { ok: false; message: string } {
   const t = text.replace(/\u2212/g, "-").trim();
   if (t === "") return { ok: false, message: `${label}: required${unit ? ` (in ${unit})` : ""}` };
-  if (!NUMBER.test(t)) return { ok: false, message: `${label}: must be a number${unit ? ` in ${unit}` : ""} (got "${text.trim()}")` };
+  if (!NUMBER.test(t))
+    return { ok: false, message: `${label}: must be a number${unit ? ` in ${unit}` : ""} (got "${text.trim()}")` };
   return { ok: true, value: Number(t) };
 }
 
@@ -378,7 +395,10 @@ export function buildCoverageRequest(s: SketchState, r: RegistryLike): Built<Cov
   }
   const done = finishRequest(s, r, names, errors, parts);
   if (!done.ok) return done;
-  return { ok: true, body: { ...done.body, beam: { gridSize: SKETCH_GRID_SIZE, weighting: s.weighting, includeImages: true } } };
+  return {
+    ok: true,
+    body: { ...done.body, beam: { gridSize: SKETCH_GRID_SIZE, weighting: s.weighting, includeImages: true } },
+  };
 }
 
 /** The POST /api/triangles body of a Triangle finder state. */

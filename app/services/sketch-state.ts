@@ -48,7 +48,10 @@ export const MODEL_PARAMS: Record<SimpleModelType, readonly ModelParam[]> = {
   binary: ["separationMas", "positionAngleDeg", "fluxRatio"],
 };
 
-export const PARAM_INFO: Record<ModelParam, { label: string; unit?: string; urlKey: string; fallback: string; hint?: string }> = {
+export const PARAM_INFO: Record<
+  ModelParam,
+  { label: string; unit?: string; urlKey: string; fallback: string; hint?: string }
+> = {
   diameterMas: { label: "Diameter", unit: "mas", urlKey: "diam", fallback: "2" },
   fwhmMas: { label: "FWHM", unit: "mas", urlKey: "fwhm", fallback: "2" },
   coefficient: {
@@ -128,12 +131,21 @@ export interface StateDefaults {
 }
 
 export function defaultModel(type: SimpleModelType = "uniformDisk"): ModelState {
-  const params = Object.fromEntries(MODEL_PARAMS_LIST.map((p) => [p, PARAM_INFO[p].fallback])) as Record<ModelParam, string>;
+  const params = Object.fromEntries(MODEL_PARAMS_LIST.map((p) => [p, PARAM_INFO[p].fallback])) as Record<
+    ModelParam,
+    string
+  >;
   return { type, params };
 }
 
 export function defaultSecond(): SecondComponentState {
-  return { ...defaultModel("gaussian"), params: { ...defaultModel().params, fwhmMas: "8" }, flux: "0.2", east: "0", north: "0" };
+  return {
+    ...defaultModel("gaussian"),
+    params: { ...defaultModel().params, fwhmMas: "8" },
+    flux: "0.2",
+    east: "0",
+    north: "0",
+  };
 }
 
 function isModelType(t: string | null): t is SimpleModelType {
@@ -162,7 +174,12 @@ function readCommon(params: URLSearchParams, defaults: StateDefaults): CommonSta
   if (isModelType(c2)) {
     const m = readModel(params, "c2", "gaussian");
     const base = defaultSecond();
-    second = { ...m, flux: get("c2flux", base.flux), east: get("c2east", base.east), north: get("c2north", base.north) };
+    second = {
+      ...m,
+      flux: get("c2flux", base.flux),
+      east: get("c2east", base.east),
+      north: get("c2north", base.north),
+    };
   }
   const ha = params.get("ha");
   let haParts = [DEFAULT_HA.from, DEFAULT_HA.to, DEFAULT_HA.step];
@@ -284,7 +301,14 @@ function paramsFrom(model: { [key: string]: unknown }): Record<ModelParam, strin
  */
 export function modelInputsOf(model: SavedTarget["model"]): { model: ModelState; second: SecondComponentState | null } {
   if (isModelType(model.type)) return { model: { type: model.type, params: paramsFrom(model) }, second: null };
-  const components = Array.isArray(model.components) ? (model.components as { model: SavedTarget["model"]; flux: number; offsetEastMas?: number; offsetNorthMas?: number }[]) : [];
+  const components = Array.isArray(model.components)
+    ? (model.components as {
+        model: SavedTarget["model"];
+        flux: number;
+        offsetEastMas?: number;
+        offsetNorthMas?: number;
+      }[])
+    : [];
   const [a, b] = components;
   if (!a || !isModelType(a.model.type)) return { model: defaultModel("point"), second: null };
   const first: ModelState = { type: a.model.type, params: paramsFrom(a.model) };

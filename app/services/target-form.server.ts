@@ -1,9 +1,20 @@
 /** Shared by the target pages: reading the target form and showing a stored target in it. */
 import type { targets } from "~/db/schema/proposals";
-import { formatDeclination, formatRightAscension } from "./coordinates";
-import { readTargetCells, type ImportedTarget } from "./target-io";
+import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
+import { type ImportedTarget, readTargetCells } from "./target-io";
 
-export const TARGET_FIELDS = ["name", "ra", "dec", "model", "size_mas", "ld_coefficient", "separation_mas", "position_angle_deg", "flux_ratio", "notes"];
+export const TARGET_FIELDS = [
+  "name",
+  "ra",
+  "dec",
+  "model",
+  "size_mas",
+  "ld_coefficient",
+  "separation_mas",
+  "position_angle_deg",
+  "flux_ratio",
+  "notes",
+];
 
 export function targetFormValues(form: FormData, bands: string[]): Record<string, string> {
   const out: Record<string, string> = {};
@@ -16,10 +27,16 @@ export function targetFormValues(form: FormData, bands: string[]): Record<string
 
 /** Checks a submitted target form: the target, or messages keyed by field. */
 export function readTargetForm(values: Record<string, string>, bands: string[]) {
-  const read = readTargetCells(values, bands.map((b) => `mag_${b}`));
+  const read = readTargetCells(
+    values,
+    bands.map((b) => `mag_${b}`),
+  );
   const errors: Record<string, string> = {};
   for (const e of read.errors) {
-    if (!errors[e.column]) errors[e.column] = e.message.startsWith(fieldLabel(e.column)) ? e.message : `${fieldLabel(e.column)}: ${e.message}`;
+    if (!errors[e.column])
+      errors[e.column] = e.message.startsWith(fieldLabel(e.column))
+        ? e.message
+        : `${fieldLabel(e.column)}: ${e.message}`;
   }
   return { target: read.target as Omit<ImportedTarget, "row"> | null, errors };
 }
@@ -41,7 +58,9 @@ function fieldLabel(column: string) {
 }
 
 /** A stored target (of My targets or of a proposal) as form values, coordinates in sexagesimal. */
-export function valuesOfTarget(t: Pick<typeof targets.$inferSelect, "name" | "raDeg" | "decDeg" | "model" | "magnitudes" | "notes">): Record<string, string> {
+export function valuesOfTarget(
+  t: Pick<typeof targets.$inferSelect, "name" | "raDeg" | "decDeg" | "model" | "magnitudes" | "notes">,
+): Record<string, string> {
   const m = t.model as Record<string, unknown>;
   const str = (x: unknown) => (x === undefined || x === null ? "" : String(x));
   const out: Record<string, string> = {

@@ -14,8 +14,8 @@
  */
 import Papa from "papaparse";
 import * as v from "valibot";
-import { parseDeclination, parseRightAscension } from "./coordinates";
-import { TargetModelSchema, type TargetModel } from "./requests";
+import { type TargetModel, TargetModelSchema } from "~/engine";
+import { parseDeclination, parseRightAscension } from "~/lib/coordinates";
 
 export type ImportedTarget = {
   row: number;
@@ -72,7 +72,11 @@ function modelOf(cells: Record<string, string>, row: number, errors: RowError[])
   const typeText = (cells.model ?? "").trim();
   const type = typeText === "" ? "point" : MODEL_NAMES[typeText.toLowerCase()];
   if (!type) {
-    errors.push({ row, column: "model", message: `"${typeText}" is not a model; use point, uniformDisk, gaussian, limbDarkenedDisk, ring or binary` });
+    errors.push({
+      row,
+      column: "model",
+      message: `"${typeText}" is not a model; use point, uniformDisk, gaussian, limbDarkenedDisk, ring or binary`,
+    });
     return null;
   }
   const before = errors.length;
@@ -102,7 +106,12 @@ function modelOf(cells: Record<string, string>, row: number, errors: RowError[])
       candidate = { type, diameterMas: need(size, "size_mas"), coefficient: need(ld, "ld_coefficient") };
       break;
     case "binary":
-      candidate = { type, separationMas: need(sep, "separation_mas"), positionAngleDeg: need(pa, "position_angle_deg"), fluxRatio: need(ratio, "flux_ratio") };
+      candidate = {
+        type,
+        separationMas: need(sep, "separation_mas"),
+        positionAngleDeg: need(pa, "position_angle_deg"),
+        fluxRatio: need(ratio, "flux_ratio"),
+      };
       break;
   }
   if (errors.length > before) return null;
@@ -111,8 +120,14 @@ function modelOf(cells: Record<string, string>, row: number, errors: RowError[])
     const issue = parsed.issues[0];
     const key = String(issue.path?.[issue.path.length - 1]?.key ?? "model");
     const column =
-      { diameterMas: "size_mas", fwhmMas: "size_mas", coefficient: "ld_coefficient", separationMas: "separation_mas", positionAngleDeg: "position_angle_deg", fluxRatio: "flux_ratio" }[key] ??
-      "model";
+      {
+        diameterMas: "size_mas",
+        fwhmMas: "size_mas",
+        coefficient: "ld_coefficient",
+        separationMas: "separation_mas",
+        positionAngleDeg: "position_angle_deg",
+        fluxRatio: "flux_ratio",
+      }[key] ?? "model";
     errors.push({ row, column, message: issue.message });
     return null;
   }
@@ -159,9 +174,14 @@ export function parseTargetCsv(
 ): TargetCsvResult {
   const errors: RowError[] = [];
   const warnings: string[] = [];
-  if (text.trim() === "") return { targets: [], errors: [{ row: 1, column: "file", message: "the file is empty" }], warnings };
+  if (text.trim() === "")
+    return { targets: [], errors: [{ row: 1, column: "file", message: "the file is empty" }], warnings };
   if (new TextEncoder().encode(text).length > MAX_TARGET_CSV_BYTES) {
-    return { targets: [], errors: [{ row: 1, column: "file", message: `the file is larger than ${MAX_TARGET_CSV_BYTES / 1024} KB` }], warnings };
+    return {
+      targets: [],
+      errors: [{ row: 1, column: "file", message: `the file is larger than ${MAX_TARGET_CSV_BYTES / 1024} KB` }],
+      warnings,
+    };
   }
   const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ""), {
     header: true,
@@ -173,7 +193,13 @@ export function parseTargetCsv(
   if (missing.length) {
     return {
       targets: [],
-      errors: [{ row: 1, column: missing.join(", "), message: `missing column${missing.length > 1 ? "s" : ""} ${missing.join(", ")} (the header needs name, ra, dec)` }],
+      errors: [
+        {
+          row: 1,
+          column: missing.join(", "),
+          message: `missing column${missing.length > 1 ? "s" : ""} ${missing.join(", ")} (the header needs name, ra, dec)`,
+        },
+      ],
       warnings,
     };
   }
@@ -185,7 +211,11 @@ export function parseTargetCsv(
     errors.push({ row: (e.row ?? 0) + 2, column: "line", message: e.message });
   }
   if (parsed.data.length > MAX_TARGET_ROWS) {
-    return { targets: [], errors: [{ row: 1, column: "file", message: `more than ${MAX_TARGET_ROWS} targets; split the list` }], warnings };
+    return {
+      targets: [],
+      errors: [{ row: 1, column: "file", message: `more than ${MAX_TARGET_ROWS} targets; split the list` }],
+      warnings,
+    };
   }
   const targets: ImportedTarget[] = [];
   const seen = new Map<string, number>();
@@ -203,19 +233,31 @@ export function parseTargetCsv(
         clash = true;
       } else seen.set(key, row);
       if (options.existingNames?.has(key) && !options.replaceExisting) {
-        errors.push({ row, column: "name", message: `"${name}" is already in My targets (tick "replace" to update it)` });
+        errors.push({
+          row,
+          column: "name",
+          message: `"${name}" is already in My targets (tick "replace" to update it)`,
+        });
         clash = true;
       }
     }
     if (read.target && !clash) targets.push({ row, ...read.target });
   });
-  if (parsed.data.length === 0 && errors.length === 0) errors.push({ row: 2, column: "file", message: "the file has a header but no targets" });
+  if (parsed.data.length === 0 && errors.length === 0)
+    errors.push({ row: 2, column: "file", message: "the file has a header but no targets" });
   return { targets, errors, warnings };
 }
 
 /** The CSV of a target list, in the same columns `parseTargetCsv` reads. */
 export function targetsToCsv(
-  list: { name: string; raDeg: number; decDeg: number; model: { type: string; [k: string]: unknown }; magnitudes: Record<string, number>; notes: string }[],
+  list: {
+    name: string;
+    raDeg: number;
+    decDeg: number;
+    model: { type: string; [k: string]: unknown };
+    magnitudes: Record<string, number>;
+    notes: string;
+  }[],
 ): string {
   const bands = [...new Set(list.flatMap((t) => Object.keys(t.magnitudes)))].sort();
   const fields = [...TARGET_CSV_COLUMNS.slice(0, 9), ...bands.map((b) => `mag_${b}`), "notes"];

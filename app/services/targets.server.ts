@@ -12,7 +12,10 @@ export async function listTargets(db: Database, ownerId: number) {
 }
 
 export async function getTarget(db: Database, ownerId: number, id: number) {
-  const [row] = await db.select().from(targets).where(and(eq(targets.id, id), eq(targets.ownerId, ownerId)));
+  const [row] = await db
+    .select()
+    .from(targets)
+    .where(and(eq(targets.id, id), eq(targets.ownerId, ownerId)));
   return row ?? null;
 }
 
@@ -25,7 +28,10 @@ export async function nameTaken(db: Database, ownerId: number, name: string, exc
 }
 
 export async function createTarget(db: Database, ownerId: number, t: TargetValues) {
-  const [row] = await db.insert(targets).values({ ownerId, ...t }).returning();
+  const [row] = await db
+    .insert(targets)
+    .values({ ownerId, ...t })
+    .returning();
   return row;
 }
 
@@ -39,7 +45,10 @@ export async function updateTarget(db: Database, ownerId: number, id: number, t:
 }
 
 export async function deleteTarget(db: Database, ownerId: number, id: number) {
-  const rows = await db.delete(targets).where(and(eq(targets.id, id), eq(targets.ownerId, ownerId))).returning({ id: targets.id });
+  const rows = await db
+    .delete(targets)
+    .where(and(eq(targets.id, id), eq(targets.ownerId, ownerId)))
+    .returning({ id: targets.id });
   return rows.length > 0;
 }
 
@@ -68,7 +77,10 @@ export async function importTargets(db: Database, ownerId: number, list: Importe
     for (const { row: _row, ...t } of list) {
       const id = byName.get(t.name.toLowerCase());
       if (id) {
-        await tx.update(targets).set(t).where(and(eq(targets.id, id), eq(targets.ownerId, ownerId)));
+        await tx
+          .update(targets)
+          .set(t)
+          .where(and(eq(targets.id, id), eq(targets.ownerId, ownerId)));
         updated += 1;
       } else {
         await tx.insert(targets).values({ ownerId, ...t });

@@ -1,11 +1,11 @@
-import { spawn, type ChildProcess } from "node:child_process";
+import { type ChildProcess, spawn } from "node:child_process";
 import { existsSync } from "node:fs";
 import { createServer } from "node:net";
 import { fileURLToPath } from "node:url";
 import type { TestProject } from "vitest/node";
-import { migrateDatabase } from "../../app/db/migrate.server";
 import { createDatabase } from "../../app/db/client.server";
 import { seedDemoScenario } from "../../app/db/factories.server";
+import { migrateDatabase } from "../../app/db/migrate.server";
 import { adminQuery, clusterUrl, dropDatabase, ensureCluster, uniqueName, withDatabase } from "../../test/setup/pg";
 
 declare module "vitest" {
@@ -51,7 +51,9 @@ async function waitForHttp(url: string, server: ChildProcess, timeoutMs = 30_000
 export default async function setup(project: TestProject) {
   const buildDir = process.env.BUILD_DIR ?? "build";
   if (!existsSync(`${root}/${buildDir}/server/index.js`)) {
-    throw new Error(`No production build in ${buildDir}/: run \`npm run build\` before the browser tests (npm test does).`);
+    throw new Error(
+      `No production build in ${buildDir}/: run \`npm run build\` before the browser tests (npm test does).`,
+    );
   }
   const startedCluster = ensureCluster();
   const name = uniqueName("fd_e2e");

@@ -8,7 +8,7 @@
 import { createHash, randomBytes } from "node:crypto";
 import { createServer, type IncomingMessage, type ServerResponse } from "node:http";
 import type { AddressInfo } from "node:net";
-import { exportJWK, generateKeyPair, SignJWT, type JWK } from "jose";
+import { exportJWK, generateKeyPair, type JWK, SignJWT } from "jose";
 
 export type FakeIdentity = { email: string; name: string; institute?: string };
 export type FakeClient = { clientId: string; clientSecret: string; redirectUris: string[] };
@@ -91,16 +91,28 @@ export async function startFakeIdentityProvider(options: FakeIdpOptions) {
     const client = findClient(params.get("client_id"));
     if (!client) return { error: "unknown client_id" } as const;
     const redirectUri = params.get("redirect_uri") ?? "";
-    if (!client.redirectUris.includes(redirectUri)) return { error: `redirect_uri not registered for this client: ${redirectUri}` } as const;
+    if (!client.redirectUris.includes(redirectUri))
+      return { error: `redirect_uri not registered for this client: ${redirectUri}` } as const;
     if (params.get("response_type") !== "code") return { error: "response_type must be code" } as const;
     const challenge = params.get("code_challenge");
-    if (!challenge || params.get("code_challenge_method") !== "S256") return { error: "PKCE with S256 is required" } as const;
-    if (!(params.get("scope") ?? "").split(" ").includes("openid")) return { error: "scope must include openid" } as const;
+    if (!challenge || params.get("code_challenge_method") !== "S256")
+      return { error: "PKCE with S256 is required" } as const;
+    if (!(params.get("scope") ?? "").split(" ").includes("openid"))
+      return { error: "scope must include openid" } as const;
     return { client, redirectUri, challenge, state: params.get("state"), nonce: params.get("nonce") } as const;
   }
 
   function hiddenFields(params: URLSearchParams) {
-    const keep = ["client_id", "redirect_uri", "response_type", "code_challenge", "code_challenge_method", "scope", "state", "nonce"];
+    const keep = [
+      "client_id",
+      "redirect_uri",
+      "response_type",
+      "code_challenge",
+      "code_challenge_method",
+      "scope",
+      "state",
+      "nonce",
+    ];
     return keep
       .filter((k) => params.has(k))
       .map((k) => `<input type="hidden" name="${k}" value="${escapeHtml(params.get(k) ?? "")}">`)
@@ -150,12 +162,16 @@ ${people ? `<h2 style="font-size:1rem">Demo people</h2>${people}` : ""}
     const code = form.get("code") ?? "";
     const pending = codes.get(code);
     codes.delete(code); // single use, whatever happens next
-    if (!pending || pending.clientId !== client.clientId) return json(res, 400, { error: "invalid_grant", error_description: "unknown or used code" });
-    if (Date.now() > pending.expiresAt) return json(res, 400, { error: "invalid_grant", error_description: "code expired" });
-    if (form.get("redirect_uri") && form.get("redirect_uri") !== pending.redirectUri) return json(res, 400, { error: "invalid_grant", error_description: "redirect_uri mismatch" });
+    if (!pending || pending.clientId !== client.clientId)
+      return json(res, 400, { error: "invalid_grant", error_description: "unknown or used code" });
+    if (Date.now() > pending.expiresAt)
+      return json(res, 400, { error: "invalid_grant", error_description: "code expired" });
+    if (form.get("redirect_uri") && form.get("redirect_uri") !== pending.redirectUri)
+      return json(res, 400, { error: "invalid_grant", error_description: "redirect_uri mismatch" });
     const verifier = form.get("code_verifier") ?? "";
     const challenge = createHash("sha256").update(verifier).digest("base64url");
-    if (challenge !== pending.codeChallenge) return json(res, 400, { error: "invalid_grant", error_description: "PKCE verification failed" });
+    if (challenge !== pending.codeChallenge)
+      return json(res, 400, { error: "invalid_grant", error_description: "PKCE verification failed" });
     const now = Math.floor(Date.now() / 1000);
     const claims: Record<string, unknown> = {
       email: pending.identity.email,
@@ -172,7 +188,13 @@ ${people ? `<h2 style="font-size:1rem">Demo people</h2>${people}` : ""}
       .setIssuedAt(now)
       .setExpirationTime(now + idTokenTtlS)
       .sign(privateKey);
-    return json(res, 200, { access_token: randomBytes(24).toString("base64url"), token_type: "Bearer", expires_in: 600, id_token: idToken, scope: "openid email profile" });
+    return json(res, 200, {
+      access_token: randomBytes(24).toString("base64url"),
+      token_type: "Bearer",
+      expires_in: 600,
+      id_token: idToken,
+      scope: "openid email profile",
+    });
   }
 
   async function handle(req: IncomingMessage, res: ServerResponse) {
@@ -198,16 +220,29 @@ ${people ? `<h2 style="font-size:1rem">Demo people</h2>${people}` : ""}
     }
     if (url.pathname === "/authorize" && req.method === "GET") {
       const checked = checkAuthorize(url.searchParams);
-      if ("error" in checked) return page(res, 400, "Sign-on error", `<h1>Cannot sign in</h1><p class="err">${escapeHtml(checked.error ?? "")}</p>`);
+      if ("error" in checked)
+        return page(
+          res,
+          400,
+          "Sign-on error",
+          `<h1>Cannot sign in</h1><p class="err">${escapeHtml(checked.error ?? "")}</p>`,
+        );
       return signInPage(res, url.searchParams);
     }
     if (url.pathname === "/authorize" && req.method === "POST") {
       const form = new URLSearchParams(await readBody(req));
       const checked = checkAuthorize(form);
-      if ("error" in checked) return page(res, 400, "Sign-on error", `<h1>Cannot sign in</h1><p class="err">${escapeHtml(checked.error ?? "")}</p>`);
+      if ("error" in checked)
+        return page(
+          res,
+          400,
+          "Sign-on error",
+          `<h1>Cannot sign in</h1><p class="err">${escapeHtml(checked.error ?? "")}</p>`,
+        );
       const email = (form.get("email") ?? "").trim();
       const name = (form.get("name") ?? "").trim();
-      if (!/^[^@\s]+@[^@\s]+\.[^@\s]+$/.test(email) || email.length > 254) return signInPage(res, form, "Please give a valid e-mail address.");
+      if (!/^[^@\s]+@[^@\s]+\.[^@\s]+$/.test(email) || email.length > 254)
+        return signInPage(res, form, "Please give a valid e-mail address.");
       if (!name) return signInPage(res, form, "Please give a name.");
       const code = randomBytes(24).toString("base64url");
       codes.set(code, {

@@ -8,7 +8,7 @@
  */
 import { isIP } from "node:net";
 import { pathToFileURL } from "node:url";
-import { simpleParser, type AddressObject } from "mailparser";
+import { type AddressObject, simpleParser } from "mailparser";
 import { SMTPServer } from "smtp-server";
 
 export type Received = {
@@ -137,7 +137,9 @@ export function startFakeSmtp(options: FakeSmtpOptions = {}): Promise<FakeSmtp> 
           callback(null, "stored");
         })
         .catch((e: unknown) => {
-          const err = new Error(`could not read the message: ${e instanceof Error ? e.message : String(e)}`) as Error & {
+          const err = new Error(
+            `could not read the message: ${e instanceof Error ? e.message : String(e)}`,
+          ) as Error & {
             responseCode: number;
           };
           err.responseCode = 451;
@@ -184,7 +186,9 @@ async function main() {
     port: portFromEnv(process.env.FAKE_SMTP_PORT),
     onMessage: (m) => console.log(`[smtp] ${m.to.join(", ")} · ${m.subject}`),
   });
-  console.log(`[smtp] local mail sink on ${smtp.host}:${smtp.port}; what it receives is kept in memory (the app's mailbox page lists the outbox)`);
+  console.log(
+    `[smtp] local mail sink on ${smtp.host}:${smtp.port}; what it receives is kept in memory (the app's mailbox page lists the outbox)`,
+  );
   const stop = () => {
     void smtp.stop().then(() => process.exit(0));
     setTimeout(() => process.exit(0), 2_000).unref();

@@ -3,11 +3,11 @@ import { seedDemoScenario } from "~/db/factories.server";
 import { action as coverageAction, loader as coverageLoader } from "~/routes/api/coverage";
 import { action as ephemerisAction } from "~/routes/api/ephemeris";
 import { action as trianglesAction } from "~/routes/api/triangles";
-import { MAX_BODY_BYTES, readJsonBody } from "~/services/api-json.server";
+import { MAX_BODY_BYTES, readJsonBody } from "~/lib/json.server";
 import { findUserByEmail } from "~/services/auth/accounts.server";
 import { createApiToken } from "~/services/auth/api-tokens.server";
-import { goodCoverageRequest as good } from "../fixtures/coverage-request";
-import { settle, testDb } from "../helpers";
+import { goodCoverageRequest as good } from "@test/coverage-request";
+import { settle, testDb } from "@test/routes";
 
 // The computation APIs answer signed-in people and API tokens only; these tests use a proposer's token.
 let bearer = "";
@@ -31,7 +31,11 @@ describe("JSON resource routes", () => {
 
   it("answers 401 JSON without a session or token", async () => {
     const res = await settle(() =>
-      coverageAction({ request: new Request("http://localhost/api/coverage", { method: "POST", body: "{}" }), params: {}, context: {} } as never),
+      coverageAction({
+        request: new Request("http://localhost/api/coverage", { method: "POST", body: "{}" }),
+        params: {},
+        context: {},
+      } as never),
     );
     expect(res.status).toBe(401);
     expect((await res.json()).error).toMatch(/API token/);

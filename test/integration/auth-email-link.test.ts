@@ -1,15 +1,15 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { emailSignInTokens } from "~/db/schema/auth";
 import { outboxMessages } from "~/db/schema/mail";
-import { action as signInAction } from "~/routes/auth/sign-in";
 import { action as verifyAction, loader as verifyLoader } from "~/routes/auth/email-verify";
-import { getViewer } from "~/services/auth.server";
+import { action as signInAction } from "~/routes/auth/sign-in";
 import { RATE_LIMITS } from "~/services/auth/config.server";
-import { createMailTransport } from "~/services/mail/transport.server";
+import { getViewer } from "~/services/auth.server";
 import { deliverDue } from "~/services/mail/sender.server";
-import { startFakeSmtp, type FakeSmtp } from "../../scripts/fakes/smtp";
-import { cookiesFrom, formPost, routeArgs, settle, testDb } from "../helpers";
+import { createMailTransport } from "~/services/mail/transport.server";
+import { type FakeSmtp, startFakeSmtp } from "../../scripts/fakes/smtp";
+import { cookiesFrom, formPost, routeArgs, settle, testDb } from "@test/routes";
 
 let smtp: FakeSmtp;
 beforeAll(async () => {
@@ -69,8 +69,13 @@ describe("e-mail link sign-in", () => {
   it("refuses a link used a second time", async () => {
     const link = await requestLink("twice@caldera-inst.example");
     expect((await useLink(link)).status).toBe(302);
-    const again = await verifyAction(routeArgs("/auth/email/verify", formPost({ token: link.searchParams.get("token")!, next: "/" })));
-    expect(again).toMatchObject({ init: { status: 400 }, data: { error: "This sign-in link has already been used. Ask for a new one." } });
+    const again = await verifyAction(
+      routeArgs("/auth/email/verify", formPost({ token: link.searchParams.get("token")!, next: "/" })),
+    );
+    expect(again).toMatchObject({
+      init: { status: 400 },
+      data: { error: "This sign-in link has already been used. Ask for a new one." },
+    });
   });
 
   it("refuses an expired link (older than 15 minutes)", async () => {
@@ -93,7 +98,10 @@ describe("e-mail link sign-in", () => {
 
   it("keeps what was typed and names the problem for a bad address", async () => {
     const result = await signInAction(routeArgs("/sign-in", formPost({ email: "not-an-address", next: "/" })));
-    expect(result).toMatchObject({ init: { status: 400 }, data: { email: "not-an-address", fieldError: "That does not look like an e-mail address." } });
+    expect(result).toMatchObject({
+      init: { status: 400 },
+      data: { email: "not-an-address", fieldError: "That does not look like an e-mail address." },
+    });
     const none = await testDb().select().from(outboxMessages);
     expect(none.filter((m) => m.toAddress === "not-an-address")).toHaveLength(0);
   });
@@ -101,10 +109,14 @@ describe("e-mail link sign-in", () => {
   it("rate-limits per e-mail address with a clear message", async () => {
     const email = "eager@caldera-inst.example";
     for (let i = 0; i < RATE_LIMITS.perEmail; i++) {
-      const ok = await signInAction(routeArgs("/sign-in", { ...formPost({ email, next: "/" }), address: `10.1.0.${i}` }));
+      const ok = await signInAction(
+        routeArgs("/sign-in", { ...formPost({ email, next: "/" }), address: `10.1.0.${i}` }),
+      );
       expect(ok).toMatchObject({ sent: true });
     }
-    const refused = await signInAction(routeArgs("/sign-in", { ...formPost({ email, next: "/" }), address: "10.1.0.99" }));
+    const refused = await signInAction(
+      routeArgs("/sign-in", { ...formPost({ email, next: "/" }), address: "10.1.0.99" }),
+    );
     expect(refused).toMatchObject({
       init: { status: 429 },
       data: { message: expect.stringContaining("Too many sign-in attempts for this e-mail address") },
@@ -113,9 +125,16 @@ describe("e-mail link sign-in", () => {
 
   it("rate-limits per client address", async () => {
     for (let i = 0; i < RATE_LIMITS.perAddress; i++) {
-      await signInAction(routeArgs("/sign-in", { ...formPost({ email: `p${i}@caldera-inst.example`, next: "/" }), address: "10.9.9.9" }));
+      await signInAction(
+        routeArgs("/sign-in", { ...formPost({ email: `p${i}@caldera-inst.example`, next: "/" }), address: "10.9.9.9" }),
+      );
     }
-    const refused = await signInAction(routeArgs("/sign-in", { ...formPost({ email: "another@caldera-inst.example", next: "/" }), address: "10.9.9.9" }));
-    expect(refused).toMatchObject({ init: { status: 429 }, data: { message: expect.stringContaining("from this network address") } });
+    const refused = await signInAction(
+      routeArgs("/sign-in", { ...formPost({ email: "another@caldera-inst.example", next: "/" }), address: "10.9.9.9" }),
+    );
+    expect(refused).toMatchObject({
+      init: { status: 429 },
+      data: { message: expect.stringContaining("from this network address") },
+    });
   });
 });

@@ -1,12 +1,12 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
+import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { seedDemoScenario } from "~/db/factories.server";
 import { users } from "~/db/schema/users";
 import { loader as ssoCallback } from "~/routes/auth/sso-callback";
 import { loader as ssoStart } from "~/routes/auth/sso-start";
 import { getViewer } from "~/services/auth.server";
 import { startFakeIdentityProvider } from "../../scripts/fakes/identity-provider";
-import { cookiesFrom, routeArgs, settle, testDb } from "../helpers";
+import { cookiesFrom, routeArgs, settle, testDb } from "@test/routes";
 
 const CLIENT = { clientId: "fringe-docket-test", clientSecret: "test-secret-value" };
 let idp: Awaited<ReturnType<typeof startFakeIdentityProvider>>;
@@ -50,14 +50,21 @@ async function authorize(identity: { email: string; name: string; institute?: st
 describe("single sign-on through the local provider", () => {
   it("signs in a known person with PKCE, state and a verified ID token, then returns to `next`", async () => {
     useProvider(idp.issuer);
-    const { callbackUrl, flowCookie } = await authorize({ email: "henrik.solberg@fjellvik.example", name: "Henrik Solberg" });
-    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    const { callbackUrl, flowCookie } = await authorize({
+      email: "henrik.solberg@fjellvik.example",
+      name: "Henrik Solberg",
+    });
+    const done = await settle(() =>
+      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
+    );
     expect(done.status).toBe(302);
     expect(done.headers.get("Location")).toBe("/account");
     const sessionCookie = done.headers.getSetCookie().find((c) => c.startsWith("fd_session="))!;
     expect(sessionCookie).toMatch(/HttpOnly/);
     expect(sessionCookie).toMatch(/SameSite=Lax/);
-    const viewer = await getViewer(new Request("http://localhost:3000/", { headers: { Cookie: sessionCookie.split(";")[0] } }));
+    const viewer = await getViewer(
+      new Request("http://localhost:3000/", { headers: { Cookie: sessionCookie.split(";")[0] } }),
+    );
     expect(viewer?.user.email).toBe("henrik.solberg@fjellvik.example");
     expect(viewer?.roles).toEqual(["reviewer", "chair"]);
     // The SSO identity is now linked to the account.
@@ -67,8 +74,14 @@ describe("single sign-on through the local provider", () => {
 
   it("creates a proposer account for a first-time identity", async () => {
     useProvider(idp.issuer);
-    const { callbackUrl, flowCookie } = await authorize({ email: "new.person@lagoa-obs.example", name: "Noa Ferreira", institute: "Lagoa Observatory" });
-    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    const { callbackUrl, flowCookie } = await authorize({
+      email: "new.person@lagoa-obs.example",
+      name: "Noa Ferreira",
+      institute: "Lagoa Observatory",
+    });
+    const done = await settle(() =>
+      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
+    );
     expect(done.status).toBe(302);
     const viewer = await getViewer(new Request("http://localhost:3000/", { headers: { Cookie: cookiesFrom(done) } }));
     expect(viewer?.user).toMatchObject({ name: "Noa Ferreira", institute: "Lagoa Observatory" });
@@ -77,9 +90,14 @@ describe("single sign-on through the local provider", () => {
 
   it("rejects a forged state", async () => {
     useProvider(idp.issuer);
-    const { callbackUrl, flowCookie } = await authorize({ email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" });
+    const { callbackUrl, flowCookie } = await authorize({
+      email: "kenji.morrow@tidewater.example",
+      name: "Kenji Morrow",
+    });
     callbackUrl.searchParams.set("state", "forged-state-value");
-    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    const done = await settle(() =>
+      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
+    );
     expect(done.status).toBe(302);
     expect(decodeURIComponent(done.headers.get("Location")!)).toContain("the sign-in state did not match");
     expect(done.headers.getSetCookie().some((c) => c.startsWith("fd_session="))).toBe(false);
@@ -94,33 +112,55 @@ describe("single sign-on through the local provider", () => {
 
   it("rejects an expired authorization code", async () => {
     useProvider(shortIdp.issuer);
-    const { callbackUrl, flowCookie } = await authorize({ email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" });
+    const { callbackUrl, flowCookie } = await authorize({
+      email: "kenji.morrow@tidewater.example",
+      name: "Kenji Morrow",
+    });
     await new Promise((r) => setTimeout(r, 80));
-    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    const done = await settle(() =>
+      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
+    );
     expect(decodeURIComponent(done.headers.get("Location")!)).toContain("rejected the code (invalid_grant)");
   });
 
   it("rejects a code used twice", async () => {
     useProvider(idp.issuer);
-    const { callbackUrl, flowCookie } = await authorize({ email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" });
-    const first = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    const { callbackUrl, flowCookie } = await authorize({
+      email: "kenji.morrow@tidewater.example",
+      name: "Kenji Morrow",
+    });
+    const first = await settle(() =>
+      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
+    );
     expect(first.headers.getSetCookie().some((c) => c.startsWith("fd_session="))).toBe(true);
-    const again = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    const again = await settle(() =>
+      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
+    );
     expect(decodeURIComponent(again.headers.get("Location")!)).toContain("rejected the code");
   });
 
   it("refuses a deactivated account", async () => {
     useProvider(idp.issuer);
     await testDb().update(users).set({ active: false }).where(eq(users.email, "mei.chao@sierra-lumbre.example"));
-    const { callbackUrl, flowCookie } = await authorize({ email: "mei.chao@sierra-lumbre.example", name: "Mei-Lin Chao" });
-    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    const { callbackUrl, flowCookie } = await authorize({
+      email: "mei.chao@sierra-lumbre.example",
+      name: "Mei-Lin Chao",
+    });
+    const done = await settle(() =>
+      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
+    );
     expect(decodeURIComponent(done.headers.get("Location")!)).toContain("deactivated");
   });
 
   it("does not redirect to another site after sign-in", async () => {
     useProvider(idp.issuer);
-    const { callbackUrl, flowCookie } = await authorize({ email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" }, "//evil.example/steal");
-    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })));
+    const { callbackUrl, flowCookie } = await authorize(
+      { email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" },
+      "//evil.example/steal",
+    );
+    const done = await settle(() =>
+      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
+    );
     expect(done.headers.get("Location")).toBe("/");
   });
 

@@ -1,16 +1,16 @@
-import { beforeEach, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
+import { beforeEach, describe, expect, it } from "vitest";
 import { seedDemoScenario } from "~/db/factories.server";
 import { sessions } from "~/db/schema/auth";
 import { users } from "~/db/schema/users";
 import { action as accountAction, loader as accountLoader } from "~/routes/account/index";
-import { getViewer, requireApiUser, requirePermission, requireUser } from "~/services/auth.server";
 import { findUserByEmail } from "~/services/auth/accounts.server";
 import { authenticateApiToken, createApiToken, revokeApiToken } from "~/services/auth/api-tokens.server";
 import { SESSION_LIFETIME_MS } from "~/services/auth/config.server";
 import { createSession, revokeSession, validateSessionToken } from "~/services/auth/sessions.server";
 import { hashSecret } from "~/services/auth/tokens.server";
-import { formPost, routeArgs, settle, testDb } from "../helpers";
+import { getViewer, requireApiUser, requirePermission, requireUser } from "~/services/auth.server";
+import { formPost, routeArgs, settle, testDb } from "@test/routes";
 
 const DAY = 24 * 3600 * 1000;
 let userId: number;
@@ -23,7 +23,8 @@ beforeEach(async () => {
   userId = (await findUserByEmail(testDb(), "ines.arroyo@valle-alto.example"))!.id;
 });
 
-const withCookie = (token: string, path = "/") => new Request(`http://localhost:3000${path}`, { headers: { Cookie: `fd_session=${token}` } });
+const withCookie = (token: string, path = "/") =>
+  new Request(`http://localhost:3000${path}`, { headers: { Cookie: `fd_session=${token}` } });
 
 describe("sessions", () => {
   it("stores only the SHA-256 of the cookie token", async () => {
@@ -69,13 +70,21 @@ describe("sessions", () => {
     expect(page.sessions.map((s: { id: string }) => s.id).sort()).toEqual([mine.session.id, other.session.id].sort());
 
     const refused = await accountAction(
-      routeArgs("/account", formPost({ intent: "revoke-session", sessionId: theirs.session.id }, { Cookie: `fd_session=${mine.token}` })),
+      routeArgs(
+        "/account",
+        formPost({ intent: "revoke-session", sessionId: theirs.session.id }, { Cookie: `fd_session=${mine.token}` }),
+      ),
     );
     expect(refused).toMatchObject({ init: { status: 404 } });
     expect(await validateSessionToken(testDb(), theirs.token)).not.toBeNull();
 
     const ok = await settle(() =>
-      accountAction(routeArgs("/account", formPost({ intent: "revoke-session", sessionId: other.session.id }, { Cookie: `fd_session=${mine.token}` }))),
+      accountAction(
+        routeArgs(
+          "/account",
+          formPost({ intent: "revoke-session", sessionId: other.session.id }, { Cookie: `fd_session=${mine.token}` }),
+        ),
+      ),
     );
     expect(ok.status).toBe(302);
     expect(await validateSessionToken(testDb(), other.token)).toBeNull();
@@ -101,7 +110,8 @@ describe("API tokens", () => {
     const { token, row } = await createApiToken(testDb(), userId, "batch script");
     expect(token.startsWith("fdk_")).toBe(true);
     expect(row.tokenHash).toBe(hashSecret(token));
-    const bearer = (t: string) => new Request("http://localhost:3000/api/coverage", { method: "POST", headers: { Authorization: `Bearer ${t}` } });
+    const bearer = (t: string) =>
+      new Request("http://localhost:3000/api/coverage", { method: "POST", headers: { Authorization: `Bearer ${t}` } });
 
     const viewer = await requireApiUser(bearer(token));
     expect(viewer.user.email).toBe("ines.arroyo@valle-alto.example");
@@ -121,8 +131,13 @@ describe("API tokens", () => {
     const { token: session } = await createSession(testDb(), userId, { method: "sso" });
     const cookie = { Cookie: `fd_session=${session}` };
     const empty = await accountAction(routeArgs("/account", formPost({ intent: "create-token", name: "   " }, cookie)));
-    expect(empty).toMatchObject({ init: { status: 400 }, data: { error: expect.stringContaining("Give the token a name") } });
-    const created = (await accountAction(routeArgs("/account", formPost({ intent: "create-token", name: "nightly plots" }, cookie)))) as {
+    expect(empty).toMatchObject({
+      init: { status: 400 },
+      data: { error: expect.stringContaining("Give the token a name") },
+    });
+    const created = (await accountAction(
+      routeArgs("/account", formPost({ intent: "create-token", name: "nightly plots" }, cookie)),
+    )) as {
       newToken: { token: string };
     };
     expect(created.newToken.token).toMatch(/^fdk_[a-z2-7]{32}$/);

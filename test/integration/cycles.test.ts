@@ -1,5 +1,5 @@
-import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
+import { beforeAll, describe, expect, it } from "vitest";
 import { seedDemoScenario } from "~/db/factories.server";
 import { cycles, proposalHours, proposals } from "~/db/schema/proposals";
 import { action as editAction, loader as editLoader } from "~/routes/cycles/edit";
@@ -8,7 +8,7 @@ import { action as newAction } from "~/routes/cycles/new";
 import { findUserByEmail } from "~/services/auth/accounts.server";
 import { createSession } from "~/services/auth/sessions.server";
 import { configurationChoices } from "~/services/configurations.server";
-import { formPost, routeArgs, settle, testDb } from "../helpers";
+import { formPost, routeArgs, settle, testDb } from "@test/routes";
 
 let chair = "";
 let proposer = "";
@@ -88,22 +88,33 @@ describe("cycles", () => {
   });
 
   it("refuses a deadline after the first night, an empty offer and a duplicate name", async () => {
-    const late = (await newAction(routeArgs("/cycles/new", formPost(cycleForm({ name: "X1", submissionDeadline: "2027-09-02T00:00" }), { Cookie: chair })))) as {
+    const late = (await newAction(
+      routeArgs(
+        "/cycles/new",
+        formPost(cycleForm({ name: "X1", submissionDeadline: "2027-09-02T00:00" }), { Cookie: chair }),
+      ),
+    )) as {
       data: { errors: Record<string, string> };
     };
     expect(late.data.errors.submissionDeadline).toBe("Deadline: must fall before the first night of the cycle");
-    const none = (await newAction(routeArgs("/cycles/new", formPost(cycleForm({ name: "X2", offered: [] }), { Cookie: chair })))) as {
+    const none = (await newAction(
+      routeArgs("/cycles/new", formPost(cycleForm({ name: "X2", offered: [] }), { Cookie: chair })),
+    )) as {
       data: { errors: Record<string, string> };
     };
     expect(none.data.errors.offered).toBe("Configurations: offer at least one configuration");
-    const dup = (await newAction(routeArgs("/cycles/new", formPost(cycleForm({ name: "2027A" }), { Cookie: chair })))) as {
+    const dup = (await newAction(
+      routeArgs("/cycles/new", formPost(cycleForm({ name: "2027A" }), { Cookie: chair })),
+    )) as {
       data: { errors: Record<string, string> };
     };
     expect(dup.data.errors.name).toBe("Name: a cycle called 2027A exists already");
   });
 
   it("refuses proposers (403) and anonymous visitors (sign-in)", async () => {
-    const forbidden = await settle(() => newAction(routeArgs("/cycles/new", formPost(cycleForm({ name: "Z" }), { Cookie: proposer }))));
+    const forbidden = await settle(() =>
+      newAction(routeArgs("/cycles/new", formPost(cycleForm({ name: "Z" }), { Cookie: proposer }))),
+    );
     expect(forbidden.status).toBe(403);
     const anon = await settle(() => newAction(routeArgs("/cycles/new", formPost(cycleForm({ name: "Z" })))));
     expect(anon.status).toBe(302);
@@ -114,21 +125,32 @@ describe("cycles", () => {
     const [cycle] = await testDb().select().from(cycles).where(eq(cycles.name, "2027B"));
     const pi = await findUserByEmail(testDb(), "ines.arroyo@valle-alto.example");
     const [p] = await testDb().insert(proposals).values({ cycleId: cycle.id, piId: pi!.id, title: "Test" }).returning();
-    await testDb().insert(proposalHours).values({ proposalId: p.id, configurationId: configIds["medium-4"], hours: 10 });
-    const page = await editLoader(routeArgs(`/cycles/${cycle.id}/edit`, { headers: { Cookie: chair }, params: { cycleId: String(cycle.id) } }));
+    await testDb()
+      .insert(proposalHours)
+      .values({ proposalId: p.id, configurationId: configIds["medium-4"], hours: 10 });
+    const page = await editLoader(
+      routeArgs(`/cycles/${cycle.id}/edit`, { headers: { Cookie: chair }, params: { cycleId: String(cycle.id) } }),
+    );
     const form = { ...page.values, offered: [String(configIds["compact-3"])] } as Record<string, unknown>;
     const fields: Record<string, string | string[]> = {};
     for (const [k, val] of Object.entries(form)) if (k !== "nights") fields[k] = val as string | string[];
     const out = (await editAction(
-      routeArgs(`/cycles/${cycle.id}/edit`, { ...formPost(fields, { Cookie: chair }), params: { cycleId: String(cycle.id) } }),
+      routeArgs(`/cycles/${cycle.id}/edit`, {
+        ...formPost(fields, { Cookie: chair }),
+        params: { cycleId: String(cycle.id) },
+      }),
     )) as { data: { errors: Record<string, string> } };
     expect(out.data.errors.offered).toBe("Configurations: proposals already request medium-4; keep them on offer");
   });
 
   it("answers 404 for an unknown cycle", async () => {
-    const res = await settle(() => editLoader(routeArgs("/cycles/99999/edit", { headers: { Cookie: chair }, params: { cycleId: "99999" } })));
+    const res = await settle(() =>
+      editLoader(routeArgs("/cycles/99999/edit", { headers: { Cookie: chair }, params: { cycleId: "99999" } })),
+    );
     expect(res.status).toBe(404);
-    const junk = await settle(() => editLoader(routeArgs("/cycles/abc/edit", { headers: { Cookie: chair }, params: { cycleId: "abc" } })));
+    const junk = await settle(() =>
+      editLoader(routeArgs("/cycles/abc/edit", { headers: { Cookie: chair }, params: { cycleId: "abc" } })),
+    );
     expect(junk.status).toBe(404);
   });
 });

@@ -5,17 +5,23 @@ import { outboxMessages } from "~/db/schema/mail";
 import { userRoles, users } from "~/db/schema/users";
 import { RoleChangeEmail } from "~/emails/RoleChangeEmail";
 import { SignInLinkEmail } from "~/emails/SignInLinkEmail";
-import { parseMailEnv } from "~/services/mail/config.server";
 import { loader as mailboxLoader } from "~/routes/mailbox/index";
 import { loader as messageLoader } from "~/routes/mailbox/message";
 import { SESSION_COOKIE } from "~/services/auth/config.server";
 import { createSession } from "~/services/auth/sessions.server";
-import { getMessage, listMessages, MAILBOX_PAGE_SIZE, parseMailboxQuery, parseMessageId } from "~/services/mail/mailbox.server";
+import { parseMailEnv } from "~/services/mail/config.server";
+import {
+  getMessage,
+  listMessages,
+  MAILBOX_PAGE_SIZE,
+  parseMailboxQuery,
+  parseMessageId,
+} from "~/services/mail/mailbox.server";
 import { enqueueMail } from "~/services/mail/outbox.server";
 import { deliverDue, retryDelayMs, startOutboxSender } from "~/services/mail/sender.server";
 import { createMailTransport, type MailTransport } from "~/services/mail/transport.server";
-import { startFakeSmtp, type FakeSmtp } from "../../scripts/fakes/smtp";
-import { routeArgs, testDb } from "../helpers";
+import { type FakeSmtp, startFakeSmtp } from "../../scripts/fakes/smtp";
+import { routeArgs, testDb } from "@test/routes";
 
 const LINK = "http://localhost:3000/auth/email/verify?token=abcdefghijklmnopqrstuvwxyz234567";
 
@@ -29,7 +35,10 @@ function signInMail(to: string, subject = "Your sign-in link") {
 }
 
 function transportTo(port: number): MailTransport {
-  return createMailTransport({ ...parseMailEnv({}), SMTP_PORT: port }, { connectionMs: 2_000, greetingMs: 2_000, socketMs: 5_000 });
+  return createMailTransport(
+    { ...parseMailEnv({}), SMTP_PORT: port },
+    { connectionMs: 2_000, greetingMs: 2_000, socketMs: 5_000 },
+  );
 }
 
 async function row(id: number) {
@@ -104,7 +113,9 @@ describe("enqueueMail", () => {
     const db = testDb();
     await expect(enqueueMail(db, signInMail("not an address"))).rejects.toThrow(/to: not an e-mail address/);
     await expect(enqueueMail(db, signInMail("a@example.org", "two\nlines"))).rejects.toThrow(/subject spans lines/);
-    await expect(enqueueMail(db, { ...signInMail("a@example.org"), relatedUrl: "javascript:alert(1)" })).rejects.toThrow(/relatedUrl/);
+    await expect(
+      enqueueMail(db, { ...signInMail("a@example.org"), relatedUrl: "javascript:alert(1)" }),
+    ).rejects.toThrow(/relatedUrl/);
     await expect(enqueueMail(db, { ...signInMail("a@example.org"), kind: "gossip" as never })).rejects.toThrow(/kind/);
     expect(await db.select().from(outboxMessages)).toHaveLength(0);
   });
@@ -150,7 +161,10 @@ describe("deliverDue", () => {
       .where(eq(outboxMessages.id, m.id));
     const transport = track(transportTo(smtp!.port));
     expect(await deliverDue(db, transport)).toEqual({ sent: [], failed: [] });
-    expect(await deliverDue(db, transport, { now: new Date(Date.now() + 61_000) })).toEqual({ sent: [m.id], failed: [] });
+    expect(await deliverDue(db, transport, { now: new Date(Date.now() + 61_000) })).toEqual({
+      sent: [m.id],
+      failed: [],
+    });
     expect(smtp!.messages()).toHaveLength(1);
   });
 
@@ -165,7 +179,12 @@ describe("deliverDue", () => {
       kind: "role-change",
       to: "tomas@example.org",
       subject: "Your roles in Fringe Docket have changed",
-      element: createElement(RoleChangeEmail, { name: "Tomás", rolesGranted: ["reviewer"], rolesRevoked: [], byName: "Ada" }),
+      element: createElement(RoleChangeEmail, {
+        name: "Tomás",
+        rolesGranted: ["reviewer"],
+        rolesRevoked: [],
+        byName: "Ada",
+      }),
     });
 
     // Just after the message was written (its stamp has microseconds; a JS date only milliseconds).
@@ -190,7 +209,10 @@ describe("deliverDue", () => {
     // Before that instant nothing is tried, even with the server back.
     smtp = await startFakeSmtp({ port });
     expect(smtp.port).toBe(port);
-    expect(await deliverDue(db, transport, { now: new Date(r.nextAttemptAt.getTime() - 1) })).toEqual({ sent: [], failed: [] });
+    expect(await deliverDue(db, transport, { now: new Date(r.nextAttemptAt.getTime() - 1) })).toEqual({
+      sent: [],
+      failed: [],
+    });
     expect(smtp.messages()).toHaveLength(0);
 
     const t2 = new Date(r.nextAttemptAt.getTime() + 1);
@@ -257,7 +279,9 @@ describe("deliverDue", () => {
 
 describe("retryDelayMs", () => {
   it("doubles from 5 s and stops at 10 min", () => {
-    expect([1, 2, 3, 4, 5, 6, 7, 8].map(retryDelayMs)).toEqual([5_000, 10_000, 20_000, 40_000, 80_000, 160_000, 320_000, 600_000]);
+    expect([1, 2, 3, 4, 5, 6, 7, 8].map(retryDelayMs)).toEqual([
+      5_000, 10_000, 20_000, 40_000, 80_000, 160_000, 320_000, 600_000,
+    ]);
     expect(retryDelayMs(50)).toBe(600_000);
     expect(retryDelayMs(5000)).toBe(600_000);
     expect(retryDelayMs(0)).toBe(5_000);
@@ -320,7 +344,10 @@ describe("startOutboxSender", () => {
       },
       close() {},
     };
-    for (let i = 0; i < 6; i++) await db.insert(outboxMessages).values({ kind: "reminder", toAddress: `r${i}@example.org`, subject: "R", html: "<p>R</p>", text: "R" });
+    for (let i = 0; i < 6; i++)
+      await db
+        .insert(outboxMessages)
+        .values({ kind: "reminder", toAddress: `r${i}@example.org`, subject: "R", html: "<p>R</p>", text: "R" });
     const sender = startOutboxSender({ db, transport: slow, intervalMs: 3_600_000, batch: 2 });
     try {
       for (let i = 0; i < 20; i++) sender.wake();
@@ -372,11 +399,13 @@ describe("mailbox reads", () => {
     const q = (s: string) => parseMailboxQuery(new URLSearchParams(s));
     expect(q("")).toEqual({ q: "", page: 1 });
     expect(q("q=%20ines%20&page=2")).toEqual({ q: "ines", page: 2 });
-    for (const bad of ["page=0", "page=-3", "page=abc", "page=1.5", "page=99999999999", "page="]) expect(q(bad).page).toBe(1);
+    for (const bad of ["page=0", "page=-3", "page=abc", "page=1.5", "page=99999999999", "page="])
+      expect(q(bad).page).toBe(1);
     expect(q(`q=${"x".repeat(500)}`).q).toHaveLength(200);
 
     expect(parseMessageId("42")).toBe(42);
-    for (const bad of [undefined, "", "0", "-1", "042", "4e2", "1.0", "abc", "99999999999", "2147483648"]) expect(parseMessageId(bad)).toBeNull();
+    for (const bad of [undefined, "", "0", "-1", "042", "4e2", "1.0", "abc", "99999999999", "2147483648"])
+      expect(parseMessageId(bad)).toBeNull();
   });
 });
 
@@ -422,13 +451,17 @@ describe("mailbox pages", () => {
     const found = await mailboxLoader(routeArgs("/mailbox?q=viewer", init));
     expect(found.rows.map((r) => r.id)).toEqual([mine.id]);
 
-    const one = await messageLoader(routeArgs(`/mailbox/${mine.id}`, { ...init, params: { messageId: String(mine.id) } }));
+    const one = await messageLoader(
+      routeArgs(`/mailbox/${mine.id}`, { ...init, params: { messageId: String(mine.id) } }),
+    );
     expect(one.message.subject).toBe("For the viewer");
     expect(one.message.html).toContain(LINK);
     expect(one.message.status).toBe("pending");
 
     for (const bad of ["0", "abc", "1e3", "99999999999", String(mine.id + 1000)]) {
-      const thrown = await thrownBy(() => messageLoader(routeArgs(`/mailbox/${bad}`, { ...init, params: { messageId: bad } })));
+      const thrown = await thrownBy(() =>
+        messageLoader(routeArgs(`/mailbox/${bad}`, { ...init, params: { messageId: bad } })),
+      );
       expect(thrown.init?.status).toBe(404);
     }
   });

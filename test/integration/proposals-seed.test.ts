@@ -1,11 +1,17 @@
-import { describe, expect, it } from "vitest";
 import { asc, eq, sql } from "drizzle-orm";
+import { describe, expect, it } from "vitest";
 import { DEMO_PROPOSALS } from "~/db/demo-scenario";
 import { seedDemoScenario } from "~/db/factories.server";
-import { proposalDocuments, proposalMembers, proposals, proposalVersions, PROPOSAL_STATUSES } from "~/db/schema/proposals";
+import {
+  PROPOSAL_STATUSES,
+  proposalDocuments,
+  proposalMembers,
+  proposals,
+  proposalVersions,
+} from "~/db/schema/proposals";
 import { checkPdf } from "~/services/pdf";
-import { sha256Hex, type ProposalSnapshot } from "~/services/proposals.server";
-import { testDb } from "../helpers";
+import { type ProposalSnapshot, sha256Hex } from "~/services/proposals.server";
+import { testDb } from "@test/routes";
 
 describe("demo proposals in the seed", () => {
   it("writes a dozen proposals in every status, with frozen versions past draft, and is idempotent", async () => {
@@ -39,7 +45,10 @@ describe("demo proposals in the seed", () => {
     const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(proposalDocuments);
     expect(n).toBe(DEMO_PROPOSALS.filter((d) => d.pdf).length);
     // Invited co-investigators without an account stay unlinked until they sign up.
-    const invited = await db.select().from(proposalMembers).where(eq(proposalMembers.email, "lucia.ferreyra@quebrada-obs.example"));
+    const invited = await db
+      .select()
+      .from(proposalMembers)
+      .where(eq(proposalMembers.email, "lucia.ferreyra@quebrada-obs.example"));
     expect(invited).toHaveLength(1);
     expect(invited[0].userId).toBeNull();
   });

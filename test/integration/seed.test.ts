@@ -4,7 +4,7 @@ import { DEMO_PEOPLE } from "~/db/demo-scenario";
 import { isEmpty, seedDemoScenario } from "~/db/factories.server";
 import { configurationStations, configurations, sites, stations } from "~/db/schema/array";
 import { userRoles, users } from "~/db/schema/users";
-import { testDb } from "../helpers";
+import { testDb } from "@test/routes";
 
 describe("demo seed", () => {
   it("starts from an empty, migrated database", async () => {
@@ -28,7 +28,9 @@ describe("demo seed", () => {
     expect(outriggers).toHaveLength(6);
     // Core on a triangular grid of 16 m: every core station has a neighbour exactly 16 m away.
     for (const s of core) {
-      const nearest = Math.min(...core.filter((o) => o !== s).map((o) => Math.hypot(o.eastM - s.eastM, o.northM - s.northM)));
+      const nearest = Math.min(
+        ...core.filter((o) => o !== s).map((o) => Math.hypot(o.eastM - s.eastM, o.northM - s.northM)),
+      );
       expect(nearest).toBeCloseTo(16, 2);
     }
     // Outriggers 110–330 m from the core centre.

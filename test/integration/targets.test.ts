@@ -1,5 +1,5 @@
-import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
+import { beforeAll, describe, expect, it } from "vitest";
 import { seedDemoScenario } from "~/db/factories.server";
 import { targets } from "~/db/schema/proposals";
 import { action as editAction, loader as editLoader } from "~/routes/targets/edit";
@@ -9,7 +9,7 @@ import { action as createAction, loader as listLoader } from "~/routes/targets/i
 import { findUserByEmail } from "~/services/auth/accounts.server";
 import { createSession } from "~/services/auth/sessions.server";
 import { parseTargetCsv } from "~/services/target-io";
-import { formPost, routeArgs, settle, testDb } from "../helpers";
+import { formPost, routeArgs, settle, testDb } from "@test/routes";
 
 let ines = "";
 let tomasz = "";
@@ -40,7 +40,20 @@ describe("My targets", () => {
       createAction(
         routeArgs(
           "/targets",
-          formPost({ intent: "create", name: "Lumbre Nova 12", ra: "05:36:12.8", dec: "-01:12:07", model: "uniformDisk", size_mas: "3.1", mag_H: "4.2", mag_K: "", mag_N: "" }, { Cookie: ines }),
+          formPost(
+            {
+              intent: "create",
+              name: "Lumbre Nova 12",
+              ra: "05:36:12.8",
+              dec: "-01:12:07",
+              model: "uniformDisk",
+              size_mas: "3.1",
+              mag_H: "4.2",
+              mag_K: "",
+              mag_N: "",
+            },
+            { Cookie: ines },
+          ),
         ),
       ),
     );
@@ -54,7 +67,13 @@ describe("My targets", () => {
 
   it("names the bad fields, keeps the input and writes nothing", async () => {
     const out = (await createAction(
-      routeArgs("/targets", formPost({ intent: "create", name: "Broken", ra: "26:00:00", dec: "-95", model: "gaussian", size_mas: "-2" }, { Cookie: ines })),
+      routeArgs(
+        "/targets",
+        formPost(
+          { intent: "create", name: "Broken", ra: "26:00:00", dec: "-95", model: "gaussian", size_mas: "-2" },
+          { Cookie: ines },
+        ),
+      ),
     )) as { init: { status: number }; data: { values: Record<string, string>; errors: Record<string, string> } };
     expect(out.init.status).toBe(400);
     expect(out.data.values.ra).toBe("26:00:00");
@@ -65,16 +84,28 @@ describe("My targets", () => {
 
   it("refuses a second target of the same name", async () => {
     const out = (await createAction(
-      routeArgs("/targets", formPost({ intent: "create", name: "lumbre nova 12", ra: "1", dec: "1", model: "point" }, { Cookie: ines })),
+      routeArgs(
+        "/targets",
+        formPost({ intent: "create", name: "lumbre nova 12", ra: "1", dec: "1", model: "point" }, { Cookie: ines }),
+      ),
     )) as { data: { errors: Record<string, string> } };
     expect(out.data.errors.name).toBe("Name: you already have a target called lumbre nova 12");
   });
 
   it("keeps each person's targets to themselves (404) and refuses other roles (403)", async () => {
     const [t] = await mine();
-    const other = await settle(() => editLoader(routeArgs(`/targets/${t.id}`, { headers: { Cookie: tomasz }, params: { targetId: String(t.id) } })));
+    const other = await settle(() =>
+      editLoader(routeArgs(`/targets/${t.id}`, { headers: { Cookie: tomasz }, params: { targetId: String(t.id) } })),
+    );
     expect(other.status).toBe(404);
-    const del = await settle(() => editAction(routeArgs(`/targets/${t.id}`, { ...formPost({ intent: "delete" }, { Cookie: tomasz }), params: { targetId: String(t.id) } })));
+    const del = await settle(() =>
+      editAction(
+        routeArgs(`/targets/${t.id}`, {
+          ...formPost({ intent: "delete" }, { Cookie: tomasz }),
+          params: { targetId: String(t.id) },
+        }),
+      ),
+    );
     expect(del.status).toBe(404);
     expect(await mine()).toHaveLength(1);
     const role = await settle(() => listLoader(routeArgs("/targets", { headers: { Cookie: scheduler } })));
@@ -82,8 +113,16 @@ describe("My targets", () => {
   });
 
   it("imports nothing when any row is broken (bad RA, missing value, duplicate name)", async () => {
-    const csv = [header, "Ceniza A,06:00:00,-20:00:00,point,,5", "Ceniza B,99:00:00,-20,point,,5", "Ceniza C,07:00:00,-20,uniformDisk,,5", "Ceniza A,08:00:00,-20,point,,5"].join("\n");
-    const out = (await importAction(routeArgs("/targets/import", formPost({ intent: "import", csv }, { Cookie: ines })))) as {
+    const csv = [
+      header,
+      "Ceniza A,06:00:00,-20:00:00,point,,5",
+      "Ceniza B,99:00:00,-20,point,,5",
+      "Ceniza C,07:00:00,-20,uniformDisk,,5",
+      "Ceniza A,08:00:00,-20,point,,5",
+    ].join("\n");
+    const out = (await importAction(
+      routeArgs("/targets/import", formPost({ intent: "import", csv }, { Cookie: ines })),
+    )) as {
       init: { status: number };
       data: { preview: { errors: { row: number; column: string }[] } };
     };
@@ -93,25 +132,42 @@ describe("My targets", () => {
   });
 
   it("refuses a file without the required columns", async () => {
-    const out = (await importAction(routeArgs("/targets/import", formPost({ intent: "import", csv: "name,ra\nX,1" }, { Cookie: ines })))) as {
+    const out = (await importAction(
+      routeArgs("/targets/import", formPost({ intent: "import", csv: "name,ra\nX,1" }, { Cookie: ines })),
+    )) as {
       data: { preview: { errors: { message: string }[] } };
     };
     expect(out.data.preview.errors[0].message).toBe("missing column dec (the header needs name, ra, dec)");
   });
 
   it("previews, then imports a good list in one go; replacing updates by name", async () => {
-    const csv = [header, "Ceniza A,06:00:00,-20:00:00,point,,5", "Lumbre Nova 12,05:36:12.8,-01:12:07,uniformDisk,3.5,4.1"].join("\n");
-    const preview = (await importAction(routeArgs("/targets/import", formPost({ intent: "preview", csv }, { Cookie: ines })))) as {
+    const csv = [
+      header,
+      "Ceniza A,06:00:00,-20:00:00,point,,5",
+      "Lumbre Nova 12,05:36:12.8,-01:12:07,uniformDisk,3.5,4.1",
+    ].join("\n");
+    const preview = (await importAction(
+      routeArgs("/targets/import", formPost({ intent: "preview", csv }, { Cookie: ines })),
+    )) as {
       data: { preview: { errors: { message: string }[] } };
     };
-    expect(preview.data.preview.errors.map((e) => e.message)).toEqual(['"Lumbre Nova 12" is already in My targets (tick "replace" to update it)']);
+    expect(preview.data.preview.errors.map((e) => e.message)).toEqual([
+      '"Lumbre Nova 12" is already in My targets (tick "replace" to update it)',
+    ]);
     expect(await mine()).toHaveLength(1);
-    const withReplace = (await importAction(routeArgs("/targets/import", formPost({ intent: "preview", csv, replace: "on" }, { Cookie: ines })))) as {
+    const withReplace = (await importAction(
+      routeArgs("/targets/import", formPost({ intent: "preview", csv, replace: "on" }, { Cookie: ines })),
+    )) as {
       data: { preview: { rows: { name: string; change: string }[]; errors: unknown[] } };
     };
     expect(withReplace.data.preview.errors).toEqual([]);
-    expect(withReplace.data.preview.rows.map((r) => `${r.name}:${r.change}`)).toEqual(["Ceniza A:new", "Lumbre Nova 12:update"]);
-    const done = await settle(() => importAction(routeArgs("/targets/import", formPost({ intent: "import", csv, replace: "on" }, { Cookie: ines }))));
+    expect(withReplace.data.preview.rows.map((r) => `${r.name}:${r.change}`)).toEqual([
+      "Ceniza A:new",
+      "Lumbre Nova 12:update",
+    ]);
+    const done = await settle(() =>
+      importAction(routeArgs("/targets/import", formPost({ intent: "import", csv, replace: "on" }, { Cookie: ines }))),
+    );
     expect(done.status).toBe(302);
     const rows = await mine();
     expect(rows.map((t) => t.name).sort()).toEqual(["Ceniza A", "Lumbre Nova 12"]);
@@ -120,7 +176,15 @@ describe("My targets", () => {
 
   it("refuses an oversized upload before reading it", async () => {
     const out = (await importAction(
-      routeArgs("/targets/import", { method: "POST", body: "x", headers: { Cookie: ines, "Content-Type": "application/x-www-form-urlencoded", "Content-Length": String(5 * 1024 * 1024) } }),
+      routeArgs("/targets/import", {
+        method: "POST",
+        body: "x",
+        headers: {
+          Cookie: ines,
+          "Content-Type": "application/x-www-form-urlencoded",
+          "Content-Length": String(5 * 1024 * 1024),
+        },
+      }),
     )) as { init: { status: number }; data: { fileError: string } };
     expect(out.init.status).toBe(400);
     expect(out.data.fileError).toMatch(/larger than 512 KB/);
@@ -130,7 +194,9 @@ describe("My targets", () => {
     const res = await exportLoader(routeArgs("/targets/export.csv", { headers: { Cookie: ines } }));
     expect(res.headers.get("Content-Type")).toMatch(/text\/csv/);
     const text = await res.text();
-    expect(text.split(/\r?\n/)[0]).toBe("name,ra,dec,model,size_mas,ld_coefficient,separation_mas,position_angle_deg,flux_ratio,mag_H,notes");
+    expect(text.split(/\r?\n/)[0]).toBe(
+      "name,ra,dec,model,size_mas,ld_coefficient,separation_mas,position_angle_deg,flux_ratio,mag_H,notes",
+    );
     const back = parseTargetCsv(text);
     expect(back.errors).toEqual([]);
     expect(back.targets.map((t) => t.name).sort()).toEqual(["Ceniza A", "Lumbre Nova 12"]);

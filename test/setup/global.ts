@@ -24,7 +24,9 @@ export default async function setup(project: TestProject) {
     if (startedHere && process.env.KEEP_PG !== "1") {
       const { execFileSync } = await import("node:child_process");
       const { fileURLToPath } = await import("node:url");
-      execFileSync("bash", [fileURLToPath(new URL("../../docker-less-pg.sh", import.meta.url)), "stop"], { stdio: "inherit" });
+      execFileSync("bash", [fileURLToPath(new URL("../../docker-less-pg.sh", import.meta.url)), "stop"], {
+        stdio: "inherit",
+      });
     }
   };
 }

@@ -1,17 +1,21 @@
 import { describe, expect, it } from "vitest";
 import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "~/db/demo-scenario";
+import { channelWavelengthsM } from "~/engine";
 import {
-  bandWavelengthsM,
   computeFeasibility,
   cycleNights,
   FEASIBILITY_THRESHOLDS,
+  type FeasibilityInput,
+  type FeasibilityTarget,
   magnitudeLine,
   modelSizeMas,
   visibilityLine,
   worstVerdict,
-  type FeasibilityInput,
-  type FeasibilityTarget,
 } from "~/services/feasibility";
+
+/** The band's channels, as the feasibility report samples them. */
+const bandWavelengthsM = (b: { centralWavelengthM: number; bandwidthM: number; channels: number }) =>
+  channelWavelengthsM(b.centralWavelengthM, b.bandwidthM, b.channels);
 
 const MAS = Math.PI / (180 * 3600 * 1000);
 
@@ -60,7 +64,8 @@ const input = (over: Partial<FeasibilityInput>): FeasibilityInput => ({
   ...over,
 });
 
-const line = (cell: { lines: { check: string; verdict: string; reason: string }[] }, check: string) => cell.lines.find((l) => l.check === check)!;
+const line = (cell: { lines: { check: string; verdict: string; reason: string }[] }, check: string) =>
+  cell.lines.find((l) => l.check === check)!;
 
 describe("feasibility report against published checks", () => {
   it("first null of a uniform disk at B = 1.2197 λ/θ (Abramowitz & Stegun Table 9.5: first zero of J1 = 3.8317)", () => {
@@ -75,13 +80,15 @@ describe("feasibility report against published checks", () => {
 
   it("3 mas uniform disk on the 28–42 m compact configuration at H is only partly resolved: caution", () => {
     const report = computeFeasibility(
-      input({ targets: [target({ name: "Disk 3 mas", model: { type: "uniformDisk", diameterMas: 3 }, magnitudes: { H: 3 } })] }),
+      input({
+        targets: [target({ name: "Disk 3 mas", model: { type: "uniformDisk", diameterMas: 3 }, magnitudes: { H: 3 } })],
+      }),
       new Date("2026-12-01T00:00:00Z"),
     );
     const cell = report.cells[0];
     const f = cell.figures;
     // λ/(2 B_max) at the central wavelength, in mas (the resolution element the line compares with).
-    expect(f.resolutionMas!).toBeCloseTo((1.65e-6 / (2 * f.longestBaselineM!)) / MAS, 2);
+    expect(f.resolutionMas!).toBeCloseTo(1.65e-6 / (2 * f.longestBaselineM!) / MAS, 2);
     expect(f.resolutionMas!).toBeGreaterThan(3);
     expect(line(cell, "resolution").verdict).toBe("caution");
     // V² range from the uniform-disk formula with the test's own J1: highest at the shortest
@@ -102,7 +109,10 @@ describe("feasibility report against published checks", () => {
     // First null at 1.2197 λ/θ = 41.5 m for 10 mas at 1.65 µm (A&S Table 9.5); every extended
     // baseline lies beyond it, where the Airy pattern's rings stay below 1.75 % (from memory).
     const report = computeFeasibility(
-      input({ configurations: [stationsOf("extended-6")], targets: [target({ model: { type: "uniformDisk", diameterMas: 10 } })] }),
+      input({
+        configurations: [stationsOf("extended-6")],
+        targets: [target({ model: { type: "uniformDisk", diameterMas: 10 } })],
+      }),
     );
     const v = line(report.cells[0], "visibility");
     expect(v.verdict).toBe("fail");
@@ -112,7 +122,10 @@ describe("feasibility report against published checks", () => {
 
   it("a 0.2 mas disk on the compact configuration at 10 µm is unresolved: caution", () => {
     const report = computeFeasibility(
-      input({ band: N, targets: [target({ model: { type: "uniformDisk", diameterMas: 0.2 }, magnitudes: { N: 0.5 } })] }),
+      input({
+        band: N,
+        targets: [target({ model: { type: "uniformDisk", diameterMas: 0.2 }, magnitudes: { N: 0.5 } })],
+      }),
     );
     const v = line(report.cells[0], "visibility");
     expect(v.verdict).toBe("caution");
@@ -133,7 +146,10 @@ describe("feasibility report against published checks", () => {
     // Extended-6 spans 137–456 m while the stroke is 90 m: with all six stations the delay lines
     // rarely cover every baseline at once, but the target is up and subsets of stations observe.
     const report = computeFeasibility(
-      input({ configurations: [stationsOf("extended-6")], targets: [target({ raDeg: 164.12, decDeg: -45.6, model: { type: "uniformDisk", diameterMas: 0.9 } })] }),
+      input({
+        configurations: [stationsOf("extended-6")],
+        targets: [target({ raDeg: 164.12, decDeg: -45.6, model: { type: "uniformDisk", diameterMas: 0.9 } })],
+      }),
     );
     const cell = report.cells[0];
     expect(cell.nights[0].upHours).toBeGreaterThan(cell.nights[0].observableHours);
@@ -146,7 +162,10 @@ describe("feasibility report against published checks", () => {
 
   it("counts closure triangles: 1 for 3 stations, 20 with 10 independent for 6 (Monnier 2003)", () => {
     const report = computeFeasibility(
-      input({ configurations: [stationsOf("compact-3"), stationsOf("extended-6")], targets: [target({ raDeg: 200, decDeg: -45 })] }),
+      input({
+        configurations: [stationsOf("compact-3"), stationsOf("extended-6")],
+        targets: [target({ raDeg: 200, decDeg: -45 })],
+      }),
     );
     const [compact, extended] = report.cells;
     expect(compact.figures.triangles).toBe(1);
@@ -156,7 +175,9 @@ describe("feasibility report against published checks", () => {
   });
 
   it("fails a configuration larger than the combiner takes", () => {
-    const report = computeFeasibility(input({ band: N, configurations: [stationsOf("extended-6")], targets: [target({ magnitudes: { N: 1 } })] }));
+    const report = computeFeasibility(
+      input({ band: N, configurations: [stationsOf("extended-6")], targets: [target({ magnitudes: { N: 1 } })] }),
+    );
     const c = line(report.cells[0], "combiner");
     expect(c.verdict).toBe("fail");
     expect(c.reason).toBe("Ascua combines at most 4 telescopes; extended-6 has 6 stations.");
@@ -164,13 +185,17 @@ describe("feasibility report against published checks", () => {
 
   it("checks time-critical windows against the observing period and the sky", () => {
     const outside = computeFeasibility(
-      input({ targets: [target({ timeWindows: [{ startUtc: "2027-10-01T00:00:00Z", endUtc: "2027-10-02T00:00:00Z" }] })] }),
+      input({
+        targets: [target({ timeWindows: [{ startUtc: "2027-10-01T00:00:00Z", endUtc: "2027-10-02T00:00:00Z" }] })],
+      }),
     );
     expect(line(outside.cells[0], "windows").reason).toMatch(/outside the observing period/);
     expect(line(outside.cells[0], "windows").verdict).toBe("fail");
     // RA 150°, Dec −40° transits near local midnight in early March at this longitude.
     const inside = computeFeasibility(
-      input({ targets: [target({ timeWindows: [{ startUtc: "2027-03-02T00:00:00Z", endUtc: "2027-03-04T12:00:00Z" }] })] }),
+      input({
+        targets: [target({ timeWindows: [{ startUtc: "2027-03-02T00:00:00Z", endUtc: "2027-03-04T12:00:00Z" }] })],
+      }),
     );
     expect(line(inside.cells[0], "windows").verdict).toBe("pass");
   });
@@ -183,7 +208,9 @@ describe("feasibility report against published checks", () => {
   });
 
   it("fails a stored model the engine cannot read, naming it", () => {
-    const report = computeFeasibility(input({ targets: [target({ model: { type: "uniformDisk", diameterMas: -1 } })] }));
+    const report = computeFeasibility(
+      input({ targets: [target({ model: { type: "uniformDisk", diameterMas: -1 } })] }),
+    );
     expect(line(report.cells[0], "model").verdict).toBe("fail");
   });
 });
@@ -214,7 +241,11 @@ describe("feasibility building blocks", () => {
   });
 
   it("samples the first, middle and last night of the cycle", () => {
-    expect(cycleNights("2027-03-01", "2027-08-31").map((n) => n.date)).toEqual(["2027-03-01", "2027-05-31", "2027-08-31"]);
+    expect(cycleNights("2027-03-01", "2027-08-31").map((n) => n.date)).toEqual([
+      "2027-03-01",
+      "2027-05-31",
+      "2027-08-31",
+    ]);
   });
 
   it("gives a model's characteristic size", () => {

@@ -30,7 +30,9 @@ describe("sign-in link e-mail", () => {
   });
 
   it("greets a first-time address without a name and states another validity", async () => {
-    const { html, text } = await renderMail(createElement(SignInLinkEmail, { name: null, url: LINK, expiresMinutes: 1 }));
+    const { html, text } = await renderMail(
+      createElement(SignInLinkEmail, { name: null, url: LINK, expiresMinutes: 1 }),
+    );
     expect(text).toMatch(/^Fringe Docket/);
     expect(text).toContain("Hello,");
     expect(text).toContain("within the next 1 minute.");

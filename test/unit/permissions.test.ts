@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { can, permissionsFor, ROLE_PERMISSIONS, sectionsFor } from "~/services/permissions";
 import { ROLES } from "~/db/schema/users";
+import { can, permissionsFor, ROLE_PERMISSIONS, sectionsFor } from "~/services/permissions";
 
 describe("permissions", () => {
   it("covers every role", () => {
@@ -28,7 +28,8 @@ describe("permissions", () => {
 
 describe("sections by role", () => {
   it("shows People only to administrators and the mailbox to admins or, in demo mode, to everyone signed in", () => {
-    const labels = (roles: Parameters<typeof sectionsFor>[0], o?: Parameters<typeof sectionsFor>[1]) => sectionsFor(roles, o).map((s) => s.label);
+    const labels = (roles: Parameters<typeof sectionsFor>[0], o?: Parameters<typeof sectionsFor>[1]) =>
+      sectionsFor(roles, o).map((s) => s.label);
     expect(labels(["admin"])).toContain("People");
     expect(labels(["chair"])).not.toContain("People");
     expect(labels(["proposer"], { signedIn: true, demoMode: false })).not.toContain("Mailbox");

@@ -3,26 +3,26 @@ import * as v from "valibot";
 import { describe, expect, it } from "vitest";
 import {
   BandFormSchema,
-  ConfigurationSchema,
-  MAX_IMPORT_BYTES,
-  SiteSchema,
-  StationSchema,
   bandsToCsv,
+  ConfigurationSchema,
   configurationsToCsv,
   decodeUpload,
   fieldErrors,
   issueText,
-  micronsToMetres,
+  MAX_IMPORT_BYTES,
   metresToMicrons,
+  micronsToMetres,
   parseRegistryJson,
   parseStationsCsv,
   parseStationsFile,
   parseStationsJson,
   planRegistry,
   planStations,
-  registryToJson,
-  stationsToCsv,
   type RegistrySnapshot,
+  registryToJson,
+  SiteSchema,
+  StationSchema,
+  stationsToCsv,
 } from "~/services/registry-io";
 
 const utf8 = (s: string) => new TextEncoder().encode(s);
@@ -54,7 +54,9 @@ describe("station CSV", () => {
 
   it("names the missing column", () => {
     const out = parseStationsCsv("name,northM,upM,pathOffsetM\nC01,1,0,0\n");
-    expect(texts(out.errors)).toEqual(["eastM: the column is missing (the header row must name name, eastM, northM, upM, pathOffsetM)"]);
+    expect(texts(out.errors)).toEqual([
+      "eastM: the column is missing (the header row must name name, eastM, northM, upM, pathOffsetM)",
+    ]);
     expect(out.stations).toEqual([]);
   });
 
@@ -89,7 +91,9 @@ C05,"5,5",6,0,0
   });
 
   it("ignores extra columns and says which", () => {
-    const out = parseStationsCsv("name,eastM,northM,upM,pathOffsetM,Distance from centre (m),notes\nC01,3,4,0,0,5,pier\n");
+    const out = parseStationsCsv(
+      "name,eastM,northM,upM,pathOffsetM,Distance from centre (m),notes\nC01,3,4,0,0,5,pier\n",
+    );
     expect(out.errors).toEqual([]);
     expect(out.stations).toHaveLength(1);
     expect(out.notices).toEqual(["Not used and ignored: the columns “Distance from centre (m)”, “notes”."]);
@@ -105,8 +109,12 @@ C05,"5,5",6,0,0
       "row 1: has 3 values but the header has 5 columns",
       "row 2: has 6 values but the header has 5 columns",
     ]);
-    expect(texts(parseStationsCsv('name,eastM,northM,upM,pathOffsetM\n"C01,0,0,0,0\n').errors)).toEqual(["row 1: a quoted value is never closed"]);
-    expect(texts(parseStationsCsv("name,eastM,northM,upM,pathOffsetM\n").errors)).toEqual(["The file has a header row but no stations under it."]);
+    expect(texts(parseStationsCsv('name,eastM,northM,upM,pathOffsetM\n"C01,0,0,0,0\n').errors)).toEqual([
+      "row 1: a quoted value is never closed",
+    ]);
+    expect(texts(parseStationsCsv("name,eastM,northM,upM,pathOffsetM\n").errors)).toEqual([
+      "The file has a header row but no stations under it.",
+    ]);
     expect(texts(parseStationsCsv("\n\n").errors)).toEqual(["The file is empty."]);
   });
 
@@ -150,7 +158,9 @@ describe("station JSON", () => {
 
   it("refuses broken JSON, a wrong shape and an empty list", () => {
     expect(parseStationsJson("[{").errors[0].message).toMatch(/^The file is not valid JSON \(/);
-    expect(texts(parseStationsJson('{"name":"C01"}').errors)).toEqual(["The JSON must be a list of stations, or an object with a “stations” list."]);
+    expect(texts(parseStationsJson('{"name":"C01"}').errors)).toEqual([
+      "The JSON must be a list of stations, or an object with a “stations” list.",
+    ]);
     expect(texts(parseStationsJson("[]").errors)).toEqual(["The list of stations is empty."]);
   });
 });
@@ -164,21 +174,54 @@ describe("uploads", () => {
   it("refuses empty, oversized, UTF-16, Latin-1, binary and zipped files with a reason", () => {
     expect(decodeUpload(new Uint8Array())).toEqual({ ok: false, error: "The file is empty." });
     expect(decodeUpload(utf8("  \n\t"))).toEqual({ ok: false, error: "The file is empty." });
-    expect(decodeUpload(new Uint8Array(MAX_IMPORT_BYTES + 1).fill(65))).toEqual({ ok: false, error: "The file is 1.0 MB; the limit is 1.0 MB." });
-    expect(decodeUpload(new Uint8Array(2_600_000).fill(65))).toEqual({ ok: false, error: "The file is 2.6 MB; the limit is 1.0 MB." });
-    expect(decodeUpload(new Uint8Array([0xff, 0xfe, 0x6e, 0x00]))).toMatchObject({ ok: false, error: expect.stringMatching(/UTF-16/) });
-    expect(decodeUpload(new Uint8Array([0x41, 0xf1, 0x6f]))).toEqual({ ok: false, error: "The file is not UTF-8 text; save it as UTF-8 and try again." });
-    expect(decodeUpload(new Uint8Array([0x41, 0x00, 0x42]))).toEqual({ ok: false, error: "This is not a text file; import a CSV or JSON file." });
-    expect(decodeUpload(new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0x14]))).toMatchObject({ ok: false, error: expect.stringMatching(/workbook/) });
+    expect(decodeUpload(new Uint8Array(MAX_IMPORT_BYTES + 1).fill(65))).toEqual({
+      ok: false,
+      error: "The file is 1.0 MB; the limit is 1.0 MB.",
+    });
+    expect(decodeUpload(new Uint8Array(2_600_000).fill(65))).toEqual({
+      ok: false,
+      error: "The file is 2.6 MB; the limit is 1.0 MB.",
+    });
+    expect(decodeUpload(new Uint8Array([0xff, 0xfe, 0x6e, 0x00]))).toMatchObject({
+      ok: false,
+      error: expect.stringMatching(/UTF-16/),
+    });
+    expect(decodeUpload(new Uint8Array([0x41, 0xf1, 0x6f]))).toEqual({
+      ok: false,
+      error: "The file is not UTF-8 text; save it as UTF-8 and try again.",
+    });
+    expect(decodeUpload(new Uint8Array([0x41, 0x00, 0x42]))).toEqual({
+      ok: false,
+      error: "This is not a text file; import a CSV or JSON file.",
+    });
+    expect(decodeUpload(new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0x14]))).toMatchObject({
+      ok: false,
+      error: expect.stringMatching(/workbook/),
+    });
   });
 });
 
 describe("value rules shared with the forms", () => {
-  const site = { name: "Test", latitudeDeg: "-31.4", longitudeDeg: "-68.9", altitudeM: "2450", minElevationDeg: "30", delayLineStrokeM: "90", timeZone: "UTC" };
+  const site = {
+    name: "Test",
+    latitudeDeg: "-31.4",
+    longitudeDeg: "-68.9",
+    altitudeM: "2450",
+    minElevationDeg: "30",
+    delayLineStrokeM: "90",
+    timeZone: "UTC",
+  };
 
   it("accepts a good site and names each bad field", () => {
     expect(v.safeParse(SiteSchema, site).success).toBe(true);
-    const bad = v.safeParse(SiteSchema, { ...site, latitudeDeg: "-91", longitudeDeg: "181", minElevationDeg: "95", delayLineStrokeM: "0", timeZone: "Mars/Olympus" });
+    const bad = v.safeParse(SiteSchema, {
+      ...site,
+      latitudeDeg: "-91",
+      longitudeDeg: "181",
+      minElevationDeg: "95",
+      delayLineStrokeM: "0",
+      timeZone: "Mars/Olympus",
+    });
     expect(bad.success).toBe(false);
     if (bad.success) return;
     expect(fieldErrors(bad.issues)).toEqual({
@@ -196,8 +239,18 @@ describe("value rules shared with the forms", () => {
   });
 
   it("reads a configuration's stations from text, in order, each once, at least two", () => {
-    const ok = v.safeParse(ConfigurationSchema, { name: "wide", description: "", offered: "on", stations: "X01, C02  X03" });
-    expect(ok.success && ok.output).toEqual({ name: "wide", description: "", offered: true, stations: ["X01", "C02", "X03"] });
+    const ok = v.safeParse(ConfigurationSchema, {
+      name: "wide",
+      description: "",
+      offered: "on",
+      stations: "X01, C02  X03",
+    });
+    expect(ok.success && ok.output).toEqual({
+      name: "wide",
+      description: "",
+      offered: true,
+      stations: ["X01", "C02", "X03"],
+    });
     const off = v.safeParse(ConfigurationSchema, { name: "wide", stations: ["A", "B"], offered: false });
     expect(off.success && off.output.offered).toBe(false);
     const one = v.safeParse(ConfigurationSchema, { name: "x", stations: "C01" });
@@ -207,14 +260,32 @@ describe("value rules shared with the forms", () => {
   });
 
   it("takes band wavelengths in µm, stores metres as typed, and keeps the bandwidth below twice the centre", () => {
-    const ok = v.safeParse(BandFormSchema, { name: "H", centralWavelengthUm: "1.65", channels: "6", bandwidthUm: "0.3", limitingMagnitude: "7.5" });
+    const ok = v.safeParse(BandFormSchema, {
+      name: "H",
+      centralWavelengthUm: "1.65",
+      channels: "6",
+      bandwidthUm: "0.3",
+      limitingMagnitude: "7.5",
+    });
     expect(ok.success).toBe(true);
     expect(micronsToMetres(1.65)).toBe(1.65e-6);
     expect(micronsToMetres(2.2)).toBe(2.2e-6);
     expect(metresToMicrons(1.65e-6)).toBe(1.65);
-    const wide = v.safeParse(BandFormSchema, { name: "H", centralWavelengthUm: "1", channels: "1.5", bandwidthUm: "0.5", limitingMagnitude: "7" });
+    const wide = v.safeParse(BandFormSchema, {
+      name: "H",
+      centralWavelengthUm: "1",
+      channels: "1.5",
+      bandwidthUm: "0.5",
+      limitingMagnitude: "7",
+    });
     expect(!wide.success && fieldErrors(wide.issues)).toEqual({ channels: "must be a whole number" });
-    const wide2 = v.safeParse(BandFormSchema, { name: "H", centralWavelengthUm: "1", channels: "1", bandwidthUm: "2", limitingMagnitude: "7" });
+    const wide2 = v.safeParse(BandFormSchema, {
+      name: "H",
+      centralWavelengthUm: "1",
+      channels: "1",
+      bandwidthUm: "2",
+      limitingMagnitude: "7",
+    });
     expect(!wide2.success && fieldErrors(wide2.issues)).toEqual({
       bandwidthUm: "must be less than twice the central wavelength (the band's short edge would fall below zero)",
     });
@@ -222,7 +293,15 @@ describe("value rules shared with the forms", () => {
 });
 
 const SNAPSHOT: RegistrySnapshot = {
-  site: { name: "Test Array", latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450, minElevationDeg: 30, delayLineStrokeM: 90, timeZone: "UTC" },
+  site: {
+    name: "Test Array",
+    latitudeDeg: -31.4,
+    longitudeDeg: -68.9,
+    altitudeM: 2450,
+    minElevationDeg: 30,
+    delayLineStrokeM: 90,
+    timeZone: "UTC",
+  },
   stations: [
     { name: "A1", eastM: 0, northM: 0, upM: 0, pathOffsetM: 0 },
     { name: "A2", eastM: 10, northM: 0, upM: 0, pathOffsetM: 1 },
@@ -230,14 +309,26 @@ const SNAPSHOT: RegistrySnapshot = {
     { name: "A4", eastM: 20, northM: 20, upM: 0, pathOffsetM: 3 },
   ],
   configurations: [{ name: "pair", description: "two", offered: true, stations: ["A1", "A2"] }],
-  instruments: [{ name: "Combiner", description: "", maxTelescopes: 3, bands: [{ name: "H", centralWavelengthM: 1.65e-6, channels: 6, bandwidthM: 0.3e-6, limitingMagnitude: 7.5 }] }],
+  instruments: [
+    {
+      name: "Combiner",
+      description: "",
+      maxTelescopes: 3,
+      bands: [{ name: "H", centralWavelengthM: 1.65e-6, channels: 6, bandwidthM: 0.3e-6, limitingMagnitude: 7.5 }],
+    },
+  ],
 };
 
 describe("what a station import would change", () => {
-  const incoming = parseStationsCsv("name,eastM,northM,upM,pathOffsetM\nA1,0,0,0,0\nA2,11,0,0,1\nB1,5,5,0,0\n").stations;
+  const incoming = parseStationsCsv(
+    "name,eastM,northM,upM,pathOffsetM\nA1,0,0,0,0\nA2,11,0,0,1\nB1,5,5,0,0\n",
+  ).stations;
 
   it("sorts stations into new, updated (with the changed fields) and unchanged, and keeps the rest by default", () => {
-    const plan = planStations(SNAPSHOT.stations, incoming, { removeMissing: false, usage: { A1: ["pair"], A2: ["pair"] } });
+    const plan = planStations(SNAPSHOT.stations, incoming, {
+      removeMissing: false,
+      usage: { A1: ["pair"], A2: ["pair"] },
+    });
     expect(plan.lines.map((l) => [l.name, l.change, l.changed])).toEqual([
       ["A1", "unchanged", []],
       ["A2", "updated", ["eastM"]],
@@ -249,7 +340,10 @@ describe("what a station import would change", () => {
   });
 
   it("removes stations missing from the file only when asked, and never one a configuration uses", () => {
-    const plan = planStations(SNAPSHOT.stations, incoming.slice(2), { removeMissing: true, usage: { A1: ["pair"], A2: ["pair"] } });
+    const plan = planStations(SNAPSHOT.stations, incoming.slice(2), {
+      removeMissing: true,
+      usage: { A1: ["pair"], A2: ["pair"] },
+    });
     expect(plan.lines.map((l) => [l.name, l.change])).toEqual([
       ["B1", "new"],
       ["A1", "keep"],
@@ -297,7 +391,9 @@ describe("whole registry JSON", () => {
       ["pair", "updated", ["stations"]],
       ["all", "new", []],
     ]);
-    expect(plan.instruments[0].bands.map((b) => [b.name, b.change, b.changed])).toEqual([["H", "updated", ["limitingMagnitude"]]]);
+    expect(plan.instruments[0].bands.map((b) => [b.name, b.change, b.changed])).toEqual([
+      ["H", "updated", ["limitingMagnitude"]],
+    ]);
     expect(plan.notices).toEqual(["Configuration all has 4 stations; no instrument combines more than 3."]);
   });
 
@@ -337,7 +433,9 @@ describe("whole registry JSON", () => {
     const file = exported();
     file.configurations.push({ name: "far", stations: ["A1", "Z9"] });
     const plan = planRegistry(SNAPSHOT, parseRegistryJson(JSON.stringify(file)).registry!, { removeMissing: false });
-    expect(texts(plan.errors)).toEqual(["configurations row 2, stations: Z9 is neither in the file's stations nor at the site"]);
+    expect(texts(plan.errors)).toEqual([
+      "configurations row 2, stations: Z9 is neither in the file's stations nor at the site",
+    ]);
   });
 
   it("refuses CSV, missing lists and a foreign format", () => {
@@ -348,7 +446,9 @@ describe("whole registry JSON", () => {
       "configurations: the file needs a “configurations” list (it may be empty)",
       "instruments: the file needs a “instruments” list (it may be empty)",
     ]);
-    expect(texts(parseRegistryJson(JSON.stringify({ ...exported(), format: "other" })).errors)).toEqual(["format: must be “fringe-docket-registry”"]);
+    expect(texts(parseRegistryJson(JSON.stringify({ ...exported(), format: "other" })).errors)).toEqual([
+      "format: must be “fringe-docket-registry”",
+    ]);
   });
 });
 

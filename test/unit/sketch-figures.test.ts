@@ -68,7 +68,12 @@ describe("model curves", () => {
     // baseline perpendicular to the separation (CONVENTIONS.md binary model).
     const sepRad = (4 / 3600 / 1000) * (Math.PI / 180);
     const rMin = 1 / (2 * sepRad) / 1e6; // Mλ along PA 90°
-    const curves = modelVis2Curves({ type: "binary", separationMas: 4, positionAngleDeg: 90, fluxRatio: 0.5 }, rMin * 2, [0, 90], 401);
+    const curves = modelVis2Curves(
+      { type: "binary", separationMas: 4, positionAngleDeg: 90, fluxRatio: 0.5 },
+      rMin * 2,
+      [0, 90],
+      401,
+    );
     expect(curves.map((c) => c.positionAngleDeg)).toEqual([0, 90]);
     expect(curves[1].vis2[200]).toBeCloseTo((0.5 / 1.5) ** 2, 9);
     for (const v of curves[0].vis2) expect(v).toBeCloseTo(1, 9);
@@ -120,9 +125,28 @@ describe("image window", () => {
 describe("samples", () => {
   // Reasons as docs/cli.md prints them.
   const samples = [
-    { hourAngleH: -5, elevationDeg: 13.4, observable: false, airmass: 4.2, reason: "elevation 13.4° below minimum 30.0°; delay line out of range on 3 baselines (worst C02–W1 needs 231.6 m, stroke 90 m)" },
-    { hourAngleH: -4, elevationDeg: 25, observable: false, airmass: 2.3, reason: "elevation 25.0° below minimum 30.0°" },
-    { hourAngleH: 2, elevationDeg: 48.6, observable: false, airmass: 1.3321, reason: "delay line out of range on 3 baselines (worst C02–W1 needs 162.6 m, stroke 90 m)" },
+    {
+      hourAngleH: -5,
+      elevationDeg: 13.4,
+      observable: false,
+      airmass: 4.2,
+      reason:
+        "elevation 13.4° below minimum 30.0°; delay line out of range on 3 baselines (worst C02–W1 needs 231.6 m, stroke 90 m)",
+    },
+    {
+      hourAngleH: -4,
+      elevationDeg: 25,
+      observable: false,
+      airmass: 2.3,
+      reason: "elevation 25.0° below minimum 30.0°",
+    },
+    {
+      hourAngleH: 2,
+      elevationDeg: 48.6,
+      observable: false,
+      airmass: 1.3321,
+      reason: "delay line out of range on 3 baselines (worst C02–W1 needs 162.6 m, stroke 90 m)",
+    },
     { hourAngleH: 3, elevationDeg: 40, observable: false, airmass: 1.5, reason: "Sun at -12.0°, above -18°" },
     { hourAngleH: -3, elevationDeg: 37.9, observable: true, airmass: 1.6251, reason: null },
     { hourAngleH: 0, elevationDeg: 60, observable: true, airmass: 1.1542, reason: null },
@@ -155,6 +179,15 @@ describe("samples", () => {
     expect(c).toHaveLength(2);
     expect(c[0]).toMatch(/20° from the Sun/);
     for (const line of c) expect(line).toMatch(/observatory's operating rules/);
-    expect(cautions({ sunSeparationDeg: 120, hourAngleSampling: false, windows: [], duskMs: dusk, dawnMs: null, stepMin: 10 })).toEqual([]);
+    expect(
+      cautions({
+        sunSeparationDeg: 120,
+        hourAngleSampling: false,
+        windows: [],
+        duskMs: dusk,
+        dawnMs: null,
+        stepMin: 10,
+      }),
+    ).toEqual([]);
   });
 });

@@ -1,18 +1,15 @@
 import { describe, expect, it } from "vitest";
-import { airmassKastenYoung } from "~/services/astro/airmass";
-import { elevationRad } from "~/services/astro/horizon";
-import { gastRad } from "~/services/astro/sidereal";
-import { dateFromJulianDay, deltaTSeconds } from "~/services/astro/time";
+import { airmassKastenYoung, dateFromJulianDay, deltaTSeconds, elevationRad, gastRad } from "~/engine";
 import {
-  SIDEREAL_PER_SOLAR,
   angularSeparationDeg,
   elevationAtDeg,
   elevationForAirmass,
   lstTicks,
   moonAltitudeCurve,
   nextNightDate,
-  raTransitingAtMidnight,
   observableWindows,
+  raTransitingAtMidnight,
+  SIDEREAL_PER_SOLAR,
   targetAltitudeCurve,
   twilightBands,
 } from "~/services/sketch-night";
@@ -43,7 +40,13 @@ describe("altitudes", () => {
     // Meeus, Astronomical Algorithms 2nd ed., ex. 13.b: 1987 April 10, 19h21m00s UT (JD 2446896.30625),
     // φ = +38°55′17″, L = 77°03′56″ W, α = 23h09m16.641s, δ = −6°43′11.61″ → h = 15.1249°.
     // Meeus uses apparent sidereal time; mean sidereal time differs by < 0.3 s here (< 0.002° in h).
-    const h = elevationAtDeg(2446896.30625, 38 + 55 / 60 + 17 / 3600, -(77 + 3 / 60 + 56 / 3600), 347.3193375, -6.719891667);
+    const h = elevationAtDeg(
+      2446896.30625,
+      38 + 55 / 60 + 17 / 3600,
+      -(77 + 3 / 60 + 56 / 3600),
+      347.3193375,
+      -6.719891667,
+    );
     expect(h).toBeCloseTo(15.1249, 2);
     expect(Math.abs(h - 15.1249)).toBeLessThan(0.005);
   });
@@ -55,7 +58,8 @@ describe("altitudes", () => {
     const jdUt = jdTd - deltaTSeconds(jdTd) / 86400;
     const t = dateFromJulianDay(jdUt).getTime();
     const curve = moonAltitudeCurve({ latDeg: -31.4, lonDeg: -68.9, startMs: t, endMs: t, stepMin: 10 });
-    const expected = (elevationRad(rad(-31.4), rad(13.768368), gastRad(jdUt) + rad(-68.9) - rad(134.68847)) * 180) / Math.PI;
+    const expected =
+      (elevationRad(rad(-31.4), rad(13.768368), gastRad(jdUt) + rad(-68.9) - rad(134.68847)) * 180) / Math.PI;
     expect(curve.altitudeDeg).toHaveLength(1);
     expect(Math.abs(curve.altitudeDeg[0] - expected)).toBeLessThan(0.01);
   });
@@ -63,7 +67,15 @@ describe("altitudes", () => {
   it("culminates at the meridian: a target's highest point is 90° − |φ − δ|", () => {
     // Spherical astronomy (e.g. Meeus ch. 13): the maximum altitude of a star is 90° − |φ − δ|.
     const start = Date.parse("2027-03-15T22:00:00Z");
-    const c = targetAltitudeCurve({ latDeg: -31.4, lonDeg: -68.9, raDeg: 165, decDeg: -35, startMs: start, endMs: start + 12 * 3.6e6, stepMin: 1 });
+    const c = targetAltitudeCurve({
+      latDeg: -31.4,
+      lonDeg: -68.9,
+      raDeg: 165,
+      decDeg: -35,
+      startMs: start,
+      endMs: start + 12 * 3.6e6,
+      stepMin: 1,
+    });
     expect(Math.max(...c.elevationDeg)).toBeGreaterThan(90 - 3.6 - 0.2);
     expect(Math.max(...c.elevationDeg)).toBeLessThan(90 - 3.6 + 0.2);
     c.elevationDeg.forEach((e, k) => {
@@ -119,7 +131,16 @@ describe("bands and windows", () => {
     const start = Date.parse("2027-03-15T22:00:00Z");
     const end = Date.parse("2027-03-16T11:30:00Z");
     const bands = twilightBands(night, start, end);
-    expect(bands.map((b) => b.kind)).toEqual(["day", "civil", "nautical", "astronomical", "astronomical", "nautical", "civil", "day"]);
+    expect(bands.map((b) => b.kind)).toEqual([
+      "day",
+      "civil",
+      "nautical",
+      "astronomical",
+      "astronomical",
+      "nautical",
+      "civil",
+      "day",
+    ]);
     for (let k = 1; k < bands.length; k++) expect(bands[k].startMs).toBeGreaterThanOrEqual(bands[k - 1].endMs);
     expect(bands[3].endMs).toBe(Date.parse(night.astronomicalDuskUtc));
     expect(bands[4].startMs).toBe(Date.parse(night.astronomicalDawnUtc));

@@ -1,8 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "~/db/demo-scenario";
-import { parseCoverageRequest, parseEphemerisRequest, parseTrianglesRequest } from "~/services/requests";
+import { parseCoverageRequest, parseEphemerisRequest, parseTrianglesRequest } from "~/engine";
 import {
-  type RegistryLike,
   apiErrorText,
   buildCoverageRequest,
   buildEphemerisRequest,
@@ -10,6 +9,7 @@ import {
   hourAngleList,
   inputForApiField,
   modelFromState,
+  type RegistryLike,
   sizeFailure,
 } from "~/services/sketch-request";
 import { ALL_STATIONS, readSketchState, readTriangleState } from "~/services/sketch-state";
@@ -25,7 +25,10 @@ const sketch = (q: string) => readSketchState(new URLSearchParams(q), defaults);
 
 describe("coverage request of a sketch", () => {
   it("builds a body the API accepts, with the configuration's stations in order and the band's channels", () => {
-    const built = buildCoverageRequest(sketch("name=Test&ra=05:36:12&dec=-01:12:07&model=uniformDisk&diam=3"), registry);
+    const built = buildCoverageRequest(
+      sketch("name=Test&ra=05:36:12&dec=-01:12:07&model=uniformDisk&diam=3"),
+      registry,
+    );
     expect(built.ok).toBe(true);
     if (!built.ok) return;
     const b = built.body;
@@ -43,7 +46,10 @@ describe("coverage request of a sketch", () => {
   });
 
   it("uses a free pick in registry order, an hour-angle range and the options", () => {
-    const built = buildCoverageRequest(sketch("ra=84.05&dec=-1.2&st=X02,C01&ha=-2,2,1&dl=off&minel=45&wt=uniform"), registry);
+    const built = buildCoverageRequest(
+      sketch("ra=84.05&dec=-1.2&st=X02,C01&ha=-2,2,1&dl=off&minel=45&wt=uniform"),
+      registry,
+    );
     expect(built.ok).toBe(true);
     if (!built.ok) return;
     expect(built.body.stations.map((s) => s.name)).toEqual(["C01", "X02"]);
@@ -130,7 +136,9 @@ describe("coverage request of a sketch", () => {
     expect(inputForApiField("beam.weighting")).toBe("weighting");
     expect(inputForApiField(null)).toBe("form");
     expect(apiErrorText(null, "request body is not valid JSON")).toBe("request body is not valid JSON");
-    expect(apiErrorText("night.date", "night.date: must be a real calendar date")).toBe("Night: must be a real calendar date");
+    expect(apiErrorText("night.date", "night.date: must be a real calendar date")).toBe(
+      "Night: must be a real calendar date",
+    );
   });
 
   it("builds a two-component sum with the second component's flux and offset", () => {
@@ -165,7 +173,10 @@ describe("triangle and ephemeris requests", () => {
   });
 
   it("refuses a pool the API could not answer in one request", () => {
-    const t = readTriangleState(new URLSearchParams(`ra=11:00:00&dec=-35&pool=${ALL_STATIONS}&inst=Ascua&band=N&step=2`), defaults);
+    const t = readTriangleState(
+      new URLSearchParams(`ra=11:00:00&dec=-35&pool=${ALL_STATIONS}&inst=Ascua&band=N&step=2`),
+      defaults,
+    );
     const built = buildTrianglesRequest(t, registry);
     expect(!built.ok && built.errors.step).toMatch(/^Time step: 276 baselines × 721 samples × 30 channels/);
   });

@@ -6,7 +6,11 @@ describe("filling the Sketchpad from a saved target", () => {
     const out = modelInputsOf({ type: "binary", separationMas: 12, positionAngleDeg: 40, fluxRatio: 0.4 });
     expect(out.second).toBeNull();
     expect(out.model.type).toBe("binary");
-    expect([out.model.params.separationMas, out.model.params.positionAngleDeg, out.model.params.fluxRatio]).toEqual(["12", "40", "0.4"]);
+    expect([out.model.params.separationMas, out.model.params.positionAngleDeg, out.model.params.fluxRatio]).toEqual([
+      "12",
+      "40",
+      "0.4",
+    ]);
   });
 
   it("turns a two-component sum into a model and a second component relative to the first", () => {
@@ -18,7 +22,13 @@ describe("filling the Sketchpad from a saved target", () => {
       ],
     });
     expect(out.model).toMatchObject({ type: "uniformDisk", params: { diameterMas: "3" } });
-    expect(out.second).toMatchObject({ type: "gaussian", flux: "0.5", east: "3", north: "-2", params: { fwhmMas: "8" } });
+    expect(out.second).toMatchObject({
+      type: "gaussian",
+      flux: "0.5",
+      east: "3",
+      north: "-2",
+      params: { fwhmMas: "8" },
+    });
   });
 
   it("falls back to a point source for a model it cannot show", () => {

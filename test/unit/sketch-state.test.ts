@@ -48,7 +48,14 @@ describe("Sketchpad state in the URL", () => {
     expect(s.model.params.separationMas).toBe("abc");
     expect(s.second).toMatchObject({ type: "gaussian", flux: "0.2", east: "1", north: "-2" });
     expect(s.second!.params.fwhmMas).toBe("8");
-    expect(s).toMatchObject({ sampling: "hourAngle", haFrom: "-3", haTo: "3", haStep: "0.5", minElevation: "40", delayLines: false });
+    expect(s).toMatchObject({
+      sampling: "hourAngle",
+      haFrom: "-3",
+      haTo: "3",
+      haStep: "0.5",
+      minElevation: "40",
+      delayLines: false,
+    });
     expect(s).toMatchObject({ weighting: "robust", uvUnit: "m" });
     const again = readSketchState(writeSketchState(s), defaults);
     expect(again).toEqual(s);
@@ -82,11 +89,22 @@ describe("Triangle finder state and the way back to the Sketchpad", () => {
   });
 
   it("opens a triangle in the Sketchpad with the same target, model, night and band", () => {
-    const t = readTriangleState(new URLSearchParams("name=T&ra=10:00:00&dec=-30&date=2027-05-02&model=ring&diam=3&band=K"), defaults);
+    const t = readTriangleState(
+      new URLSearchParams("name=T&ra=10:00:00&dec=-30&date=2027-05-02&model=ring&diam=3&band=K"),
+      defaults,
+    );
     const href = sketchpadHref(t, ["C03", "C05", "C15"]);
     expect(href.startsWith("/sketchpad?")).toBe(true);
     const s = readSketchState(new URLSearchParams(href.split("?")[1]), defaults);
-    expect(s).toMatchObject({ name: "T", ra: "10:00:00", dec: "-30", date: "2027-05-02", band: "K", config: "", stations: ["C03", "C05", "C15"] });
+    expect(s).toMatchObject({
+      name: "T",
+      ra: "10:00:00",
+      dec: "-30",
+      date: "2027-05-02",
+      band: "K",
+      config: "",
+      stations: ["C03", "C05", "C15"],
+    });
     expect(s.model).toEqual(t.model);
   });
 });

@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { parseTargetCsv, targetsToCsv } from "~/services/target-io";
 
-const header = "name,ra,dec,model,size_mas,ld_coefficient,separation_mas,position_angle_deg,flux_ratio,mag_H,mag_K,notes";
+const header =
+  "name,ra,dec,model,size_mas,ld_coefficient,separation_mas,position_angle_deg,flux_ratio,mag_H,mag_K,notes";
 
 describe("target list CSV", () => {
   it("reads sexagesimal and decimal coordinates, models and magnitudes", () => {
@@ -27,7 +28,9 @@ describe("target list CSV", () => {
   });
 
   it("reports a bad RA with its row and column, and keeps going", () => {
-    const out = parseTargetCsv([header, "Good,05:00:00,-10:00:00,,,,,,,,,", "Bad,25:00:00,-10:00:00,,,,,,,,,"].join("\n"));
+    const out = parseTargetCsv(
+      [header, "Good,05:00:00,-10:00:00,,,,,,,,,", "Bad,25:00:00,-10:00:00,,,,,,,,,"].join("\n"),
+    );
     expect(out.targets.map((t) => t.name)).toEqual(["Good"]);
     expect(out.errors).toHaveLength(1);
     expect(out.errors[0]).toMatchObject({ row: 3, column: "ra" });
@@ -36,11 +39,15 @@ describe("target list CSV", () => {
 
   it("names missing columns", () => {
     const out = parseTargetCsv("name,ra\nA,05:00:00");
-    expect(out.errors).toEqual([{ row: 1, column: "dec", message: "missing column dec (the header needs name, ra, dec)" }]);
+    expect(out.errors).toEqual([
+      { row: 1, column: "dec", message: "missing column dec (the header needs name, ra, dec)" },
+    ]);
   });
 
   it("refuses duplicate names within the file and names already in the list", () => {
-    const csv = [header, "Twin,05:00:00,-10,,,,,,,,,", "twin,06:00:00,-10,,,,,,,,,", "Old,07:00:00,-10,,,,,,,,,"].join("\n");
+    const csv = [header, "Twin,05:00:00,-10,,,,,,,,,", "twin,06:00:00,-10,,,,,,,,,", "Old,07:00:00,-10,,,,,,,,,"].join(
+      "\n",
+    );
     const out = parseTargetCsv(csv, { existingNames: new Set(["old"]) });
     expect(out.errors.map((e) => `${e.row}:${e.column}`)).toEqual(["3:name", "4:name"]);
     expect(out.errors[0].message).toBe('"twin" appears twice (also row 2)');
@@ -49,7 +56,14 @@ describe("target list CSV", () => {
   });
 
   it("asks for the model's parameters and checks their ranges", () => {
-    const out = parseTargetCsv([header, "NoSize,05:00:00,-10,uniformDisk,,,,,,,,", "BadLd,05:00:00,-10,limbDarkenedDisk,3,1.5,,,,,,", "Weird,05:00:00,-10,blob,,,,,,,,"].join("\n"));
+    const out = parseTargetCsv(
+      [
+        header,
+        "NoSize,05:00:00,-10,uniformDisk,,,,,,,,",
+        "BadLd,05:00:00,-10,limbDarkenedDisk,3,1.5,,,,,,",
+        "Weird,05:00:00,-10,blob,,,,,,,,",
+      ].join("\n"),
+    );
     expect(out.errors.map((e) => `${e.row}:${e.column}`)).toEqual(["2:size_mas", "3:ld_coefficient", "4:model"]);
     expect(out.targets).toEqual([]);
   });
@@ -63,11 +77,17 @@ describe("target list CSV", () => {
   });
 
   it("writes CSV that reads back to the same targets (round trip)", () => {
-    const first = parseTargetCsv([header, "Lumbre Nova 12,05:36:12.8,-01:12:07,uniformDisk,3.0,,,,,4.2,3.9,\"a, quoted note\""].join("\n"));
+    const first = parseTargetCsv(
+      [header, 'Lumbre Nova 12,05:36:12.8,-01:12:07,uniformDisk,3.0,,,,,4.2,3.9,"a, quoted note"'].join("\n"),
+    );
     expect(first.errors).toEqual([]);
     const again = parseTargetCsv(targetsToCsv(first.targets));
     expect(again.errors).toEqual([]);
-    expect(again.targets[0]).toMatchObject({ name: "Lumbre Nova 12", model: first.targets[0].model, magnitudes: first.targets[0].magnitudes });
+    expect(again.targets[0]).toMatchObject({
+      name: "Lumbre Nova 12",
+      model: first.targets[0].model,
+      magnitudes: first.targets[0].magnitudes,
+    });
     expect(again.targets[0].raDeg).toBeCloseTo(first.targets[0].raDeg, 9);
     expect(again.targets[0].decDeg).toBeCloseTo(first.targets[0].decDeg, 9);
   });

@@ -23,7 +23,15 @@ export function CycleForm({
       <FormErrors errors={summary} />
       <Card title="The cycle">
         <div className="grid gap-4 md:grid-cols-2">
-          <TextField label="Name" name="name" defaultValue={values.name} error={errors.name} maxLength={40} required placeholder="2027B" />
+          <TextField
+            label="Name"
+            name="name"
+            defaultValue={values.name}
+            error={errors.name}
+            maxLength={40}
+            required
+            placeholder="2027B"
+          />
           <TextField
             label="Submission deadline"
             unit="UTC"
@@ -33,10 +41,31 @@ export function CycleForm({
             error={errors.submissionDeadline}
             required
           />
-          <TextField label="First night" name="observingStart" type="date" defaultValue={values.observingStart} error={errors.observingStart} required hint="The night that begins on the evening of this date." />
-          <TextField label="Last night" name="observingEnd" type="date" defaultValue={values.observingEnd} error={errors.observingEnd} required />
+          <TextField
+            label="First night"
+            name="observingStart"
+            type="date"
+            defaultValue={values.observingStart}
+            error={errors.observingStart}
+            required
+            hint="The night that begins on the evening of this date."
+          />
+          <TextField
+            label="Last night"
+            name="observingEnd"
+            type="date"
+            defaultValue={values.observingEnd}
+            error={errors.observingEnd}
+            required
+          />
           <div className="md:col-span-2">
-            <TextArea label="Description" name="description" defaultValue={values.description} error={errors.description} maxLength={500} />
+            <TextArea
+              label="Description"
+              name="description"
+              defaultValue={values.description}
+              error={errors.description}
+              maxLength={500}
+            />
           </div>
         </div>
       </Card>
@@ -50,9 +79,16 @@ export function CycleForm({
           {configurations.map((c) => (
             <li key={c.id} className="flex flex-wrap items-center gap-4 py-3">
               <label className="flex min-w-56 flex-1 items-start gap-2">
-                <input type="checkbox" name="offered" value={c.id} defaultChecked={values.offered.includes(String(c.id))} className="mt-1 h-4 w-4 accent-ember-700" />
+                <input
+                  type="checkbox"
+                  name="offered"
+                  value={c.id}
+                  defaultChecked={values.offered.includes(String(c.id))}
+                  className="mt-1 h-4 w-4 accent-ember-700"
+                />
                 <span>
-                  <span className="font-medium">{c.name}</span> <span className="text-sm text-night-600">({c.stations} stations)</span>
+                  <span className="font-medium">{c.name}</span>{" "}
+                  <span className="text-sm text-night-600">({c.stations} stations)</span>
                   <span className="block text-sm text-night-600">{c.description}</span>
                 </span>
               </label>

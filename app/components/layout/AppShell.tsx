@@ -1,4 +1,4 @@
-import { useState, type ReactNode } from "react";
+import { type ReactNode, useState } from "react";
 import { Link, NavLink } from "react-router";
 import type { Section } from "~/services/permissions";
 import { cx } from "../ui/cx";
@@ -29,12 +29,18 @@ export function AppShell({
   const [open, setOpen] = useState(false);
   return (
     <div className="flex min-h-screen flex-col">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2"
+      >
         Skip to content
       </a>
       <header className="bg-night-900 text-white">
         <div className="mx-auto flex max-w-7xl items-center gap-3 px-4 py-3">
-          <Link to="/" className="flex items-center gap-2 rounded-md pr-2 text-lg font-semibold tracking-tight text-white">
+          <Link
+            to="/"
+            className="flex items-center gap-2 rounded-md pr-2 text-lg font-semibold tracking-tight text-white"
+          >
             <Logo />
             <span>Fringe Docket</span>
           </Link>

@@ -3,12 +3,13 @@
  * touches `self` at import time, so it must never be imported on the server: this component renders
  * a sized placeholder during server rendering and until the lazy chunk has arrived.
  */
-import { lazy, Suspense, useEffect, useState, type CSSProperties } from "react";
+import { type CSSProperties, lazy, Suspense, useEffect, useState } from "react";
 import type { PlotParams } from "react-plotly.js/factory";
 
 const LazyPlot = lazy(async () => {
   const [factory, plotly] = await Promise.all([import("react-plotly.js/factory"), import("plotly.js-dist-min")]);
-  const createPlotlyComponent = (factory as unknown as { default: (p: unknown) => React.ComponentType<PlotParams> }).default;
+  const createPlotlyComponent = (factory as unknown as { default: (p: unknown) => React.ComponentType<PlotParams> })
+    .default;
   return { default: createPlotlyComponent((plotly as { default: unknown }).default ?? plotly) };
 });
 
@@ -33,7 +34,8 @@ type LayoutObject = Record<string, unknown>;
 export function plotLayout(own: LayoutObject): LayoutObject {
   const out: LayoutObject = { ...baseLayout, ...own };
   for (const [key, value] of Object.entries(own)) {
-    if (/^[xy]axis\d*$/.test(key) && value && typeof value === "object") out[key] = { ...baseLayout.xaxis, ...(value as LayoutObject) };
+    if (/^[xy]axis\d*$/.test(key) && value && typeof value === "object")
+      out[key] = { ...baseLayout.xaxis, ...(value as LayoutObject) };
   }
   if (own.margin) out.margin = { ...baseLayout.margin, ...(own.margin as LayoutObject) };
   if (own.legend) out.legend = { ...baseLayout.legend, ...(own.legend as LayoutObject) };
@@ -42,8 +44,22 @@ export function plotLayout(own: LayoutObject): LayoutObject {
 
 /** One colour per series, chosen for contrast on white and told apart by people with common colour-vision deficiencies. */
 export const SERIES_COLOURS = [
-  "#a03611", "#1d4f8c", "#21603a", "#7a4d00", "#6b2f8f", "#0f6f73", "#b4234a", "#4d5a14",
-  "#c34512", "#3567b0", "#2f8a53", "#9c6a00", "#8a4bb3", "#178f94", "#d1456d", "#6b7a1f",
+  "#a03611",
+  "#1d4f8c",
+  "#21603a",
+  "#7a4d00",
+  "#6b2f8f",
+  "#0f6f73",
+  "#b4234a",
+  "#4d5a14",
+  "#c34512",
+  "#3567b0",
+  "#2f8a53",
+  "#9c6a00",
+  "#8a4bb3",
+  "#178f94",
+  "#d1456d",
+  "#6b7a1f",
 ];
 
 export function Plot({
@@ -60,12 +76,16 @@ export function Plot({
   useEffect(() => setMounted(true), []);
   const box: CSSProperties = { width: "100%", height, ...style };
   const placeholder = (
-    <div style={box} className="flex items-center justify-center rounded-lg bg-night-50 text-sm text-night-500" aria-hidden="true">
+    <div
+      style={box}
+      className="flex items-center justify-center rounded-lg bg-night-50 text-sm text-night-500"
+      aria-hidden="true"
+    >
       Drawing the plot…
     </div>
   );
   return (
-    <figure role="figure" aria-label={label} className="m-0">
+    <figure aria-label={label} className="m-0">
       {mounted ? (
         <Suspense fallback={placeholder}>
           <LazyPlot

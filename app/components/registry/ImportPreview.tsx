@@ -3,7 +3,7 @@
  * configuration, instrument and band for a whole registry), the changed values side by side.
  */
 import type { ReactNode } from "react";
-import { Badge, DataTable, type BadgeTone, type Column } from "~/components/ui";
+import { Badge, type BadgeTone, type Column, DataTable } from "~/components/ui";
 import type {
   BandLine,
   Change,
@@ -45,12 +45,23 @@ export function ChangeCounts({ counts, noun }: { counts: Record<Change, number>;
 }
 
 /** "12.5" or, when it changes, "12.5 → 13" with the new value marked. */
-function Value<T>({ before, after, changed, format }: { before: T | undefined; after: T | undefined; changed: boolean; format: (x: T) => string }) {
+function Value<T>({
+  before,
+  after,
+  changed,
+  format,
+}: {
+  before: T | undefined;
+  after: T | undefined;
+  changed: boolean;
+  format: (x: T) => string;
+}) {
   if (after === undefined) return <span className="text-night-500">{before === undefined ? "—" : format(before)}</span>;
   if (!changed || before === undefined) return <>{format(after)}</>;
   return (
     <span className="whitespace-nowrap">
-      <span className="text-night-500 line-through">{format(before)}</span> → <mark className="rounded bg-caution-50 px-1 font-semibold text-caution-700">{format(after)}</mark>
+      <span className="text-night-500 line-through">{format(before)}</span> →{" "}
+      <mark className="rounded bg-caution-50 px-1 font-semibold text-caution-700">{format(after)}</mark>
     </span>
   );
 }
@@ -64,19 +75,41 @@ function stationColumn(key: StationColumn, header: string): Column<StationLine> 
     unit: "m",
     align: "right",
     value: (l) => (l.after ?? l.before)?.[key] ?? null,
-    render: (l) => <Value before={l.before?.[key] as number | undefined} after={l.after?.[key] as number | undefined} changed={l.changed.includes(key)} format={num} />,
+    render: (l) => (
+      <Value
+        before={l.before?.[key] as number | undefined}
+        after={l.after?.[key] as number | undefined}
+        changed={l.changed.includes(key)}
+        format={num}
+      />
+    ),
   };
 }
 
 const stationColumns: Column<StationLine>[] = [
   { key: "row", header: "Row", align: "right", value: (l) => l.row },
-  { key: "name", header: "Station", value: (l) => l.name, render: (l) => <span className="font-medium">{l.name}</span> },
-  { key: "change", header: "Change", value: (l) => CHANGE[l.change].label, render: (l) => <ChangeBadge change={l.change} /> },
+  {
+    key: "name",
+    header: "Station",
+    value: (l) => l.name,
+    render: (l) => <span className="font-medium">{l.name}</span>,
+  },
+  {
+    key: "change",
+    header: "Change",
+    value: (l) => CHANGE[l.change].label,
+    render: (l) => <ChangeBadge change={l.change} />,
+  },
   stationColumn("eastM", "East"),
   stationColumn("northM", "North"),
   stationColumn("upM", "Up"),
   stationColumn("pathOffsetM", "Path offset"),
-  { key: "note", header: "Note", value: (l) => l.note, render: (l) => <span className="text-night-600">{l.note ?? ""}</span> },
+  {
+    key: "note",
+    header: "Note",
+    value: (l) => l.note,
+    render: (l) => <span className="text-night-600">{l.note ?? ""}</span>,
+  },
 ];
 
 /** A station of the site that the file does not mention and that nothing happens to. */
@@ -93,7 +126,12 @@ export function StationChanges({ lines }: { lines: StationLine[] }) {
   return (
     <div className="space-y-2">
       {shown.length > 0 ? (
-        <DataTable caption="What the import would do to each station" columns={stationColumns} rows={shown} rowKey={(l) => `${l.row ?? "site"}-${l.name}`} />
+        <DataTable
+          caption="What the import would do to each station"
+          columns={stationColumns}
+          rows={shown}
+          rowKey={(l) => `${l.row ?? "site"}-${l.name}`}
+        />
       ) : null}
       {foldUnchanged ? (
         <details className="text-sm">
@@ -101,13 +139,19 @@ export function StationChanges({ lines }: { lines: StationLine[] }) {
             {unchanged.length} stations in the file match the registry already
           </summary>
           <div className="mt-2">
-            <DataTable caption="Stations of the file that are unchanged" columns={stationColumns} rows={unchanged} rowKey={(l) => `${l.row}-${l.name}`} />
+            <DataTable
+              caption="Stations of the file that are unchanged"
+              columns={stationColumns}
+              rows={unchanged}
+              rowKey={(l) => `${l.row}-${l.name}`}
+            />
           </div>
         </details>
       ) : null}
       {quiet > 0 ? (
         <p className="text-sm text-night-600">
-          {quiet} station{quiet === 1 ? "" : "s"} of the site {quiet === 1 ? "is" : "are"} not in the file and stay{quiet === 1 ? "s" : ""} as {quiet === 1 ? "it is" : "they are"}.
+          {quiet} station{quiet === 1 ? "" : "s"} of the site {quiet === 1 ? "is" : "are"} not in the file and stay
+          {quiet === 1 ? "s" : ""} as {quiet === 1 ? "it is" : "they are"}.
         </p>
       ) : null}
     </div>
@@ -145,7 +189,12 @@ function SiteSummary({ line }: { line: SiteLine }) {
           <div key={key}>
             <dt className="text-night-600">{label}</dt>
             <dd className="num">
-              <Value before={line.before?.[key] as never} after={s[key] as never} changed={line.changed.includes(key)} format={format} />
+              <Value
+                before={line.before?.[key] as never}
+                after={s[key] as never}
+                changed={line.changed.includes(key)}
+                format={format}
+              />
             </dd>
           </div>
         ))}
@@ -156,42 +205,90 @@ function SiteSummary({ line }: { line: SiteLine }) {
 
 const configurationColumns: Column<ConfigurationLine>[] = [
   { key: "row", header: "Row", align: "right", value: (l) => l.row },
-  { key: "name", header: "Configuration", value: (l) => l.name, render: (l) => <span className="font-medium">{l.name}</span> },
-  { key: "change", header: "Change", value: (l) => CHANGE[l.change].label, render: (l) => <ChangeBadge change={l.change} /> },
+  {
+    key: "name",
+    header: "Configuration",
+    value: (l) => l.name,
+    render: (l) => <span className="font-medium">{l.name}</span>,
+  },
+  {
+    key: "change",
+    header: "Change",
+    value: (l) => CHANGE[l.change].label,
+    render: (l) => <ChangeBadge change={l.change} />,
+  },
   {
     key: "stations",
     header: "Stations, in order",
     value: (l) => (l.after ?? l.before)?.stations.join(" ") ?? "",
-    render: (l) => <Value before={l.before?.stations} after={l.after?.stations} changed={l.changed.includes("stations")} format={(x) => x.join(" ")} />,
+    render: (l) => (
+      <Value
+        before={l.before?.stations}
+        after={l.after?.stations}
+        changed={l.changed.includes("stations")}
+        format={(x) => x.join(" ")}
+      />
+    ),
   },
   {
     key: "offered",
     header: "Offered",
     value: (l) => String((l.after ?? l.before)?.offered ?? ""),
-    render: (l) => <Value before={l.before?.offered} after={l.after?.offered} changed={l.changed.includes("offered")} format={(x) => (x ? "yes" : "no")} />,
+    render: (l) => (
+      <Value
+        before={l.before?.offered}
+        after={l.after?.offered}
+        changed={l.changed.includes("offered")}
+        format={(x) => (x ? "yes" : "no")}
+      />
+    ),
   },
   {
     key: "description",
     header: "Description",
     value: (l) => (l.after ?? l.before)?.description ?? "",
-    render: (l) => <Value before={l.before?.description} after={l.after?.description} changed={l.changed.includes("description")} format={(x) => x || "—"} />,
+    render: (l) => (
+      <Value
+        before={l.before?.description}
+        after={l.after?.description}
+        changed={l.changed.includes("description")}
+        format={(x) => x || "—"}
+      />
+    ),
   },
 ];
 
 type BandRow = BandLine & { instrument: string; instrumentChange: Change; maxTelescopes: ReactNode };
 
 const bandColumns: Column<BandRow>[] = [
-  { key: "instrument", header: "Instrument", value: (b) => b.instrument, render: (b) => <span className="font-medium">{b.instrument}</span> },
+  {
+    key: "instrument",
+    header: "Instrument",
+    value: (b) => b.instrument,
+    render: (b) => <span className="font-medium">{b.instrument}</span>,
+  },
   { key: "telescopes", header: "Telescopes", align: "right", value: () => null, render: (b) => b.maxTelescopes },
   { key: "band", header: "Band", value: (b) => b.name },
-  { key: "change", header: "Change", value: (b) => CHANGE[b.change].label, render: (b) => <ChangeBadge change={b.change} /> },
+  {
+    key: "change",
+    header: "Change",
+    value: (b) => CHANGE[b.change].label,
+    render: (b) => <ChangeBadge change={b.change} />,
+  },
   {
     key: "wavelength",
     header: "Central wavelength",
     unit: "µm",
     align: "right",
     value: (b) => metresToMicrons((b.after ?? b.before)!.centralWavelengthM),
-    render: (b) => <Value before={b.before?.centralWavelengthM} after={b.after?.centralWavelengthM} changed={b.changed.includes("centralWavelengthM")} format={(x) => String(metresToMicrons(x))} />,
+    render: (b) => (
+      <Value
+        before={b.before?.centralWavelengthM}
+        after={b.after?.centralWavelengthM}
+        changed={b.changed.includes("centralWavelengthM")}
+        format={(x) => String(metresToMicrons(x))}
+      />
+    ),
   },
   {
     key: "bandwidth",
@@ -199,14 +296,28 @@ const bandColumns: Column<BandRow>[] = [
     unit: "µm",
     align: "right",
     value: (b) => metresToMicrons((b.after ?? b.before)!.bandwidthM),
-    render: (b) => <Value before={b.before?.bandwidthM} after={b.after?.bandwidthM} changed={b.changed.includes("bandwidthM")} format={(x) => String(metresToMicrons(x))} />,
+    render: (b) => (
+      <Value
+        before={b.before?.bandwidthM}
+        after={b.after?.bandwidthM}
+        changed={b.changed.includes("bandwidthM")}
+        format={(x) => String(metresToMicrons(x))}
+      />
+    ),
   },
   {
     key: "channels",
     header: "Channels",
     align: "right",
     value: (b) => (b.after ?? b.before)!.channels,
-    render: (b) => <Value before={b.before?.channels} after={b.after?.channels} changed={b.changed.includes("channels")} format={num} />,
+    render: (b) => (
+      <Value
+        before={b.before?.channels}
+        after={b.after?.channels}
+        changed={b.changed.includes("channels")}
+        format={num}
+      />
+    ),
   },
   {
     key: "limit",
@@ -214,7 +325,14 @@ const bandColumns: Column<BandRow>[] = [
     unit: "mag",
     align: "right",
     value: (b) => (b.after ?? b.before)!.limitingMagnitude,
-    render: (b) => <Value before={b.before?.limitingMagnitude} after={b.after?.limitingMagnitude} changed={b.changed.includes("limitingMagnitude")} format={num} />,
+    render: (b) => (
+      <Value
+        before={b.before?.limitingMagnitude}
+        after={b.after?.limitingMagnitude}
+        changed={b.changed.includes("limitingMagnitude")}
+        format={num}
+      />
+    ),
   },
 ];
 
@@ -222,14 +340,36 @@ function bandRows(instruments: InstrumentLine[]): BandRow[] {
   return instruments.flatMap((i) => {
     const telescopes = (
       <span className="inline-flex items-center gap-1.5">
-        <Value before={i.before?.maxTelescopes} after={i.after?.maxTelescopes} changed={i.changed.includes("maxTelescopes")} format={num} />
+        <Value
+          before={i.before?.maxTelescopes}
+          after={i.after?.maxTelescopes}
+          changed={i.changed.includes("maxTelescopes")}
+          format={num}
+        />
         {i.change === "new" || i.change === "updated" ? <ChangeBadge change={i.change} /> : null}
       </span>
     );
-    const rows = i.bands.map((b) => ({ ...b, instrument: i.name, instrumentChange: i.change, maxTelescopes: telescopes }));
+    const rows = i.bands.map((b) => ({
+      ...b,
+      instrument: i.name,
+      instrumentChange: i.change,
+      maxTelescopes: telescopes,
+    }));
     return rows.length > 0
       ? rows
-      : [{ row: null, name: "—", change: i.change, before: null, after: null, changed: [], instrument: i.name, instrumentChange: i.change, maxTelescopes: telescopes } as unknown as BandRow];
+      : [
+          {
+            row: null,
+            name: "—",
+            change: i.change,
+            before: null,
+            after: null,
+            changed: [],
+            instrument: i.name,
+            instrumentChange: i.change,
+            maxTelescopes: telescopes,
+          } as unknown as BandRow,
+        ];
   });
 }
 
@@ -261,7 +401,13 @@ export function RegistryPreview({ plan }: { plan: RegistryPlan }) {
           <p className="text-sm">
             <ChangeCounts counts={plan.counts.configurations} noun="Configurations" />
           </p>
-          <DataTable caption="What the import would do to each configuration" columns={configurationColumns} rows={plan.configurations} rowKey={(l) => l.name} empty="No configurations." />
+          <DataTable
+            caption="What the import would do to each configuration"
+            columns={configurationColumns}
+            rows={plan.configurations}
+            rowKey={(l) => l.name}
+            empty="No configurations."
+          />
         </div>
       </PreviewSection>
       <PreviewSection title="Instruments and bands">
@@ -270,7 +416,13 @@ export function RegistryPreview({ plan }: { plan: RegistryPlan }) {
             <ChangeCounts counts={plan.counts.instruments} noun="Instruments" />
             <ChangeCounts counts={plan.counts.bands} noun="Bands" />
           </p>
-          <DataTable caption="What the import would do to each instrument band" columns={bandColumns} rows={bandRows(plan.instruments)} rowKey={(b) => `${b.instrument}-${b.name}`} empty="No instruments." />
+          <DataTable
+            caption="What the import would do to each instrument band"
+            columns={bandColumns}
+            rows={bandRows(plan.instruments)}
+            rowKey={(b) => `${b.instrument}-${b.name}`}
+            empty="No instruments."
+          />
         </div>
       </PreviewSection>
     </div>

@@ -4,7 +4,7 @@
  * baselines. Labels of crowded stations appear as the view is zoomed in.
  */
 import { useMemo, useState } from "react";
-import { Plot, SERIES_COLOURS, baseLayout } from "~/components/plots/Plot";
+import { baseLayout, Plot, SERIES_COLOURS } from "~/components/plots/Plot";
 import { cx } from "~/components/ui";
 
 export type MapStation = { name: string; eastM: number; northM: number };
@@ -42,7 +42,11 @@ function baselines(members: MapStation[]): Baseline[] {
   const out: Baseline[] = [];
   for (let i = 0; i < members.length; i++) {
     for (let j = i + 1; j < members.length; j++) {
-      out.push({ a: members[i].name, b: members[j].name, lengthM: Math.hypot(members[j].eastM - members[i].eastM, members[j].northM - members[i].northM) });
+      out.push({
+        a: members[i].name,
+        b: members[j].name,
+        lengthM: Math.hypot(members[j].eastM - members[i].eastM, members[j].northM - members[i].northM),
+      });
     }
   }
   return out.sort((x, y) => x.lengthM - y.lengthM);
@@ -51,7 +55,15 @@ function baselines(members: MapStation[]): Baseline[] {
 const metres = (x: number) => `${x < 100 ? x.toFixed(1) : x.toFixed(0)} m`;
 
 /** Figures of what the map shows: a configuration's baselines, or the extent of the whole site. */
-function Figures({ stations, members, name }: { stations: MapStation[]; members: MapStation[] | null; name: string | null }) {
+function Figures({
+  stations,
+  members,
+  name,
+}: {
+  stations: MapStation[];
+  members: MapStation[] | null;
+  name: string | null;
+}) {
   const rows: [string, string][] = [];
   if (members && name) {
     const list = baselines(members);
@@ -59,7 +71,10 @@ function Figures({ stations, members, name }: { stations: MapStation[]; members:
     if (list.length > 0) {
       const first = list[0];
       const last = list[list.length - 1];
-      rows.push(["Shortest", `${metres(first.lengthM)} (${first.a}–${first.b})`], ["Longest", `${metres(last.lengthM)} (${last.a}–${last.b})`]);
+      rows.push(
+        ["Shortest", `${metres(first.lengthM)} (${first.a}–${first.b})`],
+        ["Longest", `${metres(last.lengthM)} (${last.a}–${last.b})`],
+      );
     }
   } else if (stations.length > 0) {
     const es = stations.map((s) => s.eastM);
@@ -72,7 +87,10 @@ function Figures({ stations, members, name }: { stations: MapStation[]; members:
     );
     if (list.length > 0) {
       const last = list[list.length - 1];
-      rows.push(["Longest baseline", `${metres(last.lengthM)} (${last.a}–${last.b})`], ["Shortest", `${metres(list[0].lengthM)}`]);
+      rows.push(
+        ["Longest baseline", `${metres(last.lengthM)} (${last.a}–${last.b})`],
+        ["Shortest", `${metres(list[0].lengthM)}`],
+      );
     }
   }
   return (
@@ -135,7 +153,12 @@ export function StationMap({
   const [chosen, setChosen] = useState<string | null>(initialConfiguration);
   const [metresPerPixel, setMetresPerPixel] = useState<number | null>(null);
   const shown = draft ?? configurations.find((c) => c.name === chosen) ?? null;
-  const shownIndex = draft ? 0 : Math.max(0, configurations.findIndex((c) => c.name === chosen));
+  const shownIndex = draft
+    ? 0
+    : Math.max(
+        0,
+        configurations.findIndex((c) => c.name === chosen),
+      );
   const colour = SERIES_COLOURS[shownIndex % SERIES_COLOURS.length];
 
   const nearest = useMemo(() => nearestDistances(stations), [stations]);
@@ -146,7 +169,9 @@ export function StationMap({
     const members = (shown?.stationNames ?? []).map((n) => byName.get(n)).filter((s): s is MapStation => !!s);
     const memberNames = new Set(members.map((m) => m.name));
     // Names go in a trace of their own: only the stations with room for a label, redrawn as the view changes.
-    const labelled = stations.filter((s, i) => !memberNames.has(s.name) && s.name !== focus && nearest[i] / scale >= LABEL_SPACING_PX);
+    const labelled = stations.filter(
+      (s, i) => !memberNames.has(s.name) && s.name !== focus && nearest[i] / scale >= LABEL_SPACING_PX,
+    );
     const traces: Record<string, unknown>[] = [
       {
         type: "scatter",
@@ -194,7 +219,7 @@ export function StationMap({
         textposition: "top center",
         textfont: { size: 13, color: colour },
         marker: { size: 14, color: colour, line: { width: 2, color: "#ffffff" } },
-        hovertemplate: "<b>%{text}</b><br>east %{x:.2f} m<br>north %{y:.2f} m<extra>" + shown.name + "</extra>",
+        hovertemplate: `<b>%{text}</b><br>east %{x:.2f} m<br>north %{y:.2f} m<extra>${shown.name}</extra>`,
       });
     }
     const focused = focus ? byName.get(focus) : undefined;
@@ -254,15 +279,28 @@ export function StationMap({
       // Keep the viewer's zoom when the drawn configuration changes.
       uirevision: "site-plan",
       hovermode: "closest",
-      xaxis: { ...baseLayout.xaxis, title: { text: "East (m)" }, zeroline: true, ...(ranges ? { range: ranges.x } : {}) },
-      yaxis: { ...baseLayout.yaxis, title: { text: "North (m)" }, zeroline: true, scaleanchor: "x", scaleratio: 1, ...(ranges ? { range: ranges.y } : {}) },
+      xaxis: {
+        ...baseLayout.xaxis,
+        title: { text: "East (m)" },
+        zeroline: true,
+        ...(ranges ? { range: ranges.x } : {}),
+      },
+      yaxis: {
+        ...baseLayout.yaxis,
+        title: { text: "North (m)" },
+        zeroline: true,
+        scaleanchor: "x",
+        scaleratio: 1,
+        ...(ranges ? { range: ranges.y } : {}),
+      },
     }),
     [height, ranges],
   );
 
   /** Reads the drawn scale (after the first draw, a zoom or a resize) so labels fit the view. */
   function measure(_figure: unknown, graphDiv: HTMLElement) {
-    const axis = (graphDiv as HTMLElement & { _fullLayout?: { xaxis?: { range?: number[]; _length?: number } } })._fullLayout?.xaxis;
+    const axis = (graphDiv as HTMLElement & { _fullLayout?: { xaxis?: { range?: number[]; _length?: number } } })
+      ._fullLayout?.xaxis;
     if (!axis?.range || !axis._length) return;
     const next = Number((Math.abs(axis.range[1] - axis.range[0]) / axis._length).toPrecision(2));
     if (Number.isFinite(next) && next > 0) setMetresPerPixel((prev) => (prev === next ? prev : next));
@@ -273,9 +311,19 @@ export function StationMap({
 
   const chooser =
     !draft && configurations.length > 0 ? (
-      <div role="group" aria-label="Configuration drawn on the map" className={cx("flex flex-wrap items-center gap-2 text-sm", arrangement === "side" && "lg:flex-col lg:items-stretch")}>
+      <div
+        role="group"
+        aria-label="Configuration drawn on the map"
+        className={cx(
+          "flex flex-wrap items-center gap-2 text-sm",
+          arrangement === "side" && "lg:flex-col lg:items-stretch",
+        )}
+      >
         <span className="text-night-600">Draw a configuration:</span>
-        {[{ name: null as string | null, label: "None" }, ...configurations.map((c) => ({ name: c.name as string | null, label: c.name }))].map((option, i) => {
+        {[
+          { name: null as string | null, label: "None" },
+          ...configurations.map((c) => ({ name: c.name as string | null, label: c.name })),
+        ].map((option, i) => {
           const pressed = chosen === option.name;
           const swatch = option.name === null ? null : SERIES_COLOURS[(i - 1) % SERIES_COLOURS.length];
           return (
@@ -286,10 +334,18 @@ export function StationMap({
               onClick={() => setChosen(option.name)}
               className={cx(
                 "inline-flex items-center gap-1.5 rounded-full px-3 py-1 font-medium ring-1 ring-inset",
-                pressed ? "bg-night-800 text-white ring-night-800" : "bg-white text-night-800 ring-night-300 hover:bg-night-100",
+                pressed
+                  ? "bg-night-800 text-white ring-night-800"
+                  : "bg-white text-night-800 ring-night-300 hover:bg-night-100",
               )}
             >
-              {swatch ? <span aria-hidden="true" className="inline-block h-2.5 w-2.5 rounded-full" style={{ background: swatch }} /> : null}
+              {swatch ? (
+                <span
+                  aria-hidden="true"
+                  className="inline-block h-2.5 w-2.5 rounded-full"
+                  style={{ background: swatch }}
+                />
+              ) : null}
               {option.label}
             </button>
           );
@@ -316,7 +372,8 @@ export function StationMap({
         }
       />
       <p className="text-xs text-night-600">
-        North is up and east to the right, with equal scales. Drag to zoom in (names of close stations appear), double-click to see the whole site.
+        North is up and east to the right, with equal scales. Drag to zoom in (names of close stations appear),
+        double-click to see the whole site.
       </p>
     </div>
   );

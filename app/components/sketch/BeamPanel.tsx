@@ -19,7 +19,13 @@ type Beam = NonNullable<CoverageResponse["beam"]>;
 function skyAxes(): Record<string, unknown> {
   return {
     xaxis: { title: { text: "Offset (mas), east ←" }, autorange: "reversed", zeroline: false, constrain: "domain" },
-    yaxis: { title: { text: "Offset (mas), north ↑" }, scaleanchor: "x", scaleratio: 1, zeroline: false, constrain: "domain" },
+    yaxis: {
+      title: { text: "Offset (mas), north ↑" },
+      scaleanchor: "x",
+      scaleratio: 1,
+      zeroline: false,
+      constrain: "domain",
+    },
   };
 }
 
@@ -98,14 +104,17 @@ export function BeamPanel({ beam }: { beam: Beam | null }) {
       note={
         beam ? (
           <>
-            {beam.gridSize}² grid, {beam.weighting} weighting, {beam.pixelMas.toFixed(3)} mas pixels (field {beam.fieldOfViewMas.toFixed(1)} mas),{" "}
-            {beam.uvPointCount} uv points. The beam is shown within ±6 FWHM of its centre; the outline is the fitted half-power ellipse.
+            {beam.gridSize}² grid, {beam.weighting} weighting, {beam.pixelMas.toFixed(3)} mas pixels (field{" "}
+            {beam.fieldOfViewMas.toFixed(1)} mas), {beam.uvPointCount} uv points. The beam is shown within ±6 FWHM of
+            its centre; the outline is the fitted half-power ellipse.
           </>
         ) : null
       }
     >
       {!beam ? (
-        <p className="py-16 text-center text-sm text-night-600">No beam: no observable uv point with a non-zero length.</p>
+        <p className="py-16 text-center text-sm text-night-600">
+          No beam: no observable uv point with a non-zero length.
+        </p>
       ) : (
         <>
           <dl className="mb-2 grid grid-cols-2 gap-x-4 gap-y-1 text-sm sm:grid-cols-4">
@@ -132,14 +141,24 @@ export function BeamPanel({ beam }: { beam: Beam | null }) {
                 label="Dirty beam in milliarcseconds, east to the left, with the fitted half-power ellipse"
                 height={330}
                 data={figures.beamData}
-                layout={plotLayout({ ...skyAxes(), margin: { l: 52, r: 8, t: 28, b: 44 }, title: { text: "Dirty beam", font: { size: 13 } }, uirevision: "beam" })}
+                layout={plotLayout({
+                  ...skyAxes(),
+                  margin: { l: 52, r: 8, t: 28, b: 44 },
+                  title: { text: "Dirty beam", font: { size: 13 } },
+                  uirevision: "beam",
+                })}
               />
               {figures.dirty ? (
                 <Plot
                   label="Dirty image of the model in milliarcseconds, east to the left"
                   height={330}
                   data={figures.dirty.data}
-                  layout={plotLayout({ ...skyAxes(), margin: { l: 52, r: 8, t: 28, b: 44 }, title: { text: "Dirty image of the model", font: { size: 13 } }, uirevision: "dirty" })}
+                  layout={plotLayout({
+                    ...skyAxes(),
+                    margin: { l: 52, r: 8, t: 28, b: 44 },
+                    title: { text: "Dirty image of the model", font: { size: 13 } },
+                    uirevision: "dirty",
+                  })}
                 />
               ) : null}
             </div>

@@ -1,16 +1,16 @@
 import { useMemo } from "react";
 import { Plot, plotLayout } from "~/components/plots/Plot";
 import {
-  type TwilightKind,
   elevationForAirmass,
   lstTicks,
   moonAltitudeCurve,
   observableWindows,
+  type TwilightKind,
   targetAltitudeCurve,
   twilightBands,
 } from "~/services/sketch-night";
 import type { CoverageResponse, EphemerisResponse } from "./api";
-import { type LegendItem, Panel, SeriesLegend, plotTime } from "./Panel";
+import { type LegendItem, Panel, plotTime, SeriesLegend } from "./Panel";
 
 const BAND_FILL: Record<TwilightKind, string> = {
   day: "#fbf1dc",
@@ -58,8 +58,22 @@ export function ElevationPanel({
     const midnight = Date.parse(ephemeris.localMidnightUtc);
     const start = (sunset ?? midnight - 7 * 3.6e6) - 45 * 60_000;
     const end = (sunrise ?? midnight + 7 * 3.6e6) + 45 * 60_000;
-    const curve = targetAltitudeCurve({ latDeg: site.latitudeDeg, lonDeg: site.longitudeDeg, raDeg, decDeg, startMs: start, endMs: end, stepMin: 5 });
-    const moon = moonAltitudeCurve({ latDeg: site.latitudeDeg, lonDeg: site.longitudeDeg, startMs: start, endMs: end, stepMin: 10 });
+    const curve = targetAltitudeCurve({
+      latDeg: site.latitudeDeg,
+      lonDeg: site.longitudeDeg,
+      raDeg,
+      decDeg,
+      startMs: start,
+      endMs: end,
+      stepMin: 5,
+    });
+    const moon = moonAltitudeCurve({
+      latDeg: site.latitudeDeg,
+      lonDeg: site.longitudeDeg,
+      startMs: start,
+      endMs: end,
+      stepMin: 10,
+    });
     const bands = twilightBands(ephemeris, start, end);
     const windows = observableWindows(coverage.samples, stepMin);
     const ticks = lstTicks(start, end, site.longitudeDeg, end - start > 10 * 3.6e6 ? 2 : 1);
@@ -145,13 +159,26 @@ export function ElevationPanel({
         hovertemplate: "%{x|%H:%M} UT<br>Moon altitude %{y:.0f}°<extra></extra>",
       },
       // Carriers of the LST and air-mass axes (no visible data).
-      { type: "scatter", x: [plotTime(start), plotTime(end)], y: [null, null], xaxis: "x2", showlegend: false, hoverinfo: "skip" },
+      {
+        type: "scatter",
+        x: [plotTime(start), plotTime(end)],
+        y: [null, null],
+        xaxis: "x2",
+        showlegend: false,
+        hoverinfo: "skip",
+      },
       { type: "scatter", x: [plotTime(start)], y: [null], yaxis: "y2", showlegend: false, hoverinfo: "skip" },
     ];
     const layout = plotLayout({
       margin: { l: 56, r: 56, t: 48, b: 48 },
       shapes,
-      xaxis: { type: "date", title: { text: "UT (hours)" }, range: [plotTime(start), plotTime(end)], tickformat: "%H:%M", showgrid: false },
+      xaxis: {
+        type: "date",
+        title: { text: "UT (hours)" },
+        range: [plotTime(start), plotTime(end)],
+        tickformat: "%H:%M",
+        showgrid: false,
+      },
       xaxis2: {
         type: "date",
         overlaying: "x",
@@ -194,7 +221,12 @@ export function ElevationPanel({
       { name: "Target elevation", colour: "#1d4f8c", kind: "line" },
       { name: "Observable sample", colour: "#21603a" },
       { name: "Not observable", colour: "#a3261c", kind: "ring" },
-      { name: `Moon (${Math.round(ephemeris.moonIlluminatedFraction * 100)} % lit)`, colour: "#56637f", kind: "line", dash: "dot" },
+      {
+        name: `Moon (${Math.round(ephemeris.moonIlluminatedFraction * 100)} % lit)`,
+        colour: "#56637f",
+        kind: "line",
+        dash: "dot",
+      },
       { name: "Minimum elevation", colour: "#a3261c", kind: "line", dash: "dash" },
       ...(windows.length > 0 ? [{ name: "Observable window", colour: WINDOW_FILL, kind: "square" as const }] : []),
       ...kinds.map((k) => ({ name: BAND_NAME[k], colour: BAND_FILL[k], kind: "square" as const })),
@@ -218,7 +250,15 @@ export function ElevationPanel({
           line: { color: "#1d4f8c", width: 2.5 },
           hovertemplate: "hour angle %{x:.2f} h<br>elevation %{y:.1f}°<br>air mass %{customdata}<extra></extra>",
         },
-        { type: "scatter", mode: "markers", name: "Observable sample", x: obs.map((s) => s.hourAngleH), y: obs.map((s) => s.elevationDeg), marker: { size: 6, color: "#21603a" }, hoverinfo: "skip" },
+        {
+          type: "scatter",
+          mode: "markers",
+          name: "Observable sample",
+          x: obs.map((s) => s.hourAngleH),
+          y: obs.map((s) => s.elevationDeg),
+          marker: { size: 6, color: "#21603a" },
+          hoverinfo: "skip",
+        },
         {
           type: "scatter",
           mode: "markers",
@@ -235,9 +275,26 @@ export function ElevationPanel({
         margin: { l: 56, r: 56, t: 16, b: 48 },
         xaxis: { title: { text: "Hour angle (h)" } },
         yaxis: { title: { text: "Elevation (°)" }, range: [0, 90], dtick: 15 },
-        yaxis2: { overlaying: "y", side: "right", matches: "y", tickmode: "array", ...airmassAxis, title: { text: "Air mass" }, showgrid: false },
+        yaxis2: {
+          overlaying: "y",
+          side: "right",
+          matches: "y",
+          tickmode: "array",
+          ...airmassAxis,
+          title: { text: "Air mass" },
+          showgrid: false,
+        },
         shapes: [
-          { type: "line", xref: "paper", yref: "y", x0: 0, x1: 1, y0: minElevationDeg, y1: minElevationDeg, line: { color: "#a3261c", width: 1.5, dash: "dash" } },
+          {
+            type: "line",
+            xref: "paper",
+            yref: "y",
+            x0: 0,
+            x1: 1,
+            y0: minElevationDeg,
+            y1: minElevationDeg,
+            line: { color: "#a3261c", width: 1.5, dash: "dash" },
+          },
         ],
         showlegend: false,
         uirevision: "elevation-ha",
@@ -257,12 +314,22 @@ export function ElevationPanel({
     >
       {figure ? (
         <>
-          <Plot label="Target elevation and air mass against UT and local sidereal time, with twilight and the observable window" height={400} data={figure.data} layout={figure.layout} />
+          <Plot
+            label="Target elevation and air mass against UT and local sidereal time, with twilight and the observable window"
+            height={400}
+            data={figure.data}
+            layout={figure.layout}
+          />
           <SeriesLegend label="Elevation plot legend" items={figure.legend} />
         </>
       ) : byHourAngle ? (
         <>
-          <Plot label="Target elevation and air mass against hour angle" height={380} data={byHourAngle.data} layout={byHourAngle.layout} />
+          <Plot
+            label="Target elevation and air mass against hour angle"
+            height={380}
+            data={byHourAngle.data}
+            layout={byHourAngle.layout}
+          />
           <SeriesLegend
             label="Elevation plot legend"
             items={[

@@ -4,24 +4,24 @@
  * (the page's own checks or the API's 400) appear under the input they belong to.
  */
 import type { ReactNode } from "react";
-import { Button, SelectField, TextField, cx } from "~/components/ui";
-import { formatDeclination, formatRightAscension, parseDeclination, parseRightAscension } from "~/services/coordinates";
+import { Button, cx, SelectField, TextField } from "~/components/ui";
+import { describeChannels } from "~/engine";
+import { formatDeclination, formatRightAscension, parseDeclination, parseRightAscension } from "~/lib/coordinates";
 import type { FieldErrors, RegistryLike } from "~/services/sketch-request";
 import {
   type CommonState,
+  defaultSecond,
   MODEL_LABELS,
   MODEL_PARAMS,
   type ModelParam,
   type ModelState,
-  PARAM_INFO,
-  SIMPLE_MODEL_TYPES,
-  STEP_CHOICES_MIN,
-  type SavedTarget,
-  type SimpleModelType,
-  defaultSecond,
   modelInputsOf,
+  PARAM_INFO,
+  type SavedTarget,
+  SIMPLE_MODEL_TYPES,
+  type SimpleModelType,
+  STEP_CHOICES_MIN,
 } from "~/services/sketch-state";
-import { describeChannels } from "~/services/sketch-wavelengths";
 
 type Patch = (patch: Partial<CommonState>) => void;
 
@@ -62,7 +62,12 @@ export function TargetInputs({
           onChange={(e) => {
             const t = savedTargets.find((x) => String(x.id) === e.target.value);
             if (!t) return;
-            set({ name: t.name, ra: formatRightAscension(t.raDeg, 2), dec: formatDeclination(t.decDeg, 1), ...modelInputsOf(t.model) });
+            set({
+              name: t.name,
+              ra: formatRightAscension(t.raDeg, 2),
+              dec: formatDeclination(t.decDeg, 1),
+              ...modelInputsOf(t.model),
+            });
           }}
         >
           <option value="">— pick one to fill the fields —</option>
@@ -91,7 +96,11 @@ export function TargetInputs({
         spellCheck={false}
         placeholder="05:36:12.8 or 84.05"
         error={errors.ra}
-        hint={ra.ok ? `${formatRightAscension(ra.deg)} = ${ra.deg.toFixed(4)}° (J2000)` : "hh:mm:ss.s (hours) or decimal degrees, J2000"}
+        hint={
+          ra.ok
+            ? `${formatRightAscension(ra.deg)} = ${ra.deg.toFixed(4)}° (J2000)`
+            : "hh:mm:ss.s (hours) or decimal degrees, J2000"
+        }
         onChange={(e) => set({ ra: e.target.value })}
       />
       <TextField
@@ -102,7 +111,11 @@ export function TargetInputs({
         spellCheck={false}
         placeholder="-01:12:07 or -1.2"
         error={errors.dec}
-        hint={dec.ok ? `${formatDeclination(dec.deg)} = ${dec.deg.toFixed(4)}° (J2000)` : "±dd:mm:ss or decimal degrees, J2000"}
+        hint={
+          dec.ok
+            ? `${formatDeclination(dec.deg)} = ${dec.deg.toFixed(4)}° (J2000)`
+            : "±dd:mm:ss or decimal degrees, J2000"
+        }
         onChange={(e) => set({ dec: e.target.value })}
       />
       {onExample && state.ra.trim() === "" && state.dec.trim() === "" ? (
@@ -168,7 +181,12 @@ export function ModelInputs({ state, set, errors }: { state: CommonState; set: P
       <ModelParams model={state.model} prefix="model" errors={errors} onChange={(model) => set({ model })} />
       {second ? (
         <div className="space-y-3 border-t border-night-100 pt-3">
-          <ModelParams model={second} prefix="second" errors={errors} onChange={(m) => set({ second: { ...second, ...m } })} />
+          <ModelParams
+            model={second}
+            prefix="second"
+            errors={errors}
+            onChange={(m) => set({ second: { ...second, ...m } })}
+          />
           <TextField
             label="Relative flux"
             unit="first component = 1"
@@ -208,14 +226,24 @@ export function ModelInputs({ state, set, errors }: { state: CommonState; set: P
         </Button>
       )}
       <p className="text-xs text-night-600">
-        Position angles east of north; binary flux ratio secondary / primary. Two components make a weighted sum, the first at
-        the phase centre.
+        Position angles east of north; binary flux ratio secondary / primary. Two components make a weighted sum, the
+        first at the phase centre.
       </p>
     </InputGroup>
   );
 }
 
-export function BandInput({ state, set, errors, registry }: { state: CommonState; set: Patch; errors: FieldErrors; registry: RegistryLike }) {
+export function BandInput({
+  state,
+  set,
+  errors,
+  registry,
+}: {
+  state: CommonState;
+  set: Patch;
+  errors: FieldErrors;
+  registry: RegistryLike;
+}) {
   const inst = registry.instruments.find((i) => i.name === state.instrument);
   const band = inst?.bands.find((b) => b.name === state.band);
   return (
@@ -281,7 +309,13 @@ export function SamplingInputs({
           ] as const
         ).map(([mode, label]) => (
           <label key={mode} className="flex items-center gap-2">
-            <input type="radio" name="sampling" value={mode} checked={state.sampling === mode} onChange={() => set({ sampling: mode })} />
+            <input
+              type="radio"
+              name="sampling"
+              value={mode}
+              checked={state.sampling === mode}
+              onChange={() => set({ sampling: mode })}
+            />
             {label}
           </label>
         ))}
@@ -308,9 +342,33 @@ export function SamplingInputs({
       ) : (
         <div className="space-y-1">
           <div className="grid grid-cols-3 gap-2">
-            <TextField label="From" unit="h" name="haFrom" inputMode="decimal" value={state.haFrom} onChange={(e) => set({ haFrom: e.target.value })} aria-invalid={errors.ha ? true : undefined} />
-            <TextField label="To" unit="h" name="haTo" inputMode="decimal" value={state.haTo} onChange={(e) => set({ haTo: e.target.value })} aria-invalid={errors.ha ? true : undefined} />
-            <TextField label="Step" unit="h" name="haStep" inputMode="decimal" value={state.haStep} onChange={(e) => set({ haStep: e.target.value })} aria-invalid={errors.ha ? true : undefined} />
+            <TextField
+              label="From"
+              unit="h"
+              name="haFrom"
+              inputMode="decimal"
+              value={state.haFrom}
+              onChange={(e) => set({ haFrom: e.target.value })}
+              aria-invalid={errors.ha ? true : undefined}
+            />
+            <TextField
+              label="To"
+              unit="h"
+              name="haTo"
+              inputMode="decimal"
+              value={state.haTo}
+              onChange={(e) => set({ haTo: e.target.value })}
+              aria-invalid={errors.ha ? true : undefined}
+            />
+            <TextField
+              label="Step"
+              unit="h"
+              name="haStep"
+              inputMode="decimal"
+              value={state.haStep}
+              onChange={(e) => set({ haStep: e.target.value })}
+              aria-invalid={errors.ha ? true : undefined}
+            />
           </div>
           {errors.ha ? (
             <p role="alert" className="text-sm font-medium text-danger-700">

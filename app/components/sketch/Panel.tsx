@@ -21,7 +21,10 @@ export function Panel({
     <section
       id={id}
       aria-labelledby={id ? `${id}-title` : undefined}
-      className={cx("min-w-0 rounded-[var(--radius-card)] bg-white p-4 shadow-[var(--shadow-card)] ring-1 ring-night-200", className)}
+      className={cx(
+        "min-w-0 rounded-[var(--radius-card)] bg-white p-4 shadow-[var(--shadow-card)] ring-1 ring-night-200",
+        className,
+      )}
     >
       <header className="mb-2 flex flex-wrap items-center justify-between gap-2">
         <h2 id={id ? `${id}-title` : undefined} className="text-base font-semibold">
@@ -62,7 +65,14 @@ export function Toggle<T extends string>({
             v === value ? "bg-white text-night-900 shadow-sm" : "text-night-700 hover:text-night-900",
           )}
         >
-          <input type="radio" className="sr-only" name={label} value={v} checked={v === value} onChange={() => onChange(v)} />
+          <input
+            type="radio"
+            className="sr-only"
+            name={label}
+            value={v}
+            checked={v === value}
+            onChange={() => onChange(v)}
+          />
           {text}
         </label>
       ))}
@@ -84,9 +94,22 @@ export function SeriesLegend({ items, label }: { items: LegendItem[]; label: str
     <ul aria-label={label} className="mt-1 flex flex-wrap gap-x-3 gap-y-1 text-xs text-night-800">
       {items.map((it) => (
         <li key={it.name} className="inline-flex items-center gap-1.5">
-          <svg aria-hidden="true" width={it.kind === "line" ? 22 : 10} height="10" viewBox={it.kind === "line" ? "0 0 22 10" : "0 0 10 10"}>
+          <svg
+            aria-hidden="true"
+            width={it.kind === "line" ? 22 : 10}
+            height="10"
+            viewBox={it.kind === "line" ? "0 0 22 10" : "0 0 10 10"}
+          >
             {it.kind === "line" ? (
-              <line x1="1" y1="5" x2="21" y2="5" stroke={it.colour} strokeWidth="2" strokeDasharray={DASH_ARRAY[it.dash ?? "solid"]} />
+              <line
+                x1="1"
+                y1="5"
+                x2="21"
+                y2="5"
+                stroke={it.colour}
+                strokeWidth="2"
+                strokeDasharray={DASH_ARRAY[it.dash ?? "solid"]}
+              />
             ) : it.kind === "square" ? (
               <rect x="0.5" y="0.5" width="9" height="9" fill={it.colour} stroke="#a5b0c8" strokeWidth="0.5" />
             ) : it.kind === "ring" ? (

@@ -5,21 +5,32 @@
  * computed or while an input is invalid.
  */
 import { useMemo, useRef, useState } from "react";
-import { Button, EmptyState, PageHeader, SelectField, cx } from "~/components/ui";
-import { formatDeclination, formatRightAscension } from "~/services/coordinates";
+import { Button, cx, EmptyState, PageHeader, SelectField } from "~/components/ui";
+import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
 import { cautions as cautionLines } from "~/services/sketch-figures";
-import { angularSeparationDeg, observableWindows, raTransitingAtMidnight, sunSeparationDeg } from "~/services/sketch-night";
 import {
-  type CoverageBody,
-  type SketchRegistry,
-  type FieldErrors,
+  angularSeparationDeg,
+  observableWindows,
+  raTransitingAtMidnight,
+  sunSeparationDeg,
+} from "~/services/sketch-night";
+import {
   apiErrorText,
   buildCoverageRequest,
   buildEphemerisRequest,
+  type CoverageBody,
+  type FieldErrors,
   inputForApiField,
   pickedStations,
+  type SketchRegistry,
 } from "~/services/sketch-request";
-import { type SavedTarget, type SketchState, type StateDefaults, readSketchState, writeSketchState } from "~/services/sketch-state";
+import {
+  readSketchState,
+  type SavedTarget,
+  type SketchState,
+  type StateDefaults,
+  writeSketchState,
+} from "~/services/sketch-state";
 import { type CoverageResponse, type EphemerisResponse, useApi } from "./api";
 import { BeamPanel } from "./BeamPanel";
 import { ElevationPanel } from "./ElevationPanel";
@@ -27,8 +38,8 @@ import { BandInput, InputGroup, ModelInputs, SamplingInputs, TargetInputs } from
 import { StationPicker } from "./StationPicker";
 import { FiguresPanel, NotesPanel } from "./SummaryPanels";
 import { UvPlanePanel } from "./UvPlanePanel";
-import { ClosurePanel, VisibilityPanel } from "./VisibilityPanels";
 import { useUrlState } from "./useUrlState";
+import { ClosurePanel, VisibilityPanel } from "./VisibilityPanels";
 
 export function CopyLinkButton() {
   const [status, setStatus] = useState<string>("");
@@ -59,7 +70,10 @@ export function Busy({ busy, text, problem = false }: { busy: boolean; text: str
     <span role="status" aria-live="polite" className="inline-flex items-center gap-2 text-sm text-night-700">
       <span
         aria-hidden="true"
-        className={cx("inline-block h-3 w-3 rounded-full", busy ? "animate-pulse bg-ember-500" : problem ? "bg-danger-700" : "bg-ok-700")}
+        className={cx(
+          "inline-block h-3 w-3 rounded-full",
+          busy ? "animate-pulse bg-ember-500" : problem ? "bg-danger-700" : "bg-ok-700",
+        )}
       />
       {text}
     </span>
@@ -94,7 +108,11 @@ export function Sketchpad({
   // The last good answer and the request it answers (panels read their inputs from that request).
   const lastGood = useRef<{ result: CoverageResponse; body: CoverageBody; elapsedMs: number } | null>(null);
   if (coverage.data && lastGood.current?.result !== coverage.data.result) {
-    lastGood.current = { result: coverage.data.result, body: JSON.parse(coverage.data.request) as CoverageBody, elapsedMs: coverage.data.elapsedMs };
+    lastGood.current = {
+      result: coverage.data.result,
+      body: JSON.parse(coverage.data.request) as CoverageBody,
+      elapsedMs: coverage.data.elapsedMs,
+    };
   }
   const shown = lastGood.current;
   const currentKey = built.ok ? JSON.stringify(built.body) : null;
@@ -126,7 +144,12 @@ export function Sketchpad({
     if (shownEphemeris && body.night && shownEphemeris.date === body.night.date) {
       const midnight = Date.parse(shownEphemeris.localMidnightUtc);
       sunSep = sunSeparationDeg(body.target.raDeg, body.target.decDeg, midnight);
-      const moonSep = angularSeparationDeg(body.target.raDeg, body.target.decDeg, shownEphemeris.moonRaDeg, shownEphemeris.moonDecDeg);
+      const moonSep = angularSeparationDeg(
+        body.target.raDeg,
+        body.target.decDeg,
+        shownEphemeris.moonRaDeg,
+        shownEphemeris.moonDecDeg,
+      );
       moon =
         `Moon at local midnight: ${Math.round(shownEphemeris.moonIlluminatedFraction * 100)} % illuminated, ` +
         `about ${moonSep.toFixed(0)}° from the target, altitude ${shownEphemeris.moonAltitudeDeg.toFixed(0)}°.`;
@@ -135,7 +158,14 @@ export function Sketchpad({
     }
     const windows = stepMin === null ? [] : observableWindows(shown.result.samples, stepMin);
     return {
-      cautions: cautionLines({ sunSeparationDeg: sunSep, hourAngleSampling: stepMin === null, windows, duskMs, dawnMs, stepMin: stepMin ?? 0 }),
+      cautions: cautionLines({
+        sunSeparationDeg: sunSep,
+        hourAngleSampling: stepMin === null,
+        windows,
+        duskMs,
+        dawnMs,
+        stepMin: stepMin ?? 0,
+      }),
       moon,
     };
   }, [shown, shownEphemeris]);
@@ -156,12 +186,12 @@ export function Sketchpad({
       : built.ok && coverage.error
         ? "Not computed: fix the marked input"
         : built.ok && upToDate
-        ? `Up to date (${((coverage.data?.elapsedMs ?? 0) / 1000).toFixed(2)} s round trip)`
-        : built.ok
-          ? "Ready"
-          : waiting
-            ? "Waiting for a target"
-            : "Fix the marked inputs to update";
+          ? `Up to date (${((coverage.data?.elapsedMs ?? 0) / 1000).toFixed(2)} s round trip)`
+          : built.ok
+            ? "Ready"
+            : waiting
+              ? "Waiting for a target"
+              : "Fix the marked inputs to update";
 
   return (
     <>
@@ -204,7 +234,8 @@ export function Sketchpad({
               <span className="text-sm text-night-600">
                 {shown.body.target.name ? `${shown.body.target.name}: ` : ""}
                 {formatRightAscension(shown.body.target.raDeg, 1)} {formatDeclination(shown.body.target.decDeg, 0)} ·{" "}
-                {shown.body.stations.map((s) => s.name).join(" ")} · {shown.body.night ? `night of ${shown.body.night.date}` : "hour angles"}
+                {shown.body.stations.map((s) => s.name).join(" ")} ·{" "}
+                {shown.body.night ? `night of ${shown.body.night.date}` : "hour angles"}
               </span>
             ) : null}
           </div>
@@ -214,7 +245,10 @@ export function Sketchpad({
             </p>
           ) : null}
           {shown && !upToDate && !busy && !waiting ? (
-            <p role="status" className="rounded-lg border border-caution-700/30 bg-caution-50 p-3 text-sm text-caution-700">
+            <p
+              role="status"
+              className="rounded-lg border border-caution-700/30 bg-caution-50 p-3 text-sm text-caution-700"
+            >
               These panels show the last sketch that could be computed. Fix the input marked in red to update them.
             </p>
           ) : null}
@@ -240,14 +274,20 @@ export function Sketchpad({
               <NotesPanel coverage={shown.result} cautions={notes.cautions} moonLine={notes.moon} />
             </div>
           ) : waiting ? (
-            <EmptyState title="Type a target to start" action={<Button onClick={fillExample}>Try a target that is up tonight</Button>}>
-              Give the right ascension and declination (J2000) on the left. {stations.length} stations are chosen; the panels appear as
-              soon as the coordinates are complete.
+            <EmptyState
+              title="Type a target to start"
+              action={<Button onClick={fillExample}>Try a target that is up tonight</Button>}
+            >
+              Give the right ascension and declination (J2000) on the left. {stations.length} stations are chosen; the
+              panels appear as soon as the coordinates are complete.
             </EmptyState>
           ) : !built.ok || coverage.error ? (
             <EmptyState title="Nothing to draw yet">
               Fix the inputs marked in red on the left
-              {coverage.error && !formError ? `: ${apiErrorText(coverage.error.field, coverage.error.message, settled.sampling)}` : ""}.
+              {coverage.error && !formError
+                ? `: ${apiErrorText(coverage.error.field, coverage.error.message, settled.sampling)}`
+                : ""}
+              .
             </EmptyState>
           ) : (
             <EmptyState title="Computing the first sketch…">This takes about a second.</EmptyState>

@@ -5,7 +5,7 @@
  */
 import { Plot, plotLayout } from "~/components/plots/Plot";
 import { SelectField } from "~/components/ui";
-import { type FieldErrors, type RegistryLike, pickedStations } from "~/services/sketch-request";
+import { type FieldErrors, pickedStations, type RegistryLike } from "~/services/sketch-request";
 import type { SketchState } from "~/services/sketch-state";
 import { InputGroup } from "./InputFields";
 
@@ -96,7 +96,13 @@ export function StationPicker({
         <div className="mt-2 grid grid-cols-4 gap-x-2 gap-y-1">
           {registry.stations.map((s) => (
             <label key={s.name} className="flex items-center gap-1">
-              <input type="checkbox" name="station" value={s.name} checked={pickedSet.has(s.name)} onChange={() => toggle(s.name)} />
+              <input
+                type="checkbox"
+                name="station"
+                value={s.name}
+                checked={pickedSet.has(s.name)}
+                onChange={() => toggle(s.name)}
+              />
               <span className="num">{s.name}</span>
             </label>
           ))}

@@ -20,7 +20,15 @@ function Figure({ label, value, unit, hint }: { label: string; value: ReactNode;
 const fix = (x: number | null | undefined, d: number) => (x === null || x === undefined ? "—" : x.toFixed(d));
 
 /** The sketch in numbers, each with its unit. */
-export function FiguresPanel({ coverage, stations, elapsedMs }: { coverage: CoverageResponse; stations: number; elapsedMs: number | null }) {
+export function FiguresPanel({
+  coverage,
+  stations,
+  elapsedMs,
+}: {
+  coverage: CoverageResponse;
+  stations: number;
+  elapsedMs: number | null;
+}) {
   const f = coverage.figures;
   const am = airmassRange(coverage.samples);
   return (
@@ -30,8 +38,8 @@ export function FiguresPanel({ coverage, stations, elapsedMs }: { coverage: Cove
       className="xl:col-span-2"
       note={
         <>
-          Resolution λ<sub>min</sub>/(2 B<sub>max</sub>) and largest scale λ<sub>max</sub>/(2 B<sub>min</sub>) over the projected baselines.
-          Independent closure phases: (N − 1)(N − 2)/2 for N stations.
+          Resolution λ<sub>min</sub>/(2 B<sub>max</sub>) and largest scale λ<sub>max</sub>/(2 B<sub>min</sub>) over the
+          projected baselines. Independent closure phases: (N − 1)(N − 2)/2 for N stations.
           {elapsedMs !== null ? ` Computed by the server in a ${(elapsedMs / 1000).toFixed(2)} s round trip.` : ""}
         </>
       }
@@ -41,8 +49,17 @@ export function FiguresPanel({ coverage, stations, elapsedMs }: { coverage: Cove
         <Figure label="Longest projected baseline" value={fix(f.longestBaselineM, 1)} unit="m" />
         <Figure label="Shortest projected baseline" value={fix(f.shortestBaselineM, 1)} unit="m" />
         <Figure label="Largest angular scale" value={fix(f.largestAngularScaleMas, 2)} unit="mas" />
-        <Figure label="Observable time" value={fix(f.observableHours, 2)} unit="h" hint={`${f.observableSamples} observable samples`} />
-        <Figure label="Closure triangles" value={coverage.closurePhases.length} unit={`(${coverage.independentClosurePhases} independent)`} />
+        <Figure
+          label="Observable time"
+          value={fix(f.observableHours, 2)}
+          unit="h"
+          hint={`${f.observableSamples} observable samples`}
+        />
+        <Figure
+          label="Closure triangles"
+          value={coverage.closurePhases.length}
+          unit={`(${coverage.independentClosurePhases} independent)`}
+        />
         <Figure label="Stations / baselines" value={`${stations} / ${coverage.baselines.length}`} />
         <Figure label="Air mass range" value={am ? `${am.min.toFixed(2)}–${am.max.toFixed(2)}` : "—"} />
         <Figure label="Radial coverage" value={fix(f.radialCoverage * 100, 0)} unit="% of 20 bins" />
@@ -69,8 +86,8 @@ export function NotesPanel({
     <Panel id="notes" title="Notes" className="xl:col-span-2">
       <div className="space-y-3 text-sm">
         <p>
-          <span className="num font-semibold">{observable}</span> of <span className="num font-semibold">{total}</span> samples are
-          observable.
+          <span className="num font-semibold">{observable}</span> of <span className="num font-semibold">{total}</span>{" "}
+          samples are observable.
           {reasons.length > 0 ? ` Not observable: ${reasons.join("; ")}.` : ""}
         </p>
         {coverage.notes.length > 0 ? (

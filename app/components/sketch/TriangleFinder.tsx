@@ -5,18 +5,26 @@
  */
 import { useMemo, useState } from "react";
 import { Link } from "react-router";
-import { Button, DataTable, EmptyState, PageHeader, SelectField, type Column } from "~/components/ui";
-import { formatDeclination, formatRightAscension } from "~/services/coordinates";
+import { Button, type Column, DataTable, EmptyState, PageHeader, SelectField } from "~/components/ui";
+import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
 import { raTransitingAtMidnight } from "~/services/sketch-night";
 import {
-  type SketchRegistry,
-  type TrianglesBody,
   apiErrorText,
   buildTrianglesRequest,
-  inputForApiField,
   type FieldErrors,
+  inputForApiField,
+  type SketchRegistry,
+  type TrianglesBody,
 } from "~/services/sketch-request";
-import { ALL_STATIONS, type SavedTarget, type StateDefaults, type TriangleState, readTriangleState, sketchpadHref, writeTriangleState } from "~/services/sketch-state";
+import {
+  ALL_STATIONS,
+  readTriangleState,
+  type SavedTarget,
+  type StateDefaults,
+  sketchpadHref,
+  type TriangleState,
+  writeTriangleState,
+} from "~/services/sketch-state";
 import { type TrianglesResponse, useApi } from "./api";
 import { BandInput, InputGroup, ModelInputs, SamplingInputs, TargetInputs } from "./InputFields";
 import { Busy, CopyLinkButton } from "./Sketchpad";
@@ -27,13 +35,22 @@ type Row = TrianglesResponse["triangles"][number] & { href: string };
 function columns(): Column<Row>[] {
   return [
     { key: "rank", header: "Rank", align: "right", value: (r) => r.rank },
-    { key: "stations", header: "Triangle", value: (r) => r.stations.join("–"), render: (r) => <span className="whitespace-nowrap font-medium">{r.stations.join("–")}</span> },
+    {
+      key: "stations",
+      header: "Triangle",
+      value: (r) => r.stations.join("–"),
+      render: (r) => <span className="whitespace-nowrap font-medium">{r.stations.join("–")}</span>,
+    },
     {
       key: "open",
       header: "Sketchpad",
       value: (r) => r.href,
       render: (r) => (
-        <Link to={r.href} className="whitespace-nowrap font-medium text-ember-800 underline underline-offset-2 hover:text-ember-900" aria-label={`Open ${r.stations.join("–")} in Sketchpad`}>
+        <Link
+          to={r.href}
+          className="whitespace-nowrap font-medium text-ember-800 underline underline-offset-2 hover:text-ember-900"
+          aria-label={`Open ${r.stations.join("–")} in Sketchpad`}
+        >
           Open in Sketchpad
         </Link>
       ),
@@ -47,9 +64,29 @@ function columns(): Column<Row>[] {
       value: (r) => r.closurePhaseSignalDeg,
       render: (r) => r.closurePhaseSignalDeg.toFixed(1),
     },
-    { key: "amplitude", header: "Triple amplitude", align: "right", value: (r) => r.meanTripleAmplitude, render: (r) => r.meanTripleAmplitude.toFixed(3) },
-    { key: "spread", header: "uv spread", unit: "0–1", align: "right", value: (r) => r.uvSpread, render: (r) => r.uvSpread.toFixed(2) },
-    { key: "hours", header: "Observable", unit: "h", align: "right", value: (r) => r.observableHours, render: (r) => r.observableHours.toFixed(2) },
+    {
+      key: "amplitude",
+      header: "Triple amplitude",
+      align: "right",
+      value: (r) => r.meanTripleAmplitude,
+      render: (r) => r.meanTripleAmplitude.toFixed(3),
+    },
+    {
+      key: "spread",
+      header: "uv spread",
+      unit: "0–1",
+      align: "right",
+      value: (r) => r.uvSpread,
+      render: (r) => r.uvSpread.toFixed(2),
+    },
+    {
+      key: "hours",
+      header: "Observable",
+      unit: "h",
+      align: "right",
+      value: (r) => r.observableHours,
+      render: (r) => r.observableHours.toFixed(2),
+    },
     {
       key: "reasons",
       header: "Why",
@@ -98,11 +135,15 @@ export function TriangleFinder({
 
   const result = ranking.data?.result;
   const rows: Row[] = useMemo(
-    () => (result && asked ? result.triangles.map((t) => ({ ...t, href: sketchpadHref(asked.state, t.stations) })) : []),
+    () =>
+      result && asked ? result.triangles.map((t) => ({ ...t, href: sketchpadHref(asked.state, t.stations) })) : [],
     [result, asked],
   );
   const cols = useMemo(columns, []);
-  const poolSize = state.pool === ALL_STATIONS ? registry.stations.length : (registry.configurations.find((c) => c.name === state.pool)?.stationNames.length ?? 0);
+  const poolSize =
+    state.pool === ALL_STATIONS
+      ? registry.stations.length
+      : (registry.configurations.find((c) => c.name === state.pool)?.stationNames.length ?? 0);
   const triples = (poolSize * (poolSize - 1) * (poolSize - 2)) / 6;
 
   function rank() {
@@ -132,7 +173,10 @@ export function TriangleFinder({
             savedTargets={savedTargets}
             onExample={() =>
               set({
-                ra: formatRightAscension(raTransitingAtMidnight(state.date || defaults.date, registry.site.longitudeDeg), 1),
+                ra: formatRightAscension(
+                  raTransitingAtMidnight(state.date || defaults.date, registry.site.longitudeDeg),
+                  1,
+                ),
                 dec: formatDeclination(Math.round(registry.site.latitudeDeg) - 5, 0),
               })
             }
@@ -188,11 +232,13 @@ export function TriangleFinder({
                   : ranking.error
                     ? "Not ranked: fix the marked input"
                     : ranking.data
-                    ? `Ranked in a ${(ranking.data.elapsedMs / 1000).toFixed(2)} s round trip`
-                    : "Not ranked yet"
+                      ? `Ranked in a ${(ranking.data.elapsedMs / 1000).toFixed(2)} s round trip`
+                      : "Not ranked yet"
               }
             />
-            {stale && result ? <span className="text-sm text-caution-700">The inputs changed since this ranking: rank again.</span> : null}
+            {stale && result ? (
+              <span className="text-sm text-caution-700">The inputs changed since this ranking: rank again.</span>
+            ) : null}
           </div>
           {formError ? (
             <p role="alert" className="rounded-lg border border-danger-700/30 bg-danger-50 p-3 text-sm text-danger-700">
@@ -200,23 +246,38 @@ export function TriangleFinder({
             </p>
           ) : null}
           {result ? (
-            <section aria-labelledby="ranking-title" className="space-y-3 rounded-[var(--radius-card)] bg-white p-4 shadow-[var(--shadow-card)] ring-1 ring-night-200">
+            <section
+              aria-labelledby="ranking-title"
+              className="space-y-3 rounded-[var(--radius-card)] bg-white p-4 shadow-[var(--shadow-card)] ring-1 ring-night-200"
+            >
               <h2 id="ranking-title" className="text-lg font-semibold">
                 Ranked triangles
               </h2>
               <p className="text-sm text-night-700">
                 {result.triangleCount} triangles of {result.stationCount} stations over {result.sampleCount} samples of{" "}
                 {(result.sampleDurationH * 60).toFixed(0)} min
-                {result.triangles.length < result.triangleCount ? `; the best ${result.triangles.length} are listed` : ""}. The pool has{" "}
-                {result.independentClosurePhases} independent closure phases. {result.scoring}.
+                {result.triangles.length < result.triangleCount
+                  ? `; the best ${result.triangles.length} are listed`
+                  : ""}
+                . The pool has {result.independentClosurePhases} independent closure phases. {result.scoring}.
               </p>
-              <DataTable caption="Station triangles ranked for the target" columns={cols} rows={rows} rowKey={(r) => r.stations.join("-")} exportName="triangles" />
+              <DataTable
+                caption="Station triangles ranked for the target"
+                columns={cols}
+                rows={rows}
+                rowKey={(r) => r.stations.join("-")}
+                exportName="triangles"
+              />
             </section>
           ) : ranking.isValidating ? (
             <EmptyState title="Ranking…">Every triple of the pool is scored on the server.</EmptyState>
           ) : (
             <EmptyState title="No ranking yet">
-              {built.ok ? "Press “Rank triangles”." : !built.ok && built.waiting ? "Type the target's coordinates, then rank." : "Fix the inputs marked in red, then rank."}
+              {built.ok
+                ? "Press “Rank triangles”."
+                : !built.ok && built.waiting
+                  ? "Type the target's coordinates, then rank."
+                  : "Fix the inputs marked in red, then rank."}
             </EmptyState>
           )}
         </div>

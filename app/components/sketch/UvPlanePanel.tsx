@@ -1,5 +1,5 @@
 import { useMemo } from "react";
-import { Plot, SERIES_COLOURS, plotLayout } from "~/components/plots/Plot";
+import { Plot, plotLayout, SERIES_COLOURS } from "~/components/plots/Plot";
 import { uvPoints } from "~/services/sketch-figures";
 import type { CoverageResponse } from "./api";
 import { Panel, SeriesLegend, Toggle } from "./Panel";
@@ -14,7 +14,15 @@ export const baselineColour = (b: number) => SERIES_COLOURS[b % SERIES_COLOURS.l
  * of its Hermitian points (−u, −v) in the same colour. u grows toward east, plotted to the LEFT as on
  * the sky; equal scales on both axes.
  */
-export function UvPlanePanel({ coverage, unit, onUnit }: { coverage: CoverageResponse; unit: UvUnit; onUnit: (u: UvUnit) => void }) {
+export function UvPlanePanel({
+  coverage,
+  unit,
+  onUnit,
+}: {
+  coverage: CoverageResponse;
+  unit: UvUnit;
+  onUnit: (u: UvUnit) => void;
+}) {
   const { data, radius } = useMemo(() => {
     const traces: Record<string, unknown>[] = [];
     let r = 0;
@@ -76,7 +84,9 @@ export function UvPlanePanel({ coverage, unit, onUnit }: { coverage: CoverageRes
       note={
         <>
           Filled: measured (u, v); hollow: the Hermitian points (−u, −v), which every baseline gives as well.
-          {unit === "mlambda" ? ` One point per sample and channel (${coverage.wavelengthsM.length} channels).` : " Metres do not depend on the wavelength."}
+          {unit === "mlambda"
+            ? ` One point per sample and channel (${coverage.wavelengthsM.length} channels).`
+            : " Metres do not depend on the wavelength."}
         </>
       }
     >
@@ -90,7 +100,13 @@ export function UvPlanePanel({ coverage, unit, onUnit }: { coverage: CoverageRes
           layout={plotLayout({
             margin: { l: 60, r: 16, t: 16, b: 48 },
             xaxis: { title: { text: `u (${u}), east ←` }, range: [R, -R], zeroline: true },
-            yaxis: { title: { text: `v (${u}), north ↑` }, range: [-R, R], scaleanchor: "x", scaleratio: 1, zeroline: true },
+            yaxis: {
+              title: { text: `v (${u}), north ↑` },
+              range: [-R, R],
+              scaleanchor: "x",
+              scaleratio: 1,
+              zeroline: true,
+            },
             showlegend: false,
             uirevision: `uv-${unit}`,
             hovermode: "closest",
@@ -99,7 +115,10 @@ export function UvPlanePanel({ coverage, unit, onUnit }: { coverage: CoverageRes
       )}
       <SeriesLegend
         label="Baselines"
-        items={coverage.baselines.map((b, k) => ({ name: `${b.stations[0]}–${b.stations[1]}`, colour: baselineColour(k) }))}
+        items={coverage.baselines.map((b, k) => ({
+          name: `${b.stations[0]}–${b.stations[1]}`,
+          colour: baselineColour(k),
+        }))}
       />
     </Panel>
   );

@@ -1,6 +1,6 @@
 import { useMemo } from "react";
-import { Plot, SERIES_COLOURS, plotLayout } from "~/components/plots/Plot";
-import type { TargetModel } from "~/services/requests";
+import { Plot, plotLayout, SERIES_COLOURS } from "~/components/plots/Plot";
+import type { TargetModel } from "~/engine";
 import { modelVis2Curves, spatialFrequencyPoints } from "~/services/sketch-figures";
 import type { CoverageResponse } from "./api";
 import { Panel, SeriesLegend } from "./Panel";
@@ -53,7 +53,9 @@ export function VisibilityPanel({ coverage, model }: { coverage: CoverageRespons
         kind: "line" as const,
         dash: CURVE_DASH[i % CURVE_DASH.length],
       })),
-      ...points.filter(({ p }) => p.freqMl.length > 0).map(({ b, k }) => ({ name: `${b.stations[0]}–${b.stations[1]}`, colour: baselineColour(k) })),
+      ...points
+        .filter(({ p }) => p.freqMl.length > 0)
+        .map(({ b, k }) => ({ name: `${b.stations[0]}–${b.stations[1]}`, colour: baselineColour(k) })),
     ];
     return { data, xMax, legend };
   }, [coverage, model]);
@@ -106,7 +108,10 @@ export function ClosurePanel({ coverage }: { coverage: CoverageResponse }) {
         type: "scatter",
         mode: "lines+markers",
         name: t.stations.join("–"),
-        ...brokenAtWraps(t.points.map((p) => p.hourAngleH), t.points.map((p) => p.closurePhaseDeg[mid])),
+        ...brokenAtWraps(
+          t.points.map((p) => p.hourAngleH),
+          t.points.map((p) => p.closurePhaseDeg[mid]),
+        ),
         line: { color: SERIES_COLOURS[k % SERIES_COLOURS.length], width: 1.5 },
         marker: { size: 4, color: SERIES_COLOURS[k % SERIES_COLOURS.length] },
         showlegend: false,
@@ -139,7 +144,11 @@ export function ClosurePanel({ coverage }: { coverage: CoverageResponse }) {
       )}
       <SeriesLegend
         label="Triangles"
-        items={coverage.closurePhases.map((t, k) => ({ name: t.stations.join("–"), colour: SERIES_COLOURS[k % SERIES_COLOURS.length], kind: "line" as const }))}
+        items={coverage.closurePhases.map((t, k) => ({
+          name: t.stations.join("–"),
+          colour: SERIES_COLOURS[k % SERIES_COLOURS.length],
+          kind: "line" as const,
+        }))}
       />
     </Panel>
   );

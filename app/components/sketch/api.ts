@@ -4,8 +4,7 @@
  * sketch is never asked twice and the last answer stays on screen while the next one is computed.
  */
 import useSWR from "swr";
-import type { CoverageResponse, TrianglesResponse } from "~/services/interferometry";
-import type { EphemerisResponse } from "~/services/astro";
+import type { CoverageResponse, EphemerisResponse, TrianglesResponse } from "~/engine";
 
 export type { CoverageResponse, EphemerisResponse, TrianglesResponse };
 
@@ -66,7 +65,7 @@ export async function postJson<T>(url: string, bodyText: string): Promise<Timed<
 
 type Key = readonly [string, string];
 
-const fetcher = <T,>([url, body]: Key) => postJson<T>(url, body);
+const fetcher = <T>([url, body]: Key) => postJson<T>(url, body);
 
 /**
  * SWR over a POST route. `body` null means "nothing to ask" (no request). The previous answer is kept

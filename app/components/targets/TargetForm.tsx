@@ -17,7 +17,15 @@ const MODELS: { value: string; label: string }[] = [
  * The fields of one target: name, coordinates (sexagesimal or degrees), model with its parameters,
  * magnitudes per band. Field names are the CSV column names, so one reader checks forms and files.
  */
-export function TargetFields({ values, errors, bands }: { values: TargetFormValues; errors: Record<string, string>; bands: string[] }) {
+export function TargetFields({
+  values,
+  errors,
+  bands,
+}: {
+  values: TargetFormValues;
+  errors: Record<string, string>;
+  bands: string[];
+}) {
   const [model, setModel] = useState(values.model || "point");
   const sized = model === "uniformDisk" || model === "limbDarkenedDisk" || model === "ring" || model === "gaussian";
   return (
@@ -32,10 +40,23 @@ export function TargetFields({ values, errors, bands }: { values: TargetFormValu
           required
           hint="J2000; hours 05:36:12.8 or degrees 84.05"
         />
-        <TextField label="Declination" name="dec" defaultValue={values.dec} error={errors.dec} required hint="J2000; −01:12:07 or −1.202" />
+        <TextField
+          label="Declination"
+          name="dec"
+          defaultValue={values.dec}
+          error={errors.dec}
+          required
+          hint="J2000; −01:12:07 or −1.202"
+        />
       </div>
       <div className="grid gap-4 md:grid-cols-3">
-        <SelectField label="Model" name="model" value={model} onChange={(e) => setModel(e.target.value)} error={errors.model}>
+        <SelectField
+          label="Model"
+          name="model"
+          value={model}
+          onChange={(e) => setModel(e.target.value)}
+          error={errors.model}
+        >
           {MODELS.map((m) => (
             <option key={m.value} value={m.value}>
               {m.label}
@@ -64,7 +85,14 @@ export function TargetFields({ values, errors, bands }: { values: TargetFormValu
         ) : null}
         {model === "binary" ? (
           <>
-            <TextField label="Separation" unit="mas" name="separation_mas" inputMode="decimal" defaultValue={values.separation_mas} error={errors.separation_mas} />
+            <TextField
+              label="Separation"
+              unit="mas"
+              name="separation_mas"
+              inputMode="decimal"
+              defaultValue={values.separation_mas}
+              error={errors.separation_mas}
+            />
             <TextField
               label="Position angle"
               unit="° east of north"
@@ -88,7 +116,15 @@ export function TargetFields({ values, errors, bands }: { values: TargetFormValu
         <fieldset className="grid gap-4 sm:grid-cols-3">
           <legend className="mb-1 text-sm font-medium text-night-800">Magnitudes (leave empty when unknown)</legend>
           {bands.map((b) => (
-            <TextField key={b} label={`${b} band`} unit="mag" name={`mag_${b}`} inputMode="decimal" defaultValue={values[`mag_${b}`]} error={errors[`mag_${b}`]} />
+            <TextField
+              key={b}
+              label={`${b} band`}
+              unit="mag"
+              name={`mag_${b}`}
+              inputMode="decimal"
+              defaultValue={values[`mag_${b}`]}
+              error={errors[`mag_${b}`]}
+            />
           ))}
         </fieldset>
       ) : null}
@@ -116,7 +152,14 @@ export function TargetForm({
       <input type="hidden" name="intent" value={intent} />
       <FormErrors errors={Object.values(errors)} />
       <TargetFields values={values} errors={errors} bands={bands} />
-      <TextArea label="Notes" name="notes" defaultValue={values.notes} error={errors.notes} maxLength={1000} className="min-h-20" />
+      <TextArea
+        label="Notes"
+        name="notes"
+        defaultValue={values.notes}
+        error={errors.notes}
+        maxLength={1000}
+        className="min-h-20"
+      />
       <div>
         <Button type="submit" disabled={busy}>
           {busy ? "Saving…" : submitLabel}

@@ -1,9 +1,24 @@
 import type { ReactNode } from "react";
 import { cx } from "./cx";
 
-export function Card({ title, actions, children, className }: { title?: ReactNode; actions?: ReactNode; children: ReactNode; className?: string }) {
+export function Card({
+  title,
+  actions,
+  children,
+  className,
+}: {
+  title?: ReactNode;
+  actions?: ReactNode;
+  children: ReactNode;
+  className?: string;
+}) {
   return (
-    <section className={cx("rounded-[var(--radius-card)] bg-white p-5 shadow-[var(--shadow-card)] ring-1 ring-night-200", className)}>
+    <section
+      className={cx(
+        "rounded-[var(--radius-card)] bg-white p-5 shadow-[var(--shadow-card)] ring-1 ring-night-200",
+        className,
+      )}
+    >
       {title || actions ? (
         <header className="mb-3 flex flex-wrap items-center justify-between gap-2">
           {title ? <h2 className="text-lg font-semibold">{title}</h2> : <span />}
@@ -54,5 +69,9 @@ const tones: Record<BadgeTone, string> = {
 };
 
 export function Badge({ tone = "neutral", children }: { tone?: BadgeTone; children: ReactNode }) {
-  return <span className={cx("inline-flex items-center rounded-full px-2 py-0.5 text-xs font-medium", tones[tone])}>{children}</span>;
+  return (
+    <span className={cx("inline-flex items-center rounded-full px-2 py-0.5 text-xs font-medium", tones[tone])}>
+      {children}
+    </span>
+  );
 }

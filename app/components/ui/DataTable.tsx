@@ -1,5 +1,5 @@
 import Papa from "papaparse";
-import { useMemo, useState, type ReactNode } from "react";
+import { type ReactNode, useMemo, useState } from "react";
 import { Button } from "./Button";
 import { cx } from "./cx";
 
@@ -84,7 +84,11 @@ export function DataTable<Row>({
     <div className="space-y-2">
       {exportName ? (
         <div className="flex justify-end">
-          <Button variant="secondary" size="sm" onClick={() => download(`${exportName}.csv`, tableToCsv(columns, sorted))}>
+          <Button
+            variant="secondary"
+            size="sm"
+            onClick={() => download(`${exportName}.csv`, tableToCsv(columns, sorted))}
+          >
             Export CSV
           </Button>
         </div>
@@ -98,7 +102,15 @@ export function DataTable<Row>({
                 const active = sort?.key === c.key;
                 const ariaSort = active ? (sort.dir === "asc" ? "ascending" : "descending") : "none";
                 return (
-                  <th key={c.key} scope="col" aria-sort={ariaSort} className={cx("px-3 py-2 font-semibold text-night-800", c.align === "right" ? "text-right" : "text-left")}>
+                  <th
+                    key={c.key}
+                    scope="col"
+                    aria-sort={ariaSort}
+                    className={cx(
+                      "px-3 py-2 font-semibold text-night-800",
+                      c.align === "right" ? "text-right" : "text-left",
+                    )}
+                  >
                     <button
                       type="button"
                       onClick={() => toggle(c.key)}

@@ -1,4 +1,10 @@
-import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from "react";
+import {
+  type InputHTMLAttributes,
+  type ReactNode,
+  type SelectHTMLAttributes,
+  type TextareaHTMLAttributes,
+  useId,
+} from "react";
 import { cx } from "./cx";
 
 const control =
@@ -12,14 +18,7 @@ function controlClass(error?: string) {
 type Common = { label: string; hint?: ReactNode; error?: string; unit?: string };
 
 /** Label, control, optional unit, hint and error text, wired with aria attributes. */
-function FieldFrame({
-  id,
-  label,
-  hint,
-  error,
-  unit,
-  children,
-}: Common & { id: string; children: ReactNode }) {
+function FieldFrame({ id, label, hint, error, unit, children }: Common & { id: string; children: ReactNode }) {
   return (
     <div className="space-y-1">
       <label htmlFor={id} className="block text-sm font-medium text-night-800">
@@ -47,7 +46,15 @@ function describedBy(id: string, hint?: ReactNode, error?: string) {
   return undefined;
 }
 
-export function TextField({ label, hint, error, unit, className, id, ...rest }: Common & InputHTMLAttributes<HTMLInputElement>) {
+export function TextField({
+  label,
+  hint,
+  error,
+  unit,
+  className,
+  id,
+  ...rest
+}: Common & InputHTMLAttributes<HTMLInputElement>) {
   const auto = useId();
   const fieldId = id ?? auto;
   return (
@@ -63,7 +70,15 @@ export function TextField({ label, hint, error, unit, className, id, ...rest }: 
   );
 }
 
-export function TextArea({ label, hint, error, unit, className, id, ...rest }: Common & TextareaHTMLAttributes<HTMLTextAreaElement>) {
+export function TextArea({
+  label,
+  hint,
+  error,
+  unit,
+  className,
+  id,
+  ...rest
+}: Common & TextareaHTMLAttributes<HTMLTextAreaElement>) {
   const auto = useId();
   const fieldId = id ?? auto;
   return (

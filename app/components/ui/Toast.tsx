@@ -18,10 +18,18 @@ export function Toast({ flash }: { flash: FlashMessage | null }) {
     <div className="pointer-events-none fixed inset-x-0 top-3 z-50 flex justify-center px-3">
       <div
         role={visible.kind === "error" ? "alert" : "status"}
-        className={cx("pointer-events-auto flex max-w-lg items-start gap-3 rounded-lg border px-4 py-3 shadow-lg", styles[visible.kind])}
+        className={cx(
+          "pointer-events-auto flex max-w-lg items-start gap-3 rounded-lg border px-4 py-3 shadow-lg",
+          styles[visible.kind],
+        )}
       >
         <p className="text-sm font-medium">{visible.text}</p>
-        <button type="button" onClick={() => setVisible(null)} className="rounded px-1 text-sm font-semibold" aria-label="Dismiss message">
+        <button
+          type="button"
+          onClick={() => setVisible(null)}
+          className="rounded px-1 text-sm font-semibold"
+          aria-label="Dismiss message"
+        >
           ×
         </button>
       </div>

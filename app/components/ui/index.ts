@@ -1,6 +1,6 @@
 export { Button, ButtonLink, buttonClass } from "./Button";
-export { Badge, Card, EmptyState, PageHeader, type BadgeTone } from "./Card";
-export { DataTable, tableToCsv, type Column } from "./DataTable";
-export { FormErrors, SelectField, TextArea, TextField } from "./Field";
-export { Toast, type FlashMessage } from "./Toast";
+export { Badge, type BadgeTone, Card, EmptyState, PageHeader } from "./Card";
 export { cx } from "./cx";
+export { type Column, DataTable, tableToCsv } from "./DataTable";
+export { FormErrors, SelectField, TextArea, TextField } from "./Field";
+export { type FlashMessage, Toast } from "./Toast";

@@ -1,13 +1,4 @@
-import {
-  boolean,
-  doublePrecision,
-  integer,
-  pgTable,
-  primaryKey,
-  serial,
-  text,
-  uniqueIndex,
-} from "drizzle-orm/pg-core";
+import { boolean, doublePrecision, integer, pgTable, primaryKey, serial, text, uniqueIndex } from "drizzle-orm/pg-core";
 import { timestamps } from "./columns";
 
 /**

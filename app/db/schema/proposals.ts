@@ -25,7 +25,7 @@ const bytea = customType<{ data: Buffer; driverData: Buffer }>({
 
 /**
  * A target model as the API takes it (CONVENTIONS.md): `{type: "uniformDisk", diameterMas: 3}` etc.
- * Validated by the request schemas in app/services/requests.ts before it is stored.
+ * Validated by the request schemas in app/engine/api/requests.ts before it is stored.
  */
 export type TargetModelJson = { type: string; [key: string]: unknown };
 /** Magnitude per band name, e.g. `{ "H": 4.2, "K": 3.9 }`. */
@@ -165,7 +165,10 @@ export const proposalHours = pgTable(
       .references(() => configurations.id, { onDelete: "restrict" }),
     hours: doublePrecision("hours").notNull(),
   },
-  (t) => [primaryKey({ columns: [t.proposalId, t.configurationId] }), check("proposal_hours_positive", sql`${t.hours} > 0`)],
+  (t) => [
+    primaryKey({ columns: [t.proposalId, t.configurationId] }),
+    check("proposal_hours_positive", sql`${t.hours} > 0`),
+  ],
 );
 
 /**

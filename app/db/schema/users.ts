@@ -1,5 +1,15 @@
-import { boolean, integer, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
 import { sql } from "drizzle-orm";
+import {
+  boolean,
+  integer,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  serial,
+  text,
+  timestamp,
+  uniqueIndex,
+} from "drizzle-orm/pg-core";
 import { timestamps } from "./columns";
 
 /** The roles of PRODUCT.md; one person may hold several. Keep in step with app/services/permissions.ts. */
@@ -20,7 +30,10 @@ export const users = pgTable(
     lastSignInAt: timestamp("last_sign_in_at", { withTimezone: true }),
     ...timestamps,
   },
-  (t) => [uniqueIndex("users_email_key").on(sql`lower(${t.email})`), uniqueIndex("users_sso_subject_key").on(t.ssoSubject)],
+  (t) => [
+    uniqueIndex("users_email_key").on(sql`lower(${t.email})`),
+    uniqueIndex("users_sso_subject_key").on(t.ssoSubject),
+  ],
 );
 
 export const userRoles = pgTable(

@@ -1,16 +1,19 @@
 import { data, Form, useNavigation } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/index";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, Button, Card, PageHeader, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requireUser } from "~/services/auth.server";
 import { createApiToken, listApiTokens, revokeApiToken } from "~/services/auth/api-tokens.server";
 import { listUserSessions, revokeOtherSessions, revokeSession } from "~/services/auth/sessions.server";
-import { redirectWithFlash } from "~/services/flash.server";
+import { requireUser } from "~/services/auth.server";
+import { redirectWithFlash } from "~/lib/flash.server";
+import type { Route } from "./+types/index";
 
 const ActionSchema = v.variant("intent", [
-  v.object({ intent: v.literal("revoke-session"), sessionId: v.pipe(v.string(), v.regex(/^[0-9a-f]{64}$/, "Unknown session.")) }),
+  v.object({
+    intent: v.literal("revoke-session"),
+    sessionId: v.pipe(v.string(), v.regex(/^[0-9a-f]{64}$/, "Unknown session.")),
+  }),
   v.object({ intent: v.literal("revoke-other-sessions") }),
   v.object({
     intent: v.literal("create-token"),
@@ -21,13 +24,19 @@ const ActionSchema = v.variant("intent", [
       v.maxLength(80, "Keep the name under 80 characters."),
     ),
   }),
-  v.object({ intent: v.literal("revoke-token"), tokenId: v.pipe(v.string(), v.transform(Number), v.integer("Unknown token.")) }),
+  v.object({
+    intent: v.literal("revoke-token"),
+    tokenId: v.pipe(v.string(), v.transform(Number), v.integer("Unknown token.")),
+  }),
 ]);
 
 export async function loader({ request }: Route.LoaderArgs) {
   const viewer = await requireUser(request);
   const db = database();
-  const [sessionRows, tokens] = await Promise.all([listUserSessions(db, viewer.user.id), listApiTokens(db, viewer.user.id)]);
+  const [sessionRows, tokens] = await Promise.all([
+    listUserSessions(db, viewer.user.id),
+    listApiTokens(db, viewer.user.id),
+  ]);
   return {
     user: viewer.user,
     roles: viewer.roles,
@@ -57,14 +66,21 @@ export async function action({ request }: Route.ActionArgs) {
   const form = Object.fromEntries(await request.formData());
   const parsed = v.safeParse(ActionSchema, form);
   if (!parsed.success) {
-    return data({ error: parsed.issues[0].message, newToken: null, tokenName: String(form.name ?? "") }, { status: 400 });
+    return data(
+      { error: parsed.issues[0].message, newToken: null, tokenName: String(form.name ?? "") },
+      { status: 400 },
+    );
   }
   const db = database();
   const input = parsed.output;
   switch (input.intent) {
     case "revoke-session": {
       const ok = await revokeSession(db, viewer.user.id, input.sessionId);
-      if (!ok) return data({ error: "That session is not yours or has already ended.", newToken: null, tokenName: "" }, { status: 404 });
+      if (!ok)
+        return data(
+          { error: "That session is not yours or has already ended.", newToken: null, tokenName: "" },
+          { status: 404 },
+        );
       return redirectWithFlash("/account", { kind: "success", text: "The session has been signed out." });
     }
     case "revoke-other-sessions": {
@@ -77,7 +93,11 @@ export async function action({ request }: Route.ActionArgs) {
     }
     case "revoke-token": {
       const ok = await revokeApiToken(db, viewer.user.id, input.tokenId);
-      if (!ok) return data({ error: "That token is not yours or is already revoked.", newToken: null, tokenName: "" }, { status: 404 });
+      if (!ok)
+        return data(
+          { error: "That token is not yours or is already revoked.", newToken: null, tokenName: "" },
+          { status: 404 },
+        );
       return redirectWithFlash("/account", { kind: "success", text: "The token has been revoked." });
     }
   }
@@ -85,18 +105,30 @@ export async function action({ request }: Route.ActionArgs) {
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account — Fringe Docket" }];
 
-const when = (iso: string | null) => (iso ? new Date(iso).toISOString().replace("T", " ").slice(0, 16) + " UTC" : "never");
+const when = (iso: string | null) =>
+  iso ? `${new Date(iso).toISOString().replace("T", " ").slice(0, 16)} UTC` : "never";
 
 export default function Account({ loaderData, actionData }: Route.ComponentProps) {
   const { user, roles, sessions, tokens, currentSessionId } = loaderData;
   const busy = useNavigation().state === "submitting";
   return (
     <>
-      <PageHeader title="Your account" lead={`${user.name} · ${user.email}${user.institute ? ` · ${user.institute}` : ""}`} />
+      <PageHeader
+        title="Your account"
+        lead={`${user.name} · ${user.email}${user.institute ? ` · ${user.institute}` : ""}`}
+      />
       <div className="grid gap-6">
         <Card title="Roles">
           <div className="flex flex-wrap gap-2">
-            {roles.length ? roles.map((r) => <Badge key={r} tone="accent">{r}</Badge>) : <span className="text-night-600">No roles yet.</span>}
+            {roles.length ? (
+              roles.map((r) => (
+                <Badge key={r} tone="accent">
+                  {r}
+                </Badge>
+              ))
+            ) : (
+              <span className="text-night-600">No roles yet.</span>
+            )}
           </div>
           <p className="mt-2 text-sm text-night-600">Roles are granted by the array's administrator.</p>
         </Card>
@@ -129,15 +161,20 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
                     {s.id === currentSessionId ? <Badge tone="ok">this browser</Badge> : null}
                   </p>
                   <p className="text-night-600">
-                    via {s.method === "sso" ? "single sign-on" : "e-mail link"} · started {when(s.createdAt)} · last used {when(s.lastSeenAt)} · expires{" "}
-                    {when(s.expiresAt)}
+                    via {s.method === "sso" ? "single sign-on" : "e-mail link"} · started {when(s.createdAt)} · last
+                    used {when(s.lastSeenAt)} · expires {when(s.expiresAt)}
                   </p>
                 </div>
                 {s.id !== currentSessionId ? (
                   <Form method="post">
                     <input type="hidden" name="intent" value="revoke-session" />
                     <input type="hidden" name="sessionId" value={s.id} />
-                    <Button type="submit" variant="secondary" size="sm" aria-label={`Sign out the session started ${when(s.createdAt)}`}>
+                    <Button
+                      type="submit"
+                      variant="secondary"
+                      size="sm"
+                      aria-label={`Sign out the session started ${when(s.createdAt)}`}
+                    >
                       Sign out
                     </Button>
                   </Form>
@@ -149,13 +186,19 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
 
         <Card title="API tokens">
           <p className="mb-3 text-sm text-night-700">
-            Scripts call <code className="rounded bg-night-100 px-1">/api/*</code> with <code className="rounded bg-night-100 px-1">Authorization: Bearer &lt;token&gt;</code>. A token
-            acts with your roles; it is shown once.
+            Scripts call <code className="rounded bg-night-100 px-1">/api/*</code> with{" "}
+            <code className="rounded bg-night-100 px-1">Authorization: Bearer &lt;token&gt;</code>. A token acts with
+            your roles; it is shown once.
           </p>
           {actionData?.newToken ? (
             <div role="status" className="mb-4 rounded-lg border border-ok-700/30 bg-ok-50 p-3 text-sm">
-              <p className="font-semibold text-ok-700">New token “{actionData.newToken.name}” — copy it now, it will not be shown again:</p>
-              <code data-testid="new-token" className="mt-1 block break-all rounded bg-white p-2 font-mono text-night-900">
+              <p className="font-semibold text-ok-700">
+                New token “{actionData.newToken.name}” — copy it now, it will not be shown again:
+              </p>
+              <code
+                data-testid="new-token"
+                className="mt-1 block break-all rounded bg-white p-2 font-mono text-night-900"
+              >
                 {actionData.newToken.token}
               </code>
             </div>
@@ -163,7 +206,13 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
           <Form method="post" className="mb-4 flex flex-wrap items-end gap-3">
             <input type="hidden" name="intent" value="create-token" />
             <div className="min-w-60 flex-1">
-              <TextField label="Token name" name="name" maxLength={80} defaultValue={actionData?.tokenName ?? ""} placeholder="e.g. coverage batch script" />
+              <TextField
+                label="Token name"
+                name="name"
+                maxLength={80}
+                defaultValue={actionData?.tokenName ?? ""}
+                placeholder="e.g. coverage batch script"
+              />
             </div>
             <Button type="submit" disabled={busy}>
               Create token

@@ -2,17 +2,17 @@ import { eq } from "drizzle-orm";
 import { createElement } from "react";
 import { data, Form, useSearchParams } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/users";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, Button, Card, PageHeader, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { ROLES, users, type Role } from "~/db/schema/users";
+import { ROLES, type Role, users } from "~/db/schema/users";
 import { RoleChangeEmail } from "~/emails/RoleChangeEmail";
-import { requirePermission } from "~/services/auth.server";
 import { recentAudit, searchUsers, setActive, setRoles } from "~/services/auth/accounts.server";
-import { redirectWithFlash } from "~/services/flash.server";
+import { requirePermission } from "~/services/auth.server";
+import { redirectWithFlash } from "~/lib/flash.server";
 import { enqueueMail } from "~/services/mail/outbox.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
+import type { Route } from "./+types/users";
 
 const UserId = v.pipe(v.string(), v.transform(Number), v.integer("Unknown person."), v.minValue(1, "Unknown person."));
 
@@ -89,19 +89,25 @@ export async function action({ request }: Route.ActionArgs) {
   await setActive(db, viewer.user.id, target.id, input.intent === "reactivate");
   return redirectWithFlash("/admin/users", {
     kind: "success",
-    text: input.intent === "reactivate" ? `${target.name} can sign in again.` : `${target.name} is deactivated and signed out everywhere.`,
+    text:
+      input.intent === "reactivate"
+        ? `${target.name} can sign in again.`
+        : `${target.name} is deactivated and signed out everywhere.`,
   });
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "People — Fringe Docket" }];
 
-const when = (iso: string | null) => (iso ? iso.replace("T", " ").slice(0, 16) + " UTC" : "never");
+const when = (iso: string | null) => (iso ? `${iso.replace("T", " ").slice(0, 16)} UTC` : "never");
 
 export default function AdminUsers({ loaderData, actionData }: Route.ComponentProps) {
   const [params] = useSearchParams();
   return (
     <>
-      <PageHeader title="People" lead="Accounts and their roles. Every change is recorded in the audit log below and the person gets a notice." />
+      <PageHeader
+        title="People"
+        lead="Accounts and their roles. Every change is recorded in the audit log below and the person gets a notice."
+      />
       <Form method="get" role="search" className="mb-4 flex max-w-xl items-end gap-3">
         <div className="flex-1">
           <TextField label="Search by name, e-mail or institute" name="q" defaultValue={params.get("q") ?? ""} />
@@ -111,7 +117,10 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
         </Button>
       </Form>
       {actionData?.error ? (
-        <p role="alert" className="mb-4 rounded-lg border border-danger-700/30 bg-danger-50 p-3 text-sm text-danger-700">
+        <p
+          role="alert"
+          className="mb-4 rounded-lg border border-danger-700/30 bg-danger-50 p-3 text-sm text-danger-700"
+        >
           {actionData.error}
         </p>
       ) : null}
@@ -132,17 +141,32 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
               <Form method="post">
                 <input type="hidden" name="userId" value={p.id} />
                 <input type="hidden" name="intent" value={p.active ? "deactivate" : "reactivate"} />
-                <Button type="submit" variant={p.active ? "secondary" : "primary"} size="sm" aria-label={`${p.active ? "Deactivate" : "Reactivate"} ${p.name}`}>
+                <Button
+                  type="submit"
+                  variant={p.active ? "secondary" : "primary"}
+                  size="sm"
+                  aria-label={`${p.active ? "Deactivate" : "Reactivate"} ${p.name}`}
+                >
                   {p.active ? "Deactivate" : "Reactivate"}
                 </Button>
               </Form>
             </div>
-            <Form method="post" className="mt-3 flex flex-wrap items-center gap-x-4 gap-y-2" aria-label={`Roles of ${p.name}`}>
+            <Form
+              method="post"
+              className="mt-3 flex flex-wrap items-center gap-x-4 gap-y-2"
+              aria-label={`Roles of ${p.name}`}
+            >
               <input type="hidden" name="intent" value="set-roles" />
               <input type="hidden" name="userId" value={p.id} />
               {ROLES.map((r) => (
                 <label key={r} className="inline-flex items-center gap-1.5 text-sm">
-                  <input type="checkbox" name="roles" value={r} defaultChecked={p.roles.includes(r)} className="h-4 w-4 accent-ember-700" />
+                  <input
+                    type="checkbox"
+                    name="roles"
+                    value={r}
+                    defaultChecked={p.roles.includes(r)}
+                    className="h-4 w-4 accent-ember-700"
+                  />
                   {r}
                 </label>
               ))}
@@ -160,9 +184,10 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
           <ol className="divide-y divide-night-100 text-sm">
             {loaderData.audit.map((a) => (
               <li key={a.id} className="py-2">
-                <span className="num text-night-600">{when(a.createdAt)}</span> — <span className="font-medium">{a.actor ?? "someone"}</span>{" "}
-                {a.action.replace(".", " ")}
-                {typeof a.detail.role === "string" ? ` (${a.detail.role})` : ""} for <span className="font-medium">{a.target ?? "—"}</span>
+                <span className="num text-night-600">{when(a.createdAt)}</span> —{" "}
+                <span className="font-medium">{a.actor ?? "someone"}</span> {a.action.replace(".", " ")}
+                {typeof a.detail.role === "string" ? ` (${a.detail.role})` : ""} for{" "}
+                <span className="font-medium">{a.target ?? "—"}</span>
               </li>
             ))}
           </ol>

@@ -1,10 +1,11 @@
 // POST /api/coverage — uv coverage, model visibilities, closure phases and dirty beam.
 // Request and response: docs/cli.md (same JSON as `npm run -s cli -- coverage`).
-import type { Route } from "./+types/coverage";
-import { handleComputation, methodNotAllowed } from "~/services/api-json.server";
+
+import { computeCoverage, parseCoverageRequest } from "~/engine";
+import { handleComputation } from "~/services/api/computation.server";
+import { methodNotAllowed } from "~/lib/json.server";
 import { requireApiUser } from "~/services/auth.server";
-import { computeCoverage } from "~/services/interferometry";
-import { parseCoverageRequest } from "~/services/requests";
+import type { Route } from "./+types/coverage";
 
 export async function loader({ request }: Route.LoaderArgs) {
   await requireApiUser(request);

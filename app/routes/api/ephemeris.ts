@@ -1,10 +1,11 @@
 // POST /api/ephemeris — a night's Sun events, sidereal time and Moon.
 // Request and response: docs/cli.md (same JSON as `npm run -s cli -- ephemeris`).
-import type { Route } from "./+types/ephemeris";
-import { handleComputation, methodNotAllowed } from "~/services/api-json.server";
+
+import { computeEphemeris, parseEphemerisRequest } from "~/engine";
+import { handleComputation } from "~/services/api/computation.server";
+import { methodNotAllowed } from "~/lib/json.server";
 import { requireApiUser } from "~/services/auth.server";
-import { computeEphemeris } from "~/services/astro";
-import { parseEphemerisRequest } from "~/services/requests";
+import type { Route } from "./+types/ephemeris";
 
 export async function loader({ request }: Route.LoaderArgs) {
   await requireApiUser(request);

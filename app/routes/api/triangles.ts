@@ -1,10 +1,11 @@
 // POST /api/triangles — ranked station triangles for a target.
 // Request and response: docs/cli.md (same JSON as `npm run -s cli -- triangles`).
-import type { Route } from "./+types/triangles";
-import { handleComputation, methodNotAllowed } from "~/services/api-json.server";
+
+import { parseTrianglesRequest, rankTriangles } from "~/engine";
+import { handleComputation } from "~/services/api/computation.server";
+import { methodNotAllowed } from "~/lib/json.server";
 import { requireApiUser } from "~/services/auth.server";
-import { rankTriangles } from "~/services/interferometry";
-import { parseTrianglesRequest } from "~/services/requests";
+import type { Route } from "./+types/triangles";
 
 export async function loader({ request }: Route.LoaderArgs) {
   await requireApiUser(request);

@@ -1,6 +1,5 @@
 import { data, Form } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/email-verify";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Button, Card } from "~/components/ui";
 import { database } from "~/db/client.server";
@@ -9,6 +8,7 @@ import { consumeSignInLink } from "~/services/auth/email-link.server";
 import { safeNext } from "~/services/auth/oidc.server";
 import { recordSignInAttempt } from "~/services/auth/rate-limit.server";
 import { signInAndRedirect } from "~/services/auth/sign-in.server";
+import type { Route } from "./+types/email-verify";
 
 const VerifySchema = v.object({
   token: v.pipe(v.string(), v.regex(/^[a-z2-7]{32}$/, "This sign-in link is not valid.")),
@@ -17,7 +17,10 @@ const VerifySchema = v.object({
 
 export function loader({ url }: Route.LoaderArgs) {
   // Public. Showing the page does not use the link (mail scanners open links); the button does.
-  const parsed = v.safeParse(VerifySchema, { token: url.searchParams.get("token") ?? "", next: url.searchParams.get("next") ?? "/" });
+  const parsed = v.safeParse(VerifySchema, {
+    token: url.searchParams.get("token") ?? "",
+    next: url.searchParams.get("next") ?? "/",
+  });
   if (!parsed.success) return { valid: false as const, token: "", next: "/" };
   return { valid: true as const, token: parsed.output.token, next: safeNext(parsed.output.next) };
 }

@@ -1,16 +1,16 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/sign-in";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Button, Card, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { env } from "~/env.server";
-import { getViewer } from "~/services/auth.server";
 import { clientAddress } from "~/services/auth/client-address.server";
 import { authEnv } from "~/services/auth/config.server";
 import { sendSignInLink } from "~/services/auth/email-link.server";
 import { safeNext } from "~/services/auth/oidc.server";
 import { recordSignInAttempt } from "~/services/auth/rate-limit.server";
+import { getViewer } from "~/services/auth.server";
+import type { Route } from "./+types/sign-in";
 
 const EmailLinkSchema = v.object({
   email: v.pipe(
@@ -83,7 +83,8 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
         </a>
         {loaderData.usingFakeProvider ? (
           <p className="mt-3 text-sm text-night-600">
-            This installation uses the local stand-in sign-on service: you pick one of the demo people or type any identity.
+            This installation uses the local stand-in sign-on service: you pick one of the demo people or type any
+            identity.
           </p>
         ) : null}
       </Card>
@@ -91,10 +92,16 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
         {actionData?.sent ? (
           <div role="status" className="space-y-2">
             <p className="font-medium text-ok-700">A sign-in link is on its way to {actionData.email}.</p>
-            <p className="text-sm text-night-700">It works once, for 15 minutes. Your first sign-in creates your account.</p>
+            <p className="text-sm text-night-700">
+              It works once, for 15 minutes. Your first sign-in creates your account.
+            </p>
             {loaderData.demoMode ? (
               <p className="text-sm text-night-700">
-                Demo mode: the message also appears in the <Link className="font-medium text-ember-700 underline" to="/mailbox">mailbox</Link> once you are signed in, and in the local mail catcher.
+                Demo mode: the message also appears in the{" "}
+                <Link className="font-medium text-ember-700 underline" to="/mailbox">
+                  mailbox
+                </Link>{" "}
+                once you are signed in, and in the local mail catcher.
               </p>
             ) : null}
           </div>
@@ -102,7 +109,10 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
           <Form method="post" className="space-y-3" noValidate>
             <input type="hidden" name="next" value={loaderData.next} />
             {actionData?.message ? (
-              <p role="alert" className="rounded-lg border border-caution-700/30 bg-caution-50 p-3 text-sm text-caution-700">
+              <p
+                role="alert"
+                className="rounded-lg border border-caution-700/30 bg-caution-50 p-3 text-sm text-caution-700"
+              >
                 {actionData.message}
               </p>
             ) : null}

@@ -1,8 +1,8 @@
 import { redirect } from "react-router";
-import type { Route } from "./+types/sign-out";
 import { database } from "~/db/client.server";
-import { getViewer } from "~/services/auth.server";
 import { clearSessionCookieHeader, revokeSession } from "~/services/auth/sessions.server";
+import { getViewer } from "~/services/auth.server";
+import type { Route } from "./+types/sign-out";
 
 export async function loader(_: Route.LoaderArgs) {
   // Signing out is a POST; a GET just goes home.

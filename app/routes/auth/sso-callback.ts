@@ -1,10 +1,10 @@
 import { redirect } from "react-router";
-import type { Route } from "./+types/sso-callback";
 import { database } from "~/db/client.server";
 import { findOrCreateAccount } from "~/services/auth/accounts.server";
 import { clientAddress } from "~/services/auth/client-address.server";
 import { completeSso, SsoError } from "~/services/auth/oidc.server";
 import { signInAndRedirect } from "~/services/auth/sign-in.server";
+import type { Route } from "./+types/sso-callback";
 
 function backToSignIn(message: string) {
   return redirect(`/sign-in?error=${encodeURIComponent(message)}`);
@@ -27,5 +27,7 @@ export async function loader({ request, context }: Route.LoaderArgs) {
     ssoSubject: result.identity.subject,
   });
   if (!account.user) throw backToSignIn(account.reason ?? "This account cannot sign in.");
-  return signInAndRedirect(db, request, account.user.id, "sso", result.next, clientAddress(context), [result.clearCookie]);
+  return signInAndRedirect(db, request, account.user.id, "sso", result.next, clientAddress(context), [
+    result.clearCookie,
+  ]);
 }

@@ -1,9 +1,9 @@
 import { redirect } from "react-router";
-import type { Route } from "./+types/sso-start";
 import { database } from "~/db/client.server";
 import { clientAddress } from "~/services/auth/client-address.server";
 import { beginSso, SsoError } from "~/services/auth/oidc.server";
 import { recordSignInAttempt } from "~/services/auth/rate-limit.server";
+import type { Route } from "./+types/sso-start";
 
 export async function loader({ url, context }: Route.LoaderArgs) {
   // Public: the first step of signing in; rate-limited per address.
@@ -15,6 +15,8 @@ export async function loader({ url, context }: Route.LoaderArgs) {
     return redirect(target, { headers: { "Set-Cookie": cookie } });
   } catch (e) {
     const reason = e instanceof SsoError ? e.message : "the sign-on service could not be reached";
-    throw redirect(`/sign-in?error=${encodeURIComponent(`Single sign-on is unavailable: ${reason}. Try the e-mail link instead.`)}`);
+    throw redirect(
+      `/sign-in?error=${encodeURIComponent(`Single sign-on is unavailable: ${reason}. Try the e-mail link instead.`)}`,
+    );
   }
 }

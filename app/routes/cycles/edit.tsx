@@ -1,6 +1,5 @@
 import { data } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/edit";
 import { CycleForm } from "~/components/cycles/CycleForm";
 import { ErrorPage } from "~/components/ErrorPage";
 import { PageHeader } from "~/components/ui";
@@ -9,7 +8,8 @@ import { requirePermission } from "~/services/auth.server";
 import { configurationChoices } from "~/services/configurations.server";
 import { cycleFormValues, parseCycleForm, toUtcInput } from "~/services/cycle-form";
 import { findCycleByName, getCycle, updateCycle } from "~/services/cycles.server";
-import { redirectWithFlash } from "~/services/flash.server";
+import { redirectWithFlash } from "~/lib/flash.server";
+import type { Route } from "./+types/edit";
 
 const CycleId = v.pipe(v.string(), v.regex(/^\d{1,9}$/), v.transform(Number));
 
@@ -51,12 +51,20 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!parsed.ok) return data({ values, errors: parsed.errors }, { status: 400 });
   const clash = await findCycleByName(db, parsed.value.name);
   if (clash && clash.id !== cycle.id) {
-    return data({ values, errors: { name: `Name: a cycle called ${parsed.value.name} exists already` } }, { status: 400 });
+    return data(
+      { values, errors: { name: `Name: a cycle called ${parsed.value.name} exists already` } },
+      { status: 400 },
+    );
   }
   const result = await updateCycle(db, cycle.id, parsed.value);
   if (!result.ok) {
     return data(
-      { values, errors: { offered: `Configurations: proposals already request ${result.blocked.join(", ")}; keep them on offer` } },
+      {
+        values,
+        errors: {
+          offered: `Configurations: proposals already request ${result.blocked.join(", ")}; keep them on offer`,
+        },
+      },
       { status: 400 },
     );
   }
@@ -68,7 +76,10 @@ export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Edit ${d?.na
 export default function EditCycle({ loaderData, actionData }: Route.ComponentProps) {
   return (
     <>
-      <PageHeader title={`Edit cycle ${loaderData.name}`} lead="Dates are nights at the site; the deadline is in UTC." />
+      <PageHeader
+        title={`Edit cycle ${loaderData.name}`}
+        lead="Dates are nights at the site; the deadline is in UTC."
+      />
       <CycleForm
         values={actionData?.values ?? loaderData.values}
         errors={actionData?.errors ?? {}}

@@ -1,9 +1,9 @@
-import type { Route } from "./+types/index";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Badge, ButtonLink, Card, EmptyState, PageHeader, type BadgeTone } from "~/components/ui";
+import { Badge, type BadgeTone, ButtonLink, Card, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requireUser } from "~/services/auth.server";
 import { cyclePhase, listCycles } from "~/services/cycles.server";
+import type { Route } from "./+types/index";
 
 export async function loader({ request }: Route.LoaderArgs) {
   const viewer = await requireUser(request);
@@ -26,7 +26,12 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export const meta: Route.MetaFunction = () => [{ title: "Cycles — Fringe Docket" }];
 
-const phaseTone: Record<string, BadgeTone> = { open: "ok", "in review": "info", observing: "accent", finished: "neutral" };
+const phaseTone: Record<string, BadgeTone> = {
+  open: "ok",
+  "in review": "info",
+  observing: "accent",
+  finished: "neutral",
+};
 
 export default function Cycles({ loaderData }: Route.ComponentProps) {
   return (
@@ -48,7 +53,18 @@ export default function Cycles({ loaderData }: Route.ComponentProps) {
                   {c.name} <Badge tone={phaseTone[c.phase]}>{c.phase}</Badge>
                 </span>
               }
-              actions={loaderData.canManage ? <ButtonLink to={`/cycles/${c.id}/edit`} variant="secondary" size="sm" aria-label={`Edit cycle ${c.name}`}>Edit</ButtonLink> : null}
+              actions={
+                loaderData.canManage ? (
+                  <ButtonLink
+                    to={`/cycles/${c.id}/edit`}
+                    variant="secondary"
+                    size="sm"
+                    aria-label={`Edit cycle ${c.name}`}
+                  >
+                    Edit
+                  </ButtonLink>
+                ) : null
+              }
             >
               {c.description ? <p className="mb-3 text-night-700">{c.description}</p> : null}
               <dl className="grid gap-3 sm:grid-cols-3">
@@ -65,7 +81,9 @@ export default function Cycles({ loaderData }: Route.ComponentProps) {
                 <div>
                   <dt className="text-sm text-night-600">Configurations on offer</dt>
                   <dd className="font-medium">
-                    {c.offers.map((o) => `${o.name}${o.nightsAvailable != null ? ` (${o.nightsAvailable} nights)` : ""}`).join(", ") || "—"}
+                    {c.offers
+                      .map((o) => `${o.name}${o.nightsAvailable != null ? ` (${o.nightsAvailable} nights)` : ""}`)
+                      .join(", ") || "—"}
                   </dd>
                 </div>
               </dl>

@@ -1,14 +1,14 @@
 import { data } from "react-router";
-import type { Route } from "./+types/new";
 import { CycleForm } from "~/components/cycles/CycleForm";
 import { ErrorPage } from "~/components/ErrorPage";
 import { PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
 import { configurationChoices } from "~/services/configurations.server";
-import { cycleFormValues, parseCycleForm, type CycleFormValues } from "~/services/cycle-form";
+import { type CycleFormValues, cycleFormValues, parseCycleForm } from "~/services/cycle-form";
 import { createCycle, findCycleByName } from "~/services/cycles.server";
-import { redirectWithFlash } from "~/services/flash.server";
+import { redirectWithFlash } from "~/lib/flash.server";
+import type { Route } from "./+types/new";
 
 export async function loader({ request }: Route.LoaderArgs) {
   await requirePermission(request, "cycles:manage");
@@ -34,7 +34,10 @@ export async function action({ request }: Route.ActionArgs) {
   const parsed = parseCycleForm(values, ids);
   if (!parsed.ok) return data({ values, errors: parsed.errors }, { status: 400 });
   if (await findCycleByName(db, parsed.value.name)) {
-    return data({ values, errors: { name: `Name: a cycle called ${parsed.value.name} exists already` } }, { status: 400 });
+    return data(
+      { values, errors: { name: `Name: a cycle called ${parsed.value.name} exists already` } },
+      { status: 400 },
+    );
   }
   const cycle = await createCycle(db, parsed.value, viewer.user.id);
   return redirectWithFlash("/cycles", { kind: "success", text: `Cycle ${cycle.name} created.` });

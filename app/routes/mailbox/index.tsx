@@ -1,10 +1,21 @@
 import { Form, Link } from "react-router";
-import type { Route } from "./+types/index";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Badge, Button, ButtonLink, Card, DataTable, EmptyState, PageHeader, TextField, type BadgeTone, type Column } from "~/components/ui";
+import {
+  Badge,
+  type BadgeTone,
+  Button,
+  ButtonLink,
+  Card,
+  type Column,
+  DataTable,
+  EmptyState,
+  PageHeader,
+  TextField,
+} from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requireMailboxReader } from "~/services/auth.server";
-import { listMessages, mailStatus, parseMailboxQuery, utcText, type MailStatus } from "~/services/mail/mailbox.server";
+import { listMessages, type MailStatus, mailStatus, parseMailboxQuery, utcText } from "~/services/mail/mailbox.server";
+import type { Route } from "./+types/index";
 
 export async function loader({ request, url }: Route.LoaderArgs) {
   const viewer = await requireMailboxReader(request);
@@ -59,7 +70,12 @@ function StatusCell({ row }: { row: Row }) {
 }
 
 const columns: Column<Row>[] = [
-  { key: "created", header: "Created", value: (m) => m.createdAt, render: (m) => <span className="num whitespace-nowrap">{m.created}</span> },
+  {
+    key: "created",
+    header: "Created",
+    value: (m) => m.createdAt,
+    render: (m) => <span className="num whitespace-nowrap">{m.created}</span>,
+  },
   {
     key: "to",
     header: "To",
@@ -123,7 +139,9 @@ export default function Mailbox({ loaderData }: Route.ComponentProps) {
 
         {total === 0 ? (
           q ? (
-            <EmptyState title={`No message matches “${q}”`}>Try part of an address, or another word from the subject.</EmptyState>
+            <EmptyState title={`No message matches “${q}”`}>
+              Try part of an address, or another word from the subject.
+            </EmptyState>
           ) : (
             <EmptyState title="No messages yet">
               Messages show up here as soon as the app writes them: a sign-in link, a change of roles, a decision.
@@ -138,7 +156,13 @@ export default function Mailbox({ loaderData }: Route.ComponentProps) {
               </p>
             }
           >
-            <DataTable caption="Outgoing e-mail, newest first" columns={columns} rows={rows} rowKey={(m) => m.id} exportName="mailbox" />
+            <DataTable
+              caption="Outgoing e-mail, newest first"
+              columns={columns}
+              rows={rows}
+              rowKey={(m) => m.id}
+              exportName="mailbox"
+            />
             {pageCount > 1 ? (
               <nav aria-label="Pages" className="mt-4 flex items-center justify-between gap-3">
                 {page > 1 ? (

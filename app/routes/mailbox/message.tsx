@@ -1,11 +1,11 @@
 import type { ReactNode } from "react";
 import { data, Link } from "react-router";
-import type { Route } from "./+types/message";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, ButtonLink, Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requireMailboxReader } from "~/services/auth.server";
 import { getMessage, mailStatus, parseMessageId, utcText } from "~/services/mail/mailbox.server";
+import type { Route } from "./+types/message";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const viewer = await requireMailboxReader(request);
@@ -134,7 +134,9 @@ export default function MailboxMessage({ loaderData }: Route.ComponentProps) {
             title={`HTML of message ${m.id}`}
             className="h-[40rem] w-full rounded-lg bg-white ring-1 ring-night-200"
           />
-          <p className="mt-2 text-sm text-night-600">Shown in a sandbox: links do not open here; use the plain text below.</p>
+          <p className="mt-2 text-sm text-night-600">
+            Shown in a sandbox: links do not open here; use the plain text below.
+          </p>
         </Card>
         <Card title="Plain-text alternative">
           <LinkedText text={m.text} />

@@ -1,19 +1,28 @@
 import { eq } from "drizzle-orm";
-import { useEffect, useRef, useState, type FormEvent } from "react";
-import { data, Form, Link, useFetcher, useNavigation, type ShouldRevalidateFunctionArgs } from "react-router";
+import { type FormEvent, useEffect, useRef, useState } from "react";
+import { data, Form, Link, type ShouldRevalidateFunctionArgs, useFetcher, useNavigation } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/editor";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Badge, Button, ButtonLink, Card, FormErrors, PageHeader, SelectField, TextArea, TextField, cx } from "~/components/ui";
+import {
+  Badge,
+  Button,
+  ButtonLink,
+  Card,
+  cx,
+  FormErrors,
+  PageHeader,
+  SelectField,
+  TextArea,
+  TextField,
+} from "~/components/ui";
 import { database } from "~/db/client.server";
 import { SCIENCE_CATEGORIES } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { requirePermission } from "~/services/auth.server";
-import { redirectWithFlash } from "~/services/flash.server";
+import { describeModel } from "~/services/describe-model";
+import { redirectWithFlash } from "~/lib/flash.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 import { formatBytes, MAX_PDF_BYTES } from "~/services/pdf";
-import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals-access.server";
-import { isMultipart, readFormCapped, readMultipartCapped } from "~/services/proposals-upload.server";
 import {
   addCoInvestigator,
   addTargetFromMine,
@@ -28,14 +37,16 @@ import {
   removeScienceCase,
   removeTarget,
   reopenProposal,
+  STATUS_WORDS,
   saveDetails,
   saveHours,
-  STATUS_WORDS,
   submitProposal,
   uploadScienceCase,
   withdrawProposal,
 } from "~/services/proposals.server";
-import { describeModel } from "~/services/describe-model";
+import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals-access.server";
+import { isMultipart, readFormCapped, readMultipartCapped } from "~/services/proposals-upload.server";
+import type { Route } from "./+types/editor";
 import { countWords, describeMagnitudes, fmtUtc, StatusBadge, type StatusKey } from "./parts";
 
 // ---------------------------------------------------------------- schemas
@@ -115,8 +126,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const now = new Date();
   const loaded = await loadProposalForViewer(db, viewer, id, now);
   const { proposal, cycle, members, abilities } = loaded;
-  const [details, missing] = await Promise.all([loadProposalDetails(db, id, cycle.id, viewer.user.id), missingForSubmission(db, proposal)]);
-  const [piRow] = await db.select({ name: users.name, email: users.email, institute: users.institute }).from(users).where(eq(users.id, proposal.piId));
+  const [details, missing] = await Promise.all([
+    loadProposalDetails(db, id, cycle.id, viewer.user.id),
+    missingForSubmission(db, proposal),
+  ]);
+  const [piRow] = await db
+    .select({ name: users.name, email: users.email, institute: users.institute })
+    .from(users)
+    .where(eq(users.id, proposal.piId));
   const hoursBy = new Map(details.hours.map((h) => [h.configurationId, h.hours]));
   return {
     proposal: {
@@ -138,11 +155,24 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       countdown: deadlineCountdown(cycle.submissionDeadline, now),
     },
     pi: piRow ?? { name: "?", email: "", institute: "" },
-    members: members.map((m) => ({ id: m.id, email: m.email, name: details.memberUsers.find((u) => u.memberId === m.id)?.name ?? null })),
+    members: members.map((m) => ({
+      id: m.id,
+      email: m.email,
+      name: details.memberUsers.find((u) => u.memberId === m.id)?.name ?? null,
+    })),
     abilities,
-    configurations: details.offered.map((c) => ({ id: c.id, name: c.name, description: c.description, stations: c.stationNames, hours: hoursBy.get(c.id) ?? null })),
+    configurations: details.offered.map((c) => ({
+      id: c.id,
+      name: c.name,
+      description: c.description,
+      stations: c.stationNames,
+      hours: hoursBy.get(c.id) ?? null,
+    })),
     requestedElsewhere: details.hours.filter((h) => !details.offered.some((c) => c.id === h.configurationId)),
-    bands: details.bands.map((b) => ({ id: b.band.id, label: `${b.instrumentName} — ${b.band.name} (${(b.band.centralWavelengthM * 1e6).toFixed(2)} µm, limit ${b.band.limitingMagnitude} mag)` })),
+    bands: details.bands.map((b) => ({
+      id: b.band.id,
+      label: `${b.instrumentName} — ${b.band.name} (${(b.band.centralWavelengthM * 1e6).toFixed(2)} µm, limit ${b.band.limitingMagnitude} mag)`,
+    })),
     targets: details.targets.map((t) => ({
       id: t.id,
       name: t.name,
@@ -187,13 +217,26 @@ export async function action({ request, params }: Route.ActionArgs) {
     const intent = String(read.form.get("intent") ?? "");
     if (intent !== "upload-document") return fail(intent, { form: "Unknown action." }, 400);
     const file = read.form.get("document");
-    if (!(file instanceof File) || file.size === 0) return fail(intent, { document: "Science case: choose a PDF file to upload." }, 400);
+    if (!(file instanceof File) || file.size === 0)
+      return fail(intent, { document: "Science case: choose a PDF file to upload." }, 400);
     if (file.size > MAX_PDF_BYTES) {
-      return fail(intent, { document: `Science case: the file is ${formatBytes(file.size)}, larger than the ${formatBytes(MAX_PDF_BYTES)} limit. Please upload a smaller PDF (compress the figures).` }, 413);
+      return fail(
+        intent,
+        {
+          document: `Science case: the file is ${formatBytes(file.size)}, larger than the ${formatBytes(MAX_PDF_BYTES)} limit. Please upload a smaller PDF (compress the figures).`,
+        },
+        413,
+      );
     }
     try {
-      const stored = await uploadScienceCase(db, viewer, id, { filename: file.name, bytes: new Uint8Array(await file.arrayBuffer()) });
-      return redirectWithFlash(here, { kind: "success", text: `Science case uploaded: ${stored.filename} (${formatBytes(stored.sizeBytes)}).` });
+      const stored = await uploadScienceCase(db, viewer, id, {
+        filename: file.name,
+        bytes: new Uint8Array(await file.arrayBuffer()),
+      });
+      return redirectWithFlash(here, {
+        kind: "success",
+        text: `Science case uploaded: ${stored.filename} (${formatBytes(stored.sizeBytes)}).`,
+      });
     } catch (e) {
       if (e instanceof ProposalRefusal) return fail(intent, { [e.field ?? "document"]: e.message }, e.status);
       throw e;
@@ -213,11 +256,17 @@ export async function action({ request, params }: Route.ActionArgs) {
     switch (intent) {
       case "save":
       case "autosave": {
-        const values = { title: str("title"), abstract: str("abstract"), scienceCategory: str("scienceCategory"), bandId: str("bandId") };
+        const values = {
+          title: str("title"),
+          abstract: str("abstract"),
+          scienceCategory: str("scienceCategory"),
+          bandId: str("bandId"),
+        };
         const parsed = v.safeParse(DetailsSchema, values);
         if (!parsed.success) return fail(intent, firstErrors(parsed.issues), 400, values);
         const row = await saveDetails(db, viewer, id, parsed.output);
-        if (intent === "autosave") return { intent, errors: {}, savedAt: row.updatedAt.toISOString() } satisfies ActionResult;
+        if (intent === "autosave")
+          return { intent, errors: {}, savedAt: row.updatedAt.toISOString() } satisfies ActionResult;
         return redirectWithFlash(here, { kind: "success", text: "Proposal text saved." });
       }
       case "hours": {
@@ -235,7 +284,12 @@ export async function action({ request, params }: Route.ActionArgs) {
         }
         if (Object.keys(errors).length > 0) return fail(intent, errors, 400, values);
         await saveHours(db, viewer, id, lines);
-        return redirectWithFlash(here, { kind: "success", text: lines.length ? `Requested hours saved (${lines.reduce((a, l) => a + l.hours, 0)} h in all).` : "Requested hours cleared." });
+        return redirectWithFlash(here, {
+          kind: "success",
+          text: lines.length
+            ? `Requested hours saved (${lines.reduce((a, l) => a + l.hours, 0)} h in all).`
+            : "Requested hours cleared.",
+        });
       }
       case "add-member": {
         const values = { email: str("email") };
@@ -243,7 +297,10 @@ export async function action({ request, params }: Route.ActionArgs) {
         if (!parsed.success) return fail(intent, { email: parsed.issues[0].message }, 400, values);
         const member = await addCoInvestigator(db, viewer, id, parsed.output);
         wakeOutboxSender();
-        return redirectWithFlash(here, { kind: "success", text: `${member.email} is now a co-investigator and has been sent a notice.` });
+        return redirectWithFlash(here, {
+          kind: "success",
+          text: `${member.email} is now a co-investigator and has been sent a notice.`,
+        });
       }
       case "remove-member": {
         const parsed = v.safeParse(IdSchema, str("memberId"));
@@ -254,14 +311,19 @@ export async function action({ request, params }: Route.ActionArgs) {
       case "add-my-target": {
         const values = { myTargetId: str("myTargetId") };
         const parsed = v.safeParse(IdSchema, values.myTargetId);
-        if (!parsed.success) return fail(intent, { myTargetId: "From my targets: choose one of your targets." }, 400, values);
+        if (!parsed.success)
+          return fail(intent, { myTargetId: "From my targets: choose one of your targets." }, 400, values);
         const row = await addTargetFromMine(db, viewer, id, parsed.output);
-        return redirectWithFlash(here, { kind: "success", text: `${row.name} added from your targets. Set its constraints and calibrators with Edit.` });
+        return redirectWithFlash(here, {
+          kind: "success",
+          text: `${row.name} added from your targets. Set its constraints and calibrators with Edit.`,
+        });
       }
       case "move-target": {
         const parsed = v.safeParse(IdSchema, str("targetId"));
         const direction = str("direction");
-        if (!parsed.success || (direction !== "up" && direction !== "down")) return fail(intent, { form: "Unknown target or direction." }, 400);
+        if (!parsed.success || (direction !== "up" && direction !== "down"))
+          return fail(intent, { form: "Unknown target or direction." }, 400);
         await moveTarget(db, viewer, id, parsed.output, direction);
         return redirectWithFlash(here, { kind: "info", text: "Target order changed." });
       }
@@ -278,16 +340,25 @@ export async function action({ request, params }: Route.ActionArgs) {
       case "submit": {
         const { version } = await submitProposal(db, viewer, id);
         wakeOutboxSender();
-        return redirectWithFlash(here, { kind: "success", text: `Submitted. Version ${version} is frozen for the committee; the team has been sent a notice.` });
+        return redirectWithFlash(here, {
+          kind: "success",
+          text: `Submitted. Version ${version} is frozen for the committee; the team has been sent a notice.`,
+        });
       }
       case "withdraw": {
         await withdrawProposal(db, viewer, id);
         wakeOutboxSender();
-        return redirectWithFlash(here, { kind: "success", text: "Proposal withdrawn; the team has been sent a notice." });
+        return redirectWithFlash(here, {
+          kind: "success",
+          text: "Proposal withdrawn; the team has been sent a notice.",
+        });
       }
       case "reopen": {
         await reopenProposal(db, viewer, id);
-        return redirectWithFlash(here, { kind: "success", text: "Reopened as a draft. Submit it again before the deadline." });
+        return redirectWithFlash(here, {
+          kind: "success",
+          text: "Reopened as a draft. Submit it again before the deadline.",
+        });
       }
       default:
         return fail(intent, { form: "Unknown action." }, 400);
@@ -308,7 +379,9 @@ export function shouldRevalidate({ formData, defaultShouldRevalidate }: ShouldRe
   return defaultShouldRevalidate;
 }
 
-export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.proposal.title || "Proposal"} — Fringe Docket` }];
+export const meta: Route.MetaFunction = ({ data }) => [
+  { title: `${data?.proposal.title || "Proposal"} — Fringe Docket` },
+];
 
 // ---------------------------------------------------------------- page
 
@@ -329,8 +402,9 @@ export default function ProposalEditor({ loaderData, actionData }: Route.Compone
         title={d.proposal.title || "(untitled proposal)"}
         lead={
           <>
-            <StatusBadge status={d.proposal.status} label={d.proposal.statusLabel} /> Cycle <span className="font-medium">{d.cycle.name}</span> · observing{" "}
-            {d.cycle.observing} · deadline {d.cycle.deadline}
+            <StatusBadge status={d.proposal.status} label={d.proposal.statusLabel} /> Cycle{" "}
+            <span className="font-medium">{d.cycle.name}</span> · observing {d.cycle.observing} · deadline{" "}
+            {d.cycle.deadline}
             {d.proposal.status === "draft" ? ` (${d.cycle.countdown})` : ""}
           </>
         }
@@ -351,7 +425,9 @@ export default function ProposalEditor({ loaderData, actionData }: Route.Compone
         </div>
       ) : null}
       {!editable && d.abilities.lockedBecause ? (
-        <p className="mb-4 rounded-lg bg-info-50 p-3 text-sm text-info-700 ring-1 ring-info-700/20">{d.abilities.lockedBecause} What you see is read-only.</p>
+        <p className="mb-4 rounded-lg bg-info-50 p-3 text-sm text-info-700 ring-1 ring-info-700/20">
+          {d.abilities.lockedBecause} What you see is read-only.
+        </p>
       ) : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="grid content-start gap-6">
@@ -360,7 +436,10 @@ export default function ProposalEditor({ loaderData, actionData }: Route.Compone
           <TargetsCard d={d} result={pick(result, "add-my-target")} />
         </div>
         <div className="grid content-start gap-6">
-          <SubmitCard d={d} result={result && ["submit", "withdraw", "reopen"].includes(result.intent) ? result : undefined} />
+          <SubmitCard
+            d={d}
+            result={result && ["submit", "withdraw", "reopen"].includes(result.intent) ? result : undefined}
+          />
           <TeamCard d={d} result={pick(result, "add-member")} />
           <DocumentCard d={d} result={pick(result, "upload-document")} />
           <VersionsCard d={d} />
@@ -380,11 +459,15 @@ function DetailsCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
   const values = result?.values;
   const [words, setWords] = useState(() => countWords(values?.abstract ?? d.proposal.abstract));
   const errors: Record<string, string | undefined> = fetcher.data ? fetcher.data.errors : (result?.errors ?? {});
-  const autosaveErrors = fetcher.data && Object.keys(fetcher.data.errors).length > 0 ? Object.values(fetcher.data.errors) : null;
+  const autosaveErrors =
+    fetcher.data && Object.keys(fetcher.data.errors).length > 0 ? Object.values(fetcher.data.errors) : null;
 
-  useEffect(() => () => {
-    if (timer.current) clearTimeout(timer.current);
-  }, []);
+  useEffect(
+    () => () => {
+      if (timer.current) clearTimeout(timer.current);
+    },
+    [],
+  );
 
   useEffect(() => {
     if (fetcher.state === "idle" && fetcher.data?.savedAt) setDirty(false);
@@ -406,7 +489,8 @@ function DetailsCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
   if (fetcher.state !== "idle") status = "Saving…";
   else if (autosaveErrors) status = "Not saved: fix the field marked below.";
   else if (dirty) status = "Unsaved changes";
-  else if (fetcher.data?.savedAt) status = `Saved ${new Date(fetcher.data.savedAt).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" })}`;
+  else if (fetcher.data?.savedAt)
+    status = `Saved ${new Date(fetcher.data.savedAt).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" })}`;
   else status = `Last change ${fmtUtc(d.proposal.updatedAt)}`;
 
   if (!editable) {
@@ -435,13 +519,31 @@ function DetailsCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
     <Card
       title="Proposal"
       actions={
-        <span role="status" aria-live="polite" className={cx("text-sm", autosaveErrors ? "font-medium text-danger-700" : "text-night-600")} data-testid="autosave-status">
+        <span
+          role="status"
+          aria-live="polite"
+          className={cx("text-sm", autosaveErrors ? "font-medium text-danger-700" : "text-night-600")}
+          data-testid="autosave-status"
+        >
           {status}
         </span>
       }
     >
-      <Form method="post" ref={formRef} className="grid gap-4" onChange={scheduleAutosave} noValidate aria-label="Proposal text">
-        <TextField label="Title" name="title" defaultValue={values?.title ?? d.proposal.title} error={errors.title} maxLength={d.limits.titleMaxChars} />
+      <Form
+        method="post"
+        ref={formRef}
+        className="grid gap-4"
+        onChange={scheduleAutosave}
+        noValidate
+        aria-label="Proposal text"
+      >
+        <TextField
+          label="Title"
+          name="title"
+          defaultValue={values?.title ?? d.proposal.title}
+          error={errors.title}
+          maxLength={d.limits.titleMaxChars}
+        />
         <div className="space-y-1">
           <TextArea
             label="Abstract"
@@ -452,12 +554,23 @@ function DetailsCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
             onChange={(e) => setWords(countWords(e.currentTarget.value))}
             hint={`What you will measure and why the array is needed. At most ${d.limits.abstractMaxWords} words.`}
           />
-          <p className={cx("num text-right text-sm", words > d.limits.abstractMaxWords ? "font-semibold text-danger-700" : "text-night-600")} aria-live="polite">
+          <p
+            className={cx(
+              "num text-right text-sm",
+              words > d.limits.abstractMaxWords ? "font-semibold text-danger-700" : "text-night-600",
+            )}
+            aria-live="polite"
+          >
             {words} / {d.limits.abstractMaxWords} words
           </p>
         </div>
         <div className="grid gap-4 sm:grid-cols-2">
-          <SelectField label="Science category" name="scienceCategory" defaultValue={values?.scienceCategory ?? d.proposal.scienceCategory} error={errors.scienceCategory}>
+          <SelectField
+            label="Science category"
+            name="scienceCategory"
+            defaultValue={values?.scienceCategory ?? d.proposal.scienceCategory}
+            error={errors.scienceCategory}
+          >
             <option value="">— choose —</option>
             {d.categories.map((c) => (
               <option key={c} value={c}>
@@ -465,7 +578,12 @@ function DetailsCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
               </option>
             ))}
           </SelectField>
-          <SelectField label="Instrument and band" name="bandId" defaultValue={values?.bandId ?? (d.proposal.bandId === null ? "" : String(d.proposal.bandId))} error={errors.bandId}>
+          <SelectField
+            label="Instrument and band"
+            name="bandId"
+            defaultValue={values?.bandId ?? (d.proposal.bandId === null ? "" : String(d.proposal.bandId))}
+            error={errors.bandId}
+          >
             <option value="">— choose —</option>
             {d.bands.map((b) => (
               <option key={b.id} value={b.id}>
@@ -489,8 +607,13 @@ function HoursCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
   const editable = d.abilities.canEdit;
   const total = d.configurations.reduce((a, c) => a + (c.hours ?? 0), 0);
   return (
-    <Card title="Requested hours" actions={<span className="num text-sm text-night-600">{total.toFixed(1)} h in all</span>}>
-      {d.configurations.length === 0 ? <p className="text-sm text-night-600">This cycle offers no configuration yet.</p> : null}
+    <Card
+      title="Requested hours"
+      actions={<span className="num text-sm text-night-600">{total.toFixed(1)} h in all</span>}
+    >
+      {d.configurations.length === 0 ? (
+        <p className="text-sm text-night-600">This cycle offers no configuration yet.</p>
+      ) : null}
       <Form method="post" className="grid gap-3" noValidate aria-label="Requested hours">
         <input type="hidden" name="intent" value="hours" />
         <div className="grid gap-3 sm:grid-cols-3">
@@ -519,7 +642,9 @@ function HoursCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
             <Button type="submit" variant="secondary">
               Save hours
             </Button>
-            <span className="ml-3 text-sm text-night-600">Leave a configuration empty to request none; at most {d.limits.hoursMax} h each.</span>
+            <span className="ml-3 text-sm text-night-600">
+              Leave a configuration empty to request none; at most {d.limits.hoursMax} h each.
+            </span>
           </div>
         ) : null}
       </Form>
@@ -541,7 +666,9 @@ function TargetsCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
         ) : null
       }
     >
-      {d.targets.length === 0 ? <p className="mb-3 text-sm text-night-600">No target yet. Type one in, or copy one of your own targets.</p> : null}
+      {d.targets.length === 0 ? (
+        <p className="mb-3 text-sm text-night-600">No target yet. Type one in, or copy one of your own targets.</p>
+      ) : null}
       {d.targets.length > 0 ? (
         <ol className="divide-y divide-night-100 rounded-lg ring-1 ring-night-200">
           {d.targets.map((t, i) => (
@@ -555,12 +682,18 @@ function TargetsCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
                   RA {t.raDeg.toFixed(4)}°, Dec {t.decDeg.toFixed(4)}° · {t.model} · {t.magnitudes}
                 </p>
                 <p className="text-sm text-night-600">
-                  {t.minElevationDeg === null ? "the array's elevation limit" : `elevation ≥ ${t.minElevationDeg}°`} · {t.windows} time window{t.windows === 1 ? "" : "s"} ·{" "}
+                  {t.minElevationDeg === null ? "the array's elevation limit" : `elevation ≥ ${t.minElevationDeg}°`} ·{" "}
+                  {t.windows} time window{t.windows === 1 ? "" : "s"} ·{" "}
                   {t.calibrators.length ? `calibrators ${t.calibrators.join(", ")}` : "no calibrator yet"}
                 </p>
               </div>
               <div className="flex flex-wrap gap-1">
-                <ButtonLink to={`${base}/targets/${t.id}`} size="sm" variant="secondary" aria-label={`${editable ? "Edit" : "View"} ${t.name}`}>
+                <ButtonLink
+                  to={`${base}/targets/${t.id}`}
+                  size="sm"
+                  variant="secondary"
+                  aria-label={`${editable ? "Edit" : "View"} ${t.name}`}
+                >
                   {editable ? "Edit" : "View"}
                 </ButtonLink>
                 {editable ? (
@@ -569,7 +702,13 @@ function TargetsCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
                       <input type="hidden" name="intent" value="move-target" />
                       <input type="hidden" name="targetId" value={t.id} />
                       <input type="hidden" name="direction" value="up" />
-                      <Button type="submit" size="sm" variant="ghost" disabled={i === 0} aria-label={`Move ${t.name} up`}>
+                      <Button
+                        type="submit"
+                        size="sm"
+                        variant="ghost"
+                        disabled={i === 0}
+                        aria-label={`Move ${t.name} up`}
+                      >
                         ↑
                       </Button>
                     </Form>
@@ -577,7 +716,13 @@ function TargetsCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
                       <input type="hidden" name="intent" value="move-target" />
                       <input type="hidden" name="targetId" value={t.id} />
                       <input type="hidden" name="direction" value="down" />
-                      <Button type="submit" size="sm" variant="ghost" disabled={i === d.targets.length - 1} aria-label={`Move ${t.name} down`}>
+                      <Button
+                        type="submit"
+                        size="sm"
+                        variant="ghost"
+                        disabled={i === d.targets.length - 1}
+                        aria-label={`Move ${t.name} down`}
+                      >
                         ↓
                       </Button>
                     </Form>
@@ -605,7 +750,17 @@ function TargetsCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
               defaultValue={result?.values?.myTargetId ?? ""}
               error={result?.errors.myTargetId}
               disabled={d.myTargets.length === 0}
-              hint={d.myTargets.length === 0 ? <>Your list is empty; targets you keep under <Link className="underline" to="/targets">My targets</Link> show here.</> : undefined}
+              hint={
+                d.myTargets.length === 0 ? (
+                  <>
+                    Your list is empty; targets you keep under{" "}
+                    <Link className="underline" to="/targets">
+                      My targets
+                    </Link>{" "}
+                    show here.
+                  </>
+                ) : undefined
+              }
             >
               <option value="">— choose —</option>
               {d.myTargets.map((t) => (
@@ -638,7 +793,8 @@ function TeamCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
           <li key={m.id} className="flex items-start gap-2">
             <Badge>Co-I</Badge>
             <span className="min-w-0 flex-1">
-              <span className="font-medium">{m.name ?? "(no account yet)"}</span> <span className="break-all text-night-600">{m.email}</span>
+              <span className="font-medium">{m.name ?? "(no account yet)"}</span>{" "}
+              <span className="break-all text-night-600">{m.email}</span>
             </span>
             {manage ? (
               <Form method="post">
@@ -653,17 +809,31 @@ function TeamCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
         ))}
       </ul>
       {manage ? (
-        <Form method="post" className="mt-4 flex flex-wrap items-end gap-3" noValidate aria-label="Add a co-investigator">
+        <Form
+          method="post"
+          className="mt-4 flex flex-wrap items-end gap-3"
+          noValidate
+          aria-label="Add a co-investigator"
+        >
           <input type="hidden" name="intent" value="add-member" />
           <div className="min-w-56 flex-1">
-            <TextField label="Co-investigator e-mail" name="email" type="email" defaultValue={result?.values?.email ?? ""} error={result?.errors.email} autoComplete="off" />
+            <TextField
+              label="Co-investigator e-mail"
+              name="email"
+              type="email"
+              defaultValue={result?.values?.email ?? ""}
+              error={result?.errors.email}
+              autoComplete="off"
+            />
           </div>
           <Button type="submit" variant="secondary">
             Add
           </Button>
         </Form>
       ) : (
-        <p className="mt-3 text-sm text-night-600">{d.abilities.relation === "co-investigator" && d.abilities.canEdit ? "Only the PI changes the team." : null}</p>
+        <p className="mt-3 text-sm text-night-600">
+          {d.abilities.relation === "co-investigator" && d.abilities.canEdit ? "Only the PI changes the team." : null}
+        </p>
       )}
     </Card>
   );
@@ -682,7 +852,9 @@ function DocumentCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
       setClientError("Science case: choose a PDF file to upload.");
     } else if (file.size > d.limits.pdfBytes) {
       e.preventDefault();
-      setClientError(`Science case: the file is ${formatBytes(file.size)}; the limit is ${d.limits.pdfLabel}. Please upload a smaller PDF.`);
+      setClientError(
+        `Science case: the file is ${formatBytes(file.size)}; the limit is ${d.limits.pdfLabel}. Please upload a smaller PDF.`,
+      );
     } else setClientError(null);
   }
   const error = clientError ?? result?.errors.document;
@@ -690,7 +862,11 @@ function DocumentCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
     <Card title="Science case (PDF)">
       {d.document ? (
         <div className="mb-3 text-sm">
-          <a href={`/proposals/${d.proposal.id}/science-case`} className="font-medium text-ember-800 underline" download>
+          <a
+            href={`/proposals/${d.proposal.id}/science-case`}
+            className="font-medium text-ember-800 underline"
+            download
+          >
             {d.document.filename}
           </a>{" "}
           <span className="text-night-600">
@@ -766,12 +942,17 @@ function SubmitCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
     return (
       <Card title="Submit">
         {message ? (
-          <p role="alert" className="mb-3 rounded-lg bg-danger-50 p-3 text-sm font-medium text-danger-700 ring-1 ring-danger-700/20">
+          <p
+            role="alert"
+            className="mb-3 rounded-lg bg-danger-50 p-3 text-sm font-medium text-danger-700 ring-1 ring-danger-700/20"
+          >
             {message}
           </p>
         ) : null}
         {a.deadlinePassed ? (
-          <p className="text-sm text-night-700">The deadline ({d.cycle.deadline}) has passed; this draft can no longer be submitted.</p>
+          <p className="text-sm text-night-700">
+            The deadline ({d.cycle.deadline}) has passed; this draft can no longer be submitted.
+          </p>
         ) : d.missing.length > 0 ? (
           <>
             <p className="text-sm text-night-700">Before it can be submitted, the proposal still needs:</p>
@@ -783,8 +964,8 @@ function SubmitCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
           </>
         ) : (
           <p className="text-sm text-night-700">
-            Complete. Submitting freezes this version, with its feasibility report and PDF, for the committee; the team gets a notice. Deadline:{" "}
-            {d.cycle.deadline} ({d.cycle.countdown}).
+            Complete. Submitting freezes this version, with its feasibility report and PDF, for the committee; the team
+            gets a notice. Deadline: {d.cycle.deadline} ({d.cycle.countdown}).
           </p>
         )}
         {a.canSubmit ? (
@@ -801,18 +982,28 @@ function SubmitCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
   return (
     <Card title="Status">
       {message ? (
-        <p role="alert" className="mb-3 rounded-lg bg-danger-50 p-3 text-sm font-medium text-danger-700 ring-1 ring-danger-700/20">
+        <p
+          role="alert"
+          className="mb-3 rounded-lg bg-danger-50 p-3 text-sm font-medium text-danger-700 ring-1 ring-danger-700/20"
+        >
           {message}
         </p>
       ) : null}
       <p className="flex items-center gap-2 text-sm">
         <StatusBadge status={d.proposal.status} label={d.proposal.statusLabel} />
-        {d.proposal.submittedAt ? <span className="text-night-700">version {d.proposal.currentVersion} submitted {fmtUtc(d.proposal.submittedAt)}</span> : null}
+        {d.proposal.submittedAt ? (
+          <span className="text-night-700">
+            version {d.proposal.currentVersion} submitted {fmtUtc(d.proposal.submittedAt)}
+          </span>
+        ) : null}
       </p>
       {a.canWithdraw ? (
         <Form method="post" className="mt-4">
           <input type="hidden" name="intent" value="withdraw" />
-          <p className="mb-2 text-sm text-night-700">Withdrawing takes the proposal out of the committee's hands. Until the deadline you can reopen it as a draft and submit it again.</p>
+          <p className="mb-2 text-sm text-night-700">
+            Withdrawing takes the proposal out of the committee's hands. Until the deadline you can reopen it as a draft
+            and submit it again.
+          </p>
           <Button type="submit" variant="danger">
             Withdraw the proposal
           </Button>
@@ -821,7 +1012,9 @@ function SubmitCard({ d, result }: { d: LoaderData; result?: ActionResult }) {
       {a.canReopen ? (
         <Form method="post" className="mt-4">
           <input type="hidden" name="intent" value="reopen" />
-          <p className="mb-2 text-sm text-night-700">The deadline has not passed: you can turn it back into a draft, change it and submit a new version.</p>
+          <p className="mb-2 text-sm text-night-700">
+            The deadline has not passed: you can turn it back into a draft, change it and submit a new version.
+          </p>
           <Button type="submit" variant="secondary">
             Reopen as a draft
           </Button>
@@ -838,7 +1031,10 @@ function VersionsCard({ d }: { d: LoaderData }) {
       <ul className="grid gap-2 text-sm">
         {d.versions.map((x) => (
           <li key={x.version} className="flex flex-wrap items-center gap-2">
-            <Link to={`/proposals/${d.proposal.id}/versions/${x.version}`} className="font-medium text-ember-800 underline">
+            <Link
+              to={`/proposals/${d.proposal.id}/versions/${x.version}`}
+              className="font-medium text-ember-800 underline"
+            >
               Version {x.version}
             </Link>
             <span className="text-night-600">
@@ -846,7 +1042,11 @@ function VersionsCard({ d }: { d: LoaderData }) {
               {x.submittedBy ? ` by ${x.submittedBy}` : ""}
             </span>
             {x.documentSha256 ? (
-              <a href={`/proposals/${d.proposal.id}/science-case?version=${x.version}`} className="ml-auto text-ember-800 underline" download>
+              <a
+                href={`/proposals/${d.proposal.id}/science-case?version=${x.version}`}
+                className="ml-auto text-ember-800 underline"
+                download
+              >
                 PDF
               </a>
             ) : null}

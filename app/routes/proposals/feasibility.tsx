@@ -1,14 +1,14 @@
 import { Suspense } from "react";
 import { Await, Link } from "react-router";
-import type { Route } from "./+types/feasibility";
 import { ErrorPage } from "~/components/ErrorPage";
 import { ButtonLink, Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { computeProposalFeasibility, frozenFeasibility } from "~/services/feasibility.server";
 import type { FeasibilityReport } from "~/services/feasibility";
-import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals-access.server";
+import { computeProposalFeasibility, frozenFeasibility } from "~/services/feasibility.server";
 import { STATUS_WORDS } from "~/services/proposals.server";
+import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals-access.server";
+import type { Route } from "./+types/feasibility";
 import { FeasibilityView, StatusBadge, type StatusKey } from "./parts";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -22,14 +22,22 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     ? frozenFeasibility(db, id, proposal.currentVersion)
     : new Promise((resolve, reject) => setImmediate(() => computeProposalFeasibility(db, id).then(resolve, reject)));
   return {
-    proposal: { id, title: proposal.title, status: proposal.status as StatusKey, statusLabel: STATUS_WORDS[proposal.status], version: proposal.currentVersion },
+    proposal: {
+      id,
+      title: proposal.title,
+      status: proposal.status as StatusKey,
+      statusLabel: STATUS_WORDS[proposal.status],
+      version: proposal.currentVersion,
+    },
     cycle: { name: cycle.name, observingStart: cycle.observingStart, observingEnd: cycle.observingEnd },
     frozen,
     report,
   };
 }
 
-export const meta: Route.MetaFunction = ({ data }) => [{ title: `Feasibility — ${data?.proposal.title || "Proposal"} — Fringe Docket` }];
+export const meta: Route.MetaFunction = ({ data }) => [
+  { title: `Feasibility — ${data?.proposal.title || "Proposal"} — Fringe Docket` },
+];
 
 export default function Feasibility({ loaderData }: Route.ComponentProps) {
   const { proposal, cycle, frozen, report } = loaderData;
@@ -42,8 +50,8 @@ export default function Feasibility({ loaderData }: Route.ComponentProps) {
             <Link to={`/proposals/${proposal.id}`} className="font-medium text-ember-800 underline">
               {proposal.title || "(untitled proposal)"}
             </Link>{" "}
-            <StatusBadge status={proposal.status} label={proposal.statusLabel} /> · cycle {cycle.name}, nights of {cycle.observingStart} to{" "}
-            {cycle.observingEnd}
+            <StatusBadge status={proposal.status} label={proposal.statusLabel} /> · cycle {cycle.name}, nights of{" "}
+            {cycle.observingStart} to {cycle.observingEnd}
           </>
         }
         actions={
@@ -61,14 +69,27 @@ export default function Feasibility({ loaderData }: Route.ComponentProps) {
         fallback={
           <Card>
             <p role="status" className="flex items-center gap-3 text-night-700">
-              <span aria-hidden="true" className="inline-block h-4 w-4 animate-spin rounded-full border-2 border-night-300 border-t-ember-700" />
-              Computing the report: observable hours, resolution, visibilities and triangles for each target and configuration…
+              <span
+                aria-hidden="true"
+                className="inline-block h-4 w-4 animate-spin rounded-full border-2 border-night-300 border-t-ember-700"
+              />
+              Computing the report: observable hours, resolution, visibilities and triangles for each target and
+              configuration…
             </p>
           </Card>
         }
       >
-        <Await resolve={report} errorElement={<p role="alert" className="text-danger-700">The report could not be computed. Please try again in a moment.</p>}>
-          {(r) => (r ? <FeasibilityView report={r} /> : <p className="text-night-700">No report was kept with this version.</p>)}
+        <Await
+          resolve={report}
+          errorElement={
+            <p role="alert" className="text-danger-700">
+              The report could not be computed. Please try again in a moment.
+            </p>
+          }
+        >
+          {(r) =>
+            r ? <FeasibilityView report={r} /> : <p className="text-night-700">No report was kept with this version.</p>
+          }
         </Await>
       </Suspense>
     </>

@@ -1,11 +1,11 @@
 import { Link } from "react-router";
-import type { Route } from "./+types/list";
 import { ErrorPage } from "~/components/ErrorPage";
-import { ButtonLink, Card, DataTable, EmptyState, PageHeader, type Column } from "~/components/ui";
+import { ButtonLink, Card, type Column, DataTable, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
 import { openCycles } from "~/services/cycles.server";
 import { deadlineCountdown, listMyProposals, STATUS_WORDS } from "~/services/proposals.server";
+import type { Route } from "./+types/list";
 import { fmtUtc, StatusBadge, type StatusKey } from "./parts";
 
 export async function loader({ request }: Route.LoaderArgs) {
@@ -31,7 +31,12 @@ export async function loader({ request }: Route.LoaderArgs) {
       hours: r.hours,
       updatedAt: r.updatedAt.toISOString(),
     })),
-    openCycles: open.map((c) => ({ id: c.id, name: c.name, deadline: c.submissionDeadline.toISOString(), countdown: deadlineCountdown(c.submissionDeadline, now) })),
+    openCycles: open.map((c) => ({
+      id: c.id,
+      name: c.name,
+      deadline: c.submissionDeadline.toISOString(),
+      countdown: deadlineCountdown(c.submissionDeadline, now),
+    })),
   };
 }
 
@@ -53,14 +58,22 @@ const columns: Column<Row>[] = [
   },
   { key: "role", header: "Role", value: (r) => r.role },
   { key: "pi", header: "PI", value: (r) => r.piName },
-  { key: "status", header: "Status", value: (r) => r.statusLabel, render: (r) => <StatusBadge status={r.status} label={r.statusLabel} /> },
+  {
+    key: "status",
+    header: "Status",
+    value: (r) => r.statusLabel,
+    render: (r) => <StatusBadge status={r.status} label={r.statusLabel} />,
+  },
   {
     key: "deadline",
     header: "Deadline",
     value: (r) => (r.hoursLeft === null ? null : Math.round(r.hoursLeft * 10) / 10),
     render: (r) =>
       r.countdown ? (
-        <span title={fmtUtc(r.deadline)} className={r.hoursLeft !== null && r.hoursLeft < 72 ? "font-semibold text-caution-700" : undefined}>
+        <span
+          title={fmtUtc(r.deadline)}
+          className={r.hoursLeft !== null && r.hoursLeft < 72 ? "font-semibold text-caution-700" : undefined}
+        >
           {r.countdown}
         </span>
       ) : (
@@ -81,11 +94,7 @@ export default function MyProposals({ loaderData }: Route.ComponentProps) {
       <PageHeader
         title="My proposals"
         lead="The proposals you lead or work on as a co-investigator. Drafts can be changed until the cycle's deadline; a submitted proposal is frozen."
-        actions={
-          canStart ? (
-            <ButtonLink to="/proposals/new">New proposal</ButtonLink>
-          ) : null
-        }
+        actions={canStart ? <ButtonLink to="/proposals/new">New proposal</ButtonLink> : null}
       />
       {canStart ? (
         <p className="mb-4 text-sm text-night-700">
@@ -102,12 +111,21 @@ export default function MyProposals({ loaderData }: Route.ComponentProps) {
         <p className="mb-4 text-sm text-night-700">No cycle is open for proposals right now.</p>
       )}
       {proposals.length === 0 ? (
-        <EmptyState title="No proposals yet" action={canStart ? <ButtonLink to="/proposals/new">Start a proposal</ButtonLink> : undefined}>
+        <EmptyState
+          title="No proposals yet"
+          action={canStart ? <ButtonLink to="/proposals/new">Start a proposal</ButtonLink> : undefined}
+        >
           A proposal you start, or one a PI adds you to, appears here.
         </EmptyState>
       ) : (
         <Card>
-          <DataTable caption="My proposals with cycle, status and deadline" columns={columns} rows={proposals} rowKey={(r) => r.id} exportName="my-proposals" />
+          <DataTable
+            caption="My proposals with cycle, status and deadline"
+            columns={columns}
+            rows={proposals}
+            rowKey={(r) => r.id}
+            exportName="my-proposals"
+          />
         </Card>
       )}
     </>

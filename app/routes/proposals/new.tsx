@@ -1,13 +1,19 @@
 import { data, Form, useNavigation } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/new";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Button, ButtonLink, Card, EmptyState, FormErrors, PageHeader, SelectField, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { redirectWithFlash } from "~/services/flash.server";
 import { openCycles } from "~/services/cycles.server";
-import { createProposal, deadlineCountdown, formatUtc, PROPOSAL_LIMITS, ProposalRefusal } from "~/services/proposals.server";
+import { redirectWithFlash } from "~/lib/flash.server";
+import {
+  createProposal,
+  deadlineCountdown,
+  formatUtc,
+  PROPOSAL_LIMITS,
+  ProposalRefusal,
+} from "~/services/proposals.server";
+import type { Route } from "./+types/new";
 
 const NewProposalSchema = v.object({
   cycleId: v.pipe(
@@ -55,9 +61,13 @@ export async function action({ request }: Route.ActionArgs) {
   }
   try {
     const row = await createProposal(database(), viewer, parsed.output);
-    return redirectWithFlash(`/proposals/${row.id}`, { kind: "success", text: "Draft created. It saves as you type; submit it before the deadline." });
+    return redirectWithFlash(`/proposals/${row.id}`, {
+      kind: "success",
+      text: "Draft created. It saves as you type; submit it before the deadline.",
+    });
   } catch (e) {
-    if (e instanceof ProposalRefusal) return data({ values, errors: { [e.field ?? "form"]: e.message } }, { status: e.status });
+    if (e instanceof ProposalRefusal)
+      return data({ values, errors: { [e.field ?? "form"]: e.message } }, { status: e.status });
     throw e;
   }
 }
@@ -72,7 +82,14 @@ export default function NewProposal({ loaderData, actionData }: Route.ComponentP
     return (
       <>
         <PageHeader title="New proposal" />
-        <EmptyState title="No cycle is open for proposals" action={<ButtonLink to="/proposals" variant="secondary">Back to my proposals</ButtonLink>}>
+        <EmptyState
+          title="No cycle is open for proposals"
+          action={
+            <ButtonLink to="/proposals" variant="secondary">
+              Back to my proposals
+            </ButtonLink>
+          }
+        >
           A new proposal belongs to a cycle whose submission deadline is still ahead.
         </EmptyState>
       </>
@@ -80,18 +97,34 @@ export default function NewProposal({ loaderData, actionData }: Route.ComponentP
   }
   return (
     <>
-      <PageHeader title="New proposal" lead="Choose the cycle and give the proposal a working title. Everything else is filled in on the next page." />
+      <PageHeader
+        title="New proposal"
+        lead="Choose the cycle and give the proposal a working title. Everything else is filled in on the next page."
+      />
       <Card className="max-w-2xl">
         <Form method="post" className="grid gap-4" noValidate>
           <FormErrors errors={errors.form ? [errors.form] : undefined} />
-          <SelectField label="Cycle" name="cycleId" defaultValue={values?.cycleId ?? String(loaderData.cycles[0].id)} error={errors.cycleId} hint="The cycle cannot be changed once the proposal exists.">
+          <SelectField
+            label="Cycle"
+            name="cycleId"
+            defaultValue={values?.cycleId ?? String(loaderData.cycles[0].id)}
+            error={errors.cycleId}
+            hint="The cycle cannot be changed once the proposal exists."
+          >
             {loaderData.cycles.map((c) => (
               <option key={c.id} value={c.id}>
                 {c.name} — observing {c.observing}; deadline {c.deadline} ({c.countdown})
               </option>
             ))}
           </SelectField>
-          <TextField label="Title" name="title" defaultValue={values?.title ?? ""} error={errors.title} maxLength={loaderData.titleMax} required />
+          <TextField
+            label="Title"
+            name="title"
+            defaultValue={values?.title ?? ""}
+            error={errors.title}
+            maxLength={loaderData.titleMax}
+            required
+          />
           <div className="flex gap-3">
             <Button type="submit" disabled={navigation.state === "submitting"}>
               Create the draft

@@ -4,7 +4,15 @@
  */
 import { Badge, type BadgeTone } from "~/components/ui";
 
-export type StatusKey = "draft" | "submitted" | "under_review" | "accepted" | "waitlisted" | "declined" | "scheduled" | "withdrawn";
+export type StatusKey =
+  | "draft"
+  | "submitted"
+  | "under_review"
+  | "accepted"
+  | "waitlisted"
+  | "declined"
+  | "scheduled"
+  | "withdrawn";
 
 const STATUS_TONE: Record<StatusKey, BadgeTone> = {
   draft: "neutral",
@@ -63,10 +71,22 @@ type ReportShape = {
     configuration: string;
     verdict: VerdictKey;
     nights: { date: string; when: string; darkHours: number; upHours?: number; observableHours: number }[];
-    figures: { resolutionMas: number | null; sizeMas: number | null; vis2Min: number | null; vis2Max: number | null; longestBaselineM: number | null };
+    figures: {
+      resolutionMas: number | null;
+      sizeMas: number | null;
+      vis2Min: number | null;
+      vis2Max: number | null;
+      longestBaselineM: number | null;
+    };
     lines: { check: string; label: string; verdict: VerdictKey; reason: string }[];
   }[];
-  thresholds: { tooResolvedVis2: number; unresolvedVis2: number; magnitudeMarginMag: number; minHoursPerNight: number; stepMin: number };
+  thresholds: {
+    tooResolvedVis2: number;
+    unresolvedVis2: number;
+    magnitudeMarginMag: number;
+    minHoursPerNight: number;
+    stepMin: number;
+  };
 };
 
 const VERDICT_SENTENCE: Record<VerdictKey, string> = {
@@ -79,18 +99,26 @@ const VERDICT_SENTENCE: Record<VerdictKey, string> = {
 export function FeasibilityView({ report }: { report: ReportShape }) {
   return (
     <div className="grid gap-4">
-      <div className="flex flex-wrap items-center gap-3 rounded-lg bg-night-100/60 p-4 ring-1 ring-night-200" role="status" aria-label="Overall verdict">
+      <div
+        className="flex flex-wrap items-center gap-3 rounded-lg bg-night-100/60 p-4 ring-1 ring-night-200"
+        role="status"
+        aria-label="Overall verdict"
+      >
         <span className="text-sm font-semibold text-night-800">Overall</span>
         <VerdictBadge verdict={report.verdict} />
         <span className="text-night-800">{VERDICT_SENTENCE[report.verdict]}</span>
         <span className="ml-auto text-sm text-night-600">
-          {report.band ? `${report.band} · ` : ""}computed {fmtUtc(report.computedAt)} in {report.elapsedMs} ms, {report.stepMin}-min steps
+          {report.band ? `${report.band} · ` : ""}computed {fmtUtc(report.computedAt)} in {report.elapsedMs} ms,{" "}
+          {report.stepMin}-min steps
         </span>
       </div>
       {report.problems.length > 0 ? (
         <ul className="grid gap-2">
           {report.problems.map((p) => (
-            <li key={p.label} className="flex items-start gap-3 rounded-lg bg-danger-50 p-3 text-sm ring-1 ring-danger-700/20">
+            <li
+              key={p.label}
+              className="flex items-start gap-3 rounded-lg bg-danger-50 p-3 text-sm ring-1 ring-danger-700/20"
+            >
               <VerdictBadge verdict={p.verdict} />
               <span>
                 <span className="font-semibold">{p.label}:</span> {p.reason}
@@ -100,7 +128,11 @@ export function FeasibilityView({ report }: { report: ReportShape }) {
         </ul>
       ) : null}
       {report.cells.map((cell) => (
-        <section key={`${cell.target}-${cell.configuration}`} className="rounded-lg bg-white p-4 ring-1 ring-night-200" aria-label={`${cell.target} with ${cell.configuration}`}>
+        <section
+          key={`${cell.target}-${cell.configuration}`}
+          className="rounded-lg bg-white p-4 ring-1 ring-night-200"
+          aria-label={`${cell.target} with ${cell.configuration}`}
+        >
           <header className="mb-3 flex flex-wrap items-center gap-2">
             <h3 className="font-semibold text-night-900">
               {cell.target} <span className="font-normal text-night-600">with</span> {cell.configuration}
@@ -108,7 +140,12 @@ export function FeasibilityView({ report }: { report: ReportShape }) {
             <VerdictBadge verdict={cell.verdict} />
             {cell.nights.length > 0 ? (
               <span className="num ml-auto text-sm text-night-600">
-                {cell.nights.map((n) => `${n.date}: ${n.observableHours.toFixed(2)} h observable of ${n.darkHours.toFixed(1)} h dark`).join(" · ")}
+                {cell.nights
+                  .map(
+                    (n) =>
+                      `${n.date}: ${n.observableHours.toFixed(2)} h observable of ${n.darkHours.toFixed(1)} h dark`,
+                  )
+                  .join(" · ")}
               </span>
             ) : null}
           </header>
@@ -133,11 +170,13 @@ export function FeasibilityView({ report }: { report: ReportShape }) {
         </section>
       ))}
       <p className="text-sm text-night-600">
-        How to read it: observable hours are counted on the first, middle and last night of the cycle ({report.thresholds.stepMin}-minute steps; elevation limit,
-        astronomical darkness and every baseline within the delay-line stroke), below {report.thresholds.minHoursPerNight} h on a night is a caution. “Too
-        resolved” means V² below {report.thresholds.tooResolvedVis2} on the shortest projected baseline; “barely resolved” means V² above{" "}
-        {report.thresholds.unresolvedVis2} everywhere. A magnitude within {report.thresholds.magnitudeMarginMag} mag of the band's limit is a caution,
-        fainter than the limit a failure. These thresholds are Fringe Docket's choices for a first look, not rules of the committee.
+        How to read it: observable hours are counted on the first, middle and last night of the cycle (
+        {report.thresholds.stepMin}-minute steps; elevation limit, astronomical darkness and every baseline within the
+        delay-line stroke), below {report.thresholds.minHoursPerNight} h on a night is a caution. “Too resolved” means
+        V² below {report.thresholds.tooResolvedVis2} on the shortest projected baseline; “barely resolved” means V²
+        above {report.thresholds.unresolvedVis2} everywhere. A magnitude within {report.thresholds.magnitudeMarginMag}{" "}
+        mag of the band's limit is a caution, fainter than the limit a failure. These thresholds are Fringe Docket's
+        choices for a first look, not rules of the committee.
       </p>
     </div>
   );

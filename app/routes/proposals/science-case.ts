@@ -1,8 +1,8 @@
-import type { Route } from "./+types/science-case";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { loadProposalForViewer, proposalIdFrom, proposalNotFound } from "~/services/proposals-access.server";
 import { readScienceCase } from "~/services/proposals.server";
+import { loadProposalForViewer, proposalIdFrom, proposalNotFound } from "~/services/proposals-access.server";
+import type { Route } from "./+types/science-case";
 
 /**
  * The science case as a download, for those who may see the proposal (everyone else: 404).
@@ -20,7 +20,11 @@ export async function loader({ request, params, url }: Route.LoaderArgs) {
     version = Number(raw);
   }
   const doc = await readScienceCase(db, id, version);
-  if (!doc) throw new Response("This proposal has no science case here.", { status: 404, headers: { "Content-Type": "text/plain; charset=utf-8" } });
+  if (!doc)
+    throw new Response("This proposal has no science case here.", {
+      status: 404,
+      headers: { "Content-Type": "text/plain; charset=utf-8" },
+    });
   const ascii = doc.filename.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
   return new Response(new Uint8Array(doc.data), {
     status: 200,

@@ -1,22 +1,22 @@
+import { and, asc, eq } from "drizzle-orm";
 import { useRef, useState } from "react";
 import { data, Form, useNavigation } from "react-router";
-import type { Route } from "./+types/target";
 import { ErrorPage } from "~/components/ErrorPage";
+import { TargetFields } from "~/components/targets/TargetForm";
 import { Button, ButtonLink, Card, FormErrors, PageHeader, TextArea, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { proposalTargets, type CalibratorJson, type TimeWindowJson } from "~/db/schema/proposals";
 import { sites } from "~/db/schema/array";
+import { type CalibratorJson, proposalTargets, type TimeWindowJson } from "~/db/schema/proposals";
 import { requirePermission } from "~/services/auth.server";
-import { formatDeclination, formatRightAscension, parseDeclination, parseRightAscension } from "~/services/coordinates";
-import { redirectWithFlash } from "~/services/flash.server";
+import { formatDeclination, formatRightAscension, parseDeclination, parseRightAscension } from "~/lib/coordinates";
+import { describeModel } from "~/services/describe-model";
+import { redirectWithFlash } from "~/lib/flash.server";
+import { PROPOSAL_LIMITS, ProposalRefusal, saveTarget } from "~/services/proposals.server";
 import { loadProposalForViewer, proposalIdFrom, proposalNotFound } from "~/services/proposals-access.server";
 import { readFormCapped } from "~/services/proposals-upload.server";
-import { PROPOSAL_LIMITS, ProposalRefusal, saveTarget } from "~/services/proposals.server";
-import { TargetFields } from "~/components/targets/TargetForm";
 import { readTargetForm, targetFormValues, valuesOfTarget } from "~/services/target-form.server";
 import { bandNames } from "~/services/targets.server";
-import { and, asc, eq } from "drizzle-orm";
-import { describeModel } from "~/services/describe-model";
+import type { Route } from "./+types/target";
 
 const L = PROPOSAL_LIMITS;
 
@@ -39,7 +39,9 @@ function readUtc(text: string): string | null {
 const toInput = (iso: string) => iso.slice(0, 16);
 
 function rowsOf<T extends Record<string, string>>(form: FormData, fields: Record<keyof T, string>): T[] {
-  const columns = Object.entries(fields).map(([key, name]) => [key, form.getAll(name as string).map((x) => (typeof x === "string" ? x : ""))] as const);
+  const columns = Object.entries(fields).map(
+    ([key, name]) => [key, form.getAll(name as string).map((x) => (typeof x === "string" ? x : ""))] as const,
+  );
   const n = Math.max(0, ...columns.map(([, list]) => list.length));
   const out: T[] = [];
   for (let i = 0; i < n; i++) {
@@ -59,13 +61,20 @@ function readExtras(form: FormData, siteMinElevationDeg: number) {
   let minElevationDeg: number | null = null;
   if (minText !== "") {
     const x = Number(minText);
-    if (!Number.isFinite(x) || x < 0 || x > 90) errors.minElevationDeg = "Minimum elevation: a number of degrees from 0 to 90 (or empty for the array's limit).";
+    if (!Number.isFinite(x) || x < 0 || x > 90)
+      errors.minElevationDeg = "Minimum elevation: a number of degrees from 0 to 90 (or empty for the array's limit).";
     else if (x < siteMinElevationDeg) {
       errors.minElevationDeg = `Minimum elevation: the array does not observe below ${siteMinElevationDeg}°; leave it empty to use that limit.`;
     } else minElevationDeg = x;
   }
   const windowRows = rowsOf<WindowRow>(form, { start: "windowStart", end: "windowEnd", note: "windowNote" });
-  const calibratorRows = rowsOf<CalibratorRow>(form, { name: "calName", ra: "calRa", dec: "calDec", diameter: "calDiameter", magnitude: "calMagnitude" });
+  const calibratorRows = rowsOf<CalibratorRow>(form, {
+    name: "calName",
+    ra: "calRa",
+    dec: "calDec",
+    diameter: "calDiameter",
+    magnitude: "calMagnitude",
+  });
   const timeWindows: TimeWindowJson[] = [];
   const kept = windowRows.filter((w) => !isBlank(w));
   if (kept.length > L.windowsMax) errors["window-0"] = `Time windows: at most ${L.windowsMax}.`;
@@ -75,9 +84,13 @@ function readExtras(form: FormData, siteMinElevationDeg: number) {
     const end = readUtc(w.end);
     if (!start) errors[`window-${i}`] ??= `${label}: the start must be a date and time (UTC), e.g. 2027-04-10 03:00.`;
     else if (!end) errors[`window-${i}`] ??= `${label}: the end must be a date and time (UTC), e.g. 2027-04-10 05:30.`;
-    else if (Date.parse(end) <= Date.parse(start)) errors[`window-${i}`] ??= `${label}: the end must be after the start.`;
+    else if (Date.parse(end) <= Date.parse(start))
+      errors[`window-${i}`] ??= `${label}: the end must be after the start.`;
     else if (w.note.length > 200) errors[`window-${i}`] ??= `${label}: the note is longer than 200 characters.`;
-    else timeWindows.push(w.note.trim() ? { startUtc: start, endUtc: end, note: w.note.trim() } : { startUtc: start, endUtc: end });
+    else
+      timeWindows.push(
+        w.note.trim() ? { startUtc: start, endUtc: end, note: w.note.trim() } : { startUtc: start, endUtc: end },
+      );
   });
   const calibrators: CalibratorJson[] = [];
   const keptCals = calibratorRows.filter((c) => !isBlank(c));
@@ -93,8 +106,10 @@ function readExtras(form: FormData, siteMinElevationDeg: number) {
     else if (c.name.trim().length > 80) errors[key] ??= `${label}: the name is longer than 80 characters.`;
     else if (!ra.ok) errors[key] ??= `${label}: ${ra.message}.`;
     else if (!dec.ok) errors[key] ??= `${label}: ${dec.message}.`;
-    else if (diameter !== undefined && !(Number.isFinite(diameter) && diameter > 0 && diameter < 1000)) errors[key] ??= `${label}: the diameter must be a positive number of mas.`;
-    else if (magnitude !== undefined && !(Number.isFinite(magnitude) && magnitude >= -30 && magnitude <= 30)) errors[key] ??= `${label}: the magnitude must be between -30 and 30.`;
+    else if (diameter !== undefined && !(Number.isFinite(diameter) && diameter > 0 && diameter < 1000))
+      errors[key] ??= `${label}: the diameter must be a positive number of mas.`;
+    else if (magnitude !== undefined && !(Number.isFinite(magnitude) && magnitude >= -30 && magnitude <= 30))
+      errors[key] ??= `${label}: the magnitude must be between -30 and 30.`;
     else {
       const cal: CalibratorJson = { name: c.name.trim(), raDeg: ra.deg, decDeg: dec.deg };
       if (diameter !== undefined) cal.diameterMas = diameter;
@@ -123,7 +138,13 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const db = database();
   const { proposal, abilities } = await loadProposalForViewer(db, viewer, id);
   const bands = await bandNames(db);
-  const base = { proposalId: id, proposalTitle: proposal.title, editable: abilities.canEdit, bands, siteMinElevationDeg: await siteMinElevation() };
+  const base = {
+    proposalId: id,
+    proposalTitle: proposal.title,
+    editable: abilities.canEdit,
+    bands,
+    siteMinElevationDeg: await siteMinElevation(),
+  };
   if (targetId === null) {
     if (!abilities.canEdit) throw data(abilities.lockedBecause ?? "The proposal cannot be changed.", { status: 409 });
     return {
@@ -136,7 +157,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       calibrators: [] as CalibratorRow[],
     };
   }
-  const [t] = await db.select().from(proposalTargets).where(and(eq(proposalTargets.id, targetId), eq(proposalTargets.proposalId, id)));
+  const [t] = await db
+    .select()
+    .from(proposalTargets)
+    .where(and(eq(proposalTargets.id, targetId), eq(proposalTargets.proposalId, id)));
   if (!t) proposalNotFound();
   const values: TargetValues = {
     ...valuesOfTarget(t),
@@ -166,10 +190,22 @@ export async function action({ request, params }: Route.ActionArgs) {
   const db = database();
   await loadProposalForViewer(db, viewer, id);
   const read = await readFormCapped(request);
-  if (!read.ok) return data({ values: {} as TargetValues, windows: [] as WindowRow[], calibrators: [] as CalibratorRow[], errors: { form: read.message } as Record<string, string> }, { status: read.status });
+  if (!read.ok)
+    return data(
+      {
+        values: {} as TargetValues,
+        windows: [] as WindowRow[],
+        calibrators: [] as CalibratorRow[],
+        errors: { form: read.message } as Record<string, string>,
+      },
+      { status: read.status },
+    );
   const form = read.form;
   const bands = await bandNames(db);
-  const values: TargetValues = { ...targetFormValues(form, bands), minElevationDeg: String(form.get("minElevationDeg") ?? "") };
+  const values: TargetValues = {
+    ...targetFormValues(form, bands),
+    minElevationDeg: String(form.get("minElevationDeg") ?? ""),
+  };
   const core = readTargetForm(values, bands);
   const extras = readExtras(form, await siteMinElevation());
   const errors: Record<string, string> = { ...core.errors, ...extras.errors };
@@ -188,13 +224,19 @@ export async function action({ request, params }: Route.ActionArgs) {
       calibrators: extras.calibrators,
     });
   } catch (e) {
-    if (e instanceof ProposalRefusal) return data({ ...keep, errors: { [e.field ?? "form"]: e.message } }, { status: e.status });
+    if (e instanceof ProposalRefusal)
+      return data({ ...keep, errors: { [e.field ?? "form"]: e.message } }, { status: e.status });
     throw e;
   }
-  return redirectWithFlash(`/proposals/${id}`, { kind: "success", text: `${core.target.name} ${targetId === null ? "added to" : "saved in"} the proposal.` });
+  return redirectWithFlash(`/proposals/${id}`, {
+    kind: "success",
+    text: `${core.target.name} ${targetId === null ? "added to" : "saved in"} the proposal.`,
+  });
 }
 
-export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.name ?? "Target"} — Proposal — Fringe Docket` }];
+export const meta: Route.MetaFunction = ({ data: d }) => [
+  { title: `${d?.name ?? "Target"} — Proposal — Fringe Docket` },
+];
 
 export default function ProposalTarget({ loaderData, actionData }: Route.ComponentProps) {
   const d = loaderData;
@@ -219,7 +261,11 @@ export default function ProposalTarget({ loaderData, actionData }: Route.Compone
           </ButtonLink>
         }
       />
-      {readOnly ? <p className="mb-4 rounded-lg bg-info-50 p-3 text-sm text-info-700 ring-1 ring-info-700/20">The proposal is read-only; this is how the target stands.</p> : null}
+      {readOnly ? (
+        <p className="mb-4 rounded-lg bg-info-50 p-3 text-sm text-info-700 ring-1 ring-info-700/20">
+          The proposal is read-only; this is how the target stands.
+        </p>
+      ) : null}
       <Form method="post" noValidate className="grid gap-6" aria-label="Target">
         <FormErrors errors={Object.values(errors)} />
         <fieldset disabled={readOnly} className="grid gap-6">
@@ -244,14 +290,38 @@ export default function ProposalTarget({ loaderData, actionData }: Route.Compone
                 />
               </div>
               <fieldset className="grid gap-3">
-                <legend className="mb-1 text-sm font-medium text-night-800">Time-critical windows (UTC): the target must be observed inside one of them</legend>
-                {windows.length === 0 ? <p className="text-sm text-night-600">None: any night of the cycle will do.</p> : null}
+                <legend className="mb-1 text-sm font-medium text-night-800">
+                  Time-critical windows (UTC): the target must be observed inside one of them
+                </legend>
+                {windows.length === 0 ? (
+                  <p className="text-sm text-night-600">None: any night of the cycle will do.</p>
+                ) : null}
                 {windows.map(({ key, row }, i) => (
-                  <div key={key} className="grid items-end gap-3 rounded-lg bg-night-50 p-3 ring-1 ring-night-200 sm:grid-cols-[1fr_1fr_1.5fr_auto]">
-                    <TextField label={`Window ${i + 1} start`} unit="UTC" type="datetime-local" name="windowStart" defaultValue={row.start} />
+                  <div
+                    key={key}
+                    className="grid items-end gap-3 rounded-lg bg-night-50 p-3 ring-1 ring-night-200 sm:grid-cols-[1fr_1fr_1.5fr_auto]"
+                  >
+                    <TextField
+                      label={`Window ${i + 1} start`}
+                      unit="UTC"
+                      type="datetime-local"
+                      name="windowStart"
+                      defaultValue={row.start}
+                    />
                     <TextField label="End" unit="UTC" type="datetime-local" name="windowEnd" defaultValue={row.end} />
-                    <TextField label="Note" name="windowNote" defaultValue={row.note} maxLength={200} placeholder="e.g. eclipse ingress" />
-                    <Button variant="ghost" size="sm" onClick={() => setWindows((w) => w.filter((x) => x.key !== key))} aria-label={`Remove window ${i + 1}`}>
+                    <TextField
+                      label="Note"
+                      name="windowNote"
+                      defaultValue={row.note}
+                      maxLength={200}
+                      placeholder="e.g. eclipse ingress"
+                    />
+                    <Button
+                      variant="ghost"
+                      size="sm"
+                      onClick={() => setWindows((w) => w.filter((x) => x.key !== key))}
+                      aria-label={`Remove window ${i + 1}`}
+                    >
                       Remove
                     </Button>
                     {errors[`window-${i}`] ? (
@@ -262,7 +332,12 @@ export default function ProposalTarget({ loaderData, actionData }: Route.Compone
                   </div>
                 ))}
                 <div>
-                  <Button variant="secondary" size="sm" onClick={() => setWindows((w) => [...w, ...keyed([{ start: "", end: "", note: "" }])])} disabled={windows.length >= 20}>
+                  <Button
+                    variant="secondary"
+                    size="sm"
+                    onClick={() => setWindows((w) => [...w, ...keyed([{ start: "", end: "", note: "" }])])}
+                    disabled={windows.length >= 20}
+                  >
                     Add a time window
                   </Button>
                 </div>
@@ -272,15 +347,40 @@ export default function ProposalTarget({ loaderData, actionData }: Route.Compone
 
           <Card title="Calibrators">
             <div className="grid gap-3">
-              {calibrators.length === 0 ? <p className="text-sm text-night-600">No calibrator yet. Unresolved, nearby stars of similar brightness work best.</p> : null}
+              {calibrators.length === 0 ? (
+                <p className="text-sm text-night-600">
+                  No calibrator yet. Unresolved, nearby stars of similar brightness work best.
+                </p>
+              ) : null}
               {calibrators.map(({ key, row }, i) => (
-                <div key={key} className="grid items-end gap-3 rounded-lg bg-night-50 p-3 ring-1 ring-night-200 sm:grid-cols-[1.3fr_1fr_1fr_0.7fr_0.7fr_auto]">
+                <div
+                  key={key}
+                  className="grid items-end gap-3 rounded-lg bg-night-50 p-3 ring-1 ring-night-200 sm:grid-cols-[1.3fr_1fr_1fr_0.7fr_0.7fr_auto]"
+                >
                   <TextField label={`Calibrator ${i + 1} name`} name="calName" defaultValue={row.name} maxLength={80} />
                   <TextField label="RA" name="calRa" defaultValue={row.ra} placeholder="hh:mm:ss" />
                   <TextField label="Dec" name="calDec" defaultValue={row.dec} placeholder="±dd:mm:ss" />
-                  <TextField label="Diameter" unit="mas" name="calDiameter" inputMode="decimal" defaultValue={row.diameter} placeholder="optional" />
-                  <TextField label="Magnitude" name="calMagnitude" inputMode="decimal" defaultValue={row.magnitude} placeholder="optional" />
-                  <Button variant="ghost" size="sm" onClick={() => setCalibrators((c) => c.filter((x) => x.key !== key))} aria-label={`Remove calibrator ${i + 1}`}>
+                  <TextField
+                    label="Diameter"
+                    unit="mas"
+                    name="calDiameter"
+                    inputMode="decimal"
+                    defaultValue={row.diameter}
+                    placeholder="optional"
+                  />
+                  <TextField
+                    label="Magnitude"
+                    name="calMagnitude"
+                    inputMode="decimal"
+                    defaultValue={row.magnitude}
+                    placeholder="optional"
+                  />
+                  <Button
+                    variant="ghost"
+                    size="sm"
+                    onClick={() => setCalibrators((c) => c.filter((x) => x.key !== key))}
+                    aria-label={`Remove calibrator ${i + 1}`}
+                  >
                     Remove
                   </Button>
                   {errors[`calibrator-${i}`] ? (
@@ -294,7 +394,12 @@ export default function ProposalTarget({ loaderData, actionData }: Route.Compone
                 <Button
                   variant="secondary"
                   size="sm"
-                  onClick={() => setCalibrators((c) => [...c, ...keyed([{ name: "", ra: "", dec: "", diameter: "", magnitude: "" }])])}
+                  onClick={() =>
+                    setCalibrators((c) => [
+                      ...c,
+                      ...keyed([{ name: "", ra: "", dec: "", diameter: "", magnitude: "" }]),
+                    ])
+                  }
                   disabled={calibrators.length >= 10}
                 >
                   Add a calibrator
@@ -304,7 +409,14 @@ export default function ProposalTarget({ loaderData, actionData }: Route.Compone
           </Card>
 
           <Card title="Notes">
-            <TextArea label="Notes for the committee and the night planners" name="notes" defaultValue={values.notes} error={errors.notes} maxLength={1000} className="min-h-20" />
+            <TextArea
+              label="Notes for the committee and the night planners"
+              name="notes"
+              defaultValue={values.notes}
+              error={errors.notes}
+              maxLength={1000}
+              className="min-h-20"
+            />
           </Card>
         </fieldset>
         {readOnly ? null : (

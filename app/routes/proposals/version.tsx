@@ -1,12 +1,12 @@
 import { data, Link } from "react-router";
-import type { Route } from "./+types/version";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, ButtonLink, Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals-access.server";
-import { formatBytes, readVersion } from "~/services/proposals.server";
 import { describeModel } from "~/services/describe-model";
+import { formatBytes, readVersion } from "~/services/proposals.server";
+import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals-access.server";
+import type { Route } from "./+types/version";
 import { describeMagnitudes, FeasibilityView, fmtUtc } from "./parts";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -50,7 +50,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
-export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Version ${d?.version ?? ""} — ${d?.snapshot.title ?? "Proposal"} — Fringe Docket` }];
+export const meta: Route.MetaFunction = ({ data: d }) => [
+  { title: `Version ${d?.version ?? ""} — ${d?.snapshot.title ?? "Proposal"} — Fringe Docket` },
+];
 
 export default function ProposalVersion({ loaderData }: Route.ComponentProps) {
   const d = loaderData;
@@ -115,7 +117,11 @@ export default function ProposalVersion({ loaderData }: Route.ComponentProps) {
           <Card title="Science case">
             {s.document && d.hasDocument ? (
               <p className="text-sm">
-                <a className="font-medium text-ember-800 underline" href={`/proposals/${d.proposalId}/science-case?version=${d.version}`} download>
+                <a
+                  className="font-medium text-ember-800 underline"
+                  href={`/proposals/${d.proposalId}/science-case?version=${d.version}`}
+                  download
+                >
                   {s.document.filename}
                 </a>{" "}
                 · {s.document.size}
@@ -139,7 +145,9 @@ export default function ProposalVersion({ loaderData }: Route.ComponentProps) {
               </span>
               <span className="block text-night-600">
                 {t.minElevationDeg === null ? "array elevation limit" : `elevation ≥ ${t.minElevationDeg}°`}
-                {t.timeWindows.length ? ` · windows ${t.timeWindows.map((w) => `${fmtUtc(w.startUtc)} – ${fmtUtc(w.endUtc)}`).join("; ")}` : ""}
+                {t.timeWindows.length
+                  ? ` · windows ${t.timeWindows.map((w) => `${fmtUtc(w.startUtc)} – ${fmtUtc(w.endUtc)}`).join("; ")}`
+                  : ""}
                 {t.calibrators.length ? ` · calibrators ${t.calibrators.join(", ")}` : ""}
                 {t.notes ? ` · ${t.notes}` : ""}
               </span>

@@ -1,13 +1,19 @@
 import { data } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/configuration-edit";
 import { ErrorPage } from "~/components/ErrorPage";
-import { CONFIGURATION_FIELDS, CONFIGURATION_LABELS, ConfigurationFields, DeleteCard, EditForm } from "~/components/registry/forms";
+import {
+  CONFIGURATION_FIELDS,
+  CONFIGURATION_LABELS,
+  ConfigurationFields,
+  DeleteCard,
+  EditForm,
+} from "~/components/registry/forms";
 import { registryPaths } from "~/components/registry/paths";
 import { Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { redirectWithFlash } from "~/services/flash.server";
+import { redirectWithFlash } from "~/lib/flash.server";
+import { loadSiteRegistry } from "~/services/registry.server";
 import {
   configurationNameTaken,
   deleteConfiguration,
@@ -21,7 +27,7 @@ import {
   widestInstrument,
 } from "~/services/registry-admin.server";
 import { ConfigurationSchema, fieldErrors } from "~/services/registry-io";
-import { loadSiteRegistry } from "~/services/registry.server";
+import type { Route } from "./+types/configuration-edit";
 
 async function configurationOr404(params: { configurationId?: string }) {
   const configuration = await getConfiguration(database(), idParam(params.configurationId, "configuration"));
@@ -33,7 +39,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   await requirePermission(request, "registry:edit");
   const db = database();
   const configuration = await configurationOr404(params);
-  const [registry, widest] = await Promise.all([loadSiteRegistry(db, configuration.siteId), widestInstrument(db, configuration.siteId)]);
+  const [registry, widest] = await Promise.all([
+    loadSiteRegistry(db, configuration.siteId),
+    widestInstrument(db, configuration.siteId),
+  ]);
   return {
     configuration,
     siteName: registry?.site.name ?? "",
@@ -47,7 +56,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   const db = database();
   const configuration = await configurationOr404(params);
   const read = await readEditForm(request);
-  if ("error" in read) return data({ errors: { form: read.error }, values: {} as Record<string, string> }, { status: read.status });
+  if ("error" in read)
+    return data({ errors: { form: read.error }, values: {} as Record<string, string> }, { status: read.status });
 
   if (read.intent === "delete") {
     try {
@@ -55,21 +65,33 @@ export async function action({ request, params }: Route.ActionArgs) {
     } catch (e) {
       if (pgCode(e) !== "23503") throw e;
       return data(
-        { errors: { form: `${configuration.name} is still referred to elsewhere (for example by proposals or a cycle); withdraw it from those first, or untick “Offered” instead` }, values: {} as Record<string, string> },
+        {
+          errors: {
+            form: `${configuration.name} is still referred to elsewhere (for example by proposals or a cycle); withdraw it from those first, or untick “Offered” instead`,
+          },
+          values: {} as Record<string, string>,
+        },
         { status: 409 },
       );
     }
-    return redirectWithFlash(registryPaths.overview(configuration.siteId), { kind: "success", text: `Configuration ${configuration.name} deleted.` });
+    return redirectWithFlash(registryPaths.overview(configuration.siteId), {
+      kind: "success",
+      text: `Configuration ${configuration.name} deleted.`,
+    });
   }
 
   // An unticked checkbox sends nothing: not offered.
-  const values = { ...formValues(read.form, CONFIGURATION_FIELDS), offered: read.form.get("offered") === "on" ? "on" : "off" };
+  const values = {
+    ...formValues(read.form, CONFIGURATION_FIELDS),
+    offered: read.form.get("offered") === "on" ? "on" : "off",
+  };
   const parsed = v.safeParse(ConfigurationSchema, values);
   if (!parsed.success) return data({ errors: fieldErrors(parsed.issues), values }, { status: 400 });
   const site = await getSite(db, configuration.siteId);
   const siteName = site?.name ?? "this site";
   const taken = { errors: { name: `${parsed.output.name} is already a configuration at ${siteName}` }, values };
-  if (await configurationNameTaken(db, configuration.siteId, parsed.output.name, configuration.id)) return data(taken, { status: 400 });
+  if (await configurationNameTaken(db, configuration.siteId, parsed.output.name, configuration.id))
+    return data(taken, { status: 400 });
   let saved: Awaited<ReturnType<typeof saveConfiguration>>;
   try {
     saved = await saveConfiguration(db, configuration.siteId, configuration.id, parsed.output);
@@ -78,15 +100,31 @@ export async function action({ request, params }: Route.ActionArgs) {
     throw e;
   }
   if (!saved.ok) {
-    return data({ errors: { stations: `${saved.unknownStations.join(", ")} ${saved.unknownStations.length > 1 ? "are not stations" : "is not a station"} at ${siteName}` }, values }, { status: 400 });
+    return data(
+      {
+        errors: {
+          stations: `${saved.unknownStations.join(", ")} ${saved.unknownStations.length > 1 ? "are not stations" : "is not a station"} at ${siteName}`,
+        },
+        values,
+      },
+      { status: 400 },
+    );
   }
   const widest = await widestInstrument(db, configuration.siteId);
   const size = parsed.output.stations.length;
-  const note = widest > 0 && size > widest ? ` Note: no instrument combines more than ${widest} telescopes, and it has ${size}.` : "";
-  return redirectWithFlash(registryPaths.overview(configuration.siteId), { kind: note ? "info" : "success", text: `Configuration ${parsed.output.name} saved.${note}` });
+  const note =
+    widest > 0 && size > widest
+      ? ` Note: no instrument combines more than ${widest} telescopes, and it has ${size}.`
+      : "";
+  return redirectWithFlash(registryPaths.overview(configuration.siteId), {
+    kind: note ? "info" : "success",
+    text: `Configuration ${parsed.output.name} saved.${note}`,
+  });
 }
 
-export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Edit ${d?.configuration.name ?? "configuration"} — Array registry — Fringe Docket` }];
+export const meta: Route.MetaFunction = ({ data: d }) => [
+  { title: `Edit ${d?.configuration.name ?? "configuration"} — Array registry — Fringe Docket` },
+];
 
 export default function EditConfiguration({ loaderData, actionData }: Route.ComponentProps) {
   const { configuration } = loaderData;
@@ -98,7 +136,10 @@ export default function EditConfiguration({ loaderData, actionData }: Route.Comp
   };
   return (
     <>
-      <PageHeader title={`Edit configuration ${configuration.name}`} lead={`A station set of ${loaderData.siteName}.`} />
+      <PageHeader
+        title={`Edit configuration ${configuration.name}`}
+        lead={`A station set of ${loaderData.siteName}.`}
+      />
       <div className="grid grid-cols-1 gap-6">
         <Card>
           <EditForm
@@ -108,11 +149,17 @@ export default function EditConfiguration({ loaderData, actionData }: Route.Comp
             cancelTo={registryPaths.overview(configuration.siteId)}
             ariaLabel={`Edit configuration ${configuration.name}`}
           >
-            <ConfigurationFields state={actionData} defaults={defaults} stations={loaderData.stations} widest={loaderData.widest} />
+            <ConfigurationFields
+              state={actionData}
+              defaults={defaults}
+              stations={loaderData.stations}
+              widest={loaderData.widest}
+            />
           </EditForm>
         </Card>
         <DeleteCard title="Delete this configuration" buttonLabel={`Delete ${configuration.name}`}>
-          Its stations stay registered. To keep it but stop proposers from asking for it, untick “Offered to proposers” instead.
+          Its stations stay registered. To keep it but stop proposers from asking for it, untick “Offered to proposers”
+          instead.
         </DeleteCard>
       </div>
     </>

@@ -1,14 +1,14 @@
 import { useState } from "react";
 import { data, Form, Link, useNavigation } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/import";
 import { ErrorPage } from "~/components/ErrorPage";
 import { RegistryPreview, StationPreview } from "~/components/registry/ImportPreview";
 import { registryPaths } from "~/components/registry/paths";
 import { Button, Card, PageHeader, SelectField, TextArea } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { redirectWithFlash } from "~/services/flash.server";
+import { redirectWithFlash } from "~/lib/flash.server";
+import { listSites } from "~/services/registry.server";
 import {
   applyRegistryPlan,
   applyStationPlan,
@@ -22,20 +22,20 @@ import {
   toId,
 } from "~/services/registry-admin.server";
 import {
-  MAX_IMPORT_BYTES,
-  MAX_IMPORT_STATIONS,
-  STATION_COLUMNS,
+  type Change,
   decodeUpload,
   issueText,
+  MAX_IMPORT_BYTES,
+  MAX_IMPORT_STATIONS,
   parseRegistryJson,
   parseStationsFile,
   planRegistry,
   planStations,
-  type Change,
   type RegistryPlan,
+  STATION_COLUMNS,
   type StationPlan,
 } from "~/services/registry-io";
-import { listSites } from "~/services/registry.server";
+import type { Route } from "./+types/import";
 
 const Kind = v.picklist(["stations", "registry"], "Choose what the file holds: stations, or the whole registry.");
 const Intent = v.picklist(["preview", "apply"], "Unknown action.");
@@ -70,8 +70,23 @@ const totalChanges = (counts: Record<Change, number>) => counts.new + counts.upd
 
 export async function action({ request }: Route.ActionArgs) {
   await requirePermission(request, "registry:edit");
-  const read = await readForm(request, MAX_IMPORT_BYTES + FORM_OVERHEAD_BYTES, `The file is larger than the limit of ${LIMIT_TEXT}; split it into smaller files.`);
-  const result: ImportResult = { kind: "stations", siteId: null, removeMissing: false, fileName: "", pasted: "", content: null, errors: [], notices: [], stations: null, registry: null };
+  const read = await readForm(
+    request,
+    MAX_IMPORT_BYTES + FORM_OVERHEAD_BYTES,
+    `The file is larger than the limit of ${LIMIT_TEXT}; split it into smaller files.`,
+  );
+  const result: ImportResult = {
+    kind: "stations",
+    siteId: null,
+    removeMissing: false,
+    fileName: "",
+    pasted: "",
+    content: null,
+    errors: [],
+    notices: [],
+    stations: null,
+    registry: null,
+  };
   const fail = (message: string[], status = 400) => data({ ...result, content: null, errors: message }, { status });
   if ("error" in read) return fail([read.error], read.status);
   const form = read.form;
@@ -96,8 +111,14 @@ export async function action({ request }: Route.ActionArgs) {
   } else {
     if (intent.output === "preview") result.pasted = typed.slice(0, MAX_IMPORT_BYTES);
     if (file instanceof File && file.name && file.size === 0) return fail(["The file is empty."]);
-    if (typed.trim() === "") return fail([intent.output === "apply" ? "The preview's text was lost; upload the file again." : "Choose a file, or paste its text into the box."]);
-    if (new TextEncoder().encode(typed).length > MAX_IMPORT_BYTES) return fail([`The text is larger than the limit of ${LIMIT_TEXT}; split it into smaller files.`]);
+    if (typed.trim() === "")
+      return fail([
+        intent.output === "apply"
+          ? "The preview's text was lost; upload the file again."
+          : "Choose a file, or paste its text into the box.",
+      ]);
+    if (new TextEncoder().encode(typed).length > MAX_IMPORT_BYTES)
+      return fail([`The text is larger than the limit of ${LIMIT_TEXT}; split it into smaller files.`]);
     text = typed;
   }
 
@@ -111,17 +132,29 @@ export async function action({ request }: Route.ActionArgs) {
     result.notices = parsed.notices;
     if (parsed.errors.length > 0) return fail(parsed.errors.map(issueText));
     const [snapshot, usage] = await Promise.all([loadSnapshot(db, site.id), stationUsage(db, site.id)]);
-    const plan = planStations(snapshot?.stations ?? [], parsed.stations, { removeMissing: result.removeMissing, usage });
+    const plan = planStations(snapshot?.stations ?? [], parsed.stations, {
+      removeMissing: result.removeMissing,
+      usage,
+    });
     result.stations = plan;
     result.notices = [...parsed.notices, ...plan.notices];
     if (intent.output === "preview") return { ...result, content: text };
-    if (totalChanges(plan.counts) === 0) return redirectWithFlash(registryPaths.overview(site.id), { kind: "info", text: "The file matches the registry; nothing was changed." });
+    if (totalChanges(plan.counts) === 0)
+      return redirectWithFlash(registryPaths.overview(site.id), {
+        kind: "info",
+        text: "The file matches the registry; nothing was changed.",
+      });
     try {
       await applyStationPlan(db, site.id, plan);
     } catch (e) {
       const code = pgCode(e);
       if (code !== "23503" && code !== "23505") throw e;
-      return fail(["The registry changed while you were looking at the preview, so nothing was imported; preview the file again."], 409);
+      return fail(
+        [
+          "The registry changed while you were looking at the preview, so nothing was imported; preview the file again.",
+        ],
+        409,
+      );
     }
     const c = plan.counts;
     summary = `Stations imported into ${site.name}: ${c.new} new, ${c.updated} updated, ${c.unchanged} unchanged${c.remove ? `, ${c.remove} removed` : ""}.`;
@@ -139,15 +172,25 @@ export async function action({ request }: Route.ActionArgs) {
     if (intent.output === "preview") return { ...result, content: text };
     const counts = plan.counts;
     const changes = Object.values(counts).reduce((n, c) => n + totalChanges(c), 0);
-    if (changes === 0) return redirectWithFlash(registryPaths.overview(existing?.id), { kind: "info", text: "The file matches the registry; nothing was changed." });
+    if (changes === 0)
+      return redirectWithFlash(registryPaths.overview(existing?.id), {
+        kind: "info",
+        text: "The file matches the registry; nothing was changed.",
+      });
     try {
       redirectSite = await applyRegistryPlan(db, plan);
     } catch (e) {
       const code = pgCode(e);
       if (code !== "23503" && code !== "23505") throw e;
-      return fail(["The registry changed while you were looking at the preview, so nothing was imported; preview the file again."], 409);
+      return fail(
+        [
+          "The registry changed while you were looking at the preview, so nothing was imported; preview the file again.",
+        ],
+        409,
+      );
     }
-    const part = (noun: string, c: Record<Change, number>) => `${noun} ${c.new} new, ${c.updated} updated${c.remove ? `, ${c.remove} removed` : ""}`;
+    const part = (noun: string, c: Record<Change, number>) =>
+      `${noun} ${c.new} new, ${c.updated} updated${c.remove ? `, ${c.remove} removed` : ""}`;
     summary = `Registry of ${plan.site.name} imported (site ${plan.site.change}): ${[
       part("stations", counts.stations),
       part("configurations", counts.configurations),
@@ -179,14 +222,22 @@ export default function ImportPage({ loaderData, actionData }: Route.ComponentPr
         title="Import into the registry"
         lead="Upload stations, or a whole registry, and see what would change before anything is written."
         actions={
-          <Link to={registryPaths.overview(siteId)} className="self-center text-sm font-medium text-ember-800 underline-offset-2 hover:underline">
+          <Link
+            to={registryPaths.overview(siteId)}
+            className="self-center text-sm font-medium text-ember-800 underline-offset-2 hover:underline"
+          >
             Back to the registry
           </Link>
         }
       />
       <div className="grid grid-cols-1 gap-6 lg:grid-cols-[24rem_minmax(0,1fr)]">
         <Card title="1. Choose the file">
-          <Form method="post" encType="multipart/form-data" className="space-y-4" aria-label="Choose the file to import">
+          <Form
+            method="post"
+            encType="multipart/form-data"
+            className="space-y-4"
+            aria-label="Choose the file to import"
+          >
             <input type="hidden" name="intent" value="preview" />
             <fieldset className="space-y-2">
               <legend className="text-sm font-medium text-night-800">The file holds</legend>
@@ -197,14 +248,23 @@ export default function ImportPage({ loaderData, actionData }: Route.ComponentPr
                 ] as const
               ).map(([value, text]) => (
                 <label key={value} className="flex items-center gap-2 text-sm">
-                  <input type="radio" name="kind" value={value} checked={kind === value} onChange={() => setKind(value)} className="h-4 w-4 accent-ember-700" />
+                  <input
+                    type="radio"
+                    name="kind"
+                    value={value}
+                    checked={kind === value}
+                    onChange={() => setKind(value)}
+                    className="h-4 w-4 accent-ember-700"
+                  />
                   {text}
                 </label>
               ))}
             </fieldset>
             {kind === "stations" ? (
               loaderData.sites.length === 0 ? (
-                <p className="text-sm text-danger-700">There is no site yet: add one first, or import a whole registry.</p>
+                <p className="text-sm text-danger-700">
+                  There is no site yet: add one first, or import a whole registry.
+                </p>
               ) : (
                 <SelectField label="Into the site" name="siteId" defaultValue={siteId ?? undefined}>
                   {loaderData.sites.map((s) => (
@@ -228,9 +288,20 @@ export default function ImportPage({ loaderData, actionData }: Route.ComponentPr
               />
               {result?.fileName ? <p className="text-sm text-night-600">Last file: {result.fileName}</p> : null}
             </div>
-            <TextArea label="…or paste its text" name="content" defaultValue={result?.pasted ?? ""} className="font-mono text-xs" spellCheck={false} />
+            <TextArea
+              label="…or paste its text"
+              name="content"
+              defaultValue={result?.pasted ?? ""}
+              className="font-mono text-xs"
+              spellCheck={false}
+            />
             <label className="flex items-start gap-2 text-sm">
-              <input type="checkbox" name="removeMissing" defaultChecked={result?.removeMissing ?? false} className="mt-0.5 h-4 w-4 accent-ember-700" />
+              <input
+                type="checkbox"
+                name="removeMissing"
+                defaultChecked={result?.removeMissing ?? false}
+                className="mt-0.5 h-4 w-4 accent-ember-700"
+              />
               <span>Remove stations missing from the file (a station that a configuration uses always stays)</span>
             </label>
             <Button type="submit" variant={ready ? "secondary" : "primary"} disabled={busy}>
@@ -241,13 +312,22 @@ export default function ImportPage({ loaderData, actionData }: Route.ComponentPr
             <summary className="cursor-pointer font-medium text-night-800">How files are read</summary>
             <ul className="mt-2 list-disc space-y-1 pl-5">
               <li>
-                Station CSV: a header row naming <code>{STATION_COLUMNS.join(", ")}</code> (metres; any order; “East (m)” or “east_m” work too), then one station per
-                row, every cell filled. Other columns are ignored and listed.
+                Station CSV: a header row naming <code>{STATION_COLUMNS.join(", ")}</code> (metres; any order; “East
+                (m)” or “east_m” work too), then one station per row, every cell filled. Other columns are ignored and
+                listed.
               </li>
               <li>Station JSON: a list of objects with the same fields, or an object with a “stations” list.</li>
-              <li>The whole registry: the JSON of “Whole registry (JSON)” on the registry page; the site is matched by name.</li>
-              <li>Stations, configurations, instruments and bands are matched by name: new ones are added, changed ones updated.</li>
-              <li>Rows count from 1 at the first row under the header. Up to {MAX_IMPORT_STATIONS} stations at once.</li>
+              <li>
+                The whole registry: the JSON of “Whole registry (JSON)” on the registry page; the site is matched by
+                name.
+              </li>
+              <li>
+                Stations, configurations, instruments and bands are matched by name: new ones are added, changed ones
+                updated.
+              </li>
+              <li>
+                Rows count from 1 at the first row under the header. Up to {MAX_IMPORT_STATIONS} stations at once.
+              </li>
               <li>One error anywhere and nothing is written.</li>
             </ul>
           </details>
@@ -256,11 +336,18 @@ export default function ImportPage({ loaderData, actionData }: Route.ComponentPr
         <div className="grid min-w-0 grid-cols-1 content-start gap-6">
           {!result ? (
             <Card title="2. Check and apply">
-              <p className="text-sm text-night-600">The preview appears here: each station new, updated or unchanged, and any errors with their row and column.</p>
+              <p className="text-sm text-night-600">
+                The preview appears here: each station new, updated or unchanged, and any errors with their row and
+                column.
+              </p>
             </Card>
           ) : null}
           {result && result.errors.length > 0 ? (
-            <section role="alert" aria-labelledby="import-errors" className="rounded-[var(--radius-card)] border border-danger-700/30 bg-danger-50 p-5 text-danger-700">
+            <section
+              role="alert"
+              aria-labelledby="import-errors"
+              className="rounded-[var(--radius-card)] border border-danger-700/30 bg-danger-50 p-5 text-danger-700"
+            >
               <h2 id="import-errors" className="text-lg font-semibold">
                 Nothing was imported{result.errors.length > 1 ? `: ${result.errors.length} problems` : ""}
               </h2>
@@ -270,11 +357,16 @@ export default function ImportPage({ loaderData, actionData }: Route.ComponentPr
                   <li key={i}>{e}</li>
                 ))}
               </ul>
-              {result.errors.length > 200 ? <p className="mt-2 text-sm">…and {result.errors.length - 200} more.</p> : null}
+              {result.errors.length > 200 ? (
+                <p className="mt-2 text-sm">…and {result.errors.length - 200} more.</p>
+              ) : null}
             </section>
           ) : null}
           {result && result.notices.length > 0 ? (
-            <ul className="space-y-1 rounded-lg border border-info-700/30 bg-info-50 p-3 text-sm text-info-700" aria-label="Notes on the file">
+            <ul
+              className="space-y-1 rounded-lg border border-info-700/30 bg-info-50 p-3 text-sm text-info-700"
+              aria-label="Notes on the file"
+            >
               {result.notices.map((n) => (
                 <li key={n}>{n}</li>
               ))}
@@ -285,7 +377,12 @@ export default function ImportPage({ loaderData, actionData }: Route.ComponentPr
               <div className="space-y-4">
                 {result.stations ? <StationPreview plan={result.stations} /> : null}
                 {result.registry ? <RegistryPreview plan={result.registry} /> : null}
-                <Form method="post" encType="multipart/form-data" className="flex flex-wrap items-center gap-3" aria-label="Apply the import">
+                <Form
+                  method="post"
+                  encType="multipart/form-data"
+                  className="flex flex-wrap items-center gap-3"
+                  aria-label="Apply the import"
+                >
                   <input type="hidden" name="intent" value="apply" />
                   <input type="hidden" name="kind" value={result.kind} />
                   {result.siteId ? <input type="hidden" name="siteId" value={result.siteId} /> : null}
@@ -293,10 +390,14 @@ export default function ImportPage({ loaderData, actionData }: Route.ComponentPr
                   <textarea name="content" hidden readOnly value={result.content ?? ""} />
                   {changes > 0 ? (
                     <Button type="submit" disabled={busy}>
-                      {busy && navigation.formData?.get("intent") === "apply" ? "Applying…" : `Apply ${changes} change${changes === 1 ? "" : "s"}`}
+                      {busy && navigation.formData?.get("intent") === "apply"
+                        ? "Applying…"
+                        : `Apply ${changes} change${changes === 1 ? "" : "s"}`}
                     </Button>
                   ) : (
-                    <p className="text-sm font-medium text-night-700">The file matches the registry: there is nothing to change.</p>
+                    <p className="text-sm font-medium text-night-700">
+                      The file matches the registry: there is nothing to change.
+                    </p>
                   )}
                 </Form>
               </div>

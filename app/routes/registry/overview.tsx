@@ -1,13 +1,13 @@
 import { data, Link } from "react-router";
-import type { Route } from "./+types/overview";
 import { ErrorPage } from "~/components/ErrorPage";
-import { StationMap } from "~/components/registry/StationMap";
 import { registryPaths } from "~/components/registry/paths";
-import { Badge, ButtonLink, Card, DataTable, EmptyState, PageHeader, type Column } from "~/components/ui";
+import { StationMap } from "~/components/registry/StationMap";
+import { Badge, ButtonLink, Card, type Column, DataTable, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { cyclesOfferingConfigurations } from "~/services/cycles.server";
 import { getViewer } from "~/services/auth.server";
+import { cyclesOfferingConfigurations } from "~/services/cycles.server";
 import { listSites, loadSiteRegistry, type SiteRegistry } from "~/services/registry.server";
+import type { Route } from "./+types/overview";
 
 export async function loader({ request, url }: Route.LoaderArgs) {
   // The registry is public ("registry:read" is granted to everyone); administrators also get edit controls.
@@ -27,7 +27,11 @@ export async function loader({ request, url }: Route.LoaderArgs) {
 export const meta: Route.MetaFunction = () => [{ title: "Array registry — Fringe Docket" }];
 
 type StationRow = SiteRegistry["stations"][number];
-type BandRow = SiteRegistry["instruments"][number]["bands"][number] & { instrument: string; instrumentId: number; maxTelescopes: number };
+type BandRow = SiteRegistry["instruments"][number]["bands"][number] & {
+  instrument: string;
+  instrumentId: number;
+  maxTelescopes: number;
+};
 
 const fmt = (x: number, digits: number) => x.toFixed(digits);
 const linkClass = "font-medium text-ember-800 underline-offset-2 hover:underline";
@@ -85,7 +89,13 @@ const bandColumns: Column<BandRow>[] = [
     align: "right",
     value: (b) => Math.round(b.centralWavelengthM * 1e6 * 1000) / 1000,
   },
-  { key: "bandwidth", header: "Bandwidth", unit: "µm", align: "right", value: (b) => Math.round(b.bandwidthM * 1e6 * 1000) / 1000 },
+  {
+    key: "bandwidth",
+    header: "Bandwidth",
+    unit: "µm",
+    align: "right",
+    value: (b) => Math.round(b.bandwidthM * 1e6 * 1000) / 1000,
+  },
   { key: "channels", header: "Channels", align: "right", value: (b) => b.channels },
   { key: "limit", header: "Limiting magnitude", unit: "mag", align: "right", value: (b) => b.limitingMagnitude },
 ];
@@ -95,7 +105,11 @@ const EXPORTS: { file: string; label: string; what: string }[] = [
   { file: "stations.json", label: "Stations (JSON)", what: "the same, as JSON" },
   { file: "configurations.csv", label: "Configurations (CSV)", what: "name, description, offered, stations in order" },
   { file: "bands.csv", label: "Instruments and bands (CSV)", what: "one row per band, wavelengths in µm" },
-  { file: "registry.json", label: "Whole registry (JSON)", what: "everything above; an administrator can import it back" },
+  {
+    file: "registry.json",
+    label: "Whole registry (JSON)",
+    what: "everything above; an administrator can import it back",
+  },
 ];
 
 function SiteChooser({ sites, current }: { sites: { id: number; name: string }[]; current: number }) {
@@ -107,7 +121,11 @@ function SiteChooser({ sites, current }: { sites: { id: number; name: string }[]
           key={s.id}
           to={registryPaths.overview(s.id)}
           aria-current={s.id === current ? "page" : undefined}
-          className={s.id === current ? "rounded-full bg-night-800 px-3 py-1 font-medium text-white" : "rounded-full bg-white px-3 py-1 font-medium ring-1 ring-night-300 hover:bg-night-100"}
+          className={
+            s.id === current
+              ? "rounded-full bg-night-800 px-3 py-1 font-medium text-white"
+              : "rounded-full bg-white px-3 py-1 font-medium ring-1 ring-night-300 hover:bg-night-100"
+          }
         >
           {s.name}
         </Link>
@@ -227,7 +245,11 @@ export default function RegistryOverview({ loaderData }: Route.ComponentProps) {
                     <span className="flex items-center gap-2">
                       {c.offered ? <Badge tone="ok">offered</Badge> : <Badge>not offered</Badge>}
                       {canEdit ? (
-                        <Link to={registryPaths.editConfiguration(c.id)} className={`text-sm ${linkClass}`} aria-label={`Edit configuration ${c.name}`}>
+                        <Link
+                          to={registryPaths.editConfiguration(c.id)}
+                          className={`text-sm ${linkClass}`}
+                          aria-label={`Edit configuration ${c.name}`}
+                        >
                           Edit
                         </Link>
                       ) : null}
@@ -235,14 +257,17 @@ export default function RegistryOverview({ loaderData }: Route.ComponentProps) {
                   </div>
                   <p className="mt-1 text-sm text-night-700">{c.description}</p>
                   <p className="mt-2 text-sm">
-                    <span className="text-night-600">Stations:</span> <span className="font-medium">{c.stationNames.join(" · ")}</span>
+                    <span className="text-night-600">Stations:</span>{" "}
+                    <span className="font-medium">{c.stationNames.join(" · ")}</span>
                   </p>
                   <p className="mt-1 text-sm">
                     <span className="text-night-600">Cycles:</span>{" "}
                     <span className="font-medium">{loaderData.offeredIn[c.id]?.join(", ") || "none yet"}</span>
                   </p>
                   {widest > 0 && c.stationNames.length > widest ? (
-                    <p className="mt-2 text-sm font-medium text-caution-700">More stations than any instrument combines ({widest}).</p>
+                    <p className="mt-2 text-sm font-medium text-caution-700">
+                      More stations than any instrument combines ({widest}).
+                    </p>
                   ) : null}
                 </li>
               ))}
@@ -283,20 +308,36 @@ export default function RegistryOverview({ loaderData }: Route.ComponentProps) {
             <p className="mb-3 flex flex-wrap gap-x-4 gap-y-1 text-sm">
               <span className="text-night-600">Edit an instrument and its bands:</span>
               {registry.instruments.map((i) => (
-                <Link key={i.id} to={registryPaths.editInstrument(i.id)} className={linkClass} aria-label={`Edit instrument ${i.name}`}>
+                <Link
+                  key={i.id}
+                  to={registryPaths.editInstrument(i.id)}
+                  className={linkClass}
+                  aria-label={`Edit instrument ${i.name}`}
+                >
                   {i.name}
                 </Link>
               ))}
             </p>
           ) : null}
-          <DataTable caption="Instrument bands" columns={bandColumns} rows={bandRows} rowKey={(b) => b.id} exportName="bands" empty="No instruments yet." />
+          <DataTable
+            caption="Instrument bands"
+            columns={bandColumns}
+            rows={bandRows}
+            rowKey={(b) => b.id}
+            exportName="bands"
+            empty="No instruments yet."
+          />
         </Card>
 
         <Card title="Download">
           <ul className="grid gap-2 text-sm sm:grid-cols-2 lg:grid-cols-3">
             {EXPORTS.map((e) => (
               <li key={e.file}>
-                <a href={registryPaths.exportFile(e.file, sites.length > 1 ? site.id : null)} download className={linkClass}>
+                <a
+                  href={registryPaths.exportFile(e.file, sites.length > 1 ? site.id : null)}
+                  download
+                  className={linkClass}
+                >
                   {e.label}
                 </a>
                 <span className="block text-night-600">{e.what}</span>

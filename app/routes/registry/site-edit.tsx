@@ -1,15 +1,25 @@
 import { data } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/site-edit";
 import { ErrorPage } from "~/components/ErrorPage";
 import { DeleteCard, EditForm, SITE_FIELDS, SITE_LABELS, SiteFields } from "~/components/registry/forms";
 import { registryPaths } from "~/components/registry/paths";
 import { Card, PageHeader, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { redirectWithFlash } from "~/services/flash.server";
-import { deleteSite, formValues, getSite, idParam, pgCode, readEditForm, siteContents, siteNameTaken, updateSite } from "~/services/registry-admin.server";
-import { SiteSchema, fieldErrors, sentence } from "~/services/registry-io";
+import { redirectWithFlash } from "~/lib/flash.server";
+import {
+  deleteSite,
+  formValues,
+  getSite,
+  idParam,
+  pgCode,
+  readEditForm,
+  siteContents,
+  siteNameTaken,
+  updateSite,
+} from "~/services/registry-admin.server";
+import { fieldErrors, SiteSchema, sentence } from "~/services/registry-io";
+import type { Route } from "./+types/site-edit";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   await requirePermission(request, "registry:edit");
@@ -26,23 +36,39 @@ export async function action({ request, params }: Route.ActionArgs) {
   const site = await getSite(db, idParam(params.siteId, "site"));
   if (!site) throw data("There is no site with that number.", { status: 404 });
   const read = await readEditForm(request);
-  if ("error" in read) return data({ errors: { form: read.error }, values: {} as Record<string, string> }, { status: read.status });
+  if ("error" in read)
+    return data({ errors: { form: read.error }, values: {} as Record<string, string> }, { status: read.status });
 
   if (read.intent === "delete") {
     const confirmName = String(read.form.get("confirmName") ?? "").trim();
     if (confirmName !== site.name) {
-      return data({ errors: { confirmName: `type the site's name, ${site.name}, to confirm` }, values: { confirmName } as Record<string, string> }, { status: 400 });
+      return data(
+        {
+          errors: { confirmName: `type the site's name, ${site.name}, to confirm` },
+          values: { confirmName } as Record<string, string>,
+        },
+        { status: 400 },
+      );
     }
     try {
       await deleteSite(db, site.id);
     } catch (e) {
       if (pgCode(e) !== "23503") throw e;
       return data(
-        { errors: { confirmName: "other records (such as proposals or cycles) still refer to this site's configurations or instruments; nothing was deleted" }, values: { confirmName } as Record<string, string> },
+        {
+          errors: {
+            confirmName:
+              "other records (such as proposals or cycles) still refer to this site's configurations or instruments; nothing was deleted",
+          },
+          values: { confirmName } as Record<string, string>,
+        },
         { status: 409 },
       );
     }
-    return redirectWithFlash("/registry", { kind: "success", text: `Site ${site.name} and everything registered at it were deleted.` });
+    return redirectWithFlash("/registry", {
+      kind: "success",
+      text: `Site ${site.name} and everything registered at it were deleted.`,
+    });
   }
 
   const values = formValues(read.form, SITE_FIELDS);
@@ -56,10 +82,15 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (pgCode(e) === "23505") return data(taken, { status: 400 });
     throw e;
   }
-  return redirectWithFlash(registryPaths.overview(site.id), { kind: "success", text: `Site ${parsed.output.name} saved.` });
+  return redirectWithFlash(registryPaths.overview(site.id), {
+    kind: "success",
+    text: `Site ${parsed.output.name} saved.`,
+  });
 }
 
-export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Edit ${d?.site.name ?? "site"} — Array registry — Fringe Docket` }];
+export const meta: Route.MetaFunction = ({ data: d }) => [
+  { title: `Edit ${d?.site.name ?? "site"} — Array registry — Fringe Docket` },
+];
 
 export default function EditSite({ loaderData, actionData }: Route.ComponentProps) {
   const { site, contents } = loaderData;
@@ -78,10 +109,19 @@ export default function EditSite({ loaderData, actionData }: Route.ComponentProp
   const confirmError = isDelete ? errors.confirmName : undefined;
   return (
     <>
-      <PageHeader title={`Edit ${site.name}`} lead="Changes apply at once to every sketch and feasibility check that uses the site." />
+      <PageHeader
+        title={`Edit ${site.name}`}
+        lead="Changes apply at once to every sketch and feasibility check that uses the site."
+      />
       <div className="grid grid-cols-1 gap-6">
         <Card>
-          <EditForm state={saveState} labels={SITE_LABELS} submitLabel="Save site" cancelTo={registryPaths.overview(site.id)} ariaLabel={`Edit ${site.name}`}>
+          <EditForm
+            state={saveState}
+            labels={SITE_LABELS}
+            submitLabel="Save site"
+            cancelTo={registryPaths.overview(site.id)}
+            ariaLabel={`Edit ${site.name}`}
+          >
             <SiteFields state={saveState} defaults={defaults} timeZones={loaderData.timeZones} />
           </EditForm>
         </Card>
@@ -100,8 +140,9 @@ export default function EditSite({ loaderData, actionData }: Route.ComponentProp
             </div>
           }
         >
-          Deleting {site.name} also deletes its {contents.stations} stations, {contents.configurations} configurations and {contents.instruments} instruments with
-          their bands. This cannot be undone; export the registry first if you may want it back.
+          Deleting {site.name} also deletes its {contents.stations} stations, {contents.configurations} configurations
+          and {contents.instruments} instruments with their bands. This cannot be undone; export the registry first if
+          you may want it back.
         </DeleteCard>
       </div>
     </>

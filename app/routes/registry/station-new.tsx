@@ -1,16 +1,25 @@
 import { data } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/station-new";
 import { ErrorPage } from "~/components/ErrorPage";
 import { EditForm, STATION_FIELDS, STATION_LABELS, StationFields } from "~/components/registry/forms";
 import { registryPaths } from "~/components/registry/paths";
 import { ButtonLink, Card, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { redirectWithFlash } from "~/services/flash.server";
-import { createStation, formValues, getSite, pgCode, readForm, resolveSite, stationNameTaken, toId } from "~/services/registry-admin.server";
-import { StationSchema, fieldErrors } from "~/services/registry-io";
+import { redirectWithFlash } from "~/lib/flash.server";
 import { loadSiteRegistry } from "~/services/registry.server";
+import {
+  createStation,
+  formValues,
+  getSite,
+  pgCode,
+  readForm,
+  resolveSite,
+  stationNameTaken,
+  toId,
+} from "~/services/registry-admin.server";
+import { fieldErrors, StationSchema } from "~/services/registry-io";
+import type { Route } from "./+types/station-new";
 
 export async function loader({ request, url }: Route.LoaderArgs) {
   await requirePermission(request, "registry:edit");
@@ -30,12 +39,14 @@ export async function loader({ request, url }: Route.LoaderArgs) {
 export async function action({ request }: Route.ActionArgs) {
   await requirePermission(request, "registry:edit");
   const read = await readForm(request);
-  if ("error" in read) return data({ errors: { form: read.error }, values: {} as Record<string, string> }, { status: read.status });
+  if ("error" in read)
+    return data({ errors: { form: read.error }, values: {} as Record<string, string> }, { status: read.status });
   const db = database();
   const siteId = toId(read.form.get("siteId"));
   const site = siteId === null ? null : await getSite(db, siteId);
   const values = formValues(read.form, STATION_FIELDS);
-  if (!site) return data({ errors: { form: "the site was not found; it may have been deleted" }, values }, { status: 400 });
+  if (!site)
+    return data({ errors: { form: "the site was not found; it may have been deleted" }, values }, { status: 400 });
   const parsed = v.safeParse(StationSchema, values);
   if (!parsed.success) return data({ errors: fieldErrors(parsed.issues), values }, { status: 400 });
   const taken = { errors: { name: `${parsed.output.name} is already a station at ${site.name}` }, values };
@@ -46,7 +57,10 @@ export async function action({ request }: Route.ActionArgs) {
     if (pgCode(e) === "23505") return data(taken, { status: 400 });
     throw e;
   }
-  return redirectWithFlash(registryPaths.overview(site.id), { kind: "success", text: `Station ${parsed.output.name} added.` });
+  return redirectWithFlash(registryPaths.overview(site.id), {
+    kind: "success",
+    text: `Station ${parsed.output.name} added.`,
+  });
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "New station — Array registry — Fringe Docket" }];
@@ -57,7 +71,10 @@ export default function NewStation({ loaderData, actionData }: Route.ComponentPr
     return (
       <>
         <PageHeader title="New station" />
-        <EmptyState title="Add the site first" action={<ButtonLink to={registryPaths.newSite()}>Add a site</ButtonLink>}>
+        <EmptyState
+          title="Add the site first"
+          action={<ButtonLink to={registryPaths.newSite()}>Add a site</ButtonLink>}
+        >
           Stations are placed relative to a site.
         </EmptyState>
       </>
@@ -65,11 +82,25 @@ export default function NewStation({ loaderData, actionData }: Route.ComponentPr
   }
   return (
     <>
-      <PageHeader title="New station" lead={`A station of ${site.name}. The map shows where it falls among the others as you type.`} />
+      <PageHeader
+        title="New station"
+        lead={`A station of ${site.name}. The map shows where it falls among the others as you type.`}
+      />
       <Card>
-        <EditForm state={actionData} labels={STATION_LABELS} submitLabel="Add station" cancelTo={registryPaths.overview(site.id)} ariaLabel="New station">
+        <EditForm
+          state={actionData}
+          labels={STATION_LABELS}
+          submitLabel="Add station"
+          cancelTo={registryPaths.overview(site.id)}
+          ariaLabel="New station"
+        >
           <input type="hidden" name="siteId" value={site.id} />
-          <StationFields state={actionData} defaults={{ upM: "0", pathOffsetM: "0" }} stations={loaderData.stations} editing={null} />
+          <StationFields
+            state={actionData}
+            defaults={{ upM: "0", pathOffsetM: "0" }}
+            stations={loaderData.stations}
+            editing={null}
+          />
         </EditForm>
       </Card>
     </>

@@ -1,13 +1,13 @@
 import { data, Link } from "react-router";
-import type { Route } from "./+types/station";
 import { ErrorPage } from "~/components/ErrorPage";
-import { StationMap } from "~/components/registry/StationMap";
 import { registryPaths } from "~/components/registry/paths";
-import { Badge, ButtonLink, Card, DataTable, PageHeader, type Column } from "~/components/ui";
+import { StationMap } from "~/components/registry/StationMap";
+import { Badge, ButtonLink, Card, type Column, DataTable, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { getViewer } from "~/services/auth.server";
-import { idParam } from "~/services/registry-admin.server";
 import { loadSiteRegistry, stationSiteId } from "~/services/registry.server";
+import { idParam } from "~/services/registry-admin.server";
+import type { Route } from "./+types/station";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   // Public, like the whole registry ("registry:read" is granted to everyone); edit links for admins.
@@ -23,24 +23,90 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     site: { id: registry.site.id, name: registry.site.name },
     station,
     stations: registry.stations.map((s) => ({ id: s.id, name: s.name, eastM: s.eastM, northM: s.northM, upM: s.upM })),
-    configurations: registry.configurations.map((c) => ({ name: c.name, offered: c.offered, stationNames: c.stationNames })),
+    configurations: registry.configurations.map((c) => ({
+      name: c.name,
+      offered: c.offered,
+      stationNames: c.stationNames,
+    })),
   };
 }
 
-export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Station ${d?.station.name ?? ""} — Array registry — Fringe Docket` }];
+export const meta: Route.MetaFunction = ({ data: d }) => [
+  { title: `Station ${d?.station.name ?? ""} — Array registry — Fringe Docket` },
+];
 
-type BaselineRow = { id: number; name: string; lengthM: number; groundM: number; paDeg: number; dE: number; dN: number; dU: number };
+type BaselineRow = {
+  id: number;
+  name: string;
+  lengthM: number;
+  groundM: number;
+  paDeg: number;
+  dE: number;
+  dN: number;
+  dU: number;
+};
 
 const fixed = (x: number, digits: number) => x.toFixed(digits);
 
 const baselineColumns: Column<BaselineRow>[] = [
-  { key: "to", header: "To station", value: (b) => b.name, render: (b) => <Link to={registryPaths.station(b.id)} className="font-medium text-ember-800 underline-offset-2 hover:underline">{b.name}</Link> },
-  { key: "length", header: "Length", unit: "m", align: "right", value: (b) => Math.round(b.lengthM * 100) / 100, render: (b) => fixed(b.lengthM, 2) },
-  { key: "ground", header: "On the ground", unit: "m", align: "right", value: (b) => Math.round(b.groundM * 100) / 100, render: (b) => fixed(b.groundM, 2) },
-  { key: "pa", header: "Direction, east of north", unit: "°", align: "right", value: (b) => Math.round(b.paDeg * 10) / 10, render: (b) => fixed(b.paDeg, 1) },
-  { key: "de", header: "East", unit: "m", align: "right", value: (b) => Math.round(b.dE * 100) / 100, render: (b) => fixed(b.dE, 2) },
-  { key: "dn", header: "North", unit: "m", align: "right", value: (b) => Math.round(b.dN * 100) / 100, render: (b) => fixed(b.dN, 2) },
-  { key: "du", header: "Up", unit: "m", align: "right", value: (b) => Math.round(b.dU * 100) / 100, render: (b) => fixed(b.dU, 2) },
+  {
+    key: "to",
+    header: "To station",
+    value: (b) => b.name,
+    render: (b) => (
+      <Link to={registryPaths.station(b.id)} className="font-medium text-ember-800 underline-offset-2 hover:underline">
+        {b.name}
+      </Link>
+    ),
+  },
+  {
+    key: "length",
+    header: "Length",
+    unit: "m",
+    align: "right",
+    value: (b) => Math.round(b.lengthM * 100) / 100,
+    render: (b) => fixed(b.lengthM, 2),
+  },
+  {
+    key: "ground",
+    header: "On the ground",
+    unit: "m",
+    align: "right",
+    value: (b) => Math.round(b.groundM * 100) / 100,
+    render: (b) => fixed(b.groundM, 2),
+  },
+  {
+    key: "pa",
+    header: "Direction, east of north",
+    unit: "°",
+    align: "right",
+    value: (b) => Math.round(b.paDeg * 10) / 10,
+    render: (b) => fixed(b.paDeg, 1),
+  },
+  {
+    key: "de",
+    header: "East",
+    unit: "m",
+    align: "right",
+    value: (b) => Math.round(b.dE * 100) / 100,
+    render: (b) => fixed(b.dE, 2),
+  },
+  {
+    key: "dn",
+    header: "North",
+    unit: "m",
+    align: "right",
+    value: (b) => Math.round(b.dN * 100) / 100,
+    render: (b) => fixed(b.dN, 2),
+  },
+  {
+    key: "du",
+    header: "Up",
+    unit: "m",
+    align: "right",
+    value: (b) => Math.round(b.dU * 100) / 100,
+    render: (b) => fixed(b.dU, 2),
+  },
 ];
 
 export default function StationPage({ loaderData }: Route.ComponentProps) {
@@ -70,10 +136,23 @@ export default function StationPage({ loaderData }: Route.ComponentProps) {
         title={`Station ${station.name}`}
         lead={
           <>
-            A station of <Link to={registryPaths.overview(site.id)} className="font-medium text-ember-800 underline-offset-2 hover:underline">{site.name}</Link>.
+            A station of{" "}
+            <Link
+              to={registryPaths.overview(site.id)}
+              className="font-medium text-ember-800 underline-offset-2 hover:underline"
+            >
+              {site.name}
+            </Link>
+            .
           </>
         }
-        actions={canEdit ? <ButtonLink to={registryPaths.editStation(station.id)} variant="secondary">Edit station</ButtonLink> : undefined}
+        actions={
+          canEdit ? (
+            <ButtonLink to={registryPaths.editStation(station.id)} variant="secondary">
+              Edit station
+            </ButtonLink>
+          ) : undefined
+        }
       />
       <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,20rem)_minmax(0,1fr)]">
         <div className="grid content-start gap-6">
@@ -102,7 +181,8 @@ export default function StationPage({ loaderData }: Route.ComponentProps) {
                   <li key={c.name} className="flex items-center justify-between gap-2 text-sm">
                     <span className="font-medium">{c.name}</span>
                     <span className="text-night-600">
-                      {c.stationNames.length} stations {c.offered ? <Badge tone="ok">offered</Badge> : <Badge>not offered</Badge>}
+                      {c.stationNames.length} stations{" "}
+                      {c.offered ? <Badge tone="ok">offered</Badge> : <Badge>not offered</Badge>}
                     </span>
                   </li>
                 ))}

@@ -1,10 +1,10 @@
-import type { Route } from "./+types/index";
 import { ErrorPage } from "~/components/ErrorPage";
 import { sketchShouldRevalidate } from "~/components/sketch/revalidate";
 import { Sketchpad } from "~/components/sketch/Sketchpad";
 import { EmptyState, PageHeader } from "~/components/ui";
 import { requirePermission } from "~/services/auth.server";
 import { loadSketchPage } from "~/services/sketch-registry.server";
+import type { Route } from "./+types/index";
 
 export async function loader({ request, url }: Route.LoaderArgs) {
   const viewer = await requirePermission(request, "sketch:use");
@@ -21,7 +21,9 @@ export default function SketchpadPage({ loaderData }: Route.ComponentProps) {
     return (
       <>
         <PageHeader title="Sketchpad" />
-        <EmptyState title="No site registered yet">An administrator adds the site, its stations and instruments first.</EmptyState>
+        <EmptyState title="No site registered yet">
+          An administrator adds the site, its stations and instruments first.
+        </EmptyState>
       </>
     );
   }

@@ -1,14 +1,14 @@
 import { data, Form } from "react-router";
 import * as v from "valibot";
-import type { Route } from "./+types/edit";
 import { ErrorPage } from "~/components/ErrorPage";
 import { TargetForm } from "~/components/targets/TargetForm";
 import { Button, Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { redirectWithFlash } from "~/services/flash.server";
+import { redirectWithFlash } from "~/lib/flash.server";
 import { readTargetForm, targetFormValues, valuesOfTarget } from "~/services/target-form.server";
 import { bandNames, deleteTarget, getTarget, nameTaken, updateTarget } from "~/services/targets.server";
+import type { Route } from "./+types/edit";
 
 const TargetId = v.pipe(v.string(), v.regex(/^\d{1,9}$/), v.transform(Number));
 
@@ -46,7 +46,9 @@ export async function action({ request, params }: Route.ActionArgs) {
   return redirectWithFlash("/targets", { kind: "success", text: `${read.target.name} saved.` });
 }
 
-export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.name ?? "Target"} — My targets — Fringe Docket` }];
+export const meta: Route.MetaFunction = ({ data: d }) => [
+  { title: `${d?.name ?? "Target"} — My targets — Fringe Docket` },
+];
 
 export default function EditTarget({ loaderData, actionData }: Route.ComponentProps) {
   return (
@@ -54,10 +56,21 @@ export default function EditTarget({ loaderData, actionData }: Route.ComponentPr
       <PageHeader title={loaderData.name} lead="Edit the target; proposals keep their own copy of it." />
       <div className="grid gap-6">
         <Card title="Target">
-          <TargetForm values={actionData?.values ?? loaderData.values} errors={actionData?.errors ?? {}} bands={loaderData.bands} submitLabel="Save target" intent="update" />
+          <TargetForm
+            values={actionData?.values ?? loaderData.values}
+            errors={actionData?.errors ?? {}}
+            bands={loaderData.bands}
+            submitLabel="Save target"
+            intent="update"
+          />
         </Card>
         <Card title="Remove">
-          <Form method="post" onSubmit={(e) => { if (!confirm(`Remove ${loaderData.name} from My targets?`)) e.preventDefault(); }}>
+          <Form
+            method="post"
+            onSubmit={(e) => {
+              if (!confirm(`Remove ${loaderData.name} from My targets?`)) e.preventDefault();
+            }}
+          >
             <input type="hidden" name="intent" value="delete" />
             <Button type="submit" variant="danger">
               Remove from My targets

@@ -1,8 +1,8 @@
-import type { Route } from "./+types/export";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
 import { targetsToCsv } from "~/services/target-io";
 import { listTargets } from "~/services/targets.server";
+import type { Route } from "./+types/export";
 
 /** My targets as CSV, in the columns the import reads. */
 export async function loader({ request }: Route.LoaderArgs) {

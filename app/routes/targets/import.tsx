@@ -1,15 +1,15 @@
 import { data, Form, Link, useNavigation } from "react-router";
-import type { Route } from "./+types/import";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Badge, Button, Card, DataTable, PageHeader, TextArea, type Column } from "~/components/ui";
+import { Badge, Button, Card, type Column, DataTable, PageHeader, TextArea } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { formatDeclination, formatRightAscension } from "~/services/coordinates";
-import { redirectWithFlash } from "~/services/flash.server";
-import { parseForm, readBodyCapped } from "~/services/http-body.server";
+import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
 import { describeModel } from "~/services/describe-model";
+import { redirectWithFlash } from "~/lib/flash.server";
+import { parseForm, readBodyCapped } from "~/lib/body.server";
 import { MAX_TARGET_CSV_BYTES, parseTargetCsv, type RowError } from "~/services/target-io";
 import { importTargets, targetNames } from "~/services/targets.server";
+import type { Route } from "./+types/import";
 
 /** Room for the form fields around the file itself. */
 const MAX_REQUEST_BYTES = MAX_TARGET_CSV_BYTES + 64 * 1024;
@@ -22,7 +22,15 @@ export async function loader({ request }: Route.LoaderArgs) {
 type Preview = {
   csv: string;
   replace: boolean;
-  rows: { row: number; name: string; ra: string; dec: string; model: string; magnitudes: string; change: "new" | "update" }[];
+  rows: {
+    row: number;
+    name: string;
+    ra: string;
+    dec: string;
+    model: string;
+    magnitudes: string;
+    change: "new" | "update";
+  }[];
   errors: RowError[];
   warnings: string[];
 };
@@ -93,7 +101,12 @@ const previewColumns: Column<PreviewRow>[] = [
   { key: "dec", header: "Dec", unit: "°:′:″", value: (r) => r.dec },
   { key: "model", header: "Model", value: (r) => r.model },
   { key: "mags", header: "Magnitudes", value: (r) => r.magnitudes },
-  { key: "change", header: "Change", value: (r) => r.change, render: (r) => <Badge tone={r.change === "new" ? "ok" : "info"}>{r.change}</Badge> },
+  {
+    key: "change",
+    header: "Change",
+    value: (r) => r.change,
+    render: (r) => <Badge tone={r.change === "new" ? "ok" : "info"}>{r.change}</Badge>,
+  },
 ];
 const errorColumns: Column<RowError>[] = [
   { key: "row", header: "Row", align: "right", value: (e) => e.row },
@@ -123,11 +136,27 @@ export default function ImportTargets({ loaderData, actionData }: Route.Componen
               <label htmlFor="file" className="block text-sm font-medium text-night-800">
                 CSV file <span className="font-normal text-night-500">(UTF-8, at most {loaderData.maxKb} KB)</span>
               </label>
-              <input id="file" name="file" type="file" accept=".csv,text/csv" className="mt-1 block text-sm file:mr-3 file:rounded-lg file:border-0 file:bg-night-100 file:px-3 file:py-2 file:font-medium file:text-night-800 hover:file:bg-night-200" />
+              <input
+                id="file"
+                name="file"
+                type="file"
+                accept=".csv,text/csv"
+                className="mt-1 block text-sm file:mr-3 file:rounded-lg file:border-0 file:bg-night-100 file:px-3 file:py-2 file:font-medium file:text-night-800 hover:file:bg-night-200"
+              />
             </div>
-            <TextArea label="…or paste the CSV here" name="csv" defaultValue={preview?.csv ?? ""} className="font-mono text-sm" />
+            <TextArea
+              label="…or paste the CSV here"
+              name="csv"
+              defaultValue={preview?.csv ?? ""}
+              className="font-mono text-sm"
+            />
             <label className="inline-flex items-center gap-2 text-sm">
-              <input type="checkbox" name="replace" defaultChecked={preview?.replace ?? false} className="h-4 w-4 accent-ember-700" />
+              <input
+                type="checkbox"
+                name="replace"
+                defaultChecked={preview?.replace ?? false}
+                className="h-4 w-4 accent-ember-700"
+              />
               Replace targets that already have the same name
             </label>
             {actionData?.fileError ? (
@@ -144,10 +173,11 @@ export default function ImportTargets({ loaderData, actionData }: Route.Componen
           <details className="mt-4 text-sm text-night-700">
             <summary className="cursor-pointer font-medium">Columns</summary>
             <p className="mt-2">
-              Required: <code>name</code>, <code>ra</code> (hours 05:36:12.8 or degrees), <code>dec</code> (degrees). Optional: <code>model</code> (point,
-              uniformDisk, gaussian, limbDarkenedDisk, ring, binary), <code>size_mas</code> (diameter or FWHM), <code>ld_coefficient</code>,{" "}
-              <code>separation_mas</code>, <code>position_angle_deg</code> (east of north), <code>flux_ratio</code> (secondary/primary), <code>mag_H</code>,{" "}
-              <code>mag_K</code>, … one per band, <code>notes</code>.
+              Required: <code>name</code>, <code>ra</code> (hours 05:36:12.8 or degrees), <code>dec</code> (degrees).
+              Optional: <code>model</code> (point, uniformDisk, gaussian, limbDarkenedDisk, ring, binary),{" "}
+              <code>size_mas</code> (diameter or FWHM), <code>ld_coefficient</code>, <code>separation_mas</code>,{" "}
+              <code>position_angle_deg</code> (east of north), <code>flux_ratio</code> (secondary/primary),{" "}
+              <code>mag_H</code>, <code>mag_K</code>, … one per band, <code>notes</code>.
             </p>
           </details>
         </Card>
@@ -162,12 +192,24 @@ export default function ImportTargets({ loaderData, actionData }: Route.Componen
             {preview.errors.length > 0 ? (
               <div className="mb-4 space-y-2">
                 <p role="alert" className="font-medium text-danger-700">
-                  {preview.errors.length} problem{preview.errors.length === 1 ? "" : "s"} to fix — nothing has been imported.
+                  {preview.errors.length} problem{preview.errors.length === 1 ? "" : "s"} to fix — nothing has been
+                  imported.
                 </p>
-                <DataTable caption="Problems by row" columns={errorColumns} rows={preview.errors} rowKey={(e) => `${e.row}-${e.column}-${e.message}`} />
+                <DataTable
+                  caption="Problems by row"
+                  columns={errorColumns}
+                  rows={preview.errors}
+                  rowKey={(e) => `${e.row}-${e.column}-${e.message}`}
+                />
               </div>
             ) : null}
-            <DataTable caption="Targets read from the list" columns={previewColumns} rows={preview.rows} rowKey={(r) => r.row} empty="No row could be read." />
+            <DataTable
+              caption="Targets read from the list"
+              columns={previewColumns}
+              rows={preview.rows}
+              rowKey={(r) => r.row}
+              empty="No row could be read."
+            />
             {preview.errors.length === 0 && preview.rows.length > 0 ? (
               <Form method="post" encType="multipart/form-data" className="mt-4">
                 <input type="hidden" name="intent" value="import" />

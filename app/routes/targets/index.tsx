@@ -1,15 +1,15 @@
 import { data, Link } from "react-router";
-import type { Route } from "./+types/index";
 import { ErrorPage } from "~/components/ErrorPage";
 import { TargetForm } from "~/components/targets/TargetForm";
-import { ButtonLink, Card, DataTable, EmptyState, PageHeader, type Column } from "~/components/ui";
+import { ButtonLink, Card, type Column, DataTable, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { requirePermission } from "~/services/auth.server";
-import { formatDeclination, formatRightAscension } from "~/services/coordinates";
-import { redirectWithFlash } from "~/services/flash.server";
+import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
 import { describeModel } from "~/services/describe-model";
+import { redirectWithFlash } from "~/lib/flash.server";
 import { readTargetForm, targetFormValues } from "~/services/target-form.server";
 import { bandNames, createTarget, listTargets, nameTaken } from "~/services/targets.server";
+import type { Route } from "./+types/index";
 
 export async function loader({ request }: Route.LoaderArgs) {
   const viewer = await requirePermission(request, "proposals:own");
@@ -36,7 +36,8 @@ export async function action({ request }: Route.ActionArgs) {
   const bands = await bandNames(db);
   const values = targetFormValues(await request.formData(), bands);
   const { target, errors } = readTargetForm(values, bands);
-  if (target && (await nameTaken(db, viewer.user.id, target.name))) errors.name = `Name: you already have a target called ${target.name}`;
+  if (target && (await nameTaken(db, viewer.user.id, target.name)))
+    errors.name = `Name: you already have a target called ${target.name}`;
   if (!target || Object.keys(errors).length) return data({ values, errors }, { status: 400 });
   await createTarget(db, viewer.user.id, target);
   return redirectWithFlash("/targets", { kind: "success", text: `${target.name} added to My targets.` });
@@ -48,11 +49,38 @@ type Row = Route.ComponentProps["loaderData"]["targets"][number];
 
 export default function Targets({ loaderData, actionData }: Route.ComponentProps) {
   const columns: Column<Row>[] = [
-    { key: "name", header: "Name", value: (t) => t.name, render: (t) => <Link className="font-medium text-ember-700 underline-offset-2 hover:underline" to={`/targets/${t.id}`}>{t.name}</Link> },
-    { key: "ra", header: "RA (J2000)", unit: "h:m:s", value: (t) => t.raDeg, render: (t) => <span className="num">{t.ra}</span> },
-    { key: "dec", header: "Dec (J2000)", unit: "°:′:″", value: (t) => t.decDeg, render: (t) => <span className="num">{t.dec}</span> },
+    {
+      key: "name",
+      header: "Name",
+      value: (t) => t.name,
+      render: (t) => (
+        <Link className="font-medium text-ember-700 underline-offset-2 hover:underline" to={`/targets/${t.id}`}>
+          {t.name}
+        </Link>
+      ),
+    },
+    {
+      key: "ra",
+      header: "RA (J2000)",
+      unit: "h:m:s",
+      value: (t) => t.raDeg,
+      render: (t) => <span className="num">{t.ra}</span>,
+    },
+    {
+      key: "dec",
+      header: "Dec (J2000)",
+      unit: "°:′:″",
+      value: (t) => t.decDeg,
+      render: (t) => <span className="num">{t.dec}</span>,
+    },
     { key: "model", header: "Model", value: (t) => t.model },
-    ...loaderData.bands.map<Column<Row>>((b) => ({ key: `mag_${b}`, header: b, unit: "mag", align: "right", value: (t) => t.magnitudes[b] ?? null })),
+    ...loaderData.bands.map<Column<Row>>((b) => ({
+      key: `mag_${b}`,
+      header: b,
+      unit: "mag",
+      align: "right",
+      value: (t) => t.magnitudes[b] ?? null,
+    })),
   ];
   return (
     <>
@@ -64,7 +92,11 @@ export default function Targets({ loaderData, actionData }: Route.ComponentProps
             <ButtonLink to="/targets/import" variant="secondary">
               Import CSV
             </ButtonLink>
-            <a href="/targets/export.csv" className="inline-flex h-10 items-center rounded-lg px-4 font-medium text-night-800 ring-1 ring-inset ring-night-300 hover:bg-night-100" download>
+            <a
+              href="/targets/export.csv"
+              className="inline-flex h-10 items-center rounded-lg px-4 font-medium text-night-800 ring-1 ring-inset ring-night-300 hover:bg-night-100"
+              download
+            >
               Download all as CSV
             </a>
           </>

@@ -2,7 +2,7 @@
 import { and, asc, eq, ilike, inArray, or, sql } from "drizzle-orm";
 import type { Database, Transaction } from "~/db/client.server";
 import { auditLog } from "~/db/schema/auth";
-import { ROLES, userRoles, users, type Role } from "~/db/schema/users";
+import { ROLES, type Role, userRoles, users } from "~/db/schema/users";
 import { revokeAllSessions } from "./sessions.server";
 
 type Tx = Transaction;
@@ -44,22 +44,42 @@ export async function findOrCreateAccount(
         })
         .returning();
       await tx.insert(userRoles).values({ userId: user.id, role: "proposer" });
-      await tx.insert(auditLog).values({ actorId: user.id, action: "account.created", targetUserId: user.id, detail: { via: identity.ssoSubject ? "sso" : "email-link" } });
+      await tx.insert(auditLog).values({
+        actorId: user.id,
+        action: "account.created",
+        targetUserId: user.id,
+        detail: { via: identity.ssoSubject ? "sso" : "email-link" },
+      });
       created = true;
     } else if (identity.ssoSubject && !user.ssoSubject) {
       [user] = await tx.update(users).set({ ssoSubject: identity.ssoSubject }).where(eq(users.id, user.id)).returning();
     }
-    if (!user.active) return { user: null, created: false, reason: "This account has been deactivated. Ask the array's administrator." };
+    if (!user.active)
+      return {
+        user: null,
+        created: false,
+        reason: "This account has been deactivated. Ask the array's administrator.",
+      };
     return { user, created, reason: null };
   });
 }
 
 export async function searchUsers(db: Database, q: string, limit = 100) {
   const term = q.trim();
-  const where = term ? or(ilike(users.name, `%${term}%`), ilike(users.email, `%${term}%`), ilike(users.institute, `%${term}%`)) : undefined;
+  const where = term
+    ? or(ilike(users.name, `%${term}%`), ilike(users.email, `%${term}%`), ilike(users.institute, `%${term}%`))
+    : undefined;
   const list = await db.select().from(users).where(where).orderBy(asc(users.name)).limit(limit);
   const roles = list.length
-    ? await db.select().from(userRoles).where(inArray(userRoles.userId, list.map((u) => u.id)))
+    ? await db
+        .select()
+        .from(userRoles)
+        .where(
+          inArray(
+            userRoles.userId,
+            list.map((u) => u.id),
+          ),
+        )
     : [];
   return list.map((u) => ({ ...u, roles: ROLES.filter((r) => roles.some((x) => x.userId === u.id && x.role === r)) }));
 }
@@ -73,16 +93,21 @@ export async function setRoles(tx: Db, actorId: number, targetUserId: number, ne
   const granted = next.filter((r) => !current.includes(r));
   const revoked = current.filter((r) => !next.includes(r));
   if (granted.length) await tx.insert(userRoles).values(granted.map((role) => ({ userId: targetUserId, role })));
-  if (revoked.length) await tx.delete(userRoles).where(and(eq(userRoles.userId, targetUserId), inArray(userRoles.role, revoked)));
-  for (const role of granted) await tx.insert(auditLog).values({ actorId, action: "role.granted", targetUserId, detail: { role } });
-  for (const role of revoked) await tx.insert(auditLog).values({ actorId, action: "role.revoked", targetUserId, detail: { role } });
+  if (revoked.length)
+    await tx.delete(userRoles).where(and(eq(userRoles.userId, targetUserId), inArray(userRoles.role, revoked)));
+  for (const role of granted)
+    await tx.insert(auditLog).values({ actorId, action: "role.granted", targetUserId, detail: { role } });
+  for (const role of revoked)
+    await tx.insert(auditLog).values({ actorId, action: "role.revoked", targetUserId, detail: { role } });
   return { granted, revoked };
 }
 
 export async function setActive(db: Database, actorId: number, targetUserId: number, active: boolean) {
   await db.transaction(async (tx) => {
     await tx.update(users).set({ active }).where(eq(users.id, targetUserId));
-    await tx.insert(auditLog).values({ actorId, action: active ? "account.reactivated" : "account.deactivated", targetUserId, detail: {} });
+    await tx
+      .insert(auditLog)
+      .values({ actorId, action: active ? "account.reactivated" : "account.deactivated", targetUserId, detail: {} });
   });
   if (!active) await revokeAllSessions(db, targetUserId);
 }
@@ -91,7 +116,14 @@ export async function recentAudit(db: Database, limit = 50) {
   const actor = sql<string | null>`(select name from users where users.id = ${auditLog.actorId})`;
   const target = sql<string | null>`(select name from users where users.id = ${auditLog.targetUserId})`;
   return db
-    .select({ id: auditLog.id, action: auditLog.action, detail: auditLog.detail, createdAt: auditLog.createdAt, actor, target })
+    .select({
+      id: auditLog.id,
+      action: auditLog.action,
+      detail: auditLog.detail,
+      createdAt: auditLog.createdAt,
+      actor,
+      target,
+    })
     .from(auditLog)
     .orderBy(sql`${auditLog.createdAt} desc, ${auditLog.id} desc`)
     .limit(limit);

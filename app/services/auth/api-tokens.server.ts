@@ -49,7 +49,7 @@ export async function authenticateApiToken(db: Database, token: string, now = ne
     .from(apiTokens)
     .innerJoin(users, eq(users.id, apiTokens.userId))
     .where(and(eq(apiTokens.tokenHash, hashSecret(token)), isNull(apiTokens.revokedAt)));
-  if (!row || !row.user.active) return null;
+  if (!row?.user.active) return null;
   await db.update(apiTokens).set({ lastUsedAt: now }).where(eq(apiTokens.id, row.token.id));
   return row.user;
 }

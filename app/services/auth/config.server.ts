@@ -8,7 +8,10 @@ const AuthEnvSchema = v.object({
   OIDC_ISSUER: v.optional(v.pipe(v.string(), v.url("must be a URL"))),
   OIDC_CLIENT_ID: v.optional(v.pipe(v.string(), v.minLength(1)), "fringe-docket"),
   OIDC_CLIENT_SECRET: v.optional(v.pipe(v.string(), v.minLength(1)), "fringe-docket-local-secret"),
-  FAKE_IDP_PORT: v.optional(v.pipe(v.string(), v.transform(Number), v.integer(), v.minValue(1), v.maxValue(65535)), "9411"),
+  FAKE_IDP_PORT: v.optional(
+    v.pipe(v.string(), v.transform(Number), v.integer(), v.minValue(1), v.maxValue(65535)),
+    "9411",
+  ),
   /** Label of the sign-in button. */
   OIDC_PROVIDER_NAME: v.optional(v.string(), "Observatory single sign-on"),
 });

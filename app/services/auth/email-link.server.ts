@@ -55,7 +55,13 @@ export async function consumeSignInLink(db: Database, token: string, now = new D
   const [used] = await db
     .update(emailSignInTokens)
     .set({ usedAt: now })
-    .where(and(eq(emailSignInTokens.tokenHash, hash), isNull(emailSignInTokens.usedAt), gt(emailSignInTokens.expiresAt, now)))
+    .where(
+      and(
+        eq(emailSignInTokens.tokenHash, hash),
+        isNull(emailSignInTokens.usedAt),
+        gt(emailSignInTokens.expiresAt, now),
+      ),
+    )
     .returning();
   if (!used) {
     const [row] = await db.select().from(emailSignInTokens).where(eq(emailSignInTokens.tokenHash, hash));

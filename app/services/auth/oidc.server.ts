@@ -2,8 +2,15 @@
  * Single sign-on over OpenID Connect: authorization code flow with PKCE (arctic), state and nonce
  * kept in a short-lived signed cookie, ID token verified against the provider's JWKS (jose).
  */
-import { ArcticFetchError, CodeChallengeMethod, generateCodeVerifier, generateState, OAuth2Client, OAuth2RequestError } from "arctic";
-import { createRemoteJWKSet, jwtVerify, type JWTVerifyGetKey } from "jose";
+import {
+  ArcticFetchError,
+  CodeChallengeMethod,
+  generateCodeVerifier,
+  generateState,
+  OAuth2Client,
+  OAuth2RequestError,
+} from "arctic";
+import { createRemoteJWKSet, type JWTVerifyGetKey, jwtVerify } from "jose";
 import { createCookie } from "react-router";
 import * as v from "valibot";
 import { env } from "~/env.server";
@@ -74,7 +81,7 @@ function flowCookie() {
 
 /** Only local paths may be a destination after sign-in (no open redirects). */
 export function safeNext(next: string | null | undefined): string {
-  if (!next || !next.startsWith("/") || next.startsWith("//") || next.startsWith("/\\")) return "/";
+  if (!next?.startsWith("/") || next.startsWith("//") || next.startsWith("/\\")) return "/";
   return next;
 }
 
@@ -98,11 +105,14 @@ export async function beginSso(next: string) {
 }
 
 /** Checks state, exchanges the code, verifies the ID token; the identity or an SsoError with a reason. */
-export async function completeSso(request: Request): Promise<{ identity: SsoIdentity; next: string; clearCookie: string }> {
+export async function completeSso(
+  request: Request,
+): Promise<{ identity: SsoIdentity; next: string; clearCookie: string }> {
   const url = new URL(request.url);
   const clearCookie = await flowCookie().serialize("", { maxAge: 0 });
   const flow = v.safeParse(FlowSchema, await flowCookie().parse(request.headers.get("Cookie")));
-  if (!flow.success) throw new SsoError("the sign-in took too long or was started in another browser; please try again");
+  if (!flow.success)
+    throw new SsoError("the sign-in took too long or was started in another browser; please try again");
   const providerError = url.searchParams.get("error");
   if (providerError) throw new SsoError(`the sign-on service refused: ${providerError}`);
   const code = url.searchParams.get("code");

@@ -19,7 +19,11 @@ export async function recordSignInAttempt(
   const keys = [`ip:${input.address}`];
   if (input.email) keys.push(`email:${input.email.trim().toLowerCase()}`);
   const counts = await db
-    .select({ key: signInAttempts.key, n: sql<number>`count(*)::int`, oldest: sql<Date>`min(${signInAttempts.attemptedAt})` })
+    .select({
+      key: signInAttempts.key,
+      n: sql<number>`count(*)::int`,
+      oldest: sql<Date>`min(${signInAttempts.attemptedAt})`,
+    })
     .from(signInAttempts)
     .where(and(inArray(signInAttempts.key, keys), gt(signInAttempts.attemptedAt, since)))
     .groupBy(signInAttempts.key);

@@ -2,7 +2,7 @@
 import { redirect } from "react-router";
 import type { Database } from "~/db/client.server";
 import { safeNext } from "./oidc.server";
-import { createSession, sessionCookieHeader, type SessionMethod } from "./sessions.server";
+import { createSession, type SessionMethod, sessionCookieHeader } from "./sessions.server";
 
 export async function signInAndRedirect(
   db: Database,

@@ -16,7 +16,10 @@ const port = (fallback: string) =>
 const fromAddress = v.pipe(
   v.string(),
   v.trim(),
-  v.check((s) => /^(?:[^<>\r\n]*<[^\s<>@]+@[^\s<>@]+>|[^\s<>@]+@[^\s<>@]+)$/.test(s), "must be an address such as Name <docket@example.org>"),
+  v.check(
+    (s) => /^(?:[^<>\r\n]*<[^\s<>@]+@[^\s<>@]+>|[^\s<>@]+@[^\s<>@]+)$/.test(s),
+    "must be an address such as Name <docket@example.org>",
+  ),
 );
 
 /**

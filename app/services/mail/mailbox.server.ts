@@ -2,7 +2,7 @@
 import { count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
 import * as v from "valibot";
 import type { Database } from "~/db/client.server";
-import { outboxMessages, type OutboxMessage } from "~/db/schema/mail";
+import { type OutboxMessage, outboxMessages } from "~/db/schema/mail";
 
 export const MAILBOX_PAGE_SIZE = 50;
 
@@ -26,10 +26,7 @@ export const MailboxQuerySchema = v.object({
     ),
     "",
   ),
-  page: v.fallback(
-    v.pipe(v.string(), v.regex(/^\d{1,6}$/), v.transform(Number), v.integer(), v.minValue(1)),
-    1,
-  ),
+  page: v.fallback(v.pipe(v.string(), v.regex(/^\d{1,6}$/), v.transform(Number), v.integer(), v.minValue(1)), 1),
 });
 
 export type MailboxQuery = v.InferOutput<typeof MailboxQuerySchema>;

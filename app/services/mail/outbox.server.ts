@@ -2,8 +2,8 @@ import { render, toPlainText } from "@react-email/render";
 import { PgTransaction } from "drizzle-orm/pg-core";
 import type { ReactElement } from "react";
 import * as v from "valibot";
-import type { Database, DbOrTx } from "~/db/client.server";
-import { MAIL_KINDS, outboxMessages, type MailKind, type OutboxMessage } from "~/db/schema/mail";
+import type { DbOrTx } from "~/db/client.server";
+import { MAIL_KINDS, type MailKind, type OutboxMessage, outboxMessages } from "~/db/schema/mail";
 import { wakeOutboxSender } from "./sender.server";
 
 /** The database itself or the `tx` of `db.transaction(async (tx) => …)`. */

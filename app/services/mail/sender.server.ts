@@ -1,8 +1,8 @@
 import { and, asc, eq, getTableColumns, isNull, lte, sql } from "drizzle-orm";
-import { database, type Database } from "~/db/client.server";
+import { type Database, database } from "~/db/client.server";
 import { outboxMessages } from "~/db/schema/mail";
 import { parseMailEnv } from "./config.server";
-import { createMailTransport, senderDomain, type MailTransport } from "./transport.server";
+import { createMailTransport, type MailTransport, senderDomain } from "./transport.server";
 
 /** First retry after this many milliseconds; each further failure doubles it. */
 export const RETRY_BASE_MS = 5_000;

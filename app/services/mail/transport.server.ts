@@ -21,7 +21,10 @@ export type MailTransport = {
   close(): void;
 };
 
-export type MailTransportConfig = Pick<MailEnv, "SMTP_HOST" | "SMTP_PORT" | "SMTP_SECURE" | "SMTP_USER" | "SMTP_PASSWORD" | "MAIL_FROM">;
+export type MailTransportConfig = Pick<
+  MailEnv,
+  "SMTP_HOST" | "SMTP_PORT" | "SMTP_SECURE" | "SMTP_USER" | "SMTP_PASSWORD" | "MAIL_FROM"
+>;
 
 export type MailTransportTimeouts = {
   /** Time to open the TCP connection, ms. */

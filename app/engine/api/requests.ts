@@ -1,0 +1,440 @@
+/**
+ * Request schemas of the computation API (coverage, ephemeris, triangles),
+ * shared by the command line and the HTTP resource routes. Pure: no I/O.
+ *
+ * Units on the wire follow the project conventions: angles in degrees, angular
+ * sizes in milliarcseconds, hour angles in hours, wavelengths and positions in
+ * metres, dates as YYYY-MM-DD. Unknown keys are ignored. Every failure is
+ * reported as one line naming the failing field, e.g.
+ * `target.decDeg: must be between -90 and 90`.
+ */
+import * as v from "valibot";
+import type {
+  BeamOptions,
+  CoverageInput,
+  EphemerisInput,
+  NightSampling,
+  SiteInput,
+  StationInput,
+  TargetInput,
+  TargetModel,
+  TrianglesInput,
+} from "../inputs";
+import { isPowerOfTwo } from "../math";
+
+// ---------------------------------------------------------------- limits
+
+/** Most hour-angle samples a request may ask for (explicit list or night sampling). */
+export const MAX_SAMPLES = 20_000;
+/** Most stations in one request. */
+export const MAX_STATIONS = 64;
+/** Most spectral channels (wavelengths) in one request. */
+export const MAX_WAVELENGTHS = 2000;
+/** Most uv points (baselines × samples × wavelengths) one request may produce. */
+export const MAX_UV_POINTS = 3_000_000;
+/** Most closure-phase values (triangles × samples × wavelengths) one request may produce. */
+export const MAX_CLOSURE_VALUES = 6_000_000;
+/** Longest wavelength accepted, metres: catches micrometres typed as metres. */
+export const MAX_WAVELENGTH_M = 1e-3;
+/** Default minimum elevation when a request gives none, degrees (air mass 2). */
+export const DEFAULT_MIN_ELEVATION_DEG = 30;
+/** Default dirty-beam grid size, pixels per side. */
+export const DEFAULT_GRID_SIZE = 256;
+/** Default number of triangles returned by the triangle finder (all when larger). */
+export const DEFAULT_MAX_TRIANGLES = 50;
+
+// ---------------------------------------------------------------- building blocks
+
+const numberMsg = "must be a number";
+const finiteNumber = () => v.pipe(v.number(numberMsg), v.finite("must be a finite number"));
+const between = (min: number, max: number) =>
+  v.pipe(
+    v.number(numberMsg),
+    v.finite("must be a finite number"),
+    v.minValue(min, `must be between ${min} and ${max}`),
+    v.maxValue(max, `must be between ${min} and ${max}`),
+  );
+const positive = () =>
+  v.pipe(v.number(numberMsg), v.finite("must be a finite number"), v.gtValue(0, "must be positive"));
+const nonNegative = () =>
+  v.pipe(v.number(numberMsg), v.finite("must be a finite number"), v.minValue(0, "must be zero or positive"));
+
+/** A date "YYYY-MM-DD" that exists in the Gregorian calendar, years 1900–2200. */
+export const IsoDateSchema = v.pipe(
+  v.string("must be a date string YYYY-MM-DD"),
+  v.regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date in the form YYYY-MM-DD"),
+  v.check((s) => {
+    const [y, m, d] = s.split("-").map(Number);
+    const t = new Date(Date.UTC(y, m - 1, d));
+    return t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === d;
+  }, "must be a real calendar date"),
+  v.check((s) => {
+    const y = Number(s.slice(0, 4));
+    return y >= 1900 && y <= 2200;
+  }, "must be a date between the years 1900 and 2200"),
+);
+
+export const SiteSchema = v.object(
+  {
+    latitudeDeg: between(-90, 90),
+    longitudeDeg: between(-180, 180),
+    /** Accepted for completeness; the geocentric computations do not use it. */
+    altitudeM: v.optional(finiteNumber(), 0),
+  },
+  "must be an object",
+);
+
+export const StationSchema = v.object(
+  {
+    name: v.pipe(
+      v.string("must be a string"),
+      v.trim(),
+      v.minLength(1, "must not be empty"),
+      v.maxLength(64, "must be at most 64 characters"),
+    ),
+    eastM: finiteNumber(),
+    northM: finiteNumber(),
+    upM: v.optional(finiteNumber(), 0),
+    pathOffsetM: v.optional(finiteNumber(), 0),
+  },
+  "must be an object",
+);
+
+const StationsSchema = v.pipe(
+  v.array(StationSchema, "must be an array of stations"),
+  v.minLength(2, "needs at least 2 stations"),
+  v.maxLength(MAX_STATIONS, `must list at most ${MAX_STATIONS} stations`),
+  v.check(
+    (list) => new Set(list.map((s) => s.name)).size === list.length,
+    (issue) => {
+      const list = issue.input as { name: string }[];
+      const seen = new Set<string>();
+      const dup = list.find((s) => (seen.has(s.name) ? true : (seen.add(s.name), false)));
+      return `station names must be distinct ("${dup?.name ?? "?"}" appears more than once)`;
+    },
+  ),
+);
+
+// ---------------------------------------------------------------- target models
+
+export const MODEL_TYPES = ["point", "uniformDisk", "gaussian", "limbDarkenedDisk", "ring", "binary", "sum"] as const;
+
+const modelTypeMessage = `must be one of ${MODEL_TYPES.join(", ")}`;
+
+export const TargetModelSchema: v.GenericSchema<unknown, TargetModel> = v.lazy(() =>
+  v.variant(
+    "type",
+    [
+      v.object({ type: v.literal("point") }),
+      v.object({ type: v.literal("uniformDisk"), diameterMas: positive() }),
+      v.object({ type: v.literal("gaussian"), fwhmMas: positive() }),
+      v.object({
+        type: v.literal("limbDarkenedDisk"),
+        diameterMas: positive(),
+        coefficient: between(0, 1),
+      }),
+      v.object({ type: v.literal("ring"), diameterMas: positive() }),
+      v.object({
+        type: v.literal("binary"),
+        separationMas: nonNegative(),
+        positionAngleDeg: finiteNumber(),
+        fluxRatio: nonNegative(),
+      }),
+      v.object({
+        type: v.literal("sum"),
+        components: v.pipe(
+          v.array(
+            v.object(
+              {
+                model: TargetModelSchema,
+                flux: positive(),
+                offsetEastMas: v.optional(finiteNumber(), 0),
+                offsetNorthMas: v.optional(finiteNumber(), 0),
+              },
+              "must be an object",
+            ),
+            "must be an array of components",
+          ),
+          v.minLength(1, "must have at least one component"),
+          v.maxLength(50, "must have at most 50 components"),
+        ),
+      }),
+    ],
+    modelTypeMessage,
+  ),
+);
+
+export const TargetSchema = v.object(
+  {
+    name: v.optional(v.pipe(v.string("must be a string"), v.maxLength(200, "must be at most 200 characters"))),
+    raDeg: between(0, 360),
+    decDeg: between(-90, 90),
+    model: v.optional(TargetModelSchema, { type: "point" }),
+  },
+  "must be an object",
+);
+
+// ---------------------------------------------------------------- sampling and beam
+
+const WavelengthsSchema = v.pipe(
+  v.array(
+    v.pipe(
+      v.number(numberMsg),
+      v.finite("must be a finite number"),
+      v.gtValue(0, "must be positive"),
+      v.maxValue(MAX_WAVELENGTH_M, `must be at most ${MAX_WAVELENGTH_M} (wavelengths are in metres)`),
+    ),
+    "must be an array of wavelengths in metres",
+  ),
+  v.minLength(1, "must list at least one wavelength"),
+  v.maxLength(MAX_WAVELENGTHS, `must list at most ${MAX_WAVELENGTHS} wavelengths`),
+);
+
+const HourAnglesSchema = v.pipe(
+  v.array(between(-12, 12), "must be an array of hour angles in hours"),
+  v.minLength(1, "must list at least one hour angle"),
+  v.maxLength(MAX_SAMPLES, `must list at most ${MAX_SAMPLES} hour-angle samples`),
+);
+
+/** Largest number of samples a night of at most 24 h can produce at a step (aligned to the step). */
+export function maxNightSamples(stepMin: number): number {
+  return Math.floor(1440 / stepMin) + 1;
+}
+
+export const NightSamplingSchema = v.object(
+  {
+    date: IsoDateSchema,
+    stepMin: v.pipe(
+      v.number(numberMsg),
+      v.finite("must be a finite number"),
+      v.gtValue(0, "must be positive"),
+      v.maxValue(720, "must be at most 720 minutes"),
+      v.check(
+        (step) => maxNightSamples(step) <= MAX_SAMPLES,
+        `is too small: a night could need more than ${MAX_SAMPLES} samples (use at least 0.073 minutes)`,
+      ),
+    ),
+  },
+  "must be an object",
+);
+
+export const BeamOptionsSchema = v.object(
+  {
+    gridSize: v.optional(
+      v.pipe(
+        v.number(numberMsg),
+        v.check((n) => isPowerOfTwo(n) && n >= 32 && n <= 2048, "must be a power of two from 32 to 2048"),
+      ),
+      DEFAULT_GRID_SIZE,
+    ),
+    weighting: v.optional(
+      v.picklist(["natural", "uniform", "robust"], "must be natural, uniform or robust"),
+      "natural",
+    ),
+    /** Briggs robustness R for weighting "robust": −2 (near uniform) .. 2 (near natural). */
+    robust: v.optional(between(-2, 2), 0),
+    /** When true the response carries the beam image and the model's dirty image. */
+    includeImages: v.optional(v.boolean("must be true or false"), false),
+  },
+  "must be an object or null",
+);
+
+const commonEntries = {
+  site: SiteSchema,
+  stations: StationsSchema,
+  target: TargetSchema,
+  wavelengthsM: WavelengthsSchema,
+  hourAnglesH: v.optional(HourAnglesSchema),
+  night: v.optional(NightSamplingSchema),
+  minElevationDeg: v.optional(between(0, 90), DEFAULT_MIN_ELEVATION_DEG),
+  delayLineStrokeM: v.optional(v.nullable(positive()), null),
+};
+
+interface SamplingShape {
+  stations: unknown[];
+  wavelengthsM: number[];
+  hourAnglesH?: number[];
+  night?: { stepMin: number };
+}
+
+/** Upper bound of the number of hour-angle samples a validated request can produce. */
+export function sampleCountBound(req: { hourAnglesH?: number[]; night?: { stepMin: number } }): number {
+  if (req.hourAnglesH) return req.hourAnglesH.length;
+  if (req.night) return Math.min(MAX_SAMPLES, maxNightSamples(req.night.stepMin));
+  return 0;
+}
+
+function uvPointCount(r: SamplingShape): { text: string; ok: boolean } {
+  const n = r.stations.length;
+  const b = (n * (n - 1)) / 2;
+  const s = sampleCountBound(r);
+  const c = r.wavelengthsM.length;
+  const total = b * s * c;
+  return {
+    ok: total <= MAX_UV_POINTS,
+    text: `request too large: ${b} baselines × ${s} samples × ${c} wavelengths = ${total} uv points (limit ${MAX_UV_POINTS})`,
+  };
+}
+
+function closureValueCount(r: SamplingShape): { text: string; ok: boolean } {
+  const n = r.stations.length;
+  const t = (n * (n - 1) * (n - 2)) / 6;
+  const s = sampleCountBound(r);
+  const c = r.wavelengthsM.length;
+  const total = t * s * c;
+  return {
+    ok: total <= MAX_CLOSURE_VALUES,
+    text: `request too large: ${t} triangles × ${s} samples × ${c} wavelengths = ${total} closure phases (limit ${MAX_CLOSURE_VALUES})`,
+  };
+}
+
+/**
+ * Cross-field rules of coverage and triangle requests, checked after the
+ * schema: sampling given exactly once and the size limits. Returns the first
+ * failure or null.
+ */
+export function samplingRuleFailure(r: SamplingShape): { message: string; field: string } | null {
+  if (r.hourAnglesH && r.night) return { field: "hourAnglesH", message: "give either hourAnglesH or night, not both" };
+  if (!r.hourAnglesH && !r.night)
+    return { field: "hourAnglesH", message: "is required (or give night: {date, stepMin})" };
+  const uv = uvPointCount(r);
+  if (!uv.ok) return { field: "wavelengthsM", message: uv.text };
+  const cl = closureValueCount(r);
+  if (!cl.ok) return { field: "stations", message: cl.text };
+  return null;
+}
+
+/** Largest grid for which the beam and dirty images are returned (they grow as gridSize²). */
+export const MAX_IMAGE_GRID = 512;
+
+/** Cross-field rules of a coverage request: the sampling rules plus the image size. */
+export function coverageRuleFailure(r: SamplingShape & { beam: BeamOptions | null }): {
+  message: string;
+  field: string;
+} | null {
+  const sampling = samplingRuleFailure(r);
+  if (sampling) return sampling;
+  if (r.beam?.includeImages && r.beam.gridSize > MAX_IMAGE_GRID) {
+    return { field: "beam.includeImages", message: `images are returned only for gridSize up to ${MAX_IMAGE_GRID}` };
+  }
+  return null;
+}
+
+// ---------------------------------------------------------------- requests
+
+/** Coverage request; use parseCoverageRequest, which adds the cross-field rules. */
+export const CoverageRequestSchema = v.object(
+  {
+    ...commonEntries,
+    beam: v.optional(v.nullable(BeamOptionsSchema), {}),
+  },
+  "request must be a JSON object",
+);
+
+/** Triangle-finder request; use parseTrianglesRequest, which adds the cross-field rules. */
+export const TrianglesRequestSchema = v.object(
+  {
+    ...commonEntries,
+    stations: v.pipe(StationsSchema, v.minLength(3, "needs at least 3 stations to form a triangle")),
+    maxTriangles: v.optional(
+      v.pipe(
+        v.number(numberMsg),
+        v.integer("must be a whole number"),
+        v.minValue(1, "must be at least 1"),
+        v.maxValue(100_000, "must be at most 100000"),
+      ),
+      DEFAULT_MAX_TRIANGLES,
+    ),
+  },
+  "request must be a JSON object",
+);
+
+export const EphemerisRequestSchema = v.object(
+  {
+    site: SiteSchema,
+    date: IsoDateSchema,
+  },
+  "request must be a JSON object",
+);
+
+// The schemas produce the engine's own input types (engine/inputs.ts); these checks fail to compile
+// when a schema and its type drift apart.
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+const schemaMatchesInputs: [
+  Same<v.InferOutput<typeof SiteSchema>, SiteInput>,
+  Same<v.InferOutput<typeof StationSchema>, StationInput>,
+  Same<v.InferOutput<typeof TargetSchema>, TargetInput>,
+  Same<v.InferOutput<typeof BeamOptionsSchema>, BeamOptions>,
+  Same<v.InferOutput<typeof NightSamplingSchema>, NightSampling>,
+  Same<v.InferOutput<typeof CoverageRequestSchema>, CoverageInput>,
+  Same<v.InferOutput<typeof TrianglesRequestSchema>, TrianglesInput>,
+  Same<v.InferOutput<typeof EphemerisRequestSchema>, EphemerisInput>,
+] = [true, true, true, true, true, true, true, true];
+void schemaMatchesInputs;
+
+export type CoverageRequest = CoverageInput;
+export type TrianglesRequest = TrianglesInput;
+export type EphemerisRequest = EphemerisInput;
+
+// ---------------------------------------------------------------- issue formatting
+
+export type ParseResult<T> = { ok: true; value: T } | { ok: false; message: string; field: string | null };
+
+/**
+ * Dotted path of an issue: object keys joined by ".", array indices in
+ * brackets, e.g. `stations[2].name` or `target.model.components[0].flux`;
+ * null for the request itself.
+ */
+export function issuePath(issue: v.BaseIssue<unknown>): string | null {
+  if (!issue.path || issue.path.length === 0) return null;
+  let out = "";
+  for (const item of issue.path) {
+    const key = item.key as unknown;
+    if (typeof key === "number") out += `[${key}]`;
+    else out += out === "" ? String(key) : `.${String(key)}`;
+  }
+  return out === "" ? null : out;
+}
+
+/**
+ * One-line message for the first issue of a failed parse:
+ * `field.path: message`. A missing required field reads `x: is required`.
+ */
+export function formatIssues(issues: readonly v.BaseIssue<unknown>[]): { message: string; field: string | null } {
+  const issue = issues[0];
+  const field = issuePath(issue);
+  const missing = issue.input === undefined && issue.kind === "schema" && field !== null;
+  const text = (missing ? "is required" : issue.message).replace(/\s+/g, " ");
+  return { message: field ? `${field}: ${text}` : text, field };
+}
+
+function parseWith<S extends v.GenericSchema<unknown, unknown>>(
+  schema: S,
+  input: unknown,
+  crossField?: (value: v.InferOutput<S>) => { message: string; field: string } | null,
+): ParseResult<v.InferOutput<S>> {
+  if (typeof input !== "object" || input === null || Array.isArray(input)) {
+    return { ok: false, message: "request must be a JSON object", field: null };
+  }
+  const result = v.safeParse(schema, input);
+  if (!result.success) return { ok: false, ...formatIssues(result.issues) };
+  const value = result.output as v.InferOutput<S>;
+  const failure = crossField?.(value);
+  if (failure) return { ok: false, message: `${failure.field}: ${failure.message}`, field: failure.field };
+  return { ok: true, value };
+}
+
+/** Validates a coverage request (already parsed from JSON). */
+export function parseCoverageRequest(json: unknown): ParseResult<CoverageRequest> {
+  return parseWith(CoverageRequestSchema, json, coverageRuleFailure);
+}
+
+/** Validates a triangle-finder request (already parsed from JSON). */
+export function parseTrianglesRequest(json: unknown): ParseResult<TrianglesRequest> {
+  return parseWith(TrianglesRequestSchema, json, samplingRuleFailure);
+}
+
+/** Validates an ephemeris request (already parsed from JSON). */
+export function parseEphemerisRequest(json: unknown): ParseResult<EphemerisRequest> {
+  return parseWith(EphemerisRequestSchema, json);
+}
