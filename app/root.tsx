@@ -8,10 +8,10 @@ import { Toast } from "./components/ui/Toast";
 import { dbContext } from "./context";
 import { database } from "./db/client.server";
 import { env } from "./env.server";
-import { crossSiteReason } from "./services/auth/origin.server";
-import { getViewer } from "./services/auth.server";
 import { readFlash } from "./lib/flash.server";
-import { sectionsFor } from "./services/permissions";
+import { getViewer } from "./lib/guards.server";
+import { sectionsFor } from "./lib/permissions";
+import { crossSiteReason } from "./services/auth/origin.server";
 
 /** Refuses cross-site form posts and API writes before any action runs. */
 const refuseCrossSite: Route.MiddlewareFunction = async ({ request }, next) => {

@@ -13,7 +13,8 @@
 import { readFileSync, writeFileSync } from "node:fs";
 import { cpus } from "node:os";
 import { fileURLToPath } from "node:url";
-import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "../app/db/demo-scenario";
+import { computeFeasibility, type FeasibilityInput } from "~/services/proposals/feasibility";
+import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "../app/db/seed/scenario";
 import {
   type CoverageRequest,
   computeCoverage,
@@ -23,7 +24,6 @@ import {
   HermitianImager,
   parseCoverageRequest,
 } from "../app/engine";
-import { computeFeasibility, type FeasibilityInput } from "../app/services/feasibility";
 
 interface Timing {
   medianMs: number;

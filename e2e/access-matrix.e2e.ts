@@ -6,9 +6,9 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDatabase } from "~/db/client.server";
-import { ensureUser } from "~/db/factories.server";
 import { apiTokens } from "~/db/schema/auth";
 import type { Role } from "~/db/schema/users";
+import { ensureUser } from "~/db/seed/factories.server";
 import routes from "~/routes";
 import { createApiToken } from "~/services/auth/api-tokens.server";
 import { createSession } from "~/services/auth/sessions.server";

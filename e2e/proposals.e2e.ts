@@ -2,7 +2,7 @@ import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, inject, it } from "vitest";
-import { makeTinyPdf } from "~/services/pdf";
+import { makeTinyPdf } from "~/services/proposals/pdf";
 import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
 
 const baseUrl = inject("baseUrl");

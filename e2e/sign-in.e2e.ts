@@ -1,5 +1,5 @@
 import { describe, expect, inject, it } from "vitest";
-import { DEMO_PEOPLE } from "~/db/demo-scenario";
+import { DEMO_PEOPLE } from "~/db/seed/scenario";
 import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
 
 const baseUrl = inject("baseUrl");

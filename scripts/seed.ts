@@ -1,5 +1,5 @@
 import { createDatabase } from "~/db/client.server";
-import { isEmpty, seedDemoScenario } from "~/db/factories.server";
+import { isEmpty, seedDemoScenario } from "~/db/seed/factories.server";
 import { env } from "~/env.server";
 
 // `npm run db:seed` loads the demo scenario (idempotent); `--if-empty` seeds only a fresh database.

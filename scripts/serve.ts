@@ -12,7 +12,7 @@ import express from "express";
 import { RouterContextProvider, type ServerBuild } from "react-router";
 import { clientAddressContext } from "~/context";
 import { closeDatabase } from "~/db/client.server";
-import { DEMO_PEOPLE } from "~/db/demo-scenario";
+import { DEMO_PEOPLE } from "~/db/seed/scenario";
 import { env } from "~/env.server";
 import { authEnv } from "~/services/auth/config.server";
 import { parseMailEnv } from "~/services/mail/config.server";

@@ -68,4 +68,3 @@ export async function readJsonBody(request: Request, limitBytes = MAX_BODY_BYTES
     return bad(`request body is not valid JSON: ${detail}`);
   }
 }
-

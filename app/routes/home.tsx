@@ -2,7 +2,7 @@ import { Link, useRouteLoaderData } from "react-router";
 import { Card } from "~/components/ui";
 import { database } from "~/db/client.server";
 import type { loader as rootLoader } from "~/root";
-import { listSites, loadSiteRegistry } from "~/services/registry.server";
+import { listSites, loadSiteRegistry } from "~/services/registry/queries.server";
 import type { Route } from "./+types/home";
 
 export async function loader(_: Route.LoaderArgs) {

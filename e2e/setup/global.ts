@@ -4,8 +4,8 @@ import { createServer } from "node:net";
 import { fileURLToPath } from "node:url";
 import type { TestProject } from "vitest/node";
 import { createDatabase } from "../../app/db/client.server";
-import { seedDemoScenario } from "../../app/db/factories.server";
 import { migrateDatabase } from "../../app/db/migrate.server";
+import { seedDemoScenario } from "../../app/db/seed/factories.server";
 import { adminQuery, clusterUrl, dropDatabase, ensureCluster, uniqueName, withDatabase } from "../../test/setup/pg";
 
 declare module "vitest" {

@@ -288,7 +288,7 @@ ${people ? `<h2 style="font-size:1rem">Demo people</h2>${people}` : ""}
 
 // Standalone run.
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const { DEMO_PEOPLE } = await import("../../app/db/demo-scenario");
+  const { DEMO_PEOPLE } = await import("../../app/db/seed/scenario");
   const origin = process.env.APP_ORIGIN ?? "http://localhost:3000";
   const idp = await startFakeIdentityProvider({
     port: Number(process.env.FAKE_IDP_PORT ?? 9411),

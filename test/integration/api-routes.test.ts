@@ -1,13 +1,13 @@
+import { goodCoverageRequest as good } from "@test/coverage-request";
+import { settle, testDb } from "@test/routes";
 import { beforeAll, describe, expect, it } from "vitest";
-import { seedDemoScenario } from "~/db/factories.server";
+import { seedDemoScenario } from "~/db/seed/factories.server";
+import { MAX_BODY_BYTES, readJsonBody } from "~/lib/json.server";
 import { action as coverageAction, loader as coverageLoader } from "~/routes/api/coverage";
 import { action as ephemerisAction } from "~/routes/api/ephemeris";
 import { action as trianglesAction } from "~/routes/api/triangles";
-import { MAX_BODY_BYTES, readJsonBody } from "~/lib/json.server";
 import { findUserByEmail } from "~/services/auth/accounts.server";
 import { createApiToken } from "~/services/auth/api-tokens.server";
-import { goodCoverageRequest as good } from "@test/coverage-request";
-import { settle, testDb } from "@test/routes";
 
 // The computation APIs answer signed-in people and API tokens only; these tests use a proposer's token.
 let bearer = "";

@@ -1,15 +1,15 @@
+import { cookiesFrom, formPost, routeArgs, settle, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { emailSignInTokens } from "~/db/schema/auth";
 import { outboxMessages } from "~/db/schema/mail";
+import { getViewer } from "~/lib/guards.server";
 import { action as verifyAction, loader as verifyLoader } from "~/routes/auth/email-verify";
 import { action as signInAction } from "~/routes/auth/sign-in";
 import { RATE_LIMITS } from "~/services/auth/config.server";
-import { getViewer } from "~/services/auth.server";
 import { deliverDue } from "~/services/mail/sender.server";
 import { createMailTransport } from "~/services/mail/transport.server";
 import { type FakeSmtp, startFakeSmtp } from "../../scripts/fakes/smtp";
-import { cookiesFrom, formPost, routeArgs, settle, testDb } from "@test/routes";
 
 let smtp: FakeSmtp;
 beforeAll(async () => {

@@ -1,12 +1,12 @@
+import { cookiesFrom, routeArgs, settle, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
-import { seedDemoScenario } from "~/db/factories.server";
 import { users } from "~/db/schema/users";
+import { seedDemoScenario } from "~/db/seed/factories.server";
+import { getViewer } from "~/lib/guards.server";
 import { loader as ssoCallback } from "~/routes/auth/sso-callback";
 import { loader as ssoStart } from "~/routes/auth/sso-start";
-import { getViewer } from "~/services/auth.server";
 import { startFakeIdentityProvider } from "../../scripts/fakes/identity-provider";
-import { cookiesFrom, routeArgs, settle, testDb } from "@test/routes";
 
 const CLIENT = { clientId: "fringe-docket-test", clientSecret: "test-secret-value" };
 let idp: Awaited<ReturnType<typeof startFakeIdentityProvider>>;

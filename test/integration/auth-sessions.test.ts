@@ -1,16 +1,16 @@
+import { formPost, routeArgs, settle, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { beforeEach, describe, expect, it } from "vitest";
-import { seedDemoScenario } from "~/db/factories.server";
 import { sessions } from "~/db/schema/auth";
 import { users } from "~/db/schema/users";
+import { seedDemoScenario } from "~/db/seed/factories.server";
+import { getViewer, requireApiUser, requirePermission, requireUser } from "~/lib/guards.server";
 import { action as accountAction, loader as accountLoader } from "~/routes/account/index";
 import { findUserByEmail } from "~/services/auth/accounts.server";
 import { authenticateApiToken, createApiToken, revokeApiToken } from "~/services/auth/api-tokens.server";
 import { SESSION_LIFETIME_MS } from "~/services/auth/config.server";
 import { createSession, revokeSession, validateSessionToken } from "~/services/auth/sessions.server";
 import { hashSecret } from "~/services/auth/tokens.server";
-import { getViewer, requireApiUser, requirePermission, requireUser } from "~/services/auth.server";
-import { formPost, routeArgs, settle, testDb } from "@test/routes";
 
 const DAY = 24 * 3600 * 1000;
 let userId: number;

@@ -1,14 +1,14 @@
+import { formPost, routeArgs, settle, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { seedDemoScenario } from "~/db/factories.server";
 import { cycles, proposalHours, proposals } from "~/db/schema/proposals";
+import { seedDemoScenario } from "~/db/seed/factories.server";
 import { action as editAction, loader as editLoader } from "~/routes/cycles/edit";
 import { loader as listLoader } from "~/routes/cycles/index";
 import { action as newAction } from "~/routes/cycles/new";
 import { findUserByEmail } from "~/services/auth/accounts.server";
 import { createSession } from "~/services/auth/sessions.server";
-import { configurationChoices } from "~/services/configurations.server";
-import { formPost, routeArgs, settle, testDb } from "@test/routes";
+import { configurationChoices } from "~/services/cycles/configurations.server";
 
 let chair = "";
 let proposer = "";

@@ -1,3 +1,4 @@
+import { routeArgs, testDb } from "@test/routes";
 import { eq, sql } from "drizzle-orm";
 import { createElement } from "react";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
@@ -21,7 +22,6 @@ import { enqueueMail } from "~/services/mail/outbox.server";
 import { deliverDue, retryDelayMs, startOutboxSender } from "~/services/mail/sender.server";
 import { createMailTransport, type MailTransport } from "~/services/mail/transport.server";
 import { type FakeSmtp, startFakeSmtp } from "../../scripts/fakes/smtp";
-import { routeArgs, testDb } from "@test/routes";
 
 const LINK = "http://localhost:3000/auth/email/verify?token=abcdefghijklmnopqrstuvwxyz234567";
 

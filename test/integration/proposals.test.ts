@@ -1,6 +1,6 @@
+import { formPost, routeArgs, testDb } from "@test/routes";
 import { and, asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { ensureUser, seedDemoScenario } from "~/db/factories.server";
 import { configurations } from "~/db/schema/array";
 import { outboxMessages } from "~/db/schema/mail";
 import {
@@ -12,6 +12,7 @@ import {
   proposalVersions,
   targets,
 } from "~/db/schema/proposals";
+import { ensureUser, seedDemoScenario } from "~/db/seed/factories.server";
 import { action as editorAction, loader as editorLoader } from "~/routes/proposals/editor";
 import { loader as feasibilityLoader } from "~/routes/proposals/feasibility";
 import { loader as listLoader } from "~/routes/proposals/list";
@@ -20,12 +21,11 @@ import { loader as documentLoader } from "~/routes/proposals/science-case";
 import { action as targetAction, loader as targetLoader } from "~/routes/proposals/target";
 import { loader as versionLoader } from "~/routes/proposals/version";
 import { createSession } from "~/services/auth/sessions.server";
-import { createCycle } from "~/services/cycles.server";
-import type { FeasibilityReport } from "~/services/feasibility";
-import { MAX_PDF_BYTES, makeTinyPdf } from "~/services/pdf";
-import type { ProposalSnapshot } from "~/services/proposals.server";
-import { MAX_UPLOAD_BODY_BYTES } from "~/services/proposals-upload.server";
-import { formPost, routeArgs, testDb } from "@test/routes";
+import { createCycle } from "~/services/cycles/cycles.server";
+import type { FeasibilityReport } from "~/services/proposals/feasibility";
+import { MAX_PDF_BYTES, makeTinyPdf } from "~/services/proposals/pdf";
+import type { ProposalSnapshot } from "~/services/proposals/proposals.server";
+import { MAX_UPLOAD_BODY_BYTES } from "~/services/proposals/upload.server";
 
 // ---------------------------------------------------------------- helpers
 

@@ -1,13 +1,15 @@
+import { cookiesFrom, formPost, routeArgs, testDb } from "@test/routes";
 import { and, count, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
+import { bands, configurationStations, configurations, instruments, sites, stations } from "~/db/schema/array";
 import {
   ensureConfiguration,
   ensureInstrument,
   ensureSite,
   ensureStations,
   seedDemoScenario,
-} from "~/db/factories.server";
-import { bands, configurationStations, configurations, instruments, sites, stations } from "~/db/schema/array";
+} from "~/db/seed/factories.server";
+import { readFlash } from "~/lib/flash.server";
 import { loader as exportLoader } from "~/routes/api/registry-export";
 import { action as bandEditAction } from "~/routes/registry/band-edit";
 import { action as bandNewAction } from "~/routes/registry/band-new";
@@ -24,9 +26,7 @@ import { action as stationEditAction, loader as stationEditLoader } from "~/rout
 import { action as stationNewAction, loader as stationNewLoader } from "~/routes/registry/station-new";
 import { findUserByEmail } from "~/services/auth/accounts.server";
 import { createSession } from "~/services/auth/sessions.server";
-import { readFlash } from "~/lib/flash.server";
-import { MAX_IMPORT_BYTES } from "~/services/registry-io";
-import { cookiesFrom, formPost, routeArgs, testDb } from "@test/routes";
+import { MAX_IMPORT_BYTES } from "~/services/registry/io";
 
 type Who = "admin" | "proposer" | "anonymous";
 type Outcome = { status: number; location: string | null; data: any; response: Response | null };

@@ -1,9 +1,9 @@
+import { routeArgs, testDb } from "@test/routes";
 import { describe, expect, it } from "vitest";
-import { seedDemoScenario } from "~/db/factories.server";
+import { seedDemoScenario } from "~/db/seed/factories.server";
 import { loader as homeLoader } from "~/routes/home";
 import { loader as notFoundLoader } from "~/routes/not-found";
 import { loader as registryLoader } from "~/routes/registry/overview";
-import { routeArgs, testDb } from "@test/routes";
 
 describe("public pages", () => {
   it("home shows an empty array before the seed, then the demo array", async () => {

@@ -1,10 +1,10 @@
+import { testDb } from "@test/routes";
 import { eq, sql } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
-import { DEMO_PEOPLE } from "~/db/demo-scenario";
-import { isEmpty, seedDemoScenario } from "~/db/factories.server";
 import { configurationStations, configurations, sites, stations } from "~/db/schema/array";
 import { userRoles, users } from "~/db/schema/users";
-import { testDb } from "@test/routes";
+import { isEmpty, seedDemoScenario } from "~/db/seed/factories.server";
+import { DEMO_PEOPLE } from "~/db/seed/scenario";
 
 describe("demo seed", () => {
   it("starts from an empty, migrated database", async () => {

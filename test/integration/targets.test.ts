@@ -1,15 +1,15 @@
+import { formPost, routeArgs, settle, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { seedDemoScenario } from "~/db/factories.server";
 import { targets } from "~/db/schema/proposals";
+import { seedDemoScenario } from "~/db/seed/factories.server";
 import { action as editAction, loader as editLoader } from "~/routes/targets/edit";
 import { loader as exportLoader } from "~/routes/targets/export";
 import { action as importAction } from "~/routes/targets/import";
 import { action as createAction, loader as listLoader } from "~/routes/targets/index";
 import { findUserByEmail } from "~/services/auth/accounts.server";
 import { createSession } from "~/services/auth/sessions.server";
-import { parseTargetCsv } from "~/services/target-io";
-import { formPost, routeArgs, settle, testDb } from "@test/routes";
+import { parseTargetCsv } from "~/services/targets/csv";
 
 let ines = "";
 let tomasz = "";

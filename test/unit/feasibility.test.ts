@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "~/db/demo-scenario";
+import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "~/db/seed/scenario";
 import { channelWavelengthsM } from "~/engine";
 import {
   computeFeasibility,
@@ -11,7 +11,7 @@ import {
   modelSizeMas,
   visibilityLine,
   worstVerdict,
-} from "~/services/feasibility";
+} from "~/services/proposals/feasibility";
 
 /** The band's channels, as the feasibility report samples them. */
 const bandWavelengthsM = (b: { centralWavelengthM: number; bandwidthM: number; channels: number }) =>

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { checkPdf, formatBytes, MAX_PDF_BYTES, makeTinyPdf } from "~/services/pdf";
+import { checkPdf, formatBytes, MAX_PDF_BYTES, makeTinyPdf } from "~/services/proposals/pdf";
 
 const ascii = (bytes: Uint8Array) => String.fromCharCode(...bytes);
 const bytesOf = (s: string) => Uint8Array.from(s, (c) => c.charCodeAt(0));

@@ -23,7 +23,7 @@ import {
   SiteSchema,
   StationSchema,
   stationsToCsv,
-} from "~/services/registry-io";
+} from "~/services/registry/io";
 
 const utf8 = (s: string) => new TextEncoder().encode(s);
 const texts = (issues: Parameters<typeof issueText>[0][]) => issues.map(issueText);

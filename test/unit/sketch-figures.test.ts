@@ -8,7 +8,7 @@ import {
   spatialFrequencyPoints,
   summariseReasons,
   uvPoints,
-} from "~/services/sketch-figures";
+} from "~/services/sketch/figures";
 
 const baseline = {
   stations: ["C01", "C02"] as [string, string],

@@ -12,7 +12,7 @@ import {
   SIDEREAL_PER_SOLAR,
   targetAltitudeCurve,
   twilightBands,
-} from "~/services/sketch-night";
+} from "~/services/sketch/night";
 
 const rad = (d: number) => (d * Math.PI) / 180;
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "~/db/demo-scenario";
+import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "~/db/seed/scenario";
 import { parseCoverageRequest, parseEphemerisRequest, parseTrianglesRequest } from "~/engine";
 import {
   apiErrorText,
@@ -11,8 +11,8 @@ import {
   modelFromState,
   type RegistryLike,
   sizeFailure,
-} from "~/services/sketch-request";
-import { ALL_STATIONS, readSketchState, readTriangleState } from "~/services/sketch-state";
+} from "~/services/sketch/request";
+import { ALL_STATIONS, readSketchState, readTriangleState } from "~/services/sketch/state";
 
 const registry: RegistryLike = {
   site: DEMO_SITE,

@@ -7,7 +7,7 @@ import {
   splitStationList,
   writeSketchState,
   writeTriangleState,
-} from "~/services/sketch-state";
+} from "~/services/sketch/state";
 
 const defaults = { date: "2027-03-15", config: "compact-3", instrument: "Brasa", band: "H" };
 

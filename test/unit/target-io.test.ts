@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { parseTargetCsv, targetsToCsv } from "~/services/target-io";
+import { parseTargetCsv, targetsToCsv } from "~/services/targets/csv";
 
 const header =
   "name,ra,dec,model,size_mas,ld_coefficient,separation_mas,position_angle_deg,flux_ratio,mag_H,mag_K,notes";

@@ -1,6 +1,6 @@
 import { Form, useNavigation } from "react-router";
 import { Button, Card, FormErrors, TextArea, TextField } from "~/components/ui";
-import type { CycleFormValues } from "~/services/cycle-form";
+import type { CycleFormValues } from "~/services/cycles/form";
 
 export type ConfigurationChoice = { id: number; name: string; description: string; stations: number };
 

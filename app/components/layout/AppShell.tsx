@@ -1,6 +1,6 @@
 import { type ReactNode, useState } from "react";
 import { Link, NavLink } from "react-router";
-import type { Section } from "~/services/permissions";
+import type { Section } from "~/lib/permissions";
 import { cx } from "../ui/cx";
 import { Logo } from "./Logo";
 

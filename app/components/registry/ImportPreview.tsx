@@ -14,8 +14,8 @@ import type {
   StationColumn,
   StationLine,
   StationPlan,
-} from "~/services/registry-io";
-import { metresToMicrons } from "~/services/registry-io";
+} from "~/services/registry/io";
+import { metresToMicrons } from "~/services/registry/io";
 
 const CHANGE: Record<Change, { label: string; tone: BadgeTone }> = {
   new: { label: "new", tone: "info" },

@@ -5,7 +5,7 @@
 import { type FormEvent, type ReactNode, useState } from "react";
 import { Form, Link, useNavigation } from "react-router";
 import { Button, buttonClass, Card, FormErrors, TextArea, TextField } from "~/components/ui";
-import { sentence } from "~/services/registry-io";
+import { sentence } from "~/services/registry/io";
 import { type MapConfiguration, type MapStation, StationMap } from "./StationMap";
 
 export type FormState = { errors?: Record<string, string>; values?: Record<string, string> } | undefined | null;

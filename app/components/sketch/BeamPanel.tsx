@@ -1,6 +1,6 @@
 import { useMemo } from "react";
 import { Plot, plotLayout } from "~/components/plots/Plot";
-import { beamEllipse, imageWindow } from "~/services/sketch-figures";
+import { beamEllipse, imageWindow } from "~/services/sketch/figures";
 import type { CoverageResponse } from "./api";
 import { Panel } from "./Panel";
 

@@ -8,7 +8,7 @@ import {
   type TwilightKind,
   targetAltitudeCurve,
   twilightBands,
-} from "~/services/sketch-night";
+} from "~/services/sketch/night";
 import type { CoverageResponse, EphemerisResponse } from "./api";
 import { type LegendItem, Panel, plotTime, SeriesLegend } from "./Panel";
 

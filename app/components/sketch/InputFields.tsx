@@ -7,7 +7,7 @@ import type { ReactNode } from "react";
 import { Button, cx, SelectField, TextField } from "~/components/ui";
 import { describeChannels } from "~/engine";
 import { formatDeclination, formatRightAscension, parseDeclination, parseRightAscension } from "~/lib/coordinates";
-import type { FieldErrors, RegistryLike } from "~/services/sketch-request";
+import type { FieldErrors, RegistryLike } from "~/services/sketch/request";
 import {
   type CommonState,
   defaultSecond,
@@ -21,7 +21,7 @@ import {
   SIMPLE_MODEL_TYPES,
   type SimpleModelType,
   STEP_CHOICES_MIN,
-} from "~/services/sketch-state";
+} from "~/services/sketch/state";
 
 type Patch = (patch: Partial<CommonState>) => void;
 

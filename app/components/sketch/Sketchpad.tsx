@@ -7,13 +7,13 @@
 import { useMemo, useRef, useState } from "react";
 import { Button, cx, EmptyState, PageHeader, SelectField } from "~/components/ui";
 import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
-import { cautions as cautionLines } from "~/services/sketch-figures";
+import { cautions as cautionLines } from "~/services/sketch/figures";
 import {
   angularSeparationDeg,
   observableWindows,
   raTransitingAtMidnight,
   sunSeparationDeg,
-} from "~/services/sketch-night";
+} from "~/services/sketch/night";
 import {
   apiErrorText,
   buildCoverageRequest,
@@ -23,14 +23,14 @@ import {
   inputForApiField,
   pickedStations,
   type SketchRegistry,
-} from "~/services/sketch-request";
+} from "~/services/sketch/request";
 import {
   readSketchState,
   type SavedTarget,
   type SketchState,
   type StateDefaults,
   writeSketchState,
-} from "~/services/sketch-state";
+} from "~/services/sketch/state";
 import { type CoverageResponse, type EphemerisResponse, useApi } from "./api";
 import { BeamPanel } from "./BeamPanel";
 import { ElevationPanel } from "./ElevationPanel";

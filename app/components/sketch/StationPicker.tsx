@@ -5,8 +5,8 @@
  */
 import { Plot, plotLayout } from "~/components/plots/Plot";
 import { SelectField } from "~/components/ui";
-import { type FieldErrors, pickedStations, type RegistryLike } from "~/services/sketch-request";
-import type { SketchState } from "~/services/sketch-state";
+import { type FieldErrors, pickedStations, type RegistryLike } from "~/services/sketch/request";
+import type { SketchState } from "~/services/sketch/state";
 import { InputGroup } from "./InputFields";
 
 const FREE = "";

@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { airmassRange, summariseReasons } from "~/services/sketch-figures";
+import { airmassRange, summariseReasons } from "~/services/sketch/figures";
 import type { CoverageResponse } from "./api";
 import { Panel } from "./Panel";
 

@@ -7,7 +7,7 @@ import { useMemo, useState } from "react";
 import { Link } from "react-router";
 import { Button, type Column, DataTable, EmptyState, PageHeader, SelectField } from "~/components/ui";
 import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
-import { raTransitingAtMidnight } from "~/services/sketch-night";
+import { raTransitingAtMidnight } from "~/services/sketch/night";
 import {
   apiErrorText,
   buildTrianglesRequest,
@@ -15,7 +15,7 @@ import {
   inputForApiField,
   type SketchRegistry,
   type TrianglesBody,
-} from "~/services/sketch-request";
+} from "~/services/sketch/request";
 import {
   ALL_STATIONS,
   readTriangleState,
@@ -24,7 +24,7 @@ import {
   sketchpadHref,
   type TriangleState,
   writeTriangleState,
-} from "~/services/sketch-state";
+} from "~/services/sketch/state";
 import { type TrianglesResponse, useApi } from "./api";
 import { BandInput, InputGroup, ModelInputs, SamplingInputs, TargetInputs } from "./InputFields";
 import { Busy, CopyLinkButton } from "./Sketchpad";

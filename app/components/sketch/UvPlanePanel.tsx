@@ -1,6 +1,6 @@
 import { useMemo } from "react";
 import { Plot, plotLayout, SERIES_COLOURS } from "~/components/plots/Plot";
-import { uvPoints } from "~/services/sketch-figures";
+import { uvPoints } from "~/services/sketch/figures";
 import type { CoverageResponse } from "./api";
 import { Panel, SeriesLegend, Toggle } from "./Panel";
 

@@ -1,7 +1,7 @@
 import { useMemo } from "react";
 import { Plot, plotLayout, SERIES_COLOURS } from "~/components/plots/Plot";
 import type { TargetModel } from "~/engine";
-import { modelVis2Curves, spatialFrequencyPoints } from "~/services/sketch-figures";
+import { modelVis2Curves, spatialFrequencyPoints } from "~/services/sketch/figures";
 import type { CoverageResponse } from "./api";
 import { Panel, SeriesLegend } from "./Panel";
 import { baselineColour } from "./UvPlanePanel";

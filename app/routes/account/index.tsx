@@ -3,10 +3,10 @@ import * as v from "valibot";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, Button, Card, PageHeader, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
+import { redirectWithFlash } from "~/lib/flash.server";
+import { requireUser } from "~/lib/guards.server";
 import { createApiToken, listApiTokens, revokeApiToken } from "~/services/auth/api-tokens.server";
 import { listUserSessions, revokeOtherSessions, revokeSession } from "~/services/auth/sessions.server";
-import { requireUser } from "~/services/auth.server";
-import { redirectWithFlash } from "~/lib/flash.server";
 import type { Route } from "./+types/index";
 
 const ActionSchema = v.variant("intent", [

@@ -2,9 +2,9 @@
 // Request and response: docs/cli.md (same JSON as `npm run -s cli -- ephemeris`).
 
 import { computeEphemeris, parseEphemerisRequest } from "~/engine";
-import { handleComputation } from "~/services/api/computation.server";
+import { requireApiUser } from "~/lib/guards.server";
 import { methodNotAllowed } from "~/lib/json.server";
-import { requireApiUser } from "~/services/auth.server";
+import { handleComputation } from "~/services/api/computation.server";
 import type { Route } from "./+types/ephemeris";
 
 export async function loader({ request }: Route.LoaderArgs) {

@@ -3,14 +3,14 @@
 // `?site=<id>` picks the site; the first site by name otherwise.
 
 import { database } from "~/db/client.server";
-import { loadSnapshot, resolveSite } from "~/services/registry-admin.server";
+import { loadSnapshot, resolveSite } from "~/services/registry/admin.server";
 import {
   bandsToCsv,
   configurationsToCsv,
   type RegistrySnapshot,
   registryToJson,
   stationsToCsv,
-} from "~/services/registry-io";
+} from "~/services/registry/io";
 import type { Route } from "./+types/registry-export";
 
 const FILES: Record<string, { type: string; body: (s: RegistrySnapshot, now: Date) => string }> = {

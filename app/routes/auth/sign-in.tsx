@@ -4,12 +4,12 @@ import { ErrorPage } from "~/components/ErrorPage";
 import { Button, Card, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
 import { env } from "~/env.server";
+import { getViewer } from "~/lib/guards.server";
 import { clientAddress } from "~/services/auth/client-address.server";
 import { authEnv } from "~/services/auth/config.server";
 import { sendSignInLink } from "~/services/auth/email-link.server";
 import { safeNext } from "~/services/auth/oidc.server";
 import { recordSignInAttempt } from "~/services/auth/rate-limit.server";
-import { getViewer } from "~/services/auth.server";
 import type { Route } from "./+types/sign-in";
 
 const EmailLinkSchema = v.object({

@@ -1,7 +1,7 @@
 import { redirect } from "react-router";
 import { database } from "~/db/client.server";
+import { getViewer } from "~/lib/guards.server";
 import { clearSessionCookieHeader, revokeSession } from "~/services/auth/sessions.server";
-import { getViewer } from "~/services/auth.server";
 import type { Route } from "./+types/sign-out";
 
 export async function loader(_: Route.LoaderArgs) {

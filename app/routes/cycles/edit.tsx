@@ -4,11 +4,11 @@ import { CycleForm } from "~/components/cycles/CycleForm";
 import { ErrorPage } from "~/components/ErrorPage";
 import { PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
-import { configurationChoices } from "~/services/configurations.server";
-import { cycleFormValues, parseCycleForm, toUtcInput } from "~/services/cycle-form";
-import { findCycleByName, getCycle, updateCycle } from "~/services/cycles.server";
 import { redirectWithFlash } from "~/lib/flash.server";
+import { requirePermission } from "~/lib/guards.server";
+import { configurationChoices } from "~/services/cycles/configurations.server";
+import { findCycleByName, getCycle, updateCycle } from "~/services/cycles/cycles.server";
+import { cycleFormValues, parseCycleForm, toUtcInput } from "~/services/cycles/form";
 import type { Route } from "./+types/edit";
 
 const CycleId = v.pipe(v.string(), v.regex(/^\d{1,9}$/), v.transform(Number));

@@ -1,8 +1,8 @@
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, type BadgeTone, ButtonLink, Card, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requireUser } from "~/services/auth.server";
-import { cyclePhase, listCycles } from "~/services/cycles.server";
+import { requireUser } from "~/lib/guards.server";
+import { cyclePhase, listCycles } from "~/services/cycles/cycles.server";
 import type { Route } from "./+types/index";
 
 export async function loader({ request }: Route.LoaderArgs) {

@@ -3,11 +3,11 @@ import { CycleForm } from "~/components/cycles/CycleForm";
 import { ErrorPage } from "~/components/ErrorPage";
 import { PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
-import { configurationChoices } from "~/services/configurations.server";
-import { type CycleFormValues, cycleFormValues, parseCycleForm } from "~/services/cycle-form";
-import { createCycle, findCycleByName } from "~/services/cycles.server";
 import { redirectWithFlash } from "~/lib/flash.server";
+import { requirePermission } from "~/lib/guards.server";
+import { configurationChoices } from "~/services/cycles/configurations.server";
+import { createCycle, findCycleByName } from "~/services/cycles/cycles.server";
+import { type CycleFormValues, cycleFormValues, parseCycleForm } from "~/services/cycles/form";
 import type { Route } from "./+types/new";
 
 export async function loader({ request }: Route.LoaderArgs) {

@@ -13,7 +13,7 @@ import {
   TextField,
 } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requireMailboxReader } from "~/services/auth.server";
+import { requireMailboxReader } from "~/lib/guards.server";
 import { listMessages, type MailStatus, mailStatus, parseMailboxQuery, utcText } from "~/services/mail/mailbox.server";
 import type { Route } from "./+types/index";
 

@@ -3,7 +3,7 @@ import { data, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, ButtonLink, Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requireMailboxReader } from "~/services/auth.server";
+import { requireMailboxReader } from "~/lib/guards.server";
 import { getMessage, mailStatus, parseMessageId, utcText } from "~/services/mail/mailbox.server";
 import type { Route } from "./+types/message";
 

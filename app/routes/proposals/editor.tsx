@@ -18,11 +18,11 @@ import {
 import { database } from "~/db/client.server";
 import { SCIENCE_CATEGORIES } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
-import { requirePermission } from "~/services/auth.server";
-import { describeModel } from "~/services/describe-model";
 import { redirectWithFlash } from "~/lib/flash.server";
+import { requirePermission } from "~/lib/guards.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
-import { formatBytes, MAX_PDF_BYTES } from "~/services/pdf";
+import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/access.server";
+import { formatBytes, MAX_PDF_BYTES } from "~/services/proposals/pdf";
 import {
   addCoInvestigator,
   addTargetFromMine,
@@ -43,9 +43,9 @@ import {
   submitProposal,
   uploadScienceCase,
   withdrawProposal,
-} from "~/services/proposals.server";
-import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals-access.server";
-import { isMultipart, readFormCapped, readMultipartCapped } from "~/services/proposals-upload.server";
+} from "~/services/proposals/proposals.server";
+import { isMultipart, readFormCapped, readMultipartCapped } from "~/services/proposals/upload.server";
+import { describeModel } from "~/services/targets/describe-model";
 import type { Route } from "./+types/editor";
 import { countWords, describeMagnitudes, fmtUtc, StatusBadge, type StatusKey } from "./parts";
 

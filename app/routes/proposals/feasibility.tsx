@@ -3,11 +3,11 @@ import { Await, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import { ButtonLink, Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
-import type { FeasibilityReport } from "~/services/feasibility";
-import { computeProposalFeasibility, frozenFeasibility } from "~/services/feasibility.server";
-import { STATUS_WORDS } from "~/services/proposals.server";
-import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals-access.server";
+import { requirePermission } from "~/lib/guards.server";
+import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/access.server";
+import type { FeasibilityReport } from "~/services/proposals/feasibility";
+import { computeProposalFeasibility, frozenFeasibility } from "~/services/proposals/feasibility.server";
+import { STATUS_WORDS } from "~/services/proposals/proposals.server";
 import type { Route } from "./+types/feasibility";
 import { FeasibilityView, StatusBadge, type StatusKey } from "./parts";
 

@@ -2,9 +2,9 @@ import { Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import { ButtonLink, Card, type Column, DataTable, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
-import { openCycles } from "~/services/cycles.server";
-import { deadlineCountdown, listMyProposals, STATUS_WORDS } from "~/services/proposals.server";
+import { requirePermission } from "~/lib/guards.server";
+import { openCycles } from "~/services/cycles/cycles.server";
+import { deadlineCountdown, listMyProposals, STATUS_WORDS } from "~/services/proposals/proposals.server";
 import type { Route } from "./+types/list";
 import { fmtUtc, StatusBadge, type StatusKey } from "./parts";
 

@@ -3,16 +3,16 @@ import * as v from "valibot";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Button, ButtonLink, Card, EmptyState, FormErrors, PageHeader, SelectField, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
-import { openCycles } from "~/services/cycles.server";
 import { redirectWithFlash } from "~/lib/flash.server";
+import { requirePermission } from "~/lib/guards.server";
+import { openCycles } from "~/services/cycles/cycles.server";
 import {
   createProposal,
   deadlineCountdown,
   formatUtc,
   PROPOSAL_LIMITS,
   ProposalRefusal,
-} from "~/services/proposals.server";
+} from "~/services/proposals/proposals.server";
 import type { Route } from "./+types/new";
 
 const NewProposalSchema = v.object({

@@ -1,7 +1,7 @@
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
-import { readScienceCase } from "~/services/proposals.server";
-import { loadProposalForViewer, proposalIdFrom, proposalNotFound } from "~/services/proposals-access.server";
+import { requirePermission } from "~/lib/guards.server";
+import { loadProposalForViewer, proposalIdFrom, proposalNotFound } from "~/services/proposals/access.server";
+import { readScienceCase } from "~/services/proposals/proposals.server";
 import type { Route } from "./+types/science-case";
 
 /**

@@ -7,15 +7,15 @@ import { Button, ButtonLink, Card, FormErrors, PageHeader, TextArea, TextField }
 import { database } from "~/db/client.server";
 import { sites } from "~/db/schema/array";
 import { type CalibratorJson, proposalTargets, type TimeWindowJson } from "~/db/schema/proposals";
-import { requirePermission } from "~/services/auth.server";
 import { formatDeclination, formatRightAscension, parseDeclination, parseRightAscension } from "~/lib/coordinates";
-import { describeModel } from "~/services/describe-model";
 import { redirectWithFlash } from "~/lib/flash.server";
-import { PROPOSAL_LIMITS, ProposalRefusal, saveTarget } from "~/services/proposals.server";
-import { loadProposalForViewer, proposalIdFrom, proposalNotFound } from "~/services/proposals-access.server";
-import { readFormCapped } from "~/services/proposals-upload.server";
-import { readTargetForm, targetFormValues, valuesOfTarget } from "~/services/target-form.server";
-import { bandNames } from "~/services/targets.server";
+import { requirePermission } from "~/lib/guards.server";
+import { loadProposalForViewer, proposalIdFrom, proposalNotFound } from "~/services/proposals/access.server";
+import { PROPOSAL_LIMITS, ProposalRefusal, saveTarget } from "~/services/proposals/proposals.server";
+import { readFormCapped } from "~/services/proposals/upload.server";
+import { describeModel } from "~/services/targets/describe-model";
+import { readTargetForm, targetFormValues, valuesOfTarget } from "~/services/targets/form.server";
+import { bandNames } from "~/services/targets/targets.server";
 import type { Route } from "./+types/target";
 
 const L = PROPOSAL_LIMITS;

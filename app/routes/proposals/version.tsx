@@ -2,10 +2,10 @@ import { data, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, ButtonLink, Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
-import { describeModel } from "~/services/describe-model";
-import { formatBytes, readVersion } from "~/services/proposals.server";
-import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals-access.server";
+import { requirePermission } from "~/lib/guards.server";
+import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/access.server";
+import { formatBytes, readVersion } from "~/services/proposals/proposals.server";
+import { describeModel } from "~/services/targets/describe-model";
 import type { Route } from "./+types/version";
 import { describeMagnitudes, FeasibilityView, fmtUtc } from "./parts";
 

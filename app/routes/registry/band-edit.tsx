@@ -5,8 +5,8 @@ import { BAND_FIELDS, BAND_LABELS, BandFields, DeleteCard, EditForm } from "~/co
 import { registryPaths } from "~/components/registry/paths";
 import { Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
+import { requirePermission } from "~/lib/guards.server";
 import {
   bandNameTaken,
   deleteBand,
@@ -16,8 +16,8 @@ import {
   pgCode,
   readEditForm,
   updateBand,
-} from "~/services/registry-admin.server";
-import { BandFormSchema, fieldErrors, metresToMicrons, micronsToMetres } from "~/services/registry-io";
+} from "~/services/registry/admin.server";
+import { BandFormSchema, fieldErrors, metresToMicrons, micronsToMetres } from "~/services/registry/io";
 import type { Route } from "./+types/band-edit";
 
 async function bandOr404(params: { bandId?: string }) {

@@ -5,8 +5,8 @@ import { BAND_FIELDS, BAND_LABELS, BandFields, EditForm } from "~/components/reg
 import { registryPaths } from "~/components/registry/paths";
 import { Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
+import { requirePermission } from "~/lib/guards.server";
 import {
   bandNameTaken,
   createBand,
@@ -14,8 +14,8 @@ import {
   instrumentOr404,
   pgCode,
   readForm,
-} from "~/services/registry-admin.server";
-import { BandFormSchema, fieldErrors, micronsToMetres } from "~/services/registry-io";
+} from "~/services/registry/admin.server";
+import { BandFormSchema, fieldErrors, micronsToMetres } from "~/services/registry/io";
 import type { Route } from "./+types/band-new";
 
 export async function loader({ request, params }: Route.LoaderArgs) {

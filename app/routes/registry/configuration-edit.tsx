@@ -11,9 +11,8 @@ import {
 import { registryPaths } from "~/components/registry/paths";
 import { Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
-import { loadSiteRegistry } from "~/services/registry.server";
+import { requirePermission } from "~/lib/guards.server";
 import {
   configurationNameTaken,
   deleteConfiguration,
@@ -25,8 +24,9 @@ import {
   readEditForm,
   saveConfiguration,
   widestInstrument,
-} from "~/services/registry-admin.server";
-import { ConfigurationSchema, fieldErrors } from "~/services/registry-io";
+} from "~/services/registry/admin.server";
+import { ConfigurationSchema, fieldErrors } from "~/services/registry/io";
+import { loadSiteRegistry } from "~/services/registry/queries.server";
 import type { Route } from "./+types/configuration-edit";
 
 async function configurationOr404(params: { configurationId?: string }) {

@@ -5,9 +5,8 @@ import { CONFIGURATION_FIELDS, CONFIGURATION_LABELS, ConfigurationFields, EditFo
 import { registryPaths } from "~/components/registry/paths";
 import { ButtonLink, Card, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
-import { loadSiteRegistry } from "~/services/registry.server";
+import { requirePermission } from "~/lib/guards.server";
 import {
   configurationNameTaken,
   formValues,
@@ -18,8 +17,9 @@ import {
   saveConfiguration,
   toId,
   widestInstrument,
-} from "~/services/registry-admin.server";
-import { ConfigurationSchema, fieldErrors } from "~/services/registry-io";
+} from "~/services/registry/admin.server";
+import { ConfigurationSchema, fieldErrors } from "~/services/registry/io";
+import { loadSiteRegistry } from "~/services/registry/queries.server";
 import type { Route } from "./+types/configuration-new";
 
 export async function loader({ request, url }: Route.LoaderArgs) {

@@ -6,9 +6,8 @@ import { RegistryPreview, StationPreview } from "~/components/registry/ImportPre
 import { registryPaths } from "~/components/registry/paths";
 import { Button, Card, PageHeader, SelectField, TextArea } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
-import { listSites } from "~/services/registry.server";
+import { requirePermission } from "~/lib/guards.server";
 import {
   applyRegistryPlan,
   applyStationPlan,
@@ -20,7 +19,7 @@ import {
   resolveSite,
   stationUsage,
   toId,
-} from "~/services/registry-admin.server";
+} from "~/services/registry/admin.server";
 import {
   type Change,
   decodeUpload,
@@ -34,7 +33,8 @@ import {
   type RegistryPlan,
   STATION_COLUMNS,
   type StationPlan,
-} from "~/services/registry-io";
+} from "~/services/registry/io";
+import { listSites } from "~/services/registry/queries.server";
 import type { Route } from "./+types/import";
 
 const Kind = v.picklist(["stations", "registry"], "Choose what the file holds: stations, or the whole registry.");

@@ -11,8 +11,8 @@ import {
 import { registryPaths } from "~/components/registry/paths";
 import { ButtonLink, Card, type Column, DataTable, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
+import { requirePermission } from "~/lib/guards.server";
 import {
   deleteInstrument,
   formValues,
@@ -23,8 +23,8 @@ import {
   pgCode,
   readEditForm,
   updateInstrument,
-} from "~/services/registry-admin.server";
-import { fieldErrors, InstrumentSchema, metresToMicrons } from "~/services/registry-io";
+} from "~/services/registry/admin.server";
+import { fieldErrors, InstrumentSchema, metresToMicrons } from "~/services/registry/io";
 import type { Route } from "./+types/instrument-edit";
 
 export async function loader({ request, params }: Route.LoaderArgs) {

@@ -5,8 +5,8 @@ import { EditForm, INSTRUMENT_FIELDS, INSTRUMENT_LABELS, InstrumentFields } from
 import { registryPaths } from "~/components/registry/paths";
 import { ButtonLink, Card, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
+import { requirePermission } from "~/lib/guards.server";
 import {
   createInstrument,
   formValues,
@@ -16,8 +16,8 @@ import {
   readForm,
   resolveSite,
   toId,
-} from "~/services/registry-admin.server";
-import { fieldErrors, InstrumentSchema } from "~/services/registry-io";
+} from "~/services/registry/admin.server";
+import { fieldErrors, InstrumentSchema } from "~/services/registry/io";
 import type { Route } from "./+types/instrument-new";
 
 export async function loader({ request, url }: Route.LoaderArgs) {

@@ -4,9 +4,9 @@ import { registryPaths } from "~/components/registry/paths";
 import { StationMap } from "~/components/registry/StationMap";
 import { Badge, ButtonLink, Card, type Column, DataTable, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { getViewer } from "~/services/auth.server";
-import { cyclesOfferingConfigurations } from "~/services/cycles.server";
-import { listSites, loadSiteRegistry, type SiteRegistry } from "~/services/registry.server";
+import { getViewer } from "~/lib/guards.server";
+import { cyclesOfferingConfigurations } from "~/services/cycles/cycles.server";
+import { listSites, loadSiteRegistry, type SiteRegistry } from "~/services/registry/queries.server";
 import type { Route } from "./+types/overview";
 
 export async function loader({ request, url }: Route.LoaderArgs) {

@@ -5,8 +5,8 @@ import { DeleteCard, EditForm, SITE_FIELDS, SITE_LABELS, SiteFields } from "~/co
 import { registryPaths } from "~/components/registry/paths";
 import { Card, PageHeader, TextField } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
+import { requirePermission } from "~/lib/guards.server";
 import {
   deleteSite,
   formValues,
@@ -17,8 +17,8 @@ import {
   siteContents,
   siteNameTaken,
   updateSite,
-} from "~/services/registry-admin.server";
-import { fieldErrors, SiteSchema, sentence } from "~/services/registry-io";
+} from "~/services/registry/admin.server";
+import { fieldErrors, SiteSchema, sentence } from "~/services/registry/io";
 import type { Route } from "./+types/site-edit";
 
 export async function loader({ request, params }: Route.LoaderArgs) {

@@ -5,10 +5,10 @@ import { EditForm, SITE_FIELDS, SITE_LABELS, SiteFields } from "~/components/reg
 import { registryPaths } from "~/components/registry/paths";
 import { Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
-import { createSite, formValues, pgCode, readForm, siteNameTaken } from "~/services/registry-admin.server";
-import { fieldErrors, SiteSchema } from "~/services/registry-io";
+import { requirePermission } from "~/lib/guards.server";
+import { createSite, formValues, pgCode, readForm, siteNameTaken } from "~/services/registry/admin.server";
+import { fieldErrors, SiteSchema } from "~/services/registry/io";
 import type { Route } from "./+types/site-new";
 
 export async function loader({ request }: Route.LoaderArgs) {

@@ -5,9 +5,8 @@ import { DeleteCard, EditForm, STATION_FIELDS, STATION_LABELS, StationFields } f
 import { registryPaths } from "~/components/registry/paths";
 import { Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
-import { loadSiteRegistry } from "~/services/registry.server";
+import { requirePermission } from "~/lib/guards.server";
 import {
   configurationsUsingStation,
   deleteStation,
@@ -19,8 +18,9 @@ import {
   readEditForm,
   stationNameTaken,
   updateStation,
-} from "~/services/registry-admin.server";
-import { fieldErrors, StationSchema } from "~/services/registry-io";
+} from "~/services/registry/admin.server";
+import { fieldErrors, StationSchema } from "~/services/registry/io";
+import { loadSiteRegistry } from "~/services/registry/queries.server";
 import type { Route } from "./+types/station-edit";
 
 async function stationOr404(params: { stationId?: string }) {

@@ -5,9 +5,8 @@ import { EditForm, STATION_FIELDS, STATION_LABELS, StationFields } from "~/compo
 import { registryPaths } from "~/components/registry/paths";
 import { ButtonLink, Card, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
-import { loadSiteRegistry } from "~/services/registry.server";
+import { requirePermission } from "~/lib/guards.server";
 import {
   createStation,
   formValues,
@@ -17,8 +16,9 @@ import {
   resolveSite,
   stationNameTaken,
   toId,
-} from "~/services/registry-admin.server";
-import { fieldErrors, StationSchema } from "~/services/registry-io";
+} from "~/services/registry/admin.server";
+import { fieldErrors, StationSchema } from "~/services/registry/io";
+import { loadSiteRegistry } from "~/services/registry/queries.server";
 import type { Route } from "./+types/station-new";
 
 export async function loader({ request, url }: Route.LoaderArgs) {

@@ -4,9 +4,9 @@ import { registryPaths } from "~/components/registry/paths";
 import { StationMap } from "~/components/registry/StationMap";
 import { Badge, ButtonLink, Card, type Column, DataTable, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { getViewer } from "~/services/auth.server";
-import { loadSiteRegistry, stationSiteId } from "~/services/registry.server";
-import { idParam } from "~/services/registry-admin.server";
+import { getViewer } from "~/lib/guards.server";
+import { idParam } from "~/services/registry/admin.server";
+import { loadSiteRegistry, stationSiteId } from "~/services/registry/queries.server";
 import type { Route } from "./+types/station";
 
 export async function loader({ request, params }: Route.LoaderArgs) {

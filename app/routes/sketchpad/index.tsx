@@ -2,8 +2,8 @@ import { ErrorPage } from "~/components/ErrorPage";
 import { sketchShouldRevalidate } from "~/components/sketch/revalidate";
 import { Sketchpad } from "~/components/sketch/Sketchpad";
 import { EmptyState, PageHeader } from "~/components/ui";
-import { requirePermission } from "~/services/auth.server";
-import { loadSketchPage } from "~/services/sketch-registry.server";
+import { requirePermission } from "~/lib/guards.server";
+import { loadSketchPage } from "~/services/sketch/page.server";
 import type { Route } from "./+types/index";
 
 export async function loader({ request, url }: Route.LoaderArgs) {

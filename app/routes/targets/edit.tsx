@@ -4,10 +4,10 @@ import { ErrorPage } from "~/components/ErrorPage";
 import { TargetForm } from "~/components/targets/TargetForm";
 import { Button, Card, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { redirectWithFlash } from "~/lib/flash.server";
-import { readTargetForm, targetFormValues, valuesOfTarget } from "~/services/target-form.server";
-import { bandNames, deleteTarget, getTarget, nameTaken, updateTarget } from "~/services/targets.server";
+import { requirePermission } from "~/lib/guards.server";
+import { readTargetForm, targetFormValues, valuesOfTarget } from "~/services/targets/form.server";
+import { bandNames, deleteTarget, getTarget, nameTaken, updateTarget } from "~/services/targets/targets.server";
 import type { Route } from "./+types/edit";
 
 const TargetId = v.pipe(v.string(), v.regex(/^\d{1,9}$/), v.transform(Number));

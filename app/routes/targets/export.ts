@@ -1,7 +1,7 @@
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
-import { targetsToCsv } from "~/services/target-io";
-import { listTargets } from "~/services/targets.server";
+import { requirePermission } from "~/lib/guards.server";
+import { targetsToCsv } from "~/services/targets/csv";
+import { listTargets } from "~/services/targets/targets.server";
 import type { Route } from "./+types/export";
 
 /** My targets as CSV, in the columns the import reads. */

@@ -2,13 +2,13 @@ import { data, Form, Link, useNavigation } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, Button, Card, type Column, DataTable, PageHeader, TextArea } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
-import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
-import { describeModel } from "~/services/describe-model";
-import { redirectWithFlash } from "~/lib/flash.server";
 import { parseForm, readBodyCapped } from "~/lib/body.server";
-import { MAX_TARGET_CSV_BYTES, parseTargetCsv, type RowError } from "~/services/target-io";
-import { importTargets, targetNames } from "~/services/targets.server";
+import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
+import { redirectWithFlash } from "~/lib/flash.server";
+import { requirePermission } from "~/lib/guards.server";
+import { MAX_TARGET_CSV_BYTES, parseTargetCsv, type RowError } from "~/services/targets/csv";
+import { describeModel } from "~/services/targets/describe-model";
+import { importTargets, targetNames } from "~/services/targets/targets.server";
 import type { Route } from "./+types/import";
 
 /** Room for the form fields around the file itself. */

@@ -3,12 +3,12 @@ import { ErrorPage } from "~/components/ErrorPage";
 import { TargetForm } from "~/components/targets/TargetForm";
 import { ButtonLink, Card, type Column, DataTable, EmptyState, PageHeader } from "~/components/ui";
 import { database } from "~/db/client.server";
-import { requirePermission } from "~/services/auth.server";
 import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
-import { describeModel } from "~/services/describe-model";
 import { redirectWithFlash } from "~/lib/flash.server";
-import { readTargetForm, targetFormValues } from "~/services/target-form.server";
-import { bandNames, createTarget, listTargets, nameTaken } from "~/services/targets.server";
+import { requirePermission } from "~/lib/guards.server";
+import { describeModel } from "~/services/targets/describe-model";
+import { readTargetForm, targetFormValues } from "~/services/targets/form.server";
+import { bandNames, createTarget, listTargets, nameTaken } from "~/services/targets/targets.server";
 import type { Route } from "./+types/index";
 
 export async function loader({ request }: Route.LoaderArgs) {

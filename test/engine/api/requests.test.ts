@@ -1,6 +1,6 @@
+import { goodCoverageRequest as good } from "@test/coverage-request";
 import { describe, expect, it } from "vitest";
 import { parseCoverageRequest, parseEphemerisRequest, parseTrianglesRequest } from "~/engine";
-import { goodCoverageRequest as good } from "@test/coverage-request";
 
 function failure(mutate: (r: Record<string, any>) => void) {
   const r = good();

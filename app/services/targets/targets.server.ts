@@ -3,7 +3,7 @@ import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
 import { bands } from "~/db/schema/array";
 import { targets } from "~/db/schema/proposals";
-import type { ImportedTarget } from "./target-io";
+import type { ImportedTarget } from "~/services/targets/csv";
 
 type TargetValues = Omit<ImportedTarget, "row">;
 

@@ -6,7 +6,7 @@
  */
 
 import { parseForm, readBodyCapped } from "~/lib/body.server";
-import { formatBytes, MAX_PDF_BYTES } from "./pdf";
+import { formatBytes, MAX_PDF_BYTES } from "~/services/proposals/pdf";
 
 /** Room for the multipart boundaries, part headers and the small text fields beside the file. */
 export const MULTIPART_OVERHEAD_BYTES = 64 * 1024;

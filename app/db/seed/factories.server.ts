@@ -3,9 +3,11 @@
  * twice (idempotent by natural key), so `npm run db:seed` can be repeated.
  */
 import { and, eq, sql } from "drizzle-orm";
-import { ensureCycle } from "~/services/cycles.server";
-import { ensureDemoProposals } from "~/services/proposals-seed.server";
-import type { Database } from "./client.server";
+import type { Database } from "../client.server";
+import { bands, configurationStations, configurations, instruments, sites, stations } from "../schema/array";
+import { type Role, userRoles, users } from "../schema/users";
+import { ensureCycle } from "./cycles.server";
+import { ensureDemoProposals } from "./proposals.server";
 import {
   DEMO_CONFIGURATIONS,
   DEMO_CYCLE,
@@ -16,9 +18,7 @@ import {
   DEMO_STATIONS,
   type DemoBand,
   type DemoStation,
-} from "./demo-scenario";
-import { bands, configurationStations, configurations, instruments, sites, stations } from "./schema/array";
-import { type Role, userRoles, users } from "./schema/users";
+} from "./scenario";
 
 type SiteInput = typeof sites.$inferInsert;
 

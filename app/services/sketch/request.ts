@@ -27,7 +27,7 @@ import {
   PARAM_INFO,
   type SketchState,
   type TriangleState,
-} from "./sketch-state";
+} from "~/services/sketch/state";
 
 /** The parts of the array registry the builders need (a subset of the registry loader's data). */
 export interface RegistryLike {

@@ -9,7 +9,6 @@ import * as v from "valibot";
 import type { Database, Transaction } from "~/db/client.server";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "~/db/schema/array";
 import { parseForm, readBodyCapped } from "~/lib/body.server";
-import { loadSiteRegistry } from "./registry.server";
 import type {
   BandRecord,
   ConfigurationRecord,
@@ -19,7 +18,8 @@ import type {
   SiteRecord,
   StationPlan,
   StationRecord,
-} from "./registry-io";
+} from "~/services/registry/io";
+import { loadSiteRegistry } from "~/services/registry/queries.server";
 
 type Tx = Transaction;
 type Db = Database | Tx;

@@ -1,7 +1,7 @@
 /** Shared by the target pages: reading the target form and showing a stored target in it. */
 import type { targets } from "~/db/schema/proposals";
 import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
-import { type ImportedTarget, readTargetCells } from "./target-io";
+import { type ImportedTarget, readTargetCells } from "~/services/targets/csv";
 
 export const TARGET_FIELDS = [
   "name",

@@ -5,12 +5,12 @@
  */
 import { data } from "react-router";
 import { type Database, database } from "~/db/client.server";
-import type { Viewer } from "./auth.server";
-import { listSites, loadSiteRegistry } from "./registry.server";
-import { nextNightDate } from "./sketch-night";
-import type { SketchRegistry } from "./sketch-request";
-import type { SavedTarget, StateDefaults } from "./sketch-state";
-import { listTargets } from "./targets.server";
+import type { Viewer } from "~/lib/guards.server";
+import { listSites, loadSiteRegistry } from "~/services/registry/queries.server";
+import { nextNightDate } from "~/services/sketch/night";
+import type { SketchRegistry } from "~/services/sketch/request";
+import type { SavedTarget, StateDefaults } from "~/services/sketch/state";
+import { listTargets } from "~/services/targets/targets.server";
 
 export async function loadSketchRegistry(db: Database, siteName: string | null, now = new Date()) {
   const sites = await listSites(db);

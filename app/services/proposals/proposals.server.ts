@@ -31,17 +31,17 @@ import { CoInvestigatorAddedEmail } from "~/emails/CoInvestigatorAddedEmail";
 import { ProposalSubmittedEmail } from "~/emails/ProposalSubmittedEmail";
 import { ProposalWithdrawnEmail } from "~/emails/ProposalWithdrawnEmail";
 import { env } from "~/env.server";
-import { computeFeasibility, type FeasibilityReport } from "./feasibility";
-import { loadFeasibilityInput } from "./feasibility.server";
-import { enqueueMail } from "./mail/outbox.server";
-import { checkPdf, formatBytes } from "./pdf";
+import { enqueueMail } from "~/services/mail/outbox.server";
 import {
   abilitiesFor,
   onTeamCondition,
   type ProposalAbilities,
   type ProposalViewer,
   proposalNotFound,
-} from "./proposals-access.server";
+} from "~/services/proposals/access.server";
+import { computeFeasibility, type FeasibilityReport } from "~/services/proposals/feasibility";
+import { loadFeasibilityInput } from "~/services/proposals/feasibility.server";
+import { checkPdf, formatBytes } from "~/services/proposals/pdf";
 
 // ---------------------------------------------------------------- limits
 

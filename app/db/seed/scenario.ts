@@ -2,7 +2,7 @@
  * The invented demo scenario: the Sierra Lumbre Array, its instruments and the demo people.
  * Pure data (no database access) so the seed, the tests and the docs share one source.
  */
-import type { Role } from "./schema/users";
+import type { Role } from "../schema/users";
 
 export const DEMO_SITE = {
   name: "Sierra Lumbre Array",

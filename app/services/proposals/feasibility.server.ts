@@ -8,7 +8,7 @@ import { and, asc, eq, inArray } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "~/db/schema/array";
 import { cycles, proposalHours, proposals, proposalTargets, proposalVersions } from "~/db/schema/proposals";
-import { computeFeasibility, type FeasibilityInput, type FeasibilityReport } from "./feasibility";
+import { computeFeasibility, type FeasibilityInput, type FeasibilityReport } from "~/services/proposals/feasibility";
 
 /** The inputs of the report for a proposal (the caller has checked who may see it). */
 export async function loadFeasibilityInput(db: DbOrTx, proposalId: number): Promise<FeasibilityInput> {

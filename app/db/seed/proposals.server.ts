@@ -1,12 +1,11 @@
 /**
- * The demo proposals of app/db/demo-scenario.ts written into a cycle: idempotent by (cycle, PI,
+ * The demo proposals of app/db/seed/scenario.ts written into a cycle: idempotent by (cycle, PI,
  * title), so the seed can run again. Everything past draft gets version 1 frozen exactly as a
  * real submission would (snapshot, feasibility report computed by the engine, PDF bytes); the
  * seed writes no notices.
  */
 import { and, eq, sql } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
-import type { DemoProposal } from "~/db/demo-scenario";
 import { bands, configurations, instruments } from "~/db/schema/array";
 import {
   cycles,
@@ -17,8 +16,9 @@ import {
   proposalTargets,
 } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
-import { makeTinyPdf } from "./pdf";
-import { freezeVersion, sha256Hex } from "./proposals.server";
+import { makeTinyPdf } from "~/services/proposals/pdf";
+import { freezeVersion, sha256Hex } from "~/services/proposals/proposals.server";
+import type { DemoProposal } from "./scenario";
 
 /** Writes the demo proposals that are missing; returns how many the cycle now holds from the list. */
 export async function ensureDemoProposals(db: Database, cycleId: number, list: readonly DemoProposal[]) {

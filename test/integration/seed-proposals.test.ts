@@ -1,7 +1,6 @@
+import { testDb } from "@test/routes";
 import { asc, eq, sql } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
-import { DEMO_PROPOSALS } from "~/db/demo-scenario";
-import { seedDemoScenario } from "~/db/factories.server";
 import {
   PROPOSAL_STATUSES,
   proposalDocuments,
@@ -9,9 +8,10 @@ import {
   proposals,
   proposalVersions,
 } from "~/db/schema/proposals";
-import { checkPdf } from "~/services/pdf";
-import { type ProposalSnapshot, sha256Hex } from "~/services/proposals.server";
-import { testDb } from "@test/routes";
+import { seedDemoScenario } from "~/db/seed/factories.server";
+import { DEMO_PROPOSALS } from "~/db/seed/scenario";
+import { checkPdf } from "~/services/proposals/pdf";
+import { type ProposalSnapshot, sha256Hex } from "~/services/proposals/proposals.server";
 
 describe("demo proposals in the seed", () => {
   it("writes a dozen proposals in every status, with frozen versions past draft, and is idempotent", async () => {

@@ -7,10 +7,10 @@ import { data, redirect } from "react-router";
 import { database } from "~/db/client.server";
 import type { Role } from "~/db/schema/users";
 import { env } from "~/env.server";
-import { rolesOf } from "./auth/accounts.server";
-import { authenticateApiToken } from "./auth/api-tokens.server";
-import { SESSION_COOKIE } from "./auth/config.server";
-import { readCookie, validateSessionToken } from "./auth/sessions.server";
+import { rolesOf } from "~/services/auth/accounts.server";
+import { authenticateApiToken } from "~/services/auth/api-tokens.server";
+import { SESSION_COOKIE } from "~/services/auth/config.server";
+import { readCookie, validateSessionToken } from "~/services/auth/sessions.server";
 import { type Permission, permissionsFor } from "./permissions";
 
 export type Viewer = {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { ROLES } from "~/db/schema/users";
-import { can, permissionsFor, ROLE_PERMISSIONS, sectionsFor } from "~/services/permissions";
+import { can, permissionsFor, ROLE_PERMISSIONS, sectionsFor } from "~/lib/permissions";
 
 describe("permissions", () => {
   it("covers every role", () => {
