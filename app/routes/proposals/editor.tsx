@@ -45,7 +45,7 @@ import {
   withdrawProposal,
 } from "~/services/proposals/proposals.server";
 import { isMultipart, readFormCapped, readMultipartCapped } from "~/services/proposals/upload.server";
-import { describeModel } from "~/services/targets/describe-model";
+import { describeModel } from "~/components/targets/describe-model";
 import type { Route } from "./+types/editor";
 import { countWords, describeMagnitudes, fmtUtc, StatusBadge, type StatusKey } from "./parts";
 

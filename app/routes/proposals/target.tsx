@@ -13,7 +13,7 @@ import { requirePermission } from "~/lib/guards.server";
 import { loadProposalForViewer, proposalIdFrom, proposalNotFound } from "~/services/proposals/access.server";
 import { PROPOSAL_LIMITS, ProposalRefusal, saveTarget } from "~/services/proposals/proposals.server";
 import { readFormCapped } from "~/services/proposals/upload.server";
-import { describeModel } from "~/services/targets/describe-model";
+import { describeModel } from "~/components/targets/describe-model";
 import { readTargetForm, targetFormValues, valuesOfTarget } from "~/services/targets/form.server";
 import { bandNames } from "~/services/targets/targets.server";
 import type { Route } from "./+types/target";

@@ -5,7 +5,7 @@ import { database } from "~/db/client.server";
 import { requirePermission } from "~/lib/guards.server";
 import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/access.server";
 import { formatBytes, readVersion } from "~/services/proposals/proposals.server";
-import { describeModel } from "~/services/targets/describe-model";
+import { describeModel } from "~/components/targets/describe-model";
 import type { Route } from "./+types/version";
 import { describeMagnitudes, FeasibilityView, fmtUtc } from "./parts";
 

@@ -7,7 +7,7 @@ import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
 import { redirectWithFlash } from "~/lib/flash.server";
 import { requirePermission } from "~/lib/guards.server";
 import { MAX_TARGET_CSV_BYTES, parseTargetCsv, type RowError } from "~/services/targets/csv";
-import { describeModel } from "~/services/targets/describe-model";
+import { describeModel } from "~/components/targets/describe-model";
 import { importTargets, targetNames } from "~/services/targets/targets.server";
 import type { Route } from "./+types/import";
 

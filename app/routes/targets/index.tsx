@@ -6,7 +6,7 @@ import { database } from "~/db/client.server";
 import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
 import { redirectWithFlash } from "~/lib/flash.server";
 import { requirePermission } from "~/lib/guards.server";
-import { describeModel } from "~/services/targets/describe-model";
+import { describeModel } from "~/components/targets/describe-model";
 import { readTargetForm, targetFormValues } from "~/services/targets/form.server";
 import { bandNames, createTarget, listTargets, nameTaken } from "~/services/targets/targets.server";
 import type { Route } from "./+types/index";
