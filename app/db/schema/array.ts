@@ -1,5 +1,5 @@
 import { boolean, doublePrecision, integer, pgTable, primaryKey, serial, text, uniqueIndex } from "drizzle-orm/pg-core";
-import { timestamps } from "./columns";
+import { refTo, timestamps } from "./columns";
 
 /**
  * The array registry: one or more sites, each with its stations, the named station sets
@@ -30,9 +30,7 @@ export const stations = pgTable(
   "stations",
   {
     id: serial("id").primaryKey(),
-    siteId: integer("site_id")
-      .notNull()
-      .references(() => sites.id, { onDelete: "cascade" }),
+    siteId: refTo(() => sites.id),
     name: text("name").notNull(),
     /** Local east, north, up from the array reference point, metres. */
     eastM: doublePrecision("east_m").notNull(),
@@ -49,9 +47,7 @@ export const configurations = pgTable(
   "configurations",
   {
     id: serial("id").primaryKey(),
-    siteId: integer("site_id")
-      .notNull()
-      .references(() => sites.id, { onDelete: "cascade" }),
+    siteId: refTo(() => sites.id),
     name: text("name").notNull(),
     description: text("description").notNull().default(""),
     /** Whether proposers may currently request this configuration. */
@@ -64,12 +60,8 @@ export const configurations = pgTable(
 export const configurationStations = pgTable(
   "configuration_stations",
   {
-    configurationId: integer("configuration_id")
-      .notNull()
-      .references(() => configurations.id, { onDelete: "cascade" }),
-    stationId: integer("station_id")
-      .notNull()
-      .references(() => stations.id, { onDelete: "restrict" }),
+    configurationId: refTo(() => configurations.id),
+    stationId: refTo(() => stations.id, "restrict"),
     /** Order of the station in the configuration (baseline i–j is station j minus station i). */
     position: integer("position").notNull(),
   },
@@ -80,9 +72,7 @@ export const instruments = pgTable(
   "instruments",
   {
     id: serial("id").primaryKey(),
-    siteId: integer("site_id")
-      .notNull()
-      .references(() => sites.id, { onDelete: "cascade" }),
+    siteId: refTo(() => sites.id),
     name: text("name").notNull(),
     description: text("description").notNull().default(""),
     /** Number of telescopes the combiner can take at once. */
@@ -96,9 +86,7 @@ export const bands = pgTable(
   "bands",
   {
     id: serial("id").primaryKey(),
-    instrumentId: integer("instrument_id")
-      .notNull()
-      .references(() => instruments.id, { onDelete: "cascade" }),
+    instrumentId: refTo(() => instruments.id),
     name: text("name").notNull(),
     /** Central wavelength, metres. */
     centralWavelengthM: doublePrecision("central_wavelength_m").notNull(),

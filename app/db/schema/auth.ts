@@ -1,4 +1,5 @@
 import { index, integer, jsonb, pgTable, serial, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
+import { optionalRefTo, refTo } from "./columns";
 import { users } from "./users";
 
 /**
@@ -10,9 +11,7 @@ export const sessions = pgTable(
   {
     /** SHA-256 of the cookie token, hex. */
     id: text("id").primaryKey(),
-    userId: integer("user_id")
-      .notNull()
-      .references(() => users.id, { onDelete: "cascade" }),
+    userId: refTo(() => users.id),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
     lastSeenAt: timestamp("last_seen_at", { withTimezone: true }).notNull().defaultNow(),
@@ -41,9 +40,7 @@ export const apiTokens = pgTable(
   "api_tokens",
   {
     id: serial("id").primaryKey(),
-    userId: integer("user_id")
-      .notNull()
-      .references(() => users.id, { onDelete: "cascade" }),
+    userId: refTo(() => users.id),
     name: text("name").notNull(),
     tokenHash: text("token_hash").notNull(),
     /** First characters of the token, shown so a person can tell tokens apart. */
@@ -72,9 +69,9 @@ export const auditLog = pgTable(
   "audit_log",
   {
     id: serial("id").primaryKey(),
-    actorId: integer("actor_id").references(() => users.id, { onDelete: "set null" }),
+    actorId: optionalRefTo(() => users.id),
     action: text("action").notNull(),
-    targetUserId: integer("target_user_id").references(() => users.id, { onDelete: "set null" }),
+    targetUserId: optionalRefTo(() => users.id),
     detail: jsonb("detail").$type<Record<string, unknown>>().notNull().default({}),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },

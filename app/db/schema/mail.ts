@@ -1,5 +1,6 @@
 import { sql } from "drizzle-orm";
 import { index, integer, pgTable, serial, text, timestamp } from "drizzle-orm/pg-core";
+import { optionalRefTo } from "./columns";
 import { users } from "./users";
 
 /**
@@ -36,7 +37,7 @@ export const outboxMessages = pgTable(
     /** The plain-text alternative of the same message. */
     text: text("text").notNull(),
     /** The account the message is about, when there is one; kept when the account is removed. */
-    userId: integer("user_id").references(() => users.id, { onDelete: "set null" }),
+    userId: optionalRefTo(() => users.id),
     /** The page the message points to (a proposal, a night plan, a sign-in link). */
     relatedUrl: text("related_url"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),

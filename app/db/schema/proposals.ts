@@ -16,7 +16,7 @@ import {
   uniqueIndex,
 } from "drizzle-orm/pg-core";
 import { bands, configurations, instruments } from "./array";
-import { timestamps } from "./columns";
+import { optionalRefTo, refTo, timestamps } from "./columns";
 import { users } from "./users";
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({
@@ -45,7 +45,7 @@ export const cycles = pgTable(
     observingStart: date("observing_start").notNull(),
     observingEnd: date("observing_end").notNull(),
     submissionDeadline: timestamp("submission_deadline", { withTimezone: true }).notNull(),
-    createdById: integer("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdById: optionalRefTo(() => users.id),
     ...timestamps,
   },
   (t) => [
@@ -57,12 +57,8 @@ export const cycles = pgTable(
 export const cycleConfigurations = pgTable(
   "cycle_configurations",
   {
-    cycleId: integer("cycle_id")
-      .notNull()
-      .references(() => cycles.id, { onDelete: "cascade" }),
-    configurationId: integer("configuration_id")
-      .notNull()
-      .references(() => configurations.id, { onDelete: "restrict" }),
+    cycleId: refTo(() => cycles.id),
+    configurationId: refTo(() => configurations.id, "restrict"),
     /** Nights the configuration is on the array this cycle (the committee's capacity), if known. */
     nightsAvailable: doublePrecision("nights_available"),
   },
@@ -74,9 +70,7 @@ export const targets = pgTable(
   "targets",
   {
     id: serial("id").primaryKey(),
-    ownerId: integer("owner_id")
-      .notNull()
-      .references(() => users.id, { onDelete: "cascade" }),
+    ownerId: refTo(() => users.id),
     name: text("name").notNull(),
     /** J2000 right ascension and declination, degrees. */
     raDeg: doublePrecision("ra_deg").notNull(),
@@ -117,17 +111,13 @@ export const proposals = pgTable(
   "proposals",
   {
     id: serial("id").primaryKey(),
-    cycleId: integer("cycle_id")
-      .notNull()
-      .references(() => cycles.id, { onDelete: "restrict" }),
-    piId: integer("pi_id")
-      .notNull()
-      .references(() => users.id, { onDelete: "restrict" }),
+    cycleId: refTo(() => cycles.id, "restrict"),
+    piId: refTo(() => users.id, "restrict"),
     title: text("title").notNull().default(""),
     abstract: text("abstract").notNull().default(""),
     scienceCategory: text("science_category").notNull().default(""),
-    instrumentId: integer("instrument_id").references(() => instruments.id, { onDelete: "restrict" }),
-    bandId: integer("band_id").references(() => bands.id, { onDelete: "restrict" }),
+    instrumentId: optionalRefTo(() => instruments.id, "restrict"),
+    bandId: optionalRefTo(() => bands.id, "restrict"),
     status: proposalStatusEnum("status").notNull().default("draft"),
     /** When the latest version was submitted (null while a draft). */
     submittedAt: timestamp("submitted_at", { withTimezone: true }),
@@ -143,11 +133,9 @@ export const proposalMembers = pgTable(
   "proposal_members",
   {
     id: serial("id").primaryKey(),
-    proposalId: integer("proposal_id")
-      .notNull()
-      .references(() => proposals.id, { onDelete: "cascade" }),
+    proposalId: refTo(() => proposals.id),
     email: text("email").notNull(),
-    userId: integer("user_id").references(() => users.id, { onDelete: "set null" }),
+    userId: optionalRefTo(() => users.id),
     invitedAt: timestamp("invited_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex("proposal_members_email_key").on(t.proposalId, sql`lower(${t.email})`)],
@@ -157,12 +145,8 @@ export const proposalMembers = pgTable(
 export const proposalHours = pgTable(
   "proposal_hours",
   {
-    proposalId: integer("proposal_id")
-      .notNull()
-      .references(() => proposals.id, { onDelete: "cascade" }),
-    configurationId: integer("configuration_id")
-      .notNull()
-      .references(() => configurations.id, { onDelete: "restrict" }),
+    proposalId: refTo(() => proposals.id),
+    configurationId: refTo(() => configurations.id, "restrict"),
     hours: doublePrecision("hours").notNull(),
   },
   (t) => [
@@ -179,11 +163,9 @@ export const proposalTargets = pgTable(
   "proposal_targets",
   {
     id: serial("id").primaryKey(),
-    proposalId: integer("proposal_id")
-      .notNull()
-      .references(() => proposals.id, { onDelete: "cascade" }),
+    proposalId: refTo(() => proposals.id),
     position: integer("position").notNull().default(0),
-    sourceTargetId: integer("source_target_id").references(() => targets.id, { onDelete: "set null" }),
+    sourceTargetId: optionalRefTo(() => targets.id),
     name: text("name").notNull(),
     raDeg: doublePrecision("ra_deg").notNull(),
     decDeg: doublePrecision("dec_deg").notNull(),
@@ -208,7 +190,7 @@ export const proposalDocuments = pgTable("proposal_documents", {
   sizeBytes: integer("size_bytes").notNull(),
   sha256: text("sha256").notNull(),
   data: bytea("data").notNull(),
-  uploadedById: integer("uploaded_by_id").references(() => users.id, { onDelete: "set null" }),
+  uploadedById: optionalRefTo(() => users.id),
   uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
 });
 
@@ -217,12 +199,10 @@ export const proposalVersions = pgTable(
   "proposal_versions",
   {
     id: serial("id").primaryKey(),
-    proposalId: integer("proposal_id")
-      .notNull()
-      .references(() => proposals.id, { onDelete: "cascade" }),
+    proposalId: refTo(() => proposals.id),
     version: integer("version").notNull(),
     submittedAt: timestamp("submitted_at", { withTimezone: true }).notNull().defaultNow(),
-    submittedById: integer("submitted_by_id").references(() => users.id, { onDelete: "set null" }),
+    submittedById: optionalRefTo(() => users.id),
     /** Everything the proposal said, with its feasibility report, as JSON. */
     snapshot: jsonb("snapshot").$type<Record<string, unknown>>().notNull(),
     /** The science case as it was at submission. */

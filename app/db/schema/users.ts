@@ -10,7 +10,7 @@ import {
   timestamp,
   uniqueIndex,
 } from "drizzle-orm/pg-core";
-import { timestamps } from "./columns";
+import { refTo, timestamps } from "./columns";
 
 /** The roles of PRODUCT.md; one person may hold several. Keep in step with app/services/permissions.ts. */
 export const ROLES = ["proposer", "reviewer", "chair", "scheduler", "admin"] as const;
@@ -39,9 +39,7 @@ export const users = pgTable(
 export const userRoles = pgTable(
   "user_roles",
   {
-    userId: integer("user_id")
-      .notNull()
-      .references(() => users.id, { onDelete: "cascade" }),
+    userId: refTo(() => users.id),
     role: roleEnum("role").notNull(),
     grantedAt: timestamp("granted_at", { withTimezone: true }).notNull().defaultNow(),
   },

@@ -264,27 +264,21 @@ export function sampleCountBound(req: { hourAnglesH?: number[]; night?: { stepMi
   return 0;
 }
 
-function uvPointCount(r: SamplingShape): { text: string; ok: boolean } {
+/**
+ * The size of what a request asks for, against its limit: `pairs` (baselines) or `triples` (closure
+ * triangles) of stations × samples × wavelengths.
+ */
+function sizeCheck(r: SamplingShape, of: "uv points" | "closure phases"): { text: string; ok: boolean } {
   const n = r.stations.length;
-  const b = (n * (n - 1)) / 2;
+  const groups = of === "uv points" ? (n * (n - 1)) / 2 : (n * (n - 1) * (n - 2)) / 6;
+  const groupName = of === "uv points" ? "baselines" : "triangles";
+  const limit = of === "uv points" ? MAX_UV_POINTS : MAX_CLOSURE_VALUES;
   const s = sampleCountBound(r);
   const c = r.wavelengthsM.length;
-  const total = b * s * c;
+  const total = groups * s * c;
   return {
-    ok: total <= MAX_UV_POINTS,
-    text: `request too large: ${b} baselines × ${s} samples × ${c} wavelengths = ${total} uv points (limit ${MAX_UV_POINTS})`,
-  };
-}
-
-function closureValueCount(r: SamplingShape): { text: string; ok: boolean } {
-  const n = r.stations.length;
-  const t = (n * (n - 1) * (n - 2)) / 6;
-  const s = sampleCountBound(r);
-  const c = r.wavelengthsM.length;
-  const total = t * s * c;
-  return {
-    ok: total <= MAX_CLOSURE_VALUES,
-    text: `request too large: ${t} triangles × ${s} samples × ${c} wavelengths = ${total} closure phases (limit ${MAX_CLOSURE_VALUES})`,
+    ok: total <= limit,
+    text: `request too large: ${groups} ${groupName} × ${s} samples × ${c} wavelengths = ${total} ${of} (limit ${limit})`,
   };
 }
 
@@ -297,9 +291,9 @@ export function samplingRuleFailure(r: SamplingShape): { message: string; field:
   if (r.hourAnglesH && r.night) return { field: "hourAnglesH", message: "give either hourAnglesH or night, not both" };
   if (!r.hourAnglesH && !r.night)
     return { field: "hourAnglesH", message: "is required (or give night: {date, stepMin})" };
-  const uv = uvPointCount(r);
+  const uv = sizeCheck(r, "uv points");
   if (!uv.ok) return { field: "wavelengthsM", message: uv.text };
-  const cl = closureValueCount(r);
+  const cl = sizeCheck(r, "closure phases");
   if (!cl.ok) return { field: "stations", message: cl.text };
   return null;
 }

@@ -18,10 +18,8 @@ import { nightEvents } from "./twilight";
  * astronomicalDawnUtc, sunriseUtc, lstAtDuskH and the Moon fields; the others
  * are additions.
  */
-export interface EphemerisResponse {
-  /** The date D whose evening starts the night. */
-  date: string;
-  site: { latitudeDeg: number; longitudeDeg: number; altitudeM: number };
+/** The Sun's events of one night as ISO-8601 UTC instants; null when the Sun never reaches the altitude. */
+export interface TwilightTimesUtc {
   /** Upper limb of the Sun on the horizon (centre at −0°50′), evening of D. */
   sunsetUtc: string | null;
   /** Sun centre at −6°, evening. */
@@ -36,6 +34,12 @@ export interface EphemerisResponse {
   civilDawnUtc: string | null;
   /** Upper limb on the horizon, morning of D + 1 (local). */
   sunriseUtc: string | null;
+}
+
+export interface EphemerisResponse extends TwilightTimesUtc {
+  /** The date D whose evening starts the night. */
+  date: string;
+  site: { latitudeDeg: number; longitudeDeg: number; altitudeM: number };
   /** Local mean sidereal time at astronomical dusk, hours [0, 24); null without dusk. */
   lstAtDuskH: number | null;
   /** Local mean sidereal time at astronomical dawn, hours [0, 24); null without dawn. */

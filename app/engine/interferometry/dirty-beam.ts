@@ -161,6 +161,41 @@ function resolvePixel(uW: ArrayLike<number>, vW: ArrayLike<number>, options: Ima
 }
 
 /**
+ * Grids `count` weighted samples and their Hermitian mirrors onto the n×n uv grid of `weights` and
+ * transforms it to the image plane, normalized by the sum of weights. Samples are the values
+ * (re, im), or 1 for every point when `re` is null (the beam).
+ */
+function griddedImage(
+  weights: WeightedPoints,
+  count: number,
+  re: ArrayLike<number> | null,
+  im: ArrayLike<number> | null,
+  imager?: HermitianImager,
+): Float64Array {
+  const n = weights.n;
+  const grid = new Float64Array(2 * n * n);
+  for (let p = 0; p < count; p++) {
+    const w = weights.weight[p];
+    if (w === 0) continue;
+    const cu = weights.cellU[p];
+    const cv = weights.cellV[p];
+    const a = 2 * (((cv + n) % n) * n + ((cu + n) % n));
+    const b = 2 * (((n - cv) % n) * n + ((n - cu) % n));
+    const wr = re ? w * re[p] : w;
+    const wi = im ? w * im[p] : 0;
+    grid[a] += wr;
+    grid[a + 1] += wi;
+    grid[b] += wr;
+    grid[b + 1] -= wi;
+  }
+  const image = new Float64Array(n * n);
+  (imager ?? new HermitianImager(n)).transform(grid, image);
+  const norm = weights.sumWeights > 0 ? 1 / weights.sumWeights : 0;
+  for (let i = 0; i < image.length; i++) image[i] *= norm;
+  return image;
+}
+
+/**
  * Dirty beam of a set of sampled spatial frequencies (wavelengths), with the
  * central-lobe fit and peak sidelobe (see beam-fit.ts).
  * @throws RangeError when there are no points or all are at the origin.
@@ -170,19 +205,7 @@ export function dirtyBeam(uW: ArrayLike<number>, vW: ArrayLike<number>, options:
   const n = options.gridSize;
   const pixelRad = resolvePixel(uW, vW, options);
   const weights = weightPoints(uW, vW, n, pixelRad, options.weighting ?? "natural", options.robust ?? 0);
-  const grid = new Float64Array(2 * n * n);
-  for (let p = 0; p < uW.length; p++) {
-    const w = weights.weight[p];
-    if (w === 0) continue;
-    const cu = weights.cellU[p];
-    const cv = weights.cellV[p];
-    grid[2 * (((cv + n) % n) * n + ((cu + n) % n))] += w;
-    grid[2 * (((n - cv) % n) * n + ((n - cu) % n))] += w;
-  }
-  const image = new Float64Array(n * n);
-  (options.imager ?? new HermitianImager(n)).transform(grid, image);
-  const norm = weights.sumWeights > 0 ? 1 / weights.sumWeights : 0;
-  for (let i = 0; i < image.length; i++) image[i] *= norm;
+  const image = griddedImage(weights, uW.length, null, null, options.imager);
   return {
     n,
     pixelRad,
@@ -205,23 +228,7 @@ export function dirtyImage(
   imager?: HermitianImager,
 ): DirtyImageResult {
   const n = weights.n;
-  const grid = new Float64Array(2 * n * n);
-  for (let p = 0; p < re.length; p++) {
-    const w = weights.weight[p];
-    if (w === 0) continue;
-    const cu = weights.cellU[p];
-    const cv = weights.cellV[p];
-    const a = 2 * (((cv + n) % n) * n + ((cu + n) % n));
-    const b = 2 * (((n - cv) % n) * n + ((n - cu) % n));
-    grid[a] += w * re[p];
-    grid[a + 1] += w * im[p];
-    grid[b] += w * re[p];
-    grid[b + 1] -= w * im[p];
-  }
-  const image = new Float64Array(n * n);
-  (imager ?? new HermitianImager(n)).transform(grid, image);
-  const norm = weights.sumWeights > 0 ? 1 / weights.sumWeights : 0;
-  for (let i = 0; i < image.length; i++) image[i] *= norm;
+  const image = griddedImage(weights, re.length, re, im, imager);
   return {
     n,
     pixelRad: weights.pixelRad,
