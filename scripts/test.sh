@@ -24,6 +24,20 @@ if ! ./docker-less-pg.sh start; then
   exit 1
 fi
 
+step "Chromium for the browser tests"
+chromium_bin="${CHROMIUM_PATH:-/usr/bin/chromium}"
+if [ ! -x "$chromium_bin" ]; then
+  if [ "$(id -u)" = "0" ] && command -v apt-get >/dev/null 2>&1; then
+    echo "installing Debian's chromium (apt-get)"
+    { apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null; } ||
+      failed_steps+=("chromium")
+  else
+    echo "Chromium is missing at $chromium_bin: run 'apt-get install chromium' as root (or set CHROMIUM_PATH)"
+    failed_steps+=("chromium")
+  fi
+fi
+[ -x "$chromium_bin" ] && "$chromium_bin" --version 2>/dev/null | head -n 1
+
 step "Lint and format (biome)"
 npx biome ci --reporter=summary . || failed_steps+=("lint")
 
@@ -49,18 +63,26 @@ node - "$results" "${failed_steps[@]}" <<'JS'
 const fs = require("node:fs");
 const [dir, ...failedSteps] = process.argv.slice(2);
 let passed = 0, failed = 0, skipped = 0;
-for (const f of ["tests.json", "e2e.json"]) {
+// Each test step and the report it should have written.
+const reports = { "unit/integration": "tests.json", browser: "e2e.json" };
+for (const [step, f] of Object.entries(reports)) {
   const p = `${dir}/${f}`;
-  if (!fs.existsSync(p)) continue;
-  const r = JSON.parse(fs.readFileSync(p, "utf8"));
-  passed += r.numPassedTests; failed += r.numFailedTests; skipped += r.numPendingTests + (r.numTodoTests ?? 0);
-  // A file that failed to load counts as a failure even when none of its tests ran.
-  failed += r.testResults.filter((t) => t.status === "failed" && t.assertionResults.length === 0).length;
+  let stepFailed = 0;
+  if (fs.existsSync(p)) {
+    const r = JSON.parse(fs.readFileSync(p, "utf8"));
+    passed += r.numPassedTests; skipped += r.numPendingTests + (r.numTodoTests ?? 0);
+    stepFailed += r.numFailedTests;
+    // A file that failed to load counts as a failure even when none of its tests ran.
+    stepFailed += r.testResults.filter((t) => t.status === "failed" && t.assertionResults.length === 0).length;
+  }
+  // A step that failed without a failing test to show for it (a crash, a failed setup, no report)
+  // still counts once.
+  if (failedSteps.includes(step) && stepFailed === 0) stepFailed = 1;
+  failed += stepFailed;
 }
-// Lint, typecheck or build failures count as failed checks of their own.
-const stepFailures = failedSteps.filter((s) => s === "lint" || s === "typecheck" || s === "build").length;
-failed += stepFailures;
+// Every other failed step (chromium, lint, typecheck, build) counts as one failure of its own.
+failed += failedSteps.filter((s) => !(s in reports)).length;
 if (failedSteps.length) console.log(`\nFailed steps: ${failedSteps.join(", ")}`);
 console.log(`\nSummary: ${passed} passed, ${failed} failed, ${skipped} skipped`);
-process.exit(failed > 0 || failedSteps.length > 0 ? 1 : 0);
+process.exit(failed > 0 ? 1 : 0);
 JS
