@@ -109,7 +109,11 @@ const StationsSchema = v.pipe(
     (issue) => {
       const list = issue.input as { name: string }[];
       const seen = new Set<string>();
-      const dup = list.find((s) => (seen.has(s.name) ? true : (seen.add(s.name), false)));
+      const dup = list.find((s) => {
+        if (seen.has(s.name)) return true;
+        seen.add(s.name);
+        return false;
+      });
       return `station names must be distinct ("${dup?.name ?? "?"}" appears more than once)`;
     },
   ),
