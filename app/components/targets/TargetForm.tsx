@@ -1,10 +1,14 @@
 import { useState } from "react";
-import { Form, useNavigation } from "react-router";
-import { Button, FormErrors, SelectField, TextArea, TextField } from "~/components/ui";
+import { Form } from "react-router";
+import { FormErrors, SelectField } from "~/components/ui";
+import { FieldList, type FieldSpec, SubmitButton } from "~/components/ui/FieldList";
+import type { TargetModel } from "~/engine";
 
 export type TargetFormValues = Record<string, string>;
 
-const MODELS: { value: string; label: string }[] = [
+type ModelType = Exclude<TargetModel["type"], "sum">;
+
+const MODELS: { value: ModelType; label: string }[] = [
   { value: "point", label: "Point source" },
   { value: "uniformDisk", label: "Uniform disk" },
   { value: "limbDarkenedDisk", label: "Limb-darkened disk (linear law)" },
@@ -12,6 +16,37 @@ const MODELS: { value: string; label: string }[] = [
   { value: "ring", label: "Thin ring" },
   { value: "binary", label: "Binary (two points)" },
 ];
+
+const POSITION: FieldSpec[] = [
+  { name: "name", label: "Name", maxLength: 80, required: true },
+  { name: "ra", label: "Right ascension", required: true, hint: "J2000; hours 05:36:12.8 or degrees 84.05" },
+  { name: "dec", label: "Declination", required: true, hint: "J2000; −01:12:07 or −1.202" },
+];
+
+/** The parameters of each model, in the order they are shown; field names are the CSV columns. */
+const PARAMETERS: (FieldSpec & { models: string[] })[] = [
+  { name: "size_mas", label: "Diameter", unit: "mas", models: ["uniformDisk", "limbDarkenedDisk", "ring", "gaussian"] },
+  {
+    name: "ld_coefficient",
+    label: "Limb-darkening coefficient",
+    hint: "Linear law, 0 to 1",
+    models: ["limbDarkenedDisk"],
+  },
+  { name: "separation_mas", label: "Separation", unit: "mas", models: ["binary"] },
+  { name: "position_angle_deg", label: "Position angle", unit: "° east of north", models: ["binary"] },
+  { name: "flux_ratio", label: "Flux ratio", unit: "secondary / primary", models: ["binary"] },
+];
+
+/** The fields of `model`'s parameters; a Gaussian's size is its FWHM. */
+function parameterFields(model: string): FieldSpec[] {
+  return PARAMETERS.filter((p) => p.models.includes(model)).map(({ models: _, ...field }) => ({
+    ...field,
+    inputMode: "decimal",
+    label: field.name === "size_mas" && model === "gaussian" ? "FWHM" : field.label,
+  }));
+}
+
+const NOTES: FieldSpec[] = [{ name: "notes", label: "Notes", multiline: true, maxLength: 1000, className: "min-h-20" }];
 
 /**
  * The fields of one target: name, coordinates (sexagesimal or degrees), model with its parameters,
@@ -27,27 +62,18 @@ export function TargetFields({
   bands: string[];
 }) {
   const [model, setModel] = useState(values.model || "point");
-  const sized = model === "uniformDisk" || model === "limbDarkenedDisk" || model === "ring" || model === "gaussian";
+  const magnitudes = bands.map(
+    (b): FieldSpec => ({
+      name: `mag_${b}`,
+      label: `${b} band`,
+      unit: "mag",
+      inputMode: "decimal",
+    }),
+  );
   return (
     <>
       <div className="grid gap-4 md:grid-cols-3">
-        <TextField label="Name" name="name" defaultValue={values.name} error={errors.name} maxLength={80} required />
-        <TextField
-          label="Right ascension"
-          name="ra"
-          defaultValue={values.ra}
-          error={errors.ra}
-          required
-          hint="J2000; hours 05:36:12.8 or degrees 84.05"
-        />
-        <TextField
-          label="Declination"
-          name="dec"
-          defaultValue={values.dec}
-          error={errors.dec}
-          required
-          hint="J2000; −01:12:07 or −1.202"
-        />
+        <FieldList fields={POSITION} values={values} errors={errors} />
       </div>
       <div className="grid gap-4 md:grid-cols-3">
         <SelectField
@@ -63,69 +89,12 @@ export function TargetFields({
             </option>
           ))}
         </SelectField>
-        {sized ? (
-          <TextField
-            label={model === "gaussian" ? "FWHM" : "Diameter"}
-            unit="mas"
-            name="size_mas"
-            inputMode="decimal"
-            defaultValue={values.size_mas}
-            error={errors.size_mas}
-          />
-        ) : null}
-        {model === "limbDarkenedDisk" ? (
-          <TextField
-            label="Limb-darkening coefficient"
-            name="ld_coefficient"
-            inputMode="decimal"
-            defaultValue={values.ld_coefficient}
-            error={errors.ld_coefficient}
-            hint="Linear law, 0 to 1"
-          />
-        ) : null}
-        {model === "binary" ? (
-          <>
-            <TextField
-              label="Separation"
-              unit="mas"
-              name="separation_mas"
-              inputMode="decimal"
-              defaultValue={values.separation_mas}
-              error={errors.separation_mas}
-            />
-            <TextField
-              label="Position angle"
-              unit="° east of north"
-              name="position_angle_deg"
-              inputMode="decimal"
-              defaultValue={values.position_angle_deg}
-              error={errors.position_angle_deg}
-            />
-            <TextField
-              label="Flux ratio"
-              unit="secondary / primary"
-              name="flux_ratio"
-              inputMode="decimal"
-              defaultValue={values.flux_ratio}
-              error={errors.flux_ratio}
-            />
-          </>
-        ) : null}
+        <FieldList fields={parameterFields(model)} values={values} errors={errors} />
       </div>
       {bands.length ? (
         <fieldset className="grid gap-4 sm:grid-cols-3">
           <legend className="mb-1 text-sm font-medium text-night-800">Magnitudes (leave empty when unknown)</legend>
-          {bands.map((b) => (
-            <TextField
-              key={b}
-              label={`${b} band`}
-              unit="mag"
-              name={`mag_${b}`}
-              inputMode="decimal"
-              defaultValue={values[`mag_${b}`]}
-              error={errors[`mag_${b}`]}
-            />
-          ))}
+          <FieldList fields={magnitudes} values={values} errors={errors} />
         </fieldset>
       ) : null}
     </>
@@ -146,24 +115,14 @@ export function TargetForm({
   submitLabel: string;
   intent: string;
 }) {
-  const busy = useNavigation().state === "submitting";
   return (
     <Form method="post" className="grid gap-4" noValidate>
       <input type="hidden" name="intent" value={intent} />
       <FormErrors errors={Object.values(errors)} />
       <TargetFields values={values} errors={errors} bands={bands} />
-      <TextArea
-        label="Notes"
-        name="notes"
-        defaultValue={values.notes}
-        error={errors.notes}
-        maxLength={1000}
-        className="min-h-20"
-      />
+      <FieldList fields={NOTES} values={values} errors={errors} />
       <div>
-        <Button type="submit" disabled={busy}>
-          {busy ? "Saving…" : submitLabel}
-        </Button>
+        <SubmitButton label={submitLabel} />
       </div>
     </Form>
   );

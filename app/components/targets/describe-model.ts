@@ -1,7 +1,11 @@
 /** Target models in words, for tables and summaries (pure, safe in the browser). */
+import type { TargetModelJson } from "~/db/schema/proposals";
 
-/** A model in a few words: "uniform disk 3 mas", "binary 4 mas at 60°, ratio 0.4". */
-export function describeModel(model: { type: string; [k: string]: unknown }): string {
+/**
+ * A model in a few words: "uniform disk 3 mas", "binary 4 mas at 60°, ratio 0.4". Takes a stored
+ * model; every `TargetModel` of the engine is one.
+ */
+export function describeModel(model: TargetModelJson): string {
   const n = (k: string) => (typeof model[k] === "number" ? (model[k] as number) : NaN);
   switch (model.type) {
     case "point":

@@ -1,13 +1,15 @@
+import { href } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, type BadgeTone, ButtonLink, Card, EmptyState, PageHeader } from "~/components/ui";
-import { database } from "~/db/client.server";
+import { dbContext } from "~/context";
+import { formatUtc } from "~/lib/format";
 import { requireUser } from "~/lib/guards.server";
-import { cyclePhase, listCycles } from "~/services/cycles/cycles.server";
+import { type CyclePhase, cyclePhase, listCycles } from "~/services/cycles/cycles.server";
 import type { Route } from "./+types/index";
 
-export async function loader({ request }: Route.LoaderArgs) {
+export async function loader({ request, context }: Route.LoaderArgs) {
   const viewer = await requireUser(request);
-  const list = await listCycles(database());
+  const list = await listCycles(context.get(dbContext));
   const now = new Date();
   return {
     canManage: viewer.permissions.has("cycles:manage"),
@@ -26,7 +28,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export const meta: Route.MetaFunction = () => [{ title: "Cycles — Fringe Docket" }];
 
-const phaseTone: Record<string, BadgeTone> = {
+const phaseTone: Record<CyclePhase, BadgeTone> = {
   open: "ok",
   "in review": "info",
   observing: "accent",
@@ -39,7 +41,7 @@ export default function Cycles({ loaderData }: Route.ComponentProps) {
       <PageHeader
         title="Cycles"
         lead="Each observing cycle has a submission deadline and the configurations it offers, with the nights each will be on the array."
-        actions={loaderData.canManage ? <ButtonLink to="/cycles/new">New cycle</ButtonLink> : null}
+        actions={loaderData.canManage ? <ButtonLink to={href("/cycles/new")}>New cycle</ButtonLink> : null}
       />
       {loaderData.cycles.length === 0 ? (
         <EmptyState title="No cycles yet">The chair opens a cycle with its dates and deadline.</EmptyState>
@@ -56,7 +58,7 @@ export default function Cycles({ loaderData }: Route.ComponentProps) {
               actions={
                 loaderData.canManage ? (
                   <ButtonLink
-                    to={`/cycles/${c.id}/edit`}
+                    to={href("/cycles/:cycleId/edit", { cycleId: String(c.id) })}
                     variant="secondary"
                     size="sm"
                     aria-label={`Edit cycle ${c.name}`}
@@ -76,7 +78,7 @@ export default function Cycles({ loaderData }: Route.ComponentProps) {
                 </div>
                 <div>
                   <dt className="text-sm text-night-600">Submission deadline</dt>
-                  <dd className="num font-medium">{c.submissionDeadline.replace("T", " ").slice(0, 16)} UTC</dd>
+                  <dd className="num font-medium">{formatUtc(new Date(c.submissionDeadline))}</dd>
                 </div>
                 <div>
                   <dt className="text-sm text-night-600">Configurations on offer</dt>

@@ -1,4 +1,4 @@
-import { asc, eq, sql } from "drizzle-orm";
+import { asc, sql } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
 import { configurationStations, configurations } from "~/db/schema/array";
 
@@ -15,7 +15,4 @@ export async function configurationChoices(db: Database) {
     .orderBy(asc(configurations.name));
 }
 
-export async function configurationExists(db: Database, id: number) {
-  const [row] = await db.select({ id: configurations.id }).from(configurations).where(eq(configurations.id, id));
-  return !!row;
-}
+export type ConfigurationChoice = Awaited<ReturnType<typeof configurationChoices>>[number];

@@ -1,55 +1,41 @@
 /**
- * Validation of the cycle form (pure): field errors keyed by field name, the parsed input otherwise.
- * Dates are calendar dates (YYYY-MM-DD); the deadline is given and shown in UTC.
+ * The cycle form (pure): its values as typed, and the check that turns them into a `CycleInput` or
+ * field errors keyed by field name (`nights-<configuration id>` for the nights of one offer).
  */
 import * as v from "valibot";
+import { type FieldErrors, fieldErrors } from "~/lib/form-errors";
+import { toUtcInput } from "~/lib/format";
+import { CycleFormSchema, type CycleFormValues, type CycleInput, NightsAvailable } from "./schemas";
 
-const isoDate = (label: string) =>
-  v.pipe(
-    v.string(),
-    v.regex(/^\d{4}-\d{2}-\d{2}$/, `${label}: use the form YYYY-MM-DD`),
-    v.check(
-      (s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
-      `${label}: not a real date`,
-    ),
-  );
+export type { CycleFormValues };
 
-const CycleFormSchema = v.object({
-  name: v.pipe(
-    v.string(),
-    v.trim(),
-    v.nonEmpty("Name: give the cycle a name, e.g. 2027B"),
-    v.maxLength(40, "Name: at most 40 characters"),
-  ),
-  description: v.pipe(v.string(), v.trim(), v.maxLength(500, "Description: at most 500 characters")),
-  observingStart: isoDate("First night"),
-  observingEnd: isoDate("Last night"),
-  submissionDeadline: v.pipe(
-    v.string(),
-    v.regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/, "Deadline: give a date and time (UTC)"),
-    v.transform((s) => new Date(`${s}:00Z`)),
-    v.check((d) => !Number.isNaN(d.getTime()), "Deadline: not a real date and time"),
-  ),
-});
+/** A new cycle's form: everything empty, every configuration on offer. */
+export function blankCycleValues(configurationIds: number[]): CycleFormValues {
+  return {
+    name: "",
+    description: "",
+    observingStart: "",
+    observingEnd: "",
+    submissionDeadline: "",
+    offered: configurationIds.map(String),
+    nights: {},
+  };
+}
 
-export type CycleFormValues = {
-  name: string;
-  description: string;
-  observingStart: string;
-  observingEnd: string;
-  submissionDeadline: string;
-  offered: string[];
-  nights: Record<string, string>;
-};
-
-export type ParsedCycleForm = {
-  name: string;
-  description: string;
-  observingStart: string;
-  observingEnd: string;
-  submissionDeadline: Date;
-  offers: { configurationId: number; nightsAvailable: number | null }[];
-};
+/** A stored cycle as form values: the deadline as its UTC `datetime-local` value. */
+export function valuesOfCycle(cycle: CycleInput): CycleFormValues {
+  const nights: Record<string, string> = {};
+  for (const o of cycle.offers) nights[o.configurationId] = o.nightsAvailable == null ? "" : String(o.nightsAvailable);
+  return {
+    name: cycle.name,
+    description: cycle.description,
+    observingStart: cycle.observingStart,
+    observingEnd: cycle.observingEnd,
+    submissionDeadline: toUtcInput(cycle.submissionDeadline),
+    offered: cycle.offers.map((o) => String(o.configurationId)),
+    nights,
+  };
+}
 
 /** Reads the submitted form (FormData-like) into plain values, so they can be shown again on error. */
 export function cycleFormValues(
@@ -76,30 +62,19 @@ export function cycleFormValues(
 export function parseCycleForm(
   values: CycleFormValues,
   configurationIds: number[],
-): { ok: true; value: ParsedCycleForm } | { ok: false; errors: Record<string, string> } {
-  const errors: Record<string, string> = {};
+): { ok: true; value: CycleInput } | { ok: false; errors: FieldErrors } {
   const parsed = v.safeParse(CycleFormSchema, values);
-  if (!parsed.success) {
-    for (const issue of parsed.issues) {
-      const key = issue.path?.[0]?.key as string | undefined;
-      if (key && !errors[key]) errors[key] = issue.message;
-    }
-  }
-  const offers: ParsedCycleForm["offers"] = [];
+  const errors = parsed.success ? {} : fieldErrors(parsed.issues, { depth: 1 });
+  const offers: CycleInput["offers"] = [];
   for (const raw of values.offered) {
     const id = Number(raw);
     if (!configurationIds.includes(id)) {
       errors.offered = "Configurations: one of the chosen configurations does not exist";
       continue;
     }
-    const text = (values.nights[id] ?? "").trim();
-    let nightsAvailable: number | null = null;
-    if (text !== "") {
-      const n = Number(text);
-      if (!Number.isFinite(n) || n < 0 || n > 366) errors[`nights-${id}`] = "Nights: a number from 0 to 366";
-      else nightsAvailable = n;
-    }
-    offers.push({ configurationId: id, nightsAvailable });
+    const nights = v.safeParse(NightsAvailable, values.nights[id] ?? "");
+    if (!nights.success) errors[`nights-${id}`] = nights.issues[0].message;
+    offers.push({ configurationId: id, nightsAvailable: nights.success ? nights.output : null });
   }
   if (offers.length === 0 && !errors.offered) errors.offered = "Configurations: offer at least one configuration";
   if (parsed.success) {
@@ -111,9 +86,4 @@ export function parseCycleForm(
   }
   if (Object.keys(errors).length || !parsed.success) return { ok: false, errors };
   return { ok: true, value: { ...parsed.output, offers } };
-}
-
-/** `Date` → the `datetime-local` value in UTC ("2027-01-15T12:00"). */
-export function toUtcInput(d: Date): string {
-  return d.toISOString().slice(0, 16);
 }

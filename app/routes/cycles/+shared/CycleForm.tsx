@@ -1,0 +1,115 @@
+import { Form } from "react-router";
+import { Card, FormErrors, PageHeader, TextField } from "~/components/ui";
+import { FieldList, type FieldSpec, GroupError, SubmitButton } from "~/components/ui/FieldList";
+import type { ConfigurationChoice } from "~/services/cycles/configurations.server";
+import type { CycleFormValues } from "~/services/cycles/form";
+
+const CYCLE_FIELDS: FieldSpec[] = [
+  { name: "name", label: "Name", maxLength: 40, required: true, placeholder: "2027B" },
+  { name: "submissionDeadline", label: "Submission deadline", unit: "UTC", type: "datetime-local", required: true },
+  {
+    name: "observingStart",
+    label: "First night",
+    type: "date",
+    required: true,
+    hint: "The night that begins on the evening of this date.",
+  },
+  { name: "observingEnd", label: "Last night", type: "date", required: true },
+  { name: "description", label: "Description", multiline: true, maxLength: 500, wrapClassName: "md:col-span-2" },
+];
+
+/** A configuration that may be offered, with its nights. */
+function OfferRow({
+  choice,
+  values,
+  errors,
+}: { choice: ConfigurationChoice } & Omit<CycleFormProps, "configurations">) {
+  const nights = `nights-${choice.id}`;
+  return (
+    <li className="flex flex-wrap items-center gap-4 py-3">
+      <label className="flex min-w-56 flex-1 items-start gap-2">
+        <input
+          type="checkbox"
+          name="offered"
+          value={choice.id}
+          defaultChecked={values.offered.includes(String(choice.id))}
+          className="mt-1 h-4 w-4 accent-ember-700"
+        />
+        <span>
+          <span className="font-medium">{choice.name}</span>{" "}
+          <span className="text-sm text-night-600">({choice.stations} stations)</span>
+          <span className="block text-sm text-night-600">{choice.description}</span>
+        </span>
+      </label>
+      <div className="w-44">
+        <TextField
+          label={`Nights for ${choice.name}`}
+          name={nights}
+          inputMode="decimal"
+          defaultValue={values.nights[choice.id] ?? ""}
+          error={errors[nights]}
+          unit="nights"
+        />
+      </div>
+    </li>
+  );
+}
+
+type CycleFormProps = {
+  values: CycleFormValues;
+  errors: Record<string, string>;
+  configurations: ConfigurationChoice[];
+};
+
+/** The chair's form for a cycle: dates, deadline and the configurations on offer with their nights. */
+export function CycleForm({ values, errors, configurations, submitLabel }: CycleFormProps & { submitLabel: string }) {
+  return (
+    <Form method="post" className="grid gap-6" noValidate>
+      <FormErrors errors={Object.values(errors)} />
+      <Card title="The cycle">
+        <div className="grid gap-4 md:grid-cols-2">
+          <FieldList fields={CYCLE_FIELDS} values={values} errors={errors} />
+        </div>
+      </Card>
+      <Card title="Configurations on offer">
+        <GroupError message={errors.offered} className="mb-2" />
+        <ul className="divide-y divide-night-100">
+          {configurations.map((c) => (
+            <OfferRow key={c.id} choice={c} values={values} errors={errors} />
+          ))}
+        </ul>
+      </Card>
+      <div>
+        <SubmitButton label={submitLabel} />
+      </div>
+    </Form>
+  );
+}
+
+/**
+ * The page of the cycle editor, for a new cycle and an existing one: what the loader gave, or what
+ * the chair typed when the action refused it.
+ */
+export function CycleEditor({
+  title,
+  submitLabel,
+  page,
+  retry,
+}: {
+  title: string;
+  submitLabel: string;
+  page: { values: CycleFormValues; configurations: ConfigurationChoice[] };
+  retry: { values: CycleFormValues; errors: Record<string, string> } | undefined;
+}) {
+  return (
+    <>
+      <PageHeader title={title} lead="Dates are nights at the site; the deadline is in UTC." />
+      <CycleForm
+        values={retry?.values ?? page.values}
+        errors={retry?.errors ?? {}}
+        configurations={page.configurations}
+        submitLabel={submitLabel}
+      />
+    </>
+  );
+}

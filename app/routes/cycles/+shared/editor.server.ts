@@ -1,0 +1,57 @@
+/**
+ * The cycle editor's server side, one for a new cycle and an existing one: the page's data, the
+ * cycle of the address (or the 404 page), and the save (field errors with status 400, or a redirect
+ * to the list with a flash message).
+ */
+import { data, href } from "react-router";
+import type { Database } from "~/db/client.server";
+import { requireFormBody } from "~/lib/body.server";
+import { redirectWithFlash } from "~/lib/flash.server";
+import type { FieldErrors } from "~/lib/form-errors";
+import { invariantResponse, toId } from "~/lib/not-found";
+import { configurationChoices } from "~/services/cycles/configurations.server";
+import { createCycle, findCycleByName, getCycle, updateCycle } from "~/services/cycles/cycles.server";
+import { blankCycleValues, cycleFormValues, parseCycleForm, valuesOfCycle } from "~/services/cycles/form";
+
+type StoredCycle = NonNullable<Awaited<ReturnType<typeof getCycle>>>;
+
+/** The cycle `raw` names, or the 404 page. */
+export async function cycleOfParam(db: Database, raw: string | undefined): Promise<StoredCycle> {
+  const cycleId = toId(raw);
+  const cycle = cycleId === null ? null : await getCycle(db, { cycleId });
+  invariantResponse(cycle, "No cycle with this number.");
+  return cycle;
+}
+
+/** The configurations to offer, and the form's values: the cycle's, or a blank form offering them all. */
+export async function cycleEditorPage(db: Database, cycle: StoredCycle | null) {
+  const configurations = await configurationChoices(db);
+  const values = cycle ? valuesOfCycle(cycle) : blankCycleValues(configurations.map((c) => c.id));
+  return { configurations, values };
+}
+
+/** Checks the posted form and creates the cycle (`cycle` null) or updates it. */
+export async function saveCycle(
+  request: Request,
+  db: Database,
+  { cycle, createdById }: { cycle: StoredCycle | null; createdById: number },
+) {
+  const ids = (await configurationChoices(db)).map((c) => c.id);
+  const values = cycleFormValues(await requireFormBody(request), ids);
+  const refuse = (errors: FieldErrors) => data({ values, errors }, { status: 400 });
+  const parsed = parseCycleForm(values, ids);
+  if (!parsed.ok) return refuse(parsed.errors);
+  const input = parsed.value;
+  const clash = await findCycleByName(db, input.name);
+  if (clash && clash.id !== cycle?.id) return refuse({ name: `Name: a cycle called ${input.name} exists already` });
+  if (!cycle) {
+    const created = await createCycle(db, input, createdById);
+    return redirectWithFlash(href("/cycles"), { kind: "success", text: `Cycle ${created.name} created.` });
+  }
+  const result = await updateCycle(db, { cycleId: cycle.id, input });
+  if (!result.ok) {
+    const blocked = result.blocked.join(", ");
+    return refuse({ offered: `Configurations: proposals already request ${blocked}; keep them on offer` });
+  }
+  return redirectWithFlash(href("/cycles"), { kind: "success", text: `Cycle ${input.name} saved.` });
+}

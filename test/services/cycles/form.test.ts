@@ -1,0 +1,70 @@
+import { describe, expect, it } from "vitest";
+import { blankCycleValues, parseCycleForm, valuesOfCycle } from "~/services/cycles/form";
+import type { CycleFormValues } from "~/services/cycles/schemas";
+
+const ids = [3, 7];
+
+function typed(over: Partial<CycleFormValues> = {}): CycleFormValues {
+  return {
+    name: " 2027B ",
+    description: "Second semester",
+    observingStart: "2027-09-01",
+    observingEnd: "2028-02-28",
+    submissionDeadline: "2027-06-15T12:00",
+    offered: ["3", "7"],
+    nights: { 3: "30", 7: "" },
+    ...over,
+  };
+}
+
+describe("the cycle form", () => {
+  it("reads the deadline as UTC, trims the name and keeps empty nights as not fixed", () => {
+    const out = parseCycleForm(typed(), ids);
+    expect(out).toEqual({
+      ok: true,
+      value: {
+        name: "2027B",
+        description: "Second semester",
+        observingStart: "2027-09-01",
+        observingEnd: "2028-02-28",
+        submissionDeadline: new Date("2027-06-15T12:00:00Z"),
+        offers: [
+          { configurationId: 3, nightsAvailable: 30 },
+          { configurationId: 7, nightsAvailable: null },
+        ],
+      },
+    });
+  });
+
+  it("names each bad field once, by its form name", () => {
+    const out = parseCycleForm(
+      typed({ name: "", observingStart: "2027-02-30", nights: { 3: "367", 7: "x" }, offered: ["3", "7", "99"] }),
+      ids,
+    );
+    expect(out).toEqual({
+      ok: false,
+      errors: {
+        name: "Name: give the cycle a name, e.g. 2027B",
+        observingStart: "First night: not a real date",
+        "nights-3": "Nights: a number from 0 to 366",
+        "nights-7": "Nights: a number from 0 to 366",
+        offered: "Configurations: one of the chosen configurations does not exist",
+      },
+    });
+  });
+
+  it("checks the order of the dates only once each date is readable", () => {
+    const late = parseCycleForm(typed({ observingEnd: "2027-08-31", submissionDeadline: "2027-09-01T00:00" }), ids);
+    expect(late.ok ? {} : late.errors).toEqual({
+      observingEnd: "Last night: must not be before the first night",
+      submissionDeadline: "Deadline: must fall before the first night of the cycle",
+    });
+  });
+
+  it("shows a stored cycle as the values it was typed as, and a new one offering everything", () => {
+    const parsed = parseCycleForm(typed({ name: "2027B" }), ids);
+    if (!parsed.ok) throw new Error("the form should parse");
+    expect(valuesOfCycle(parsed.value)).toEqual(typed({ name: "2027B" }));
+    expect(blankCycleValues(ids)).toMatchObject({ name: "", offered: ["3", "7"], nights: {} });
+  });
+});
