@@ -5,13 +5,15 @@
  * computed or while an input is invalid.
  */
 import { useMemo, useRef } from "react";
+import { href } from "react-router";
 import { Button, EmptyState, PageHeader, SelectField } from "~/components/ui";
+import type { CoverageResponse, EphemerisResponse } from "~/engine";
 import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
 import { apiErrorText, inputErrors } from "~/services/sketch/api-errors";
 import { pickedStations } from "~/services/sketch/registry";
 import { buildCoverageRequest, buildEphemerisRequest, type CoverageBody } from "~/services/sketch/request";
 import { exampleTarget, readSketchState, writeSketchState } from "~/services/sketch/state";
-import { type CoverageResponse, type EphemerisResponse, useApi } from "./api";
+import { useApi } from "./api";
 import { BandInput } from "./BandInput";
 import { binder, InputError, InputGroup } from "./InputGroup";
 import { ModelInputs } from "./ModelInputs";
@@ -34,8 +36,8 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
     () => (settled.sampling === "night" ? buildEphemerisRequest(settled, registry) : null),
     [settled, registry],
   );
-  const coverage = useApi<CoverageResponse>("/api/coverage", built.ok ? built.body : null);
-  const ephemeris = useApi<EphemerisResponse>("/api/ephemeris", ephemerisBody);
+  const coverage = useApi<CoverageResponse>(href("/api/coverage"), built.ok ? built.body : null);
+  const ephemeris = useApi<EphemerisResponse>(href("/api/ephemeris"), ephemerisBody);
 
   // The last good answer and the request it answers (panels read their inputs from that request).
   const lastGood = useRef<{ result: CoverageResponse; body: CoverageBody; elapsedMs: number } | null>(null);

@@ -4,8 +4,9 @@
  * and each row opens the Sketchpad on that triangle with the same target, model, night and band.
  */
 import { useMemo, useState } from "react";
+import { href } from "react-router";
 import { Button, EmptyState, PageHeader, SelectField } from "~/components/ui";
-import { triangleCount } from "~/engine";
+import { type TrianglesResponse, triangleCount } from "~/engine";
 import { inputErrors } from "~/services/sketch/api-errors";
 import { poolStations } from "~/services/sketch/registry";
 import { buildTrianglesRequest, type TrianglesBody } from "~/services/sketch/request";
@@ -17,7 +18,7 @@ import {
   type TriangleState,
   writeTriangleState,
 } from "~/services/sketch/state";
-import { type TrianglesResponse, useApi } from "./api";
+import { useApi } from "./api";
 import { BandInput } from "./BandInput";
 import { binder, InputError, InputGroup } from "./InputGroup";
 import { ModelInputs } from "./ModelInputs";
@@ -36,7 +37,7 @@ export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [
   const field = binder(state, set);
   const built = useMemo(() => buildTrianglesRequest(settled, registry), [settled, registry]);
   const [asked, setAsked] = useState<{ body: TrianglesBody; state: TriangleState } | null>(null);
-  const ranking = useApi<TrianglesResponse>("/api/triangles", asked?.body ?? null);
+  const ranking = useApi<TrianglesResponse>(href("/api/triangles"), asked?.body ?? null);
 
   const stale = asked !== null && (!built.ok || JSON.stringify(built.body) !== JSON.stringify(asked.body));
   // The API's refusal belongs to the inputs that were ranked; once they change it no longer applies.
