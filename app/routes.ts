@@ -31,8 +31,8 @@ export default [
   ]),
 
   // Sketchpad and Triangle finder
-  route("sketchpad", "routes/sketchpad/index.tsx"),
-  route("triangles", "routes/triangles/index.tsx"),
+  route("sketchpad", "routes/sketch/sketchpad.tsx"),
+  route("triangles", "routes/sketch/triangles.tsx"),
 
   // Cycles
   ...prefix("cycles", [

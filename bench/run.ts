@@ -13,8 +13,7 @@
 import { readFileSync, writeFileSync } from "node:fs";
 import { cpus } from "node:os";
 import { fileURLToPath } from "node:url";
-import { computeFeasibility, type FeasibilityInput } from "~/services/proposals/feasibility";
-import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "../app/db/seed/scenario";
+import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "~/db/seed/scenario";
 import {
   type CoverageRequest,
   computeCoverage,
@@ -23,7 +22,8 @@ import {
   dirtyBeam,
   HermitianImager,
   parseCoverageRequest,
-} from "../app/engine";
+} from "~/engine";
+import { computeFeasibility, type FeasibilityInput } from "~/services/proposals/feasibility";
 
 interface Timing {
   medianMs: number;

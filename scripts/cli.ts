@@ -9,10 +9,11 @@
  * `error: <reason>` goes to standard error and the exit status is 2 (1 for an
  * unexpected internal failure). See docs/cli.md.
  *
- * Only the modules a command needs are loaded (astronomia through its
- * subpaths), to keep start-up short.
+ * The engine is loaded only once the arguments are read (astronomia through
+ * its subpaths), to keep start-up short.
  */
 import { readFile } from "node:fs/promises";
+import type { ParseResult } from "~/engine";
 
 const USAGE = `usage: npm run -s cli -- <coverage|ephemeris|triangles> [--input FILE] [--pretty]
   Reads a JSON request from FILE (or standard input) and prints one JSON object.
@@ -77,32 +78,26 @@ async function readRequest(input: string | null): Promise<unknown> {
   }
 }
 
+/** A command: the engine's parser of its request, then the computation (a refusal is a usage error). */
+function command<T, R>(parse: (json: unknown) => ParseResult<T>, compute: (value: T) => R) {
+  return (json: unknown): R => {
+    const parsed = parse(json);
+    if (!parsed.ok) throw new UsageError(parsed.message);
+    return compute(parsed.value);
+  };
+}
+
 async function run(opts: Options): Promise<unknown> {
-  switch (opts.command) {
-    case "coverage": {
-      const { parseCoverageRequest } = await import("../app/engine");
-      const parsed = parseCoverageRequest(await readRequest(opts.input));
-      if (!parsed.ok) throw new UsageError(parsed.message);
-      const { computeCoverage } = await import("../app/engine");
-      return computeCoverage(parsed.value);
-    }
-    case "triangles": {
-      const { parseTrianglesRequest } = await import("../app/engine");
-      const parsed = parseTrianglesRequest(await readRequest(opts.input));
-      if (!parsed.ok) throw new UsageError(parsed.message);
-      const { rankTriangles } = await import("../app/engine");
-      return rankTriangles(parsed.value);
-    }
-    case "ephemeris": {
-      const { parseEphemerisRequest } = await import("../app/engine");
-      const parsed = parseEphemerisRequest(await readRequest(opts.input));
-      if (!parsed.ok) throw new UsageError(parsed.message);
-      const { computeEphemeris } = await import("../app/engine");
-      return computeEphemeris(parsed.value);
-    }
-    default:
-      throw new UsageError(`unknown command "${opts.command}" (expected coverage, ephemeris or triangles)`);
+  const engine = await import("~/engine");
+  const commands: Record<string, (json: unknown) => unknown> = {
+    coverage: command(engine.parseCoverageRequest, engine.computeCoverage),
+    triangles: command(engine.parseTrianglesRequest, engine.rankTriangles),
+    ephemeris: command(engine.parseEphemerisRequest, engine.computeEphemeris),
+  };
+  if (!Object.hasOwn(commands, opts.command)) {
+    throw new UsageError(`unknown command "${opts.command}" (expected coverage, ephemeris or triangles)`);
   }
+  return commands[opts.command](await readRequest(opts.input));
 }
 
 function fail(message: string, status: number): void {

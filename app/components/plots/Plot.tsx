@@ -106,3 +106,8 @@ export function Plot({
     </figure>
   );
 }
+
+/** A station map's points for a Plotly trace: east and north in metres, each named by its station. */
+export function stationPoints(stations: readonly { name: string; eastM: number; northM: number }[]) {
+  return { x: stations.map((s) => s.eastM), y: stations.map((s) => s.northM), text: stations.map((s) => s.name) };
+}

@@ -2,18 +2,8 @@
 // Request and response: docs/cli.md (same JSON as `npm run -s cli -- triangles`).
 
 import { parseTrianglesRequest, rankTriangles } from "~/engine";
-import { requireApiUser } from "~/lib/guards.server";
-import { methodNotAllowed } from "~/lib/json.server";
-import { handleComputation } from "~/services/api/computation.server";
-import type { Route } from "./+types/triangles";
+import { computationAction, computationLoader } from "~/services/api/computation.server";
 
-export async function loader({ request }: Route.LoaderArgs) {
-  await requireApiUser(request);
-  return methodNotAllowed();
-}
+export const loader = computationLoader;
 
-export async function action({ request }: Route.ActionArgs) {
-  // A session cookie or an API token (Authorization: Bearer); 401 JSON otherwise.
-  await requireApiUser(request, "sketch:use");
-  return handleComputation(request, parseTrianglesRequest, rankTriangles);
-}
+export const action = computationAction(parseTrianglesRequest, rankTriangles);

@@ -1,8 +1,10 @@
 /**
- * The computation resource routes (`POST /api/coverage`, `/api/ephemeris`, `/api/triangles`): read
- * the JSON body, validate it with the engine's wire schema, run the pure computation, answer JSON.
+ * The computation resource routes (`POST /api/coverage`, `/api/ephemeris`, `/api/triangles`): check
+ * who asks, read the JSON body, validate it with the engine's wire schema, run the pure computation,
+ * answer JSON. Each route module is its loader and action from here.
  */
 import type { ParseResult } from "~/engine";
+import { requireApiUser } from "~/lib/guards.server";
 import { type ApiError, jsonResponse, methodNotAllowed, readJsonBody } from "~/lib/json.server";
 
 /**
@@ -26,4 +28,24 @@ export async function handleComputation<T, R>(
     if (e instanceof RangeError) return jsonResponse({ error: e.message, field: null } satisfies ApiError, 400);
     throw e;
   }
+}
+
+/** The loader of a computation route: a GET is answered 405 (after the 401 for a stranger). */
+export async function computationLoader({ request }: { request: Request }): Promise<Response> {
+  await requireApiUser(request);
+  return methodNotAllowed();
+}
+
+/**
+ * The action of a computation route. A session cookie or an API token (Authorization: Bearer) with
+ * the "sketch:use" permission; 401 or 403 JSON otherwise.
+ */
+export function computationAction<T, R>(
+  parse: (json: unknown) => ParseResult<T>,
+  compute: (value: T) => R,
+): (args: { request: Request }) => Promise<Response> {
+  return async ({ request }) => {
+    await requireApiUser(request, "sketch:use");
+    return handleComputation(request, parse, compute);
+  };
 }

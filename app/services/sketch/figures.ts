@@ -3,7 +3,15 @@
  * their Hermitian twins, spatial frequencies, dense model curves, the beam's fitted ellipse and image
  * axes, a summary of why samples are unobservable, and cautions. Pure (no React, no Plotly).
  */
-import { compileModel, evaluateVisibilities, type TargetModel } from "~/engine";
+import {
+  type CoverageSample,
+  compileModel,
+  type EphemerisResponse,
+  evaluateVisibilities,
+  type NightSampling,
+  type TargetModel,
+} from "~/engine";
+import { angularSeparationDeg, observableWindows, sunSeparationDeg } from "./night";
 
 // ---------------------------------------------------------------- uv plane
 
@@ -139,15 +147,8 @@ export function imageWindow(image: readonly number[], gridSize: number, pixelMas
 
 // ---------------------------------------------------------------- samples, reasons, cautions
 
-export interface SampleLike {
-  hourAngleH: number;
-  elevationDeg: number;
-  observable: boolean;
-  reason: string | null;
-  airmass: number | null;
-  utc?: string;
-  sunAltitudeDeg?: number;
-}
+/** A sample of the coverage answer, as far as the summaries read it. */
+export type SampleLike = Omit<CoverageSample, "lstH">;
 
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
@@ -239,4 +240,47 @@ export function cautions(opts: {
     );
   }
   return out;
+}
+
+/**
+ * The notes under a sketch: the cautions, and the Moon at local midnight when the ephemeris of the
+ * sketched night is at hand (`ephemeris` of another night is ignored).
+ */
+export function sketchNotes(
+  body: { night?: NightSampling; target: { raDeg: number; decDeg: number } },
+  samples: readonly SampleLike[],
+  ephemeris: EphemerisResponse | undefined,
+): { cautions: string[]; moon: string | null } {
+  const stepMin = body.night?.stepMin ?? null;
+  let sunSep: number | null = null;
+  let moon: string | null = null;
+  let duskMs: number | null = null;
+  let dawnMs: number | null = null;
+  if (ephemeris && body.night && ephemeris.date === body.night.date) {
+    const midnight = Date.parse(ephemeris.localMidnightUtc);
+    sunSep = sunSeparationDeg(body.target.raDeg, body.target.decDeg, midnight);
+    const moonSep = angularSeparationDeg(
+      body.target.raDeg,
+      body.target.decDeg,
+      ephemeris.moonRaDeg,
+      ephemeris.moonDecDeg,
+    );
+    moon =
+      `Moon at local midnight: ${Math.round(ephemeris.moonIlluminatedFraction * 100)} % illuminated, ` +
+      `about ${moonSep.toFixed(0)}° from the target, altitude ${ephemeris.moonAltitudeDeg.toFixed(0)}°.`;
+    duskMs = ephemeris.astronomicalDuskUtc ? Date.parse(ephemeris.astronomicalDuskUtc) : null;
+    dawnMs = ephemeris.astronomicalDawnUtc ? Date.parse(ephemeris.astronomicalDawnUtc) : null;
+  }
+  const windows = stepMin === null ? [] : observableWindows(samples, stepMin);
+  return {
+    cautions: cautions({
+      sunSeparationDeg: sunSep,
+      hourAngleSampling: stepMin === null,
+      windows,
+      duskMs,
+      dawnMs,
+      stepMin: stepMin ?? 0,
+    }),
+    moon,
+  };
 }

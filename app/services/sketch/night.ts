@@ -7,6 +7,7 @@
 import {
   airmassKastenYoung,
   DEG_TO_RAD,
+  type EphemerisResponse,
   elevationRad,
   gastRad,
   jdeFromJd,
@@ -183,16 +184,18 @@ export function elevationForAirmass(airmass: number): number {
   return (lo + hi) / 2;
 }
 
-export interface NightTimes {
-  sunsetUtc: string | null;
-  civilDuskUtc: string | null;
-  nauticalDuskUtc: string | null;
-  astronomicalDuskUtc: string | null;
-  astronomicalDawnUtc: string | null;
-  nauticalDawnUtc: string | null;
-  civilDawnUtc: string | null;
-  sunriseUtc: string | null;
-}
+/** The Sun events of a night, as the ephemeris answers them (null when an event does not happen). */
+export type NightTimes = Pick<
+  EphemerisResponse,
+  | "sunsetUtc"
+  | "civilDuskUtc"
+  | "nauticalDuskUtc"
+  | "astronomicalDuskUtc"
+  | "astronomicalDawnUtc"
+  | "nauticalDawnUtc"
+  | "civilDawnUtc"
+  | "sunriseUtc"
+>;
 
 export type TwilightKind = "day" | "civil" | "nautical" | "astronomical";
 export interface TwilightBand {
@@ -233,7 +236,7 @@ export function twilightBands(n: NightTimes, startMs: number, endMs: number): Tw
  * on it, so a run from t₁ to t₂ covers [t₁ − step/2, t₂ + step/2] and its length is samples × step.
  */
 export function observableWindows(
-  samples: { utc?: string; observable: boolean }[],
+  samples: readonly { utc?: string; observable: boolean }[],
   stepMin: number,
 ): { startMs: number; endMs: number }[] {
   const half = (stepMin * 60_000) / 2;

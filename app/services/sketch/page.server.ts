@@ -3,16 +3,20 @@
  * its stations, configurations with ordered station names and instruments with bands, plus the date
  * of the next night there.
  */
-import { data } from "react-router";
-import { type Database, database } from "~/db/client.server";
+import type { Database } from "~/db/client.server";
 import type { Viewer } from "~/lib/guards.server";
+import { notFound } from "~/lib/not-found";
 import { listSites, loadSiteRegistry } from "~/services/registry/queries.server";
-import { nextNightDate } from "~/services/sketch/night";
-import type { SketchRegistry } from "~/services/sketch/request";
-import type { SavedTarget, StateDefaults } from "~/services/sketch/state";
 import { listTargets } from "~/services/targets/targets.server";
+import type { SavedTarget } from "./models";
+import { nextNightDate } from "./night";
+import type { SketchRegistry } from "./registry";
+import type { StateDefaults } from "./state";
 
-export async function loadSketchRegistry(db: Database, siteName: string | null, now = new Date()) {
+export async function loadSketchRegistry(
+  db: Database,
+  { siteName, now = new Date() }: { siteName: string | null; now?: Date },
+) {
   const sites = await listSites(db);
   const chosen = sites.find((s) => s.name === siteName) ?? sites[0];
   if (!chosen) return null;
@@ -66,9 +70,9 @@ export async function loadSketchRegistry(db: Database, siteName: string | null, 
 }
 
 /** The viewer's own targets for the "From My targets" picker (empty for roles without a target list). */
-export async function savedTargetsOf(viewer: Viewer): Promise<SavedTarget[]> {
+export async function savedTargetsOf(db: Database, { viewer }: { viewer: Viewer }): Promise<SavedTarget[]> {
   if (!viewer.permissions.has("proposals:own")) return [];
-  const list = await listTargets(database(), viewer.user.id);
+  const list = await listTargets(db, viewer.user.id);
   return list.map((t) => ({ id: t.id, name: t.name, raDeg: t.raDeg, decDeg: t.decDeg, model: t.model }));
 }
 
@@ -77,13 +81,14 @@ export async function savedTargetsOf(viewer: Viewer): Promise<SavedTarget[]> {
  * and the viewer's own targets. `purpose` finishes the sentence of the 404 when the registry is too
  * thin to work with.
  */
-export async function loadSketchPage(viewer: Viewer, url: URL, purpose: string) {
-  const loaded = await loadSketchRegistry(database(), url.searchParams.get("site"));
+export async function loadSketchPage(
+  db: Database,
+  { viewer, url, purpose }: { viewer: Viewer; url: URL; purpose: string },
+) {
+  const loaded = await loadSketchRegistry(db, { siteName: url.searchParams.get("site") });
   if (!loaded) return { loaded: null, savedTargets: [] as SavedTarget[] };
   if (loaded.registry.stations.length < 2 || loaded.registry.instruments.length === 0) {
-    throw data(`The array registry needs at least two stations and one instrument band before ${purpose}.`, {
-      status: 404,
-    });
+    notFound(`The array registry needs at least two stations and one instrument band before ${purpose}.`);
   }
-  return { loaded, savedTargets: await savedTargetsOf(viewer) };
+  return { loaded, savedTargets: await savedTargetsOf(db, { viewer }) };
 }

@@ -16,70 +16,23 @@
  *   minel, dl=off, wt, uv=m  minimum elevation, delay-line check off, beam weighting, uv plane in metres
  */
 
-export const SIMPLE_MODEL_TYPES = ["point", "uniformDisk", "gaussian", "limbDarkenedDisk", "ring", "binary"] as const;
-export type SimpleModelType = (typeof SIMPLE_MODEL_TYPES)[number];
+import { href } from "react-router";
+import type { BeamOptions } from "~/engine";
+import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
+import {
+  defaultModel,
+  defaultSecond,
+  isModelType,
+  MODEL_PARAMS,
+  MODEL_PARAMS_LIST,
+  type ModelState,
+  PARAM_INFO,
+  type SecondComponentState,
+  type SimpleModelType,
+} from "./models";
+import { raTransitingAtMidnight } from "./night";
 
-export const MODEL_PARAMS_LIST = [
-  "diameterMas",
-  "fwhmMas",
-  "coefficient",
-  "separationMas",
-  "positionAngleDeg",
-  "fluxRatio",
-] as const;
-export type ModelParam = (typeof MODEL_PARAMS_LIST)[number];
-
-export const MODEL_LABELS: Record<SimpleModelType, string> = {
-  point: "Point source",
-  uniformDisk: "Uniform disk",
-  gaussian: "Gaussian",
-  limbDarkenedDisk: "Limb-darkened disk",
-  ring: "Thin ring",
-  binary: "Binary (two points)",
-};
-
-/** Parameters of each model type, in form order. */
-export const MODEL_PARAMS: Record<SimpleModelType, readonly ModelParam[]> = {
-  point: [],
-  uniformDisk: ["diameterMas"],
-  gaussian: ["fwhmMas"],
-  limbDarkenedDisk: ["diameterMas", "coefficient"],
-  ring: ["diameterMas"],
-  binary: ["separationMas", "positionAngleDeg", "fluxRatio"],
-};
-
-export const PARAM_INFO: Record<
-  ModelParam,
-  { label: string; unit?: string; urlKey: string; fallback: string; hint?: string }
-> = {
-  diameterMas: { label: "Diameter", unit: "mas", urlKey: "diam", fallback: "2" },
-  fwhmMas: { label: "FWHM", unit: "mas", urlKey: "fwhm", fallback: "2" },
-  coefficient: {
-    label: "Limb-darkening coefficient",
-    urlKey: "ld",
-    fallback: "0.3",
-    hint: "Linear law I(μ) = 1 − a(1 − μ), a from 0 (uniform) to 1.",
-  },
-  separationMas: { label: "Separation", unit: "mas", urlKey: "sep", fallback: "4" },
-  positionAngleDeg: { label: "Position angle", unit: "° east of north", urlKey: "pa", fallback: "60" },
-  fluxRatio: { label: "Flux ratio", unit: "secondary / primary", urlKey: "ratio", fallback: "0.5" },
-};
-
-export interface ModelState {
-  type: SimpleModelType;
-  /** Every parameter as typed; only the type's own ones are used. */
-  params: Record<ModelParam, string>;
-}
-
-export interface SecondComponentState extends ModelState {
-  /** Flux relative to the first component (which has flux 1). */
-  flux: string;
-  /** Offset of its centre from the phase centre, mas toward east and north. */
-  east: string;
-  north: string;
-}
-
-export type Weighting = "natural" | "uniform" | "robust";
+export type Weighting = BeamOptions["weighting"];
 export type SamplingMode = "night" | "hourAngle";
 
 /** Inputs shared by both pages. */
@@ -128,28 +81,6 @@ export interface StateDefaults {
   config: string;
   instrument: string;
   band: string;
-}
-
-export function defaultModel(type: SimpleModelType = "uniformDisk"): ModelState {
-  const params = Object.fromEntries(MODEL_PARAMS_LIST.map((p) => [p, PARAM_INFO[p].fallback])) as Record<
-    ModelParam,
-    string
-  >;
-  return { type, params };
-}
-
-export function defaultSecond(): SecondComponentState {
-  return {
-    ...defaultModel("gaussian"),
-    params: { ...defaultModel().params, fwhmMas: "8" },
-    flux: "0.2",
-    east: "0",
-    north: "0",
-  };
-}
-
-function isModelType(t: string | null): t is SimpleModelType {
-  return t !== null && (SIMPLE_MODEL_TYPES as readonly string[]).includes(t);
 }
 
 function readModel(params: URLSearchParams, prefix: string, fallbackType: SimpleModelType): ModelState {
@@ -273,54 +204,19 @@ export function writeTriangleState(s: TriangleState): URLSearchParams {
 /** The Sketchpad address of a station pick with the target, model, date, band and sampling of `s`. */
 export function sketchpadHref(s: CommonState, stations: readonly string[]): string {
   const state: SketchState = { ...s, config: "", stations: [...stations], weighting: "natural", uvUnit: "mlambda" };
-  return `/sketchpad?${writeSketchState(state).toString()}`;
-}
-
-/** A saved target as the Sketchpad and Triangle finder offer it ("From My targets"). */
-export interface SavedTarget {
-  id: number;
-  name: string;
-  raDeg: number;
-  decDeg: number;
-  model: { type: string; [key: string]: unknown };
-}
-
-function paramsFrom(model: { [key: string]: unknown }): Record<ModelParam, string> {
-  const params = { ...defaultModel().params };
-  for (const p of MODEL_PARAMS_LIST) {
-    const x = model[p];
-    if (typeof x === "number" && Number.isFinite(x)) params[p] = String(x);
-  }
-  return params;
+  return `${href("/sketchpad")}?${writeSketchState(state).toString()}`;
 }
 
 /**
- * The model inputs for a stored model: simple types directly; a sum keeps its first two components
- * (the first at the phase centre, the second with its relative flux and offset). Anything else
- * falls back to a point source.
+ * Coordinates of a target that is up tonight: on the meridian at local midnight of the night of
+ * `date`, 5° north of the zenith's declination rounded to the degree.
  */
-export function modelInputsOf(model: SavedTarget["model"]): { model: ModelState; second: SecondComponentState | null } {
-  if (isModelType(model.type)) return { model: { type: model.type, params: paramsFrom(model) }, second: null };
-  const components = Array.isArray(model.components)
-    ? (model.components as {
-        model: SavedTarget["model"];
-        flux: number;
-        offsetEastMas?: number;
-        offsetNorthMas?: number;
-      }[])
-    : [];
-  const [a, b] = components;
-  if (!a || !isModelType(a.model.type)) return { model: defaultModel("point"), second: null };
-  const first: ModelState = { type: a.model.type, params: paramsFrom(a.model) };
-  if (!b || !isModelType(b.model.type)) return { model: first, second: null };
+export function exampleTarget(
+  date: string,
+  site: { latitudeDeg: number; longitudeDeg: number },
+): Pick<CommonState, "ra" | "dec"> {
   return {
-    model: first,
-    second: {
-      type: b.model.type,
-      params: paramsFrom(b.model),
-      flux: String(b.flux / (a.flux || 1)),
-      east: String((b.offsetEastMas ?? 0) - (a.offsetEastMas ?? 0)),
-      north: String((b.offsetNorthMas ?? 0) - (a.offsetNorthMas ?? 0)),
-    },
+    ra: formatRightAscension(raTransitingAtMidnight(date, site.longitudeDeg), 1),
+    dec: formatDeclination(Math.round(site.latitudeDeg) - 5, 0),
   };
 }

@@ -10,6 +10,12 @@ function failure(mutate: (r: Record<string, any>) => void) {
   return { message: out.message, field: out.field };
 }
 
+/** A mutation that samples the night of `date` every `stepMin` minutes instead of the hour angles. */
+const nightInstead = (date: string, stepMin: number) => (r: Record<string, any>) => {
+  delete r.hourAnglesH;
+  r.night = { date, stepMin };
+};
+
 describe("coverage request validation", () => {
   it("accepts the contract example and fills defaults", () => {
     const r = good();
@@ -84,36 +90,12 @@ describe("coverage request validation", () => {
     ],
     [
       "night step that could exceed 20000 samples",
-      (r) => {
-        delete r.hourAnglesH;
-        r.night = { date: "2027-03-15", stepMin: 0.07 };
-      },
+      nightInstead("2027-03-15", 0.07),
       "night.stepMin: is too small: a night could need more than 20000 samples (use at least 0.073 minutes)",
     ],
-    [
-      "night step not positive",
-      (r) => {
-        delete r.hourAnglesH;
-        r.night = { date: "2027-03-15", stepMin: 0 };
-      },
-      "night.stepMin: must be positive",
-    ],
-    [
-      "night date not a real date",
-      (r) => {
-        delete r.hourAnglesH;
-        r.night = { date: "2027-02-29", stepMin: 5 };
-      },
-      "night.date: must be a real calendar date",
-    ],
-    [
-      "night date in another form",
-      (r) => {
-        delete r.hourAnglesH;
-        r.night = { date: "15/03/2027", stepMin: 5 };
-      },
-      "night.date: must be a date in the form YYYY-MM-DD",
-    ],
+    ["night step not positive", nightInstead("2027-03-15", 0), "night.stepMin: must be positive"],
+    ["night date not a real date", nightInstead("2027-02-29", 5), "night.date: must be a real calendar date"],
+    ["night date in another form", nightInstead("15/03/2027", 5), "night.date: must be a date in the form YYYY-MM-DD"],
     ["latitude out of range", (r) => (r.site.latitudeDeg = -91), "site.latitudeDeg: must be between -90 and 90"],
     ["longitude out of range", (r) => (r.site.longitudeDeg = 181), "site.longitudeDeg: must be between -180 and 180"],
     ["min elevation out of range", (r) => (r.minElevationDeg = 95), "minElevationDeg: must be between 0 and 90"],

@@ -1,7 +1,6 @@
+import { rad } from "@test/angles";
 import { describe, expect, it } from "vitest";
 import { airmassKastenYoung, airmassSecZ, riseTransitSetCore, starWindow } from "~/engine";
-
-const rad = (d: number) => (d * Math.PI) / 180;
 
 describe("rising, transit and setting (Meeus ch. 15)", () => {
   it("reproduces Meeus example 15.a: Venus at Boston, 1988 March 20", () => {

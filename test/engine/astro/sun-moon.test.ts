@@ -1,8 +1,6 @@
+import { deg, rad } from "@test/angles";
 import { describe, expect, it } from "vitest";
 import { moonIlluminatedFraction, moonPosition, precessFromJ2000, sunPosition } from "~/engine";
-
-const deg = (rad: number) => (rad * 180) / Math.PI;
-const rad = (d: number) => (d * Math.PI) / 180;
 
 describe("Sun position", () => {
   it("matches Meeus example 25.a (1992 October 13.0 TD)", () => {

@@ -1,10 +1,11 @@
+import { rad } from "@test/angles";
+import { demoSite } from "@test/demo-array";
 import { CalendarGregorian } from "astronomia/julian";
 import { Sunrise } from "astronomia/sunrise";
 import { describe, expect, it } from "vitest";
 import { computeEphemeris, jdeFromJd, julianDayFromDate, moonPosition, nightEvents } from "~/engine";
 
-const rad = (d: number) => (d * Math.PI) / 180;
-const site = { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 }; // demo site (invented)
+const site = demoSite();
 const ms = (iso: string | null) => Date.parse(iso as string);
 
 describe("night of date D at a site west of Greenwich", () => {

@@ -9,7 +9,7 @@ describe("channel wavelengths of a band", () => {
     const got = channelWavelengthsM(1.65e-6, 0.3e-6, 6);
     const want = [1.525e-6, 1.575e-6, 1.625e-6, 1.675e-6, 1.725e-6, 1.775e-6];
     expect(got).toHaveLength(6);
-    got.forEach((w, k) => expect(w).toBeCloseTo(want[k], 15));
+    for (const [k, w] of got.entries()) expect(w).toBeCloseTo(want[k], 15);
   });
 
   it("keeps the mean at the central wavelength and the span inside the band", () => {

@@ -1,16 +1,8 @@
+import { j1 } from "@test/bessel";
+import { rng } from "@test/random";
 import { describe, expect, it } from "vitest";
 import { directDirtyBeam, dirtyBeam, dirtyImage, weightPoints } from "~/engine";
 
-/** J1 from the Bessel integral, Simpson's rule — independent of the engine's polynomial. */
-function j1(x: number): number {
-  const N = 2000;
-  let s = 0;
-  for (let i = 0; i <= N; i++) {
-    const t = (Math.PI * i) / N;
-    s += Math.cos(t - x * Math.sin(t)) * (i === 0 || i === N ? 1 : i % 2 ? 4 : 2);
-  }
-  return (s * (Math.PI / N)) / 3 / Math.PI;
-}
 const airy = (x: number) => (x === 0 ? 1 : (2 * j1(x)) / x);
 
 /** Direct DFT of a weighted sampling function with Hermitian mirrors, written independently. */
@@ -23,17 +15,6 @@ function dftBeamAt(u: number[], v: number[], w: number[], l: number, m: number):
     den += 2 * w[p];
   }
   return num / den;
-}
-
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 /** Points on cell centres of an N-grid with the given pixel size (so gridding is exact). */

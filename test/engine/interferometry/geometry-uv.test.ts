@@ -1,3 +1,5 @@
+import { rad } from "@test/angles";
+import { rng } from "@test/random";
 import { describe, expect, it } from "vitest";
 import {
   baselineCount,
@@ -8,20 +10,6 @@ import {
   projectBaseline,
   stationsToEquatorial,
 } from "~/engine";
-
-const rad = (d: number) => (d * Math.PI) / 180;
-
-/** A small deterministic pseudo-random generator (mulberry32) for reproducible cases. */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 describe("ENU → equatorial XYZ", () => {
   it("sends local axes where the frame definition says", () => {

@@ -1,3 +1,6 @@
+import { MAS, rad } from "@test/angles";
+import { j1 } from "@test/bessel";
+import { demoSite, demoStations } from "@test/demo-array";
 import { describe, expect, it } from "vitest";
 import {
   assessObservability,
@@ -10,17 +13,9 @@ import {
   stationsToEquatorial,
 } from "~/engine";
 
-const rad = (d: number) => (d * Math.PI) / 180;
-const MAS = Math.PI / (180 * 3600 * 1000);
-
 /** Demo site (invented): Sierra Lumbre Array. */
-const SITE = { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 };
-const STATIONS = [
-  { name: "C01", eastM: 0, northM: 0, upM: 0, pathOffsetM: 0 },
-  { name: "C02", eastM: 16, northM: 0, upM: 0, pathOffsetM: 5 },
-  { name: "C05", eastM: 8, northM: 13.86, upM: 0, pathOffsetM: 10 },
-  { name: "W1", eastM: -180, northM: 60, upM: 1.2, pathOffsetM: 40 },
-];
+const SITE = demoSite();
+const STATIONS = demoStations("C01", "C02", "C05", "W1");
 
 function request(extra: Record<string, unknown> = {}): CoverageRequest {
   const parsed = parseCoverageRequest({
@@ -36,17 +31,6 @@ function request(extra: Record<string, unknown> = {}): CoverageRequest {
   });
   if (!parsed.ok) throw new Error(parsed.message);
   return parsed.value;
-}
-
-/** J1 from the Bessel integral — independent of the engine. */
-function j1(x: number): number {
-  const N = 2000;
-  let s = 0;
-  for (let i = 0; i <= N; i++) {
-    const t = (Math.PI * i) / N;
-    s += Math.cos(t - x * Math.sin(t)) * (i === 0 || i === N ? 1 : i % 2 ? 4 : 2);
-  }
-  return (s * (Math.PI / N)) / 3 / Math.PI;
 }
 
 describe("observability", () => {

@@ -1,3 +1,4 @@
+import { demoSite } from "@test/demo-array";
 import { describe, expect, it } from "vitest";
 import { parseTrianglesRequest, rankTriangles } from "~/engine";
 
@@ -11,7 +12,7 @@ const STATIONS = [
 
 function run(extra: Record<string, unknown> = {}) {
   const parsed = parseTrianglesRequest({
-    site: { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 },
+    site: demoSite(),
     stations: STATIONS,
     target: {
       raDeg: 84.05,

@@ -1,6 +1,6 @@
 import type { ReactNode } from "react";
+import type { CoverageResponse } from "~/engine";
 import { airmassRange, summariseReasons } from "~/services/sketch/figures";
-import type { CoverageResponse } from "./api";
 import { Panel } from "./Panel";
 
 function Figure({ label, value, unit, hint }: { label: string; value: ReactNode; unit?: string; hint?: string }) {

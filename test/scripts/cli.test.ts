@@ -3,6 +3,7 @@ import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
+import { demoSite, demoStations } from "@test/demo-array";
 import { describe, expect, it } from "vitest";
 
 const ROOT = fileURLToPath(new URL("../..", import.meta.url));
@@ -25,12 +26,8 @@ function file(name: string, content: unknown): string {
 }
 
 const coverageRequest = {
-  site: { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 },
-  stations: [
-    { name: "C01", eastM: 0, northM: 0, upM: 0, pathOffsetM: 0 },
-    { name: "C02", eastM: 16, northM: 0, upM: 0, pathOffsetM: 5 },
-    { name: "W1", eastM: -180, northM: 60, upM: 1.2, pathOffsetM: 40 },
-  ],
+  site: demoSite(),
+  stations: demoStations("C01", "C02", "W1"),
   target: { raDeg: 84.05, decDeg: -1.2, model: { type: "uniformDisk", diameterMas: 3.0 } },
   wavelengthsM: [1.65e-6, 2.2e-6],
   hourAnglesH: [-3, -2.5, -2],

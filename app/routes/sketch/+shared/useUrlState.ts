@@ -1,5 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import { useSearchParams } from "react-router";
+import type { StateDefaults } from "~/services/sketch/state";
 import { useDebounced } from "./useDebounced";
 
 /**
@@ -16,7 +17,7 @@ export function useUrlState<S>(
   delayMs = 400,
 ) {
   const [searchParams, setSearchParams] = useSearchParams();
-  // `read` and `write` are pure functions of their argument; only the address matters here.
+  // biome-ignore lint/correctness/useExhaustiveDependencies: `read` is a pure function of its argument (a new closure every render); only the address matters here.
   const fromUrl = useMemo(() => read(searchParams), [searchParams]);
   const [state, setState] = useState<S>(fromUrl);
   const written = useRef(searchParams.toString());
@@ -32,6 +33,7 @@ export function useUrlState<S>(
 
   const settled = useDebounced(state, delayMs);
 
+  // biome-ignore lint/correctness/useExhaustiveDependencies: runs only when the settled state changes; the address it compares with (and its setter) is read at that moment. Re-running on an address change from outside would write the old state back over it.
   useEffect(() => {
     const next = write(settled);
     for (const k of keep) {
@@ -43,7 +45,6 @@ export function useUrlState<S>(
       written.current = text;
       setSearchParams(next, { replace: true, preventScrollReset: true });
     }
-    // Runs when the settled state changes; the address it compares with is read at that moment.
   }, [settled]);
 
   return {
@@ -54,4 +55,18 @@ export function useUrlState<S>(
     set: (patch: Partial<S>) => setState((s) => ({ ...s, ...patch })),
     replace: setState,
   };
+}
+
+/** How a page's state is read from (with the registry's defaults) and written to its address. */
+export interface StateCodec<S> {
+  read: (params: URLSearchParams, defaults: StateDefaults) => S;
+  write: (state: S) => URLSearchParams;
+}
+
+/**
+ * The state of the Sketchpad or the Triangle finder in the URL: read with the page's defaults; the
+ * site is carried over when there are several to choose from.
+ */
+export function useSketchState<S>(codec: StateCodec<S>, page: { defaults: StateDefaults; multiSite: boolean }) {
+  return useUrlState<S>((p) => codec.read(p, page.defaults), codec.write, page.multiSite ? ["site"] : []);
 }

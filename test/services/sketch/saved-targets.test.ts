@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { modelInputsOf } from "~/services/sketch/state";
+import { modelInputsOf } from "~/services/sketch/models";
 
 describe("filling the Sketchpad from a saved target", () => {
   it("keeps a simple model's parameters", () => {

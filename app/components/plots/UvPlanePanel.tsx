@@ -1,8 +1,8 @@
 import { useMemo } from "react";
-import { Plot, plotLayout, SERIES_COLOURS } from "~/components/plots/Plot";
+import type { CoverageResponse } from "~/engine";
 import { uvPoints } from "~/services/sketch/figures";
-import type { CoverageResponse } from "./api";
 import { Panel, SeriesLegend, Toggle } from "./Panel";
+import { Plot, plotLayout, SERIES_COLOURS } from "./Plot";
 
 export type UvUnit = "mlambda" | "m";
 

@@ -1,16 +1,15 @@
 import { describe, expect, it } from "vitest";
 import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "~/db/seed/scenario";
 import { parseCoverageRequest, parseEphemerisRequest, parseTrianglesRequest } from "~/engine";
+import { apiErrorText, inputForApiField } from "~/services/sketch/api-errors";
+import { sizeFailure } from "~/services/sketch/limits";
+import { modelFromState } from "~/services/sketch/model-input";
+import type { RegistryLike } from "~/services/sketch/registry";
 import {
-  apiErrorText,
   buildCoverageRequest,
   buildEphemerisRequest,
   buildTrianglesRequest,
   hourAngleList,
-  inputForApiField,
-  modelFromState,
-  type RegistryLike,
-  sizeFailure,
 } from "~/services/sketch/request";
 import { ALL_STATIONS, readSketchState, readTriangleState } from "~/services/sketch/state";
 
@@ -23,15 +22,20 @@ const registry: RegistryLike = {
 const defaults = { date: "2027-03-15", config: "compact-3", instrument: "Brasa", band: "H" };
 const sketch = (q: string) => readSketchState(new URLSearchParams(q), defaults);
 
+/** The coverage body of the sketch at address `q`, which must build. */
+function builtBody(q: string) {
+  const built = buildCoverageRequest(sketch(q), registry);
+  expect(built.ok).toBe(true);
+  if (!built.ok) throw new Error(`the sketch did not build: ${JSON.stringify(built.errors)}`);
+  return built.body;
+}
+
+/** The API's reading of a body sent as JSON. */
+const sent = (body: unknown) => parseCoverageRequest(JSON.parse(JSON.stringify(body)));
+
 describe("coverage request of a sketch", () => {
   it("builds a body the API accepts, with the configuration's stations in order and the band's channels", () => {
-    const built = buildCoverageRequest(
-      sketch("name=Test&ra=05:36:12&dec=-01:12:07&model=uniformDisk&diam=3"),
-      registry,
-    );
-    expect(built.ok).toBe(true);
-    if (!built.ok) return;
-    const b = built.body;
+    const b = builtBody("name=Test&ra=05:36:12&dec=-01:12:07&model=uniformDisk&diam=3");
     expect(b.stations.map((s) => s.name)).toEqual(["C04", "C10", "C17"]);
     expect(b.target).toMatchObject({ name: "Test", model: { type: "uniformDisk", diameterMas: 3 } });
     // 05h36m12s × 15 = 84.05°; −(1 + 12/60 + 7/3600)° = −1.20194° (common practice).
@@ -42,23 +46,18 @@ describe("coverage request of a sketch", () => {
     expect(b.minElevationDeg).toBe(30);
     expect(b.delayLineStrokeM).toBe(90);
     expect(b.beam).toEqual({ gridSize: 256, weighting: "natural", includeImages: true });
-    expect(parseCoverageRequest(JSON.parse(JSON.stringify(b))).ok).toBe(true);
+    expect(sent(b).ok).toBe(true);
   });
 
   it("uses a free pick in registry order, an hour-angle range and the options", () => {
-    const built = buildCoverageRequest(
-      sketch("ra=84.05&dec=-1.2&st=X02,C01&ha=-2,2,1&dl=off&minel=45&wt=uniform"),
-      registry,
-    );
-    expect(built.ok).toBe(true);
-    if (!built.ok) return;
-    expect(built.body.stations.map((s) => s.name)).toEqual(["C01", "X02"]);
-    expect(built.body.hourAnglesH).toEqual([-2, -1, 0, 1, 2]);
-    expect(built.body.night).toBeUndefined();
-    expect(built.body.delayLineStrokeM).toBeNull();
-    expect(built.body.minElevationDeg).toBe(45);
-    expect(built.body.beam?.weighting).toBe("uniform");
-    expect(parseCoverageRequest(JSON.parse(JSON.stringify(built.body))).ok).toBe(true);
+    const body = builtBody("ra=84.05&dec=-1.2&st=X02,C01&ha=-2,2,1&dl=off&minel=45&wt=uniform");
+    expect(body.stations.map((s) => s.name)).toEqual(["C01", "X02"]);
+    expect(body.hourAnglesH).toEqual([-2, -1, 0, 1, 2]);
+    expect(body.night).toBeUndefined();
+    expect(body.delayLineStrokeM).toBeNull();
+    expect(body.minElevationDeg).toBe(45);
+    expect(body.beam?.weighting).toBe("uniform");
+    expect(sent(body).ok).toBe(true);
   });
 
   it("waits quietly until a target is typed", () => {
@@ -98,25 +97,16 @@ describe("coverage request of a sketch", () => {
   it("leaves range checks to the API and shows its message beside the right input", () => {
     // A declination beyond the pole typed in decimal degrees is refused by the parser already; a
     // negative diameter and a minimum elevation above 90° reach the API, whose 400 names the field.
-    const diam = buildCoverageRequest(sketch("ra=84&dec=-1&model=uniformDisk&diam=-2"), registry);
-    expect(diam.ok).toBe(true);
-    if (!diam.ok) return;
-    const refused = parseCoverageRequest(JSON.parse(JSON.stringify(diam.body)));
+    const refused = sent(builtBody("ra=84&dec=-1&model=uniformDisk&diam=-2"));
     expect(refused.ok).toBe(false);
     if (refused.ok) return;
     expect(inputForApiField(refused.field)).toBe("model.diameterMas");
     expect(apiErrorText(refused.field, refused.message)).toBe("Diameter: must be positive");
 
-    const minel = buildCoverageRequest(sketch("ra=84&dec=-1&minel=95"), registry);
-    expect(minel.ok).toBe(true);
-    if (!minel.ok) return;
-    const r2 = parseCoverageRequest(JSON.parse(JSON.stringify(minel.body)));
+    const r2 = sent(builtBody("ra=84&dec=-1&minel=95"));
     expect(!r2.ok && apiErrorText(r2.field, r2.message)).toBe("Minimum elevation: must be between 0 and 90");
 
-    const ha = buildCoverageRequest(sketch("ra=84&dec=-1&ha=-13,0,1"), registry);
-    expect(ha.ok).toBe(true);
-    if (!ha.ok) return;
-    const r3 = parseCoverageRequest(JSON.parse(JSON.stringify(ha.body)));
+    const r3 = sent(builtBody("ra=84&dec=-1&ha=-13,0,1"));
     expect(!r3.ok && inputForApiField(r3.field, "hourAngle")).toBe("ha");
   });
 

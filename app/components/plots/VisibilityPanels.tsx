@@ -1,9 +1,8 @@
 import { useMemo } from "react";
-import { Plot, plotLayout, SERIES_COLOURS } from "~/components/plots/Plot";
-import type { TargetModel } from "~/engine";
+import type { CoverageResponse, TargetModel } from "~/engine";
 import { modelVis2Curves, spatialFrequencyPoints } from "~/services/sketch/figures";
-import type { CoverageResponse } from "./api";
 import { Panel, SeriesLegend } from "./Panel";
+import { Plot, plotLayout, SERIES_COLOURS } from "./Plot";
 import { baselineColour } from "./UvPlanePanel";
 
 const CURVE_DASH = ["solid", "dash", "dot", "dashdot"];

@@ -1,3 +1,4 @@
+import { rad } from "@test/angles";
 import { describe, expect, it } from "vitest";
 import { airmassKastenYoung, dateFromJulianDay, deltaTSeconds, elevationRad, gastRad } from "~/engine";
 import {
@@ -13,8 +14,6 @@ import {
   targetAltitudeCurve,
   twilightBands,
 } from "~/services/sketch/night";
-
-const rad = (d: number) => (d * Math.PI) / 180;
 
 describe("the night of a date", () => {
   it("is the local evening's date: before local noon the next night begins this evening", () => {

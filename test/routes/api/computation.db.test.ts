@@ -1,4 +1,5 @@
 import { goodCoverageRequest as good } from "@test/coverage-request";
+import { demoSite } from "@test/demo-array";
 import { settle, testDb } from "@test/routes";
 import { beforeAll, describe, expect, it } from "vitest";
 import { seedDemoScenario } from "~/db/seed/factories.server";
@@ -103,7 +104,7 @@ describe("JSON resource routes", () => {
         new Request("http://localhost/api/ephemeris", {
           method: "POST",
           body: JSON.stringify({
-            site: { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 },
+            site: demoSite(),
             date: "2027-03-15",
           }),
         }),

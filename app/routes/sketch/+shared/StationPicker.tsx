@@ -3,11 +3,12 @@
  * station) or with the checkboxes below it (keyboard). Picking on the map while a configuration is
  * chosen starts a free pick from that configuration's stations.
  */
-import { Plot, plotLayout } from "~/components/plots/Plot";
+import { Plot, plotLayout, stationPoints } from "~/components/plots/Plot";
 import { SelectField } from "~/components/ui";
-import { type FieldErrors, pickedStations, type RegistryLike } from "~/services/sketch/request";
+import type { FieldErrors } from "~/services/sketch/inputs";
+import { pickedStations, type RegistryLike } from "~/services/sketch/registry";
 import type { SketchState } from "~/services/sketch/state";
-import { InputGroup } from "./InputFields";
+import { binder, InputGroup } from "./InputGroup";
 
 const FREE = "";
 
@@ -25,6 +26,10 @@ export function StationPicker({
   const picked = pickedStations(state, registry);
   const pickedSet = new Set(picked);
 
+  // Switching to a free pick starts from the stations shown now.
+  const pickConfig = (patch: Partial<SketchState>) =>
+    set(patch.config === FREE ? { config: FREE, stations: picked } : { config: patch.config });
+
   function toggle(name: string) {
     const next = new Set(picked);
     if (next.has(name)) next.delete(name);
@@ -38,9 +43,7 @@ export function StationPicker({
     type: "scatter",
     mode: "markers+text",
     name: chosen ? "In the sketch" : "Not used",
-    x: list.map((s) => s.eastM),
-    y: list.map((s) => s.northM),
-    text: list.map((s) => s.name),
+    ...stationPoints(list),
     customdata: list.map((s) => s.name),
     textposition: "top center",
     textfont: { size: 10, color: chosen ? "#7f2e14" : "#56637f" },
@@ -55,15 +58,9 @@ export function StationPicker({
     <InputGroup title="Stations">
       <SelectField
         label="Configuration"
-        name="config"
-        value={state.config}
+        {...binder(state, pickConfig)("config")}
         error={errors.stations}
         hint={state.config === FREE ? `${picked.length} stations picked on the map or below.` : `${picked.join(" · ")}`}
-        onChange={(e) => {
-          const config = e.target.value;
-          // Switching to a free pick starts from the stations shown now.
-          set(config === FREE ? { config, stations: picked } : { config });
-        }}
       >
         {registry.configurations.map((c) => (
           <option key={c.name} value={c.name}>

@@ -1,8 +1,8 @@
 import { useMemo } from "react";
-import { Plot, plotLayout } from "~/components/plots/Plot";
+import type { CoverageResponse } from "~/engine";
 import { beamEllipse, imageWindow } from "~/services/sketch/figures";
-import type { CoverageResponse } from "./api";
 import { Panel } from "./Panel";
+import { Plot, plotLayout } from "./Plot";
 
 /** Dark to ember to white: the peak is the lightest colour. */
 const HEAT = [

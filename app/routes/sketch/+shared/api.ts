@@ -4,9 +4,6 @@
  * sketch is never asked twice and the last answer stays on screen while the next one is computed.
  */
 import useSWR from "swr";
-import type { CoverageResponse, EphemerisResponse, TrianglesResponse } from "~/engine";
-
-export type { CoverageResponse, EphemerisResponse, TrianglesResponse };
 
 /** A refused or failed API call: the HTTP status, the API's message and the field it names (docs/cli.md). */
 export class ApiError extends Error {

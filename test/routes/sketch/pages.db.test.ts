@@ -1,8 +1,8 @@
 import { routeArgs, settle, testDb } from "@test/routes";
 import { beforeAll, describe, expect, it } from "vitest";
 import { ensureSite, ensureStations, seedDemoScenario } from "~/db/seed/factories.server";
-import { loader as sketchLoader } from "~/routes/sketchpad/index";
-import { loader as trianglesLoader } from "~/routes/triangles/index";
+import { loader as sketchLoader } from "~/routes/sketch/sketchpad";
+import { loader as trianglesLoader } from "~/routes/sketch/triangles";
 import { findUserByEmail } from "~/services/auth/accounts.server";
 import { createSession } from "~/services/auth/sessions.server";
 import { createTarget } from "~/services/targets/targets.server";

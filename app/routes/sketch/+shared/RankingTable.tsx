@@ -1,0 +1,32 @@
+/** The Triangle finder's answer: what was ranked, and the ranked triangles as a sortable table. */
+import { useMemo } from "react";
+import { DataTable } from "~/components/ui";
+import type { TrianglesResponse } from "~/engine";
+import { type TriangleRow, triangleColumns } from "./triangle-columns";
+
+export function RankingTable({ result, rows }: { result: TrianglesResponse; rows: TriangleRow[] }) {
+  const cols = useMemo(triangleColumns, []);
+  return (
+    <section
+      aria-labelledby="ranking-title"
+      className="space-y-3 rounded-[var(--radius-card)] bg-white p-4 shadow-[var(--shadow-card)] ring-1 ring-night-200"
+    >
+      <h2 id="ranking-title" className="text-lg font-semibold">
+        Ranked triangles
+      </h2>
+      <p className="text-sm text-night-700">
+        {result.triangleCount} triangles of {result.stationCount} stations over {result.sampleCount} samples of{" "}
+        {(result.sampleDurationH * 60).toFixed(0)} min
+        {result.triangles.length < result.triangleCount ? `; the best ${result.triangles.length} are listed` : ""}. The
+        pool has {result.independentClosurePhases} independent closure phases. {result.scoring}.
+      </p>
+      <DataTable
+        caption="Station triangles ranked for the target"
+        columns={cols}
+        rows={rows}
+        rowKey={(r) => r.stations.join("-")}
+        exportName="triangles"
+      />
+    </section>
+  );
+}

@@ -1,0 +1,52 @@
+/**
+ * The Sketchpad's live panels, drawn from the last answer that could be computed and the request it
+ * answers (not from the form, which may have changed since).
+ */
+import { useMemo } from "react";
+import { BeamPanel } from "~/components/plots/BeamPanel";
+import { ElevationPanel } from "~/components/plots/ElevationPanel";
+import { FiguresPanel, NotesPanel } from "~/components/plots/SummaryPanels";
+import { UvPlanePanel, type UvUnit } from "~/components/plots/UvPlanePanel";
+import { ClosurePanel, VisibilityPanel } from "~/components/plots/VisibilityPanels";
+import type { CoverageResponse, EphemerisResponse } from "~/engine";
+import { sketchNotes } from "~/services/sketch/figures";
+import type { RegistryLike } from "~/services/sketch/registry";
+import type { CoverageBody } from "~/services/sketch/request";
+
+export function SketchPanels({
+  shown,
+  ephemeris,
+  site,
+  uvUnit,
+  onUvUnit,
+}: {
+  shown: { result: CoverageResponse; body: CoverageBody; elapsedMs: number };
+  ephemeris: EphemerisResponse | undefined;
+  site: RegistryLike["site"];
+  uvUnit: UvUnit;
+  onUvUnit: (unit: UvUnit) => void;
+}) {
+  const { result, body } = shown;
+  const notes = useMemo(() => sketchNotes(body, result.samples, ephemeris), [body, result, ephemeris]);
+  return (
+    <div className="grid gap-4 xl:grid-cols-2">
+      <FiguresPanel coverage={result} stations={body.stations.length} elapsedMs={shown.elapsedMs} />
+      <UvPlanePanel coverage={result} unit={uvUnit} onUnit={onUvUnit} />
+      <ElevationPanel
+        coverage={result}
+        ephemeris={ephemeris}
+        site={site}
+        raDeg={body.target.raDeg}
+        decDeg={body.target.decDeg}
+        stepMin={body.night?.stepMin ?? null}
+        minElevationDeg={body.minElevationDeg}
+      />
+      <div className="xl:col-span-2">
+        <BeamPanel beam={result.beam} />
+      </div>
+      <VisibilityPanel coverage={result} model={body.target.model} />
+      <ClosurePanel coverage={result} />
+      <NotesPanel coverage={result} cautions={notes.cautions} moonLine={notes.moon} />
+    </div>
+  );
+}

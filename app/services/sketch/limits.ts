@@ -1,0 +1,28 @@
+/**
+ * What the pages ask of the computation API at most: the beam grid, the hour-angle samples, the
+ * rows of the ranking, and the API's own request-size limits checked before asking (docs/cli.md,
+ * "Size limits"). Pure.
+ */
+import { baselineCount, MAX_CLOSURE_VALUES, MAX_UV_POINTS, triangleCount } from "~/engine";
+
+/** Dirty-beam grid of the Sketchpad: 256² keeps the fitted FWHM within a few per cent (docs/cli.md). */
+export const SKETCH_GRID_SIZE = 256;
+/** Most hour-angle samples the Sketchpad asks for in one request. */
+export const MAX_SKETCH_HOUR_ANGLES = 2000;
+/** Rows the Triangle finder asks for. */
+export const TRIANGLE_ROWS = 50;
+
+/** Checks the request-size limits of the API before asking (docs/cli.md, "Size limits"). */
+export function sizeFailure(stations: number, samples: number, channels: number, withClosures = true): string | null {
+  const baselines = baselineCount(stations);
+  const triangles = triangleCount(stations);
+  const uv = baselines * samples * channels;
+  if (uv > MAX_UV_POINTS) {
+    return `${baselines} baselines × ${samples} samples × ${channels} channels = ${uv} uv points, above the limit of ${MAX_UV_POINTS}; use a larger time step`;
+  }
+  const cp = triangles * samples * channels;
+  if (withClosures && cp > MAX_CLOSURE_VALUES) {
+    return `${triangles} triangles × ${samples} samples × ${channels} channels = ${cp} closure phases, above the limit of ${MAX_CLOSURE_VALUES}; use a larger time step or fewer stations`;
+  }
+  return null;
+}
