@@ -6,7 +6,7 @@ import { seedDemoScenario } from "~/db/seed/factories.server";
 import { getViewer } from "~/lib/guards.server";
 import { loader as ssoCallback } from "~/routes/auth/sso-callback";
 import { loader as ssoStart } from "~/routes/auth/sso-start";
-import { startFakeIdentityProvider } from "../../scripts/fakes/identity-provider";
+import { startFakeIdentityProvider } from "../../../scripts/fakes/identity-provider";
 
 const CLIENT = { clientId: "fringe-docket-test", clientSecret: "test-secret-value" };
 let idp: Awaited<ReturnType<typeof startFakeIdentityProvider>>;
