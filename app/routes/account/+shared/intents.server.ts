@@ -1,9 +1,11 @@
 /** The account page's form posts, one handler per intent; each answers as the page expects. */
 import { data, href } from "react-router";
-import type { Database } from "~/db/client.server";
 import { redirectWithFlash } from "~/lib/flash.server";
 import type { Viewer } from "~/lib/guards.server";
 import { endOtherSessions, endSession, issueApiToken, withdrawApiToken } from "~/services/account/account.server";
+
+/** The database handle, as the service takes it. */
+type Database = Parameters<typeof endSession>[0];
 
 /** What an account post answers when it does not redirect: an error, or a token shown once. */
 export type AccountActionData = {

@@ -1,6 +1,6 @@
 import { Form } from "react-router";
 import { Badge, Button, Card } from "~/components/ui";
-import { ROLES } from "~/db/schema/users";
+import { ROLES } from "~/lib/permissions";
 import type { PersonRow } from "~/services/admin/people.server";
 
 /** The (de)activate button of a person's card. */

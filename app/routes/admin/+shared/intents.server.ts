@@ -1,10 +1,12 @@
 /** The People page's form posts, one handler per intent (both are posted by a person's card). */
 import { data, href } from "react-router";
-import type { Database } from "~/db/client.server";
 import { redirectWithFlash } from "~/lib/flash.server";
 import type { Viewer } from "~/lib/guards.server";
 import type { Role } from "~/lib/permissions";
 import { changeRoles, type Person, setActive } from "~/services/admin/people.server";
+
+/** The database handle, as the service takes it. */
+type Database = Parameters<typeof changeRoles>[0];
 
 /** A refused post: the reason, shown above the list. */
 export function refused(error: string, status: number) {
