@@ -1,5 +1,16 @@
 import type { ReactNode } from "react";
-import { data, Form, Link, Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
+import {
+  data,
+  Form,
+  href,
+  Link,
+  Links,
+  Meta,
+  Outlet,
+  Scripts,
+  ScrollRestoration,
+  useRouteLoaderData,
+} from "react-router";
 import type { Route } from "./+types/root";
 import stylesheet from "./app.css?url";
 import { ErrorPage } from "./components/ErrorPage";
@@ -94,17 +105,20 @@ export const meta: Route.MetaFunction = () => [
 function AccountControls({ signedIn }: { signedIn: boolean }) {
   if (!signedIn) {
     return (
-      <Link to="/sign-in" className="rounded-md bg-ember-700 px-3 py-1.5 font-medium text-white hover:bg-ember-800">
+      <Link
+        to={href("/sign-in")}
+        className="rounded-md bg-ember-700 px-3 py-1.5 font-medium text-white hover:bg-ember-800"
+      >
         Sign in
       </Link>
     );
   }
   return (
     <>
-      <Link to="/account" className="rounded-md px-2 py-1.5 text-night-100 hover:bg-night-800 hover:text-white">
+      <Link to={href("/account")} className="rounded-md px-2 py-1.5 text-night-100 hover:bg-night-800 hover:text-white">
         Account
       </Link>
-      <Form method="post" action="/sign-out">
+      <Form method="post" action={href("/sign-out")}>
         <button
           type="submit"
           className="rounded-md px-2 py-1.5 text-night-100 ring-1 ring-night-600 hover:bg-night-800 hover:text-white"
@@ -116,28 +130,34 @@ function AccountControls({ signedIn }: { signedIn: boolean }) {
   );
 }
 
-export default function App({ loaderData }: Route.ComponentProps) {
+type RootData = Awaited<ReturnType<typeof loader>>["data"];
+
+/** The shell around every page, for the viewer of the root loader (nobody when it has not run). */
+function Shell({ root, children }: { root: RootData | undefined; children: ReactNode }) {
   return (
     <AppShell
-      sections={loaderData.sections}
-      viewer={loaderData.viewer}
-      account={<AccountControls signedIn={!!loaderData.viewer} />}
+      sections={root?.sections ?? sectionsFor([])}
+      viewer={root?.viewer ?? null}
+      account={<AccountControls signedIn={!!root?.viewer} />}
     >
-      <Toast flash={loaderData.flash} />
-      <Outlet />
+      {children}
     </AppShell>
   );
 }
 
-export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
-  const rootData = useRouteLoaderData<typeof loader>("root");
+export default function App({ loaderData }: Route.ComponentProps) {
   return (
-    <AppShell
-      sections={rootData?.sections ?? sectionsFor([])}
-      viewer={rootData?.viewer ?? null}
-      account={<AccountControls signedIn={!!rootData?.viewer} />}
-    >
+    <Shell root={loaderData}>
+      <Toast flash={loaderData.flash} />
+      <Outlet />
+    </Shell>
+  );
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return (
+    <Shell root={useRouteLoaderData<typeof loader>("root")}>
       <ErrorPage error={error} />
-    </AppShell>
+    </Shell>
   );
 }

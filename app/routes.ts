@@ -1,7 +1,7 @@
 import { index, prefix, type RouteConfig, route } from "@react-router/dev/routes";
 
 export default [
-  index("routes/home.tsx"),
+  index("routes/home/index.tsx"),
 
   // Accounts
   route("sign-in", "routes/auth/sign-in.tsx"),

@@ -1,7 +1,7 @@
 import { mkdirSync } from "node:fs";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
-import { type Browser, chromium, type Page } from "playwright-core";
+import { type Browser, type BrowserContextOptions, chromium, type Page } from "playwright-core";
 import { afterAll, beforeAll, inject } from "vitest";
 
 export const ARTIFACTS = fileURLToPath(new URL("./artifacts", import.meta.url));
@@ -86,4 +86,20 @@ export async function signInAs(page: Page, name: string) {
   await page.getByRole("link", { name: /Continue with/ }).click();
   await page.getByRole("button", { name: new RegExp(name) }).click();
   await page.waitForURL(`${baseUrl}/`);
+}
+
+/**
+ * A fresh browser context (cookies of its own) with one page, signed in as `name`; `seen` watches the
+ * page from before the sign-in. Close `context` at the end of the test.
+ */
+export async function signedInPage(
+  browser: Pick<Browser, "newContext">,
+  name: string,
+  options?: BrowserContextOptions,
+) {
+  const context = await browser.newContext(options);
+  const page = await context.newPage();
+  const seen = watchPage(page);
+  await signInAs(page, name);
+  return { context, page, seen };
 }

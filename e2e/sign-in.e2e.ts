@@ -1,11 +1,11 @@
 import { describe, expect, inject, it } from "vitest";
 import { DEMO_PEOPLE } from "~/db/seed/scenario";
-import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
+import { screenshot, signedInPage, useBrowser } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const browser = useBrowser();
 
-// The sections each demo role must see in the menu (app/services/permissions.ts), demo mode on.
+// The sections each demo role must see in the menu (app/lib/permissions.ts), demo mode on.
 const expectedMenus: Record<string, string[]> = {
   "Inés Arroyo-Vidal": ["Sketchpad", "Triangle finder", "Array registry", "My targets", "Proposals", "Mailbox"],
   "Kenji Morrow": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox"],
@@ -18,10 +18,7 @@ describe("sign-in through the local sign-on service", () => {
   for (const [name, menu] of Object.entries(expectedMenus)) {
     const person = DEMO_PEOPLE.find((p) => p.name === name)!;
     it(`signs in ${name} (${person.roles.join(", ")}) and shows that role's menu`, async () => {
-      const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
-      const page = await context.newPage();
-      const seen = watchPage(page);
-      await signInAs(page, name);
+      const { context, page, seen } = await signedInPage(browser, name, { viewport: { width: 1280, height: 800 } });
       await page.getByRole("link", { name: "Account", exact: true }).waitFor();
       const items = await page.getByRole("navigation", { name: "Sections" }).getByRole("link").allTextContents();
       expect(items).toEqual(menu);
@@ -44,9 +41,7 @@ describe("sign-in through the local sign-on service", () => {
   }
 
   it("keeps people out of pages their roles do not allow, with a kind 403", async () => {
-    const context = await browser.newContext();
-    const page = await context.newPage();
-    await signInAs(page, "Inés Arroyo-Vidal");
+    const { context, page } = await signedInPage(browser, "Inés Arroyo-Vidal");
     const response = await page.goto(`${baseUrl}/admin/users`);
     expect(response?.status()).toBe(403);
     await page.getByRole("heading", { level: 1, name: "This page is not yours to open" }).waitFor();
@@ -55,9 +50,7 @@ describe("sign-in through the local sign-on service", () => {
   });
 
   it("lets an administrator grant a role, records it in the audit log and notifies the person", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await signInAs(page, "Rafael Quispe");
+    const { context, page } = await signedInPage(browser, "Rafael Quispe", { viewport: { width: 1280, height: 900 } });
     await page.goto(`${baseUrl}/admin/users?q=Kenji`);
     const roles = page.getByRole("form", { name: "Roles of Kenji Morrow" });
     await roles.getByLabel("scheduler").check();
@@ -71,9 +64,7 @@ describe("sign-in through the local sign-on service", () => {
   });
 
   it("signs out", async () => {
-    const context = await browser.newContext();
-    const page = await context.newPage();
-    await signInAs(page, "Mei-Lin Chao");
+    const { context, page } = await signedInPage(browser, "Mei-Lin Chao");
     await page.getByRole("button", { name: "Sign out" }).click();
     await page.getByRole("banner").getByRole("link", { name: "Sign in", exact: true }).waitFor();
     const response = await page.goto(`${baseUrl}/account`);

@@ -1,4 +1,4 @@
-import { isRouteErrorResponse, Link } from "react-router";
+import { href, isRouteErrorResponse, Link } from "react-router";
 import { buttonClass } from "./ui/Button";
 
 const copy: Record<number, { title: string; text: string }> = {
@@ -36,7 +36,7 @@ export function ErrorPage({ error }: { error: unknown }) {
       <p className="mt-3 text-night-700">{text.text}</p>
       {detail ? <p className="mt-3 text-sm text-night-600">{detail}</p> : null}
       <div className="mt-6 flex justify-center gap-3">
-        <Link to="/" className={buttonClass("primary")}>
+        <Link to={href("/")} className={buttonClass("primary")}>
           Go to the home page
         </Link>
       </div>

@@ -1,4 +1,4 @@
-import { Body, Container, Head, Hr, Html, Preview, Section, Text } from "@react-email/components";
+import { Body, Button, Container, Head, Hr, Html, Link, Preview, Section, Text } from "@react-email/components";
 import type { CSSProperties, ReactNode } from "react";
 
 /** The product's colours, as in app/app.css (night for the frame and text, ember for actions). */
@@ -88,5 +88,43 @@ export function EmailLayout({ preview, children }: { preview: string; children: 
         </Container>
       </Body>
     </Html>
+  );
+}
+
+/** "Hello Name," or, for an address without an account, "Hello,". */
+export function EmailGreeting({ name }: { name: string | null }) {
+  return <Text style={emailStyles.heading}>{name ? `Hello ${name},` : "Hello,"}</Text>;
+}
+
+/** The message's call to action: a button-styled link in a block of its own. */
+export function EmailButton({
+  href,
+  margin = "8px 0 24px",
+  children,
+}: {
+  href: string;
+  margin?: string;
+  children: ReactNode;
+}) {
+  return (
+    <Section style={{ margin }}>
+      <Button href={href} style={emailStyles.button}>
+        {children}
+      </Button>
+    </Section>
+  );
+}
+
+/** The button's address spelled out, for mail clients where the button does nothing. */
+export function EmailLinkFallback({ url }: { url: string }) {
+  return (
+    <>
+      <Text style={emailStyles.small}>If the button does nothing, copy this address into your browser:</Text>
+      <Text style={emailStyles.small}>
+        <Link href={url} style={emailStyles.link}>
+          {url}
+        </Link>
+      </Text>
+    </>
   );
 }

@@ -1,5 +1,5 @@
-import { Button, Section, Text } from "@react-email/components";
-import { EmailLayout, emailStyles } from "./EmailLayout";
+import { Text } from "@react-email/components";
+import { EmailButton, EmailLayout, emailStyles } from "./EmailLayout";
 
 export type RoleChangeEmailProps = {
   name: string;
@@ -70,11 +70,9 @@ export function RoleChangeEmail({ name, rolesGranted, rolesRevoked, byName, acco
       ) : null}
       <Text style={emailStyles.paragraph}>Your menus show the change the next time you open a page.</Text>
       {accountUrl ? (
-        <Section style={{ margin: "4px 0 24px" }}>
-          <Button href={accountUrl} style={emailStyles.button}>
-            Open your account
-          </Button>
-        </Section>
+        <EmailButton href={accountUrl} margin="4px 0 24px">
+          Open your account
+        </EmailButton>
       ) : null}
       <Text style={emailStyles.small}>If this looks wrong, please tell {byName} or the array's administrator.</Text>
     </EmailLayout>

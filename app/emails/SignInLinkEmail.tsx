@@ -1,5 +1,5 @@
-import { Button, Link, Section, Text } from "@react-email/components";
-import { EmailLayout, emailStyles } from "./EmailLayout";
+import { Text } from "@react-email/components";
+import { EmailButton, EmailGreeting, EmailLayout, EmailLinkFallback, emailStyles } from "./EmailLayout";
 
 export type SignInLinkEmailProps = {
   /** The person's name when the account exists; null for a first sign-in. */
@@ -21,21 +21,12 @@ export function SignInLinkEmail({ name, url, expiresMinutes = 15 }: SignInLinkEm
   const valid = minutes(expiresMinutes);
   return (
     <EmailLayout preview={`Your sign-in link, valid for ${valid}.`}>
-      <Text style={emailStyles.heading}>{name ? `Hello ${name},` : "Hello,"}</Text>
+      <EmailGreeting name={name} />
       <Text style={emailStyles.paragraph}>
         Here is the link you asked for to sign in to Fringe Docket. It works once, within the next {valid}.
       </Text>
-      <Section style={{ margin: "8px 0 24px" }}>
-        <Button href={url} style={emailStyles.button}>
-          Sign in to Fringe Docket
-        </Button>
-      </Section>
-      <Text style={emailStyles.small}>If the button does nothing, copy this address into your browser:</Text>
-      <Text style={emailStyles.small}>
-        <Link href={url} style={emailStyles.link}>
-          {url}
-        </Link>
-      </Text>
+      <EmailButton href={url}>Sign in to Fringe Docket</EmailButton>
+      <EmailLinkFallback url={url} />
       <Text style={emailStyles.small}>
         Did not ask for it? Then you can let this message be: nobody signs in without the link, and it expires by
         itself.

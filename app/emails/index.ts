@@ -1,3 +1,10 @@
-export { EmailLayout, emailColors, emailStyles } from "./EmailLayout";
+export {
+  EmailButton,
+  EmailGreeting,
+  EmailLayout,
+  EmailLinkFallback,
+  emailColors,
+  emailStyles,
+} from "./EmailLayout";
 export { ROLE_CHANGE_SUBJECT, RoleChangeEmail, type RoleChangeEmailProps } from "./RoleChangeEmail";
 export { SIGN_IN_LINK_SUBJECT, SignInLinkEmail, type SignInLinkEmailProps } from "./SignInLinkEmail";

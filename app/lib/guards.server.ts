@@ -3,7 +3,7 @@
  * `requireUser`, `requirePermission`, `requireRole`, and `requireApiUser` for resource routes
  * (session cookie or `Authorization: Bearer` token; 401 JSON otherwise).
  */
-import { data, redirect } from "react-router";
+import { data, href, redirect } from "react-router";
 import { database } from "~/db/client.server";
 import type { Role } from "~/db/schema/users";
 import { env } from "~/env.server";
@@ -64,7 +64,7 @@ export function getViewer(request: Request): Promise<Viewer | null> {
 function signInRedirect(request: Request) {
   const url = new URL(request.url);
   const next = `${url.pathname}${url.search}`;
-  return redirect(`/sign-in?next=${encodeURIComponent(next)}`);
+  return redirect(`${href("/sign-in")}?next=${encodeURIComponent(next)}`);
 }
 
 /** Signed in, or redirected to the sign-in page (which returns here afterwards). */

@@ -2,9 +2,10 @@
  * What each role may do, as one typed list shared by the server guards and the UI (menus show only
  * what a role can use). Pure: no database or HTTP imports.
  */
+import { href } from "react-router";
 import type { Role } from "~/db/schema/users";
 
-export type { Role };
+export { ROLES, type Role } from "~/db/schema/users";
 
 export const PERMISSIONS = [
   "registry:read",
@@ -56,50 +57,50 @@ export type Section = {
 export const SECTIONS: readonly Section[] = [
   {
     label: "Sketchpad",
-    to: "/sketchpad",
+    to: href("/sketchpad"),
     permission: "sketch:use",
     summary: "uv coverage, elevation, dirty beam, visibilities and closure phases of a target, live as you type.",
   },
   {
     label: "Triangle finder",
-    to: "/triangles",
+    to: href("/triangles"),
     permission: "sketch:use",
     summary: "Station triangles ranked by the closure-phase signal of your model, uv spread and hours.",
   },
   {
     label: "Array registry",
-    to: "/registry",
+    to: href("/registry"),
     permission: "registry:read",
     summary: "The site, its stations, the configurations on offer and the instruments with their bands.",
   },
   {
     label: "My targets",
-    to: "/targets",
+    to: href("/targets"),
     permission: "proposals:own",
     summary: "Your target list with coordinates, models and magnitudes; CSV import and export.",
   },
   {
     label: "Proposals",
-    to: "/proposals",
+    to: href("/proposals"),
     permission: "proposals:own",
     summary:
       "Your proposals: text, team, targets with constraints, the PDF science case, a feasibility report, and submission.",
   },
   {
     label: "Cycles",
-    to: "/cycles",
+    to: href("/cycles"),
     permission: "cycles:manage",
     summary: "Observing cycles: dates, deadline and the configurations on offer with their nights.",
   },
   {
     label: "Mailbox",
-    to: "/mailbox",
+    to: href("/mailbox"),
     permission: "mailbox:read",
     summary: "Every notice the app has sent or is about to send, as the recipients see it.",
   },
   {
     label: "People",
-    to: "/admin/users",
+    to: href("/admin/users"),
     permission: "users:manage",
     summary: "Accounts, their roles and the audit log of changes.",
   },

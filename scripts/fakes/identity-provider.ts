@@ -74,6 +74,11 @@ function page(res: ServerResponse, status: number, title: string, body: string) 
 </style></head><body><main>${body}</main></body></html>`);
 }
 
+/** The provider's 400 page for an authorization request it will not serve. */
+function cannotSignIn(res: ServerResponse, error: string | undefined) {
+  return page(res, 400, "Sign-on error", `<h1>Cannot sign in</h1><p class="err">${escapeHtml(error ?? "")}</p>`);
+}
+
 export async function startFakeIdentityProvider(options: FakeIdpOptions) {
   const host = options.host ?? "127.0.0.1";
   const codeTtlMs = options.codeTtlMs ?? 60_000;
@@ -220,25 +225,13 @@ ${people ? `<h2 style="font-size:1rem">Demo people</h2>${people}` : ""}
     }
     if (url.pathname === "/authorize" && req.method === "GET") {
       const checked = checkAuthorize(url.searchParams);
-      if ("error" in checked)
-        return page(
-          res,
-          400,
-          "Sign-on error",
-          `<h1>Cannot sign in</h1><p class="err">${escapeHtml(checked.error ?? "")}</p>`,
-        );
+      if ("error" in checked) return cannotSignIn(res, checked.error);
       return signInPage(res, url.searchParams);
     }
     if (url.pathname === "/authorize" && req.method === "POST") {
       const form = new URLSearchParams(await readBody(req));
       const checked = checkAuthorize(form);
-      if ("error" in checked)
-        return page(
-          res,
-          400,
-          "Sign-on error",
-          `<h1>Cannot sign in</h1><p class="err">${escapeHtml(checked.error ?? "")}</p>`,
-        );
+      if ("error" in checked) return cannotSignIn(res, checked.error);
       const email = (form.get("email") ?? "").trim();
       const name = (form.get("name") ?? "").trim();
       if (!/^[^@\s]+@[^@\s]+\.[^@\s]+$/.test(email) || email.length > 254)

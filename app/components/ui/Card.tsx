@@ -1,5 +1,12 @@
 import type { ReactNode } from "react";
+import type { LinkProps } from "react-router";
+import { ButtonLink, type ButtonVariant } from "./Button";
 import { cx } from "./cx";
+
+/** The white, rounded, shadowed surface of a card, for elements that are cards without `<Card>`. */
+export function cardClass(extra?: string) {
+  return cx("rounded-[var(--radius-card)] bg-white shadow-[var(--shadow-card)] ring-1 ring-night-200", extra);
+}
 
 export function Card({
   title,
@@ -13,12 +20,7 @@ export function Card({
   className?: string;
 }) {
   return (
-    <section
-      className={cx(
-        "rounded-[var(--radius-card)] bg-white p-5 shadow-[var(--shadow-card)] ring-1 ring-night-200",
-        className,
-      )}
-    >
+    <section className={cardClass(cx("p-5", className))}>
       {title || actions ? (
         <header className="mb-3 flex flex-wrap items-center justify-between gap-2">
           {title ? <h2 className="text-lg font-semibold">{title}</h2> : <span />}
@@ -45,14 +47,37 @@ export function EmptyState({ title, children, action }: { title: string; childre
   );
 }
 
-export function PageHeader({ title, lead, actions }: { title: string; lead?: ReactNode; actions?: ReactNode }) {
+/** Where a page's "Back to …" button leads: the page above it. */
+export type BackLink = { to: LinkProps["to"]; label: string; variant?: ButtonVariant };
+
+export function PageHeader({
+  title,
+  lead,
+  actions,
+  back,
+}: {
+  title: string;
+  lead?: ReactNode;
+  actions?: ReactNode;
+  /** A "Back to …" button before the actions (secondary unless told). */
+  back?: BackLink;
+}) {
   return (
     <div className="mb-6 flex flex-wrap items-end justify-between gap-3">
       <div>
         <h1 className="text-2xl font-semibold sm:text-3xl">{title}</h1>
         {lead ? <p className="mt-1 max-w-3xl text-night-600">{lead}</p> : null}
       </div>
-      {actions ? <div className="flex flex-wrap gap-2">{actions}</div> : null}
+      {actions || back ? (
+        <div className="flex flex-wrap gap-2">
+          {back ? (
+            <ButtonLink to={back.to} variant={back.variant ?? "secondary"}>
+              {back.label}
+            </ButtonLink>
+          ) : null}
+          {actions}
+        </div>
+      ) : null}
     </div>
   );
 }

@@ -1,5 +1,5 @@
-import Papa from "papaparse";
 import { type ReactNode, useMemo, useState } from "react";
+import { toCsv } from "~/lib/csv";
 import { Button } from "./Button";
 import { cx } from "./cx";
 
@@ -29,13 +29,23 @@ function headerText<Row>(c: Column<Row>) {
   return c.unit ? `${c.header} (${c.unit})` : c.header;
 }
 
-/** Rows as CSV text (RFC 4180 via papaparse), with units in the header names. */
+/** Rows as CSV text (through `toCsv`), with units in the header names. */
 export function tableToCsv<Row>(columns: Column<Row>[], rows: Row[]): string {
-  return Papa.unparse({
-    fields: columns.map(headerText),
-    data: rows.map((r) => columns.map((c) => c.value(r) ?? "")),
-  });
+  return toCsv(
+    columns.map(headerText),
+    rows.map((r) => columns.map((c) => c.value(r))),
+  );
 }
+
+/** The key of a row that has an `id`; rows without one must be given `rowKey`. */
+function idOf(row: unknown): string | number {
+  return (row as { id: string | number }).id;
+}
+
+/** `rowKey` may be left out when every row has an `id`. */
+type RowKeyProp<Row> = Row extends { id: string | number }
+  ? { rowKey?: (row: Row) => string | number }
+  : { rowKey: (row: Row) => string | number };
 
 function download(filename: string, text: string, type = "text/csv") {
   const url = URL.createObjectURL(new Blob([text], { type: `${type};charset=utf-8` }));
@@ -54,19 +64,18 @@ function download(filename: string, text: string, type = "text/csv") {
 export function DataTable<Row>({
   columns,
   rows,
-  rowKey,
+  rowKey = idOf,
   caption,
   exportName,
   empty,
 }: {
   columns: Column<Row>[];
   rows: Row[];
-  rowKey: (row: Row) => string | number;
   caption: string;
   /** File name (without extension) for the CSV export; no export button when absent. */
   exportName?: string;
   empty?: ReactNode;
-}) {
+} & RowKeyProp<Row>) {
   const [sort, setSort] = useState<Sort>(null);
   const sorted = useMemo(() => {
     if (!sort) return rows;

@@ -1,10 +1,6 @@
-import {
-  type InputHTMLAttributes,
-  type ReactNode,
-  type SelectHTMLAttributes,
-  type TextareaHTMLAttributes,
-  useId,
-} from "react";
+import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes, TextareaHTMLAttributes } from "react";
+import { useId } from "react";
+import { Alert } from "./Alert";
 import { cx } from "./cx";
 
 const control =
@@ -46,92 +42,57 @@ function describedBy(id: string, hint?: ReactNode, error?: string) {
   return undefined;
 }
 
-export function TextField({
-  label,
-  hint,
-  error,
-  unit,
-  className,
-  id,
-  ...rest
-}: Common & InputHTMLAttributes<HTMLInputElement>) {
+type FieldProps = Common & {
+  control: "input" | "textarea" | "select";
+  extraClass?: string;
+  id?: string;
+  className?: string;
+  [attribute: string]: unknown;
+};
+
+/**
+ * A form field around one kind of control: the frame above, and the control with its id, error
+ * state, description and classes; every other prop goes to the control.
+ */
+function Field({ control: Control, extraClass, label, hint, error, unit, className, id, ...rest }: FieldProps) {
   const auto = useId();
   const fieldId = id ?? auto;
   return (
     <FieldFrame id={fieldId} label={label} hint={hint} error={error} unit={unit}>
-      <input
+      <Control
         id={fieldId}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy(fieldId, hint, error)}
-        className={cx(controlClass(error), className)}
+        className={cx(controlClass(error), extraClass, className)}
         {...rest}
       />
     </FieldFrame>
   );
 }
 
-export function TextArea({
-  label,
-  hint,
-  error,
-  unit,
-  className,
-  id,
-  ...rest
-}: Common & TextareaHTMLAttributes<HTMLTextAreaElement>) {
-  const auto = useId();
-  const fieldId = id ?? auto;
-  return (
-    <FieldFrame id={fieldId} label={label} hint={hint} error={error} unit={unit}>
-      <textarea
-        id={fieldId}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(fieldId, hint, error)}
-        className={cx(controlClass(error), "min-h-28", className)}
-        {...rest}
-      />
-    </FieldFrame>
-  );
+export function TextField(props: Common & InputHTMLAttributes<HTMLInputElement>) {
+  return <Field control="input" {...props} />;
 }
 
-export function SelectField({
-  label,
-  hint,
-  error,
-  unit,
-  className,
-  id,
-  children,
-  ...rest
-}: Common & SelectHTMLAttributes<HTMLSelectElement>) {
-  const auto = useId();
-  const fieldId = id ?? auto;
-  return (
-    <FieldFrame id={fieldId} label={label} hint={hint} error={error} unit={unit}>
-      <select
-        id={fieldId}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(fieldId, hint, error)}
-        className={cx(controlClass(error), className)}
-        {...rest}
-      >
-        {children}
-      </select>
-    </FieldFrame>
-  );
+export function TextArea(props: Common & TextareaHTMLAttributes<HTMLTextAreaElement>) {
+  return <Field control="textarea" extraClass="min-h-28" {...props} />;
+}
+
+export function SelectField(props: Common & SelectHTMLAttributes<HTMLSelectElement>) {
+  return <Field control="select" {...props} />;
 }
 
 /** A summary of form errors at the top of a form, so a keyboard or screen-reader user hears it first. */
 export function FormErrors({ errors }: { errors?: string[] }) {
   if (!errors || errors.length === 0) return null;
   return (
-    <div role="alert" className="rounded-lg border border-danger-700/30 bg-danger-50 p-3 text-sm text-danger-700">
+    <Alert as="div">
       <p className="font-semibold">Please correct the following:</p>
       <ul className="mt-1 list-disc pl-5">
         {errors.map((e) => (
           <li key={e}>{e}</li>
         ))}
       </ul>
-    </div>
+    </Alert>
   );
 }

@@ -1,6 +1,8 @@
+export { Alert, type AlertTone } from "./Alert";
 export { Button, ButtonLink, buttonClass } from "./Button";
-export { Badge, type BadgeTone, Card, EmptyState, PageHeader } from "./Card";
+export { type BackLink, Badge, type BadgeTone, Card, cardClass, EmptyState, PageHeader } from "./Card";
 export { cx } from "./cx";
 export { type Column, DataTable, tableToCsv } from "./DataTable";
+export { type Detail, DetailList } from "./DetailList";
 export { FormErrors, SelectField, TextArea, TextField } from "./Field";
 export { type FlashMessage, Toast } from "./Toast";

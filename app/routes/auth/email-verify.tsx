@@ -1,23 +1,20 @@
-import { data, Form } from "react-router";
+import { data, Form, href } from "react-router";
 import * as v from "valibot";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Button, Card } from "~/components/ui";
-import { database } from "~/db/client.server";
+import { dbContext } from "~/context";
+import { readFormBody } from "~/lib/body.server";
 import { clientAddress } from "~/services/auth/client-address.server";
 import { consumeSignInLink } from "~/services/auth/email-link.server";
 import { safeNext } from "~/services/auth/oidc.server";
 import { recordSignInAttempt } from "~/services/auth/rate-limit.server";
+import { SignInLinkSchema } from "~/services/auth/schemas";
 import { signInAndRedirect } from "~/services/auth/sign-in.server";
 import type { Route } from "./+types/email-verify";
 
-const VerifySchema = v.object({
-  token: v.pipe(v.string(), v.regex(/^[a-z2-7]{32}$/, "This sign-in link is not valid.")),
-  next: v.optional(v.string(), "/"),
-});
-
 export function loader({ url }: Route.LoaderArgs) {
   // Public. Showing the page does not use the link (mail scanners open links); the button does.
-  const parsed = v.safeParse(VerifySchema, {
+  const parsed = v.safeParse(SignInLinkSchema, {
     token: url.searchParams.get("token") ?? "",
     next: url.searchParams.get("next") ?? "/",
   });
@@ -27,14 +24,17 @@ export function loader({ url }: Route.LoaderArgs) {
 
 export async function action({ request, context }: Route.ActionArgs) {
   // Public: consumes the single-use token.
-  const parsed = v.safeParse(VerifySchema, Object.fromEntries(await request.formData()));
+  const body = await readFormBody(request);
+  if (!body.ok) return data({ error: body.error }, { status: body.status });
+  const parsed = v.safeParse(SignInLinkSchema, Object.fromEntries(body.form));
   if (!parsed.success) return data({ error: parsed.issues[0].message }, { status: 400 });
-  const db = database();
-  const limit = await recordSignInAttempt(db, { address: clientAddress(context) });
+  const db = context.get(dbContext);
+  const address = clientAddress(context);
+  const limit = await recordSignInAttempt(db, { address });
   if (!limit.ok) return data({ error: limit.message }, { status: 429 });
   const result = await consumeSignInLink(db, parsed.output.token);
   if (!result.ok) return data({ error: result.reason }, { status: 400 });
-  return signInAndRedirect(db, request, result.user.id, "email-link", parsed.output.next, clientAddress(context));
+  return signInAndRedirect(db, request, result.user.id, "email-link", parsed.output.next, address);
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in by link — Fringe Docket" }];
@@ -49,7 +49,7 @@ export default function EmailVerify({ loaderData, actionData }: Route.ComponentP
             <p role="alert" className="font-medium text-danger-700">
               {error}
             </p>
-            <a className="font-medium text-ember-700 underline" href="/sign-in">
+            <a className="font-medium text-ember-700 underline" href={href("/sign-in")}>
               Back to sign-in
             </a>
           </div>

@@ -1,60 +1,49 @@
-import { data, Form, Link, redirect, useNavigation } from "react-router";
+import { data, Form, href, Link, redirect, useNavigation } from "react-router";
 import * as v from "valibot";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Button, Card, TextField } from "~/components/ui";
-import { database } from "~/db/client.server";
-import { env } from "~/env.server";
+import { Alert, Button, Card, TextField } from "~/components/ui";
+import { dbContext } from "~/context";
+import { readFormBody } from "~/lib/body.server";
 import { getViewer } from "~/lib/guards.server";
 import { clientAddress } from "~/services/auth/client-address.server";
-import { authEnv } from "~/services/auth/config.server";
+import { signInOptions } from "~/services/auth/config.server";
 import { sendSignInLink } from "~/services/auth/email-link.server";
 import { safeNext } from "~/services/auth/oidc.server";
 import { recordSignInAttempt } from "~/services/auth/rate-limit.server";
+import { EmailLinkRequestSchema } from "~/services/auth/schemas";
 import type { Route } from "./+types/sign-in";
-
-const EmailLinkSchema = v.object({
-  email: v.pipe(
-    v.string("Please give your e-mail address."),
-    v.trim(),
-    v.nonEmpty("Please give your e-mail address."),
-    v.maxLength(254, "That e-mail address is too long."),
-    v.email("That does not look like an e-mail address."),
-  ),
-  next: v.optional(v.string(), "/"),
-});
 
 export async function loader({ request, url }: Route.LoaderArgs) {
   // Public page; a signed-in person goes straight on.
   const viewer = await getViewer(request);
   const next = safeNext(url.searchParams.get("next"));
   if (viewer) throw redirect(next);
-  return {
-    next,
-    providerName: authEnv().OIDC_PROVIDER_NAME,
-    usingFakeProvider: authEnv().usingFakeProvider,
-    demoMode: env().DEMO_MODE === "1",
-    error: url.searchParams.get("error"),
-  };
+  return { next, ...signInOptions(), error: url.searchParams.get("error") };
+}
+
+/** The link form's answer when nothing was sent: what was typed, and the problem with it or the refusal. */
+function notSent(email: string, problem: { fieldError?: string; message?: string }, init: ResponseInit) {
+  return data(
+    { sent: false as const, fieldError: problem.fieldError ?? null, email, message: problem.message ?? null },
+    init,
+  );
 }
 
 export async function action({ request, context }: Route.ActionArgs) {
   // Public action (it is how one signs in); rate-limited per address and per e-mail.
-  const form = Object.fromEntries(await request.formData());
-  const parsed = v.safeParse(EmailLinkSchema, form);
+  const body = await readFormBody(request);
+  if (!body.ok) return notSent("", { message: body.error }, { status: body.status });
+  const form = Object.fromEntries(body.form);
+  const parsed = v.safeParse(EmailLinkRequestSchema, form);
   if (!parsed.success) {
-    return data(
-      { sent: false as const, fieldError: parsed.issues[0].message, email: String(form.email ?? ""), message: null },
-      { status: 400 },
-    );
+    return notSent(String(form.email ?? ""), { fieldError: parsed.issues[0].message }, { status: 400 });
   }
   const { email, next } = parsed.output;
-  const db = database();
+  const db = context.get(dbContext);
   const limit = await recordSignInAttempt(db, { address: clientAddress(context), email });
   if (!limit.ok) {
-    return data(
-      { sent: false as const, fieldError: null, email, message: limit.message },
-      { status: 429, headers: { "Retry-After": String(limit.retryAfterSeconds) } },
-    );
+    const headers = { "Retry-After": String(limit.retryAfterSeconds) };
+    return notSent(email, { message: limit.message }, { status: 429, headers });
   }
   await sendSignInLink(db, email, safeNext(next));
   return { sent: true as const, fieldError: null, email, message: null };
@@ -68,15 +57,11 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
   return (
     <div className="mx-auto max-w-lg space-y-6">
       <h1 className="text-2xl font-semibold">Sign in to Fringe Docket</h1>
-      {loaderData.error ? (
-        <p role="alert" className="rounded-lg border border-danger-700/30 bg-danger-50 p-3 text-sm text-danger-700">
-          {loaderData.error}
-        </p>
-      ) : null}
+      {loaderData.error ? <Alert>{loaderData.error}</Alert> : null}
       <Card title="With your observatory account">
         <p className="mb-4 text-night-700">Most people sign in through the observatory's single sign-on.</p>
         <a
-          href={`/auth/sso/start?next=${encodeURIComponent(loaderData.next)}`}
+          href={`${href("/auth/sso/start")}?next=${encodeURIComponent(loaderData.next)}`}
           className="inline-flex h-10 items-center rounded-lg bg-ember-700 px-4 font-medium text-white hover:bg-ember-800"
         >
           Continue with {loaderData.providerName}
@@ -98,7 +83,7 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
             {loaderData.demoMode ? (
               <p className="text-sm text-night-700">
                 Demo mode: the message also appears in the{" "}
-                <Link className="font-medium text-ember-700 underline" to="/mailbox">
+                <Link className="font-medium text-ember-700 underline" to={href("/mailbox")}>
                   mailbox
                 </Link>{" "}
                 once you are signed in, and in the local mail catcher.
@@ -108,14 +93,7 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
         ) : (
           <Form method="post" className="space-y-3" noValidate>
             <input type="hidden" name="next" value={loaderData.next} />
-            {actionData?.message ? (
-              <p
-                role="alert"
-                className="rounded-lg border border-caution-700/30 bg-caution-50 p-3 text-sm text-caution-700"
-              >
-                {actionData.message}
-              </p>
-            ) : null}
+            {actionData?.message ? <Alert tone="caution">{actionData.message}</Alert> : null}
             <TextField
               label="E-mail address"
               name="email"

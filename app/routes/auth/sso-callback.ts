@@ -1,25 +1,24 @@
-import { redirect } from "react-router";
-import { database } from "~/db/client.server";
+import { dbContext } from "~/context";
 import { findOrCreateAccount } from "~/services/auth/accounts.server";
 import { clientAddress } from "~/services/auth/client-address.server";
 import { completeSso, SsoError } from "~/services/auth/oidc.server";
-import { signInAndRedirect } from "~/services/auth/sign-in.server";
+import { backToSignIn, signInAndRedirect } from "~/services/auth/sign-in.server";
 import type { Route } from "./+types/sso-callback";
 
-function backToSignIn(message: string) {
-  return redirect(`/sign-in?error=${encodeURIComponent(message)}`);
-}
-
-export async function loader({ request, context }: Route.LoaderArgs) {
-  // Public: the provider sends the browser here; state, code and ID token are all checked.
-  const db = database();
-  let result;
+/** The provider's answer checked (state, code, ID token), or the sign-in page with the reason. */
+async function verifiedIdentity(request: Request) {
   try {
-    result = await completeSso(request);
+    return await completeSso(request);
   } catch (e) {
     if (e instanceof SsoError) throw backToSignIn(`Sign-in failed: ${e.message}.`);
     throw e;
   }
+}
+
+export async function loader({ request, context }: Route.LoaderArgs) {
+  // Public: the provider sends the browser here; state, code and ID token are all checked.
+  const db = context.get(dbContext);
+  const result = await verifiedIdentity(request);
   const account = await findOrCreateAccount(db, {
     email: result.identity.email,
     name: result.identity.name,

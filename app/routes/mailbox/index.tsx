@@ -1,8 +1,7 @@
-import { Form, Link } from "react-router";
+import { Form, href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import {
   Badge,
-  type BadgeTone,
   Button,
   ButtonLink,
   Card,
@@ -12,53 +11,28 @@ import {
   PageHeader,
   TextField,
 } from "~/components/ui";
-import { database } from "~/db/client.server";
+import { dbContext } from "~/context";
 import { requireMailboxReader } from "~/lib/guards.server";
-import { listMessages, type MailStatus, mailStatus, parseMailboxQuery, utcText } from "~/services/mail/mailbox.server";
+import { mailboxOverview, parseMailboxQuery } from "~/services/mailbox/queries.server";
+import { Pager } from "./+shared/Pager";
+import { attemptsText, Recipient, StatusBadge } from "./+shared/parts";
 import type { Route } from "./+types/index";
 
-export async function loader({ request, url }: Route.LoaderArgs) {
+export async function loader({ request, url, context }: Route.LoaderArgs) {
   const viewer = await requireMailboxReader(request);
   const query = parseMailboxQuery(url.searchParams);
-  const result = await listMessages(database(), query);
-  const viewerEmail = viewer.user.email.toLowerCase();
-  return {
-    q: result.q,
-    page: result.page,
-    pageCount: result.pageCount,
-    pageSize: result.pageSize,
-    total: result.total,
-    rows: result.rows.map((m) => ({
-      id: m.id,
-      kind: m.kind,
-      to: m.toAddress,
-      toViewer: m.toAddress.toLowerCase() === viewerEmail,
-      subject: m.subject,
-      createdAt: m.createdAt.toISOString(),
-      created: utcText(m.createdAt) ?? "",
-      status: mailStatus(m),
-      attempts: m.attempts,
-      nextAttempt: utcText(m.nextAttemptAt),
-      lastError: m.lastError,
-      sent: utcText(m.sentAt),
-    })),
-  };
+  return mailboxOverview(context.get(dbContext), { query, viewerEmail: viewer.user.email });
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "Mailbox — Fringe Docket" }];
 
 type Row = Route.ComponentProps["loaderData"]["rows"][number];
 
-const statusTone: Record<MailStatus, BadgeTone> = { sent: "ok", pending: "info", retrying: "caution" };
-
 function StatusCell({ row }: { row: Row }) {
-  if (row.status === "sent") return <Badge tone="ok">sent</Badge>;
-  if (row.status === "pending") return <Badge tone={statusTone.pending}>pending</Badge>;
+  if (row.status !== "retrying") return <StatusBadge status={row.status} />;
   return (
     <div className="space-y-1">
-      <Badge tone="caution">
-        retrying · {row.attempts} {row.attempts === 1 ? "attempt" : "attempts"}
-      </Badge>
+      <StatusBadge status="retrying">retrying · {attemptsText(row.attempts)}</StatusBadge>
       <p className="text-xs text-night-600">next {row.nextAttempt}</p>
       {row.lastError ? (
         <p className="max-w-xs truncate text-xs text-danger-700" title={row.lastError}>
@@ -69,6 +43,17 @@ function StatusCell({ row }: { row: Row }) {
   );
 }
 
+function SubjectLink({ row }: { row: Row }) {
+  return (
+    <Link
+      to={href("/mailbox/:messageId", { messageId: String(row.id) })}
+      className="font-medium text-ember-700 underline-offset-2 hover:underline"
+    >
+      {row.subject}
+    </Link>
+  );
+}
+
 const columns: Column<Row>[] = [
   {
     key: "created",
@@ -76,27 +61,8 @@ const columns: Column<Row>[] = [
     value: (m) => m.createdAt,
     render: (m) => <span className="num whitespace-nowrap">{m.created}</span>,
   },
-  {
-    key: "to",
-    header: "To",
-    value: (m) => m.to,
-    render: (m) => (
-      <span className="inline-flex flex-wrap items-center gap-1.5">
-        <span className="break-all">{m.to}</span>
-        {m.toViewer ? <Badge tone="accent">you</Badge> : null}
-      </span>
-    ),
-  },
-  {
-    key: "subject",
-    header: "Subject",
-    value: (m) => m.subject,
-    render: (m) => (
-      <Link to={`/mailbox/${m.id}`} className="font-medium text-ember-700 underline-offset-2 hover:underline">
-        {m.subject}
-      </Link>
-    ),
-  },
+  { key: "to", header: "To", value: (m) => m.to, render: (m) => <Recipient to={m.to} toViewer={m.toViewer} /> },
+  { key: "subject", header: "Subject", value: (m) => m.subject, render: (m) => <SubjectLink row={m} /> },
   { key: "kind", header: "Kind", value: (m) => m.kind, render: (m) => <Badge>{m.kind}</Badge> },
   {
     key: "status",
@@ -106,12 +72,25 @@ const columns: Column<Row>[] = [
   },
 ];
 
+/** The list's address for a search and a page (page 1 and no search leave their parameter out). */
 function pageHref(q: string, page: number) {
   const params = new URLSearchParams();
   if (q) params.set("q", q);
   if (page > 1) params.set("page", String(page));
   const search = params.toString();
-  return search ? `/mailbox?${search}` : "/mailbox";
+  return search ? `${href("/mailbox")}?${search}` : href("/mailbox");
+}
+
+function NoMessages({ q }: { q: string }) {
+  return q ? (
+    <EmptyState title={`No message matches “${q}”`}>
+      Try part of an address, or another word from the subject.
+    </EmptyState>
+  ) : (
+    <EmptyState title="No messages yet">
+      Messages show up here as soon as the app writes them: a sign-in link, a change of roles, a decision.
+    </EmptyState>
+  );
 }
 
 export default function Mailbox({ loaderData }: Route.ComponentProps) {
@@ -125,28 +104,20 @@ export default function Mailbox({ loaderData }: Route.ComponentProps) {
         lead="Every e-mail Fringe Docket has written, newest first: delivered, waiting for its first attempt, or retrying while the mail server does not answer."
       />
       <div className="grid gap-6">
-        <Form method="get" action="/mailbox" role="search" className="flex flex-wrap items-end gap-3">
+        <Form method="get" action={href("/mailbox")} role="search" className="flex flex-wrap items-end gap-3">
           <div className="min-w-64 flex-1">
             <TextField label="Search by address or subject" name="q" type="search" defaultValue={q} maxLength={200} />
           </div>
           <Button type="submit">Search</Button>
           {q ? (
-            <ButtonLink to="/mailbox" variant="secondary">
+            <ButtonLink to={href("/mailbox")} variant="secondary">
               Show all
             </ButtonLink>
           ) : null}
         </Form>
 
         {total === 0 ? (
-          q ? (
-            <EmptyState title={`No message matches “${q}”`}>
-              Try part of an address, or another word from the subject.
-            </EmptyState>
-          ) : (
-            <EmptyState title="No messages yet">
-              Messages show up here as soon as the app writes them: a sign-in link, a change of roles, a decision.
-            </EmptyState>
-          )
+          <NoMessages q={q} />
         ) : (
           <Card
             title={q ? `Messages matching “${q}”` : "Messages"}
@@ -156,34 +127,8 @@ export default function Mailbox({ loaderData }: Route.ComponentProps) {
               </p>
             }
           >
-            <DataTable
-              caption="Outgoing e-mail, newest first"
-              columns={columns}
-              rows={rows}
-              rowKey={(m) => m.id}
-              exportName="mailbox"
-            />
-            {pageCount > 1 ? (
-              <nav aria-label="Pages" className="mt-4 flex items-center justify-between gap-3">
-                {page > 1 ? (
-                  <ButtonLink to={pageHref(q, page - 1)} variant="secondary" size="sm" rel="prev">
-                    ← Newer
-                  </ButtonLink>
-                ) : (
-                  <span />
-                )}
-                <p className="num text-sm text-night-600">
-                  Page {page} of {pageCount}
-                </p>
-                {page < pageCount ? (
-                  <ButtonLink to={pageHref(q, page + 1)} variant="secondary" size="sm" rel="next">
-                    Older →
-                  </ButtonLink>
-                ) : (
-                  <span />
-                )}
-              </nav>
-            ) : null}
+            <DataTable caption="Outgoing e-mail, newest first" columns={columns} rows={rows} exportName="mailbox" />
+            {pageCount > 1 ? <Pager page={page} pageCount={pageCount} hrefFor={(n) => pageHref(q, n)} /> : null}
           </Card>
         )}
       </div>

@@ -1,42 +1,29 @@
-import type { ReactNode } from "react";
-import { data, Link } from "react-router";
+import { href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Badge, ButtonLink, Card, PageHeader } from "~/components/ui";
-import { database } from "~/db/client.server";
+import { Badge, Card, type Detail, DetailList, PageHeader } from "~/components/ui";
+import { dbContext } from "~/context";
 import { requireMailboxReader } from "~/lib/guards.server";
-import { getMessage, mailStatus, parseMessageId, utcText } from "~/services/mail/mailbox.server";
+import { invariantResponse } from "~/lib/not-found";
+import { messageView, parseMessageId } from "~/services/mailbox/queries.server";
+import { attemptsText, Recipient, StatusBadge } from "./+shared/parts";
 import type { Route } from "./+types/message";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+const NO_SUCH_MESSAGE = "There is no message with that number.";
+
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   const viewer = await requireMailboxReader(request);
   const id = parseMessageId(params.messageId);
-  if (id === null) throw data("There is no message with that number.", { status: 404 });
-  const message = await getMessage(database(), id);
-  if (!message) throw data("There is no message with that number.", { status: 404 });
-  return {
-    message: {
-      id: message.id,
-      kind: message.kind,
-      to: message.toAddress,
-      toViewer: message.toAddress.toLowerCase() === viewer.user.email.toLowerCase(),
-      subject: message.subject,
-      html: message.html,
-      text: message.text,
-      relatedUrl: message.relatedUrl && /^https?:\/\//i.test(message.relatedUrl) ? message.relatedUrl : null,
-      created: utcText(message.createdAt),
-      status: mailStatus(message),
-      attempts: message.attempts,
-      nextAttempt: utcText(message.nextAttemptAt),
-      lastError: message.lastError,
-      sent: utcText(message.sentAt),
-      smtpMessageId: message.smtpMessageId,
-    },
-  };
+  invariantResponse(id, NO_SUCH_MESSAGE);
+  const message = await messageView(context.get(dbContext), { id, viewerEmail: viewer.user.email });
+  invariantResponse(message, NO_SUCH_MESSAGE);
+  return { message };
 }
 
 export const meta: Route.MetaFunction = ({ loaderData }) => [
   { title: loaderData ? `${loaderData.message.subject} — Mailbox — Fringe Docket` : "Mailbox — Fringe Docket" },
 ];
+
+type Message = Route.ComponentProps["loaderData"]["message"];
 
 const URL_PATTERN = /(https?:\/\/[^\s<>"')\]]+)/g;
 
@@ -58,74 +45,63 @@ function LinkedText({ text }: { text: string }) {
   );
 }
 
-export default function MailboxMessage({ loaderData }: Route.ComponentProps) {
-  const { message: m } = loaderData;
-  const headers: [string, ReactNode][] = [
-    [
-      "To",
-      <span className="inline-flex flex-wrap items-center gap-1.5">
-        <span className="break-all">{m.to}</span>
-        {m.toViewer ? <Badge tone="accent">you</Badge> : null}
-      </span>,
-    ],
-    ["Subject", m.subject],
-    ["Kind", <Badge>{m.kind}</Badge>],
-    ["Written", <span className="num">{m.created}</span>],
-    [
-      "Status",
-      m.status === "sent" ? (
-        <span className="inline-flex items-center gap-2">
-          <Badge tone="ok">sent</Badge>
-          <span className="num">{m.sent}</span>
-        </span>
-      ) : m.status === "pending" ? (
-        <Badge tone="info">pending</Badge>
-      ) : (
-        <span className="inline-flex flex-wrap items-center gap-2">
-          <Badge tone="caution">retrying</Badge>
-          <span className="num">
-            {m.attempts} failed {m.attempts === 1 ? "attempt" : "attempts"}, next {m.nextAttempt}
-          </span>
-        </span>
-      ),
-    ],
+/** Where the message stands: sent (and when), pending, or retrying with the failed attempts so far. */
+function Delivery({ message: m }: { message: Message }) {
+  if (m.status === "pending") return <StatusBadge status="pending" />;
+  return (
+    <span className="inline-flex flex-wrap items-center gap-2">
+      <StatusBadge status={m.status} />
+      <span className="num">
+        {m.status === "sent" ? m.sent : `${attemptsText(m.attempts, "failed")}, next ${m.nextAttempt}`}
+      </span>
+    </span>
+  );
+}
+
+/** The header lines of the message; the last error, Message-ID and related page only when there are any. */
+function headerDetails(m: Message): Detail[] {
+  const details: Detail[] = [
+    { label: "To", value: <Recipient to={m.to} toViewer={m.toViewer} /> },
+    { label: "Subject", value: m.subject },
+    { label: "Kind", value: <Badge>{m.kind}</Badge> },
+    { label: "Written", value: <span className="num">{m.created}</span> },
+    { label: "Status", value: <Delivery message={m} /> },
   ];
-  if (m.lastError) headers.push(["Last error", <span className="break-words text-danger-700">{m.lastError}</span>]);
-  if (m.smtpMessageId) headers.push(["Message-ID", <code className="break-all text-sm">{m.smtpMessageId}</code>]);
-  if (m.relatedUrl)
-    headers.push([
-      "Related page",
+  if (m.lastError)
+    details.push({ label: "Last error", value: <span className="break-words text-danger-700">{m.lastError}</span> });
+  if (m.smtpMessageId)
+    details.push({ label: "Message-ID", value: <code className="break-all text-sm">{m.smtpMessageId}</code> });
+  if (m.relatedUrl) {
+    const link = (
       <a href={m.relatedUrl} rel="noreferrer" className="break-all text-ember-700 underline">
         {m.relatedUrl}
-      </a>,
-    ]);
+      </a>
+    );
+    details.push({ label: "Related page", value: link });
+  }
+  return details;
+}
 
+export default function MailboxMessage({ loaderData }: Route.ComponentProps) {
+  const { message: m } = loaderData;
+  const mailbox = href("/mailbox");
   return (
     <>
       <nav aria-label="Breadcrumb" className="mb-2 text-sm">
-        <Link to="/mailbox" className="text-ember-700 underline-offset-2 hover:underline">
+        <Link to={mailbox} className="text-ember-700 underline-offset-2 hover:underline">
           Mailbox
         </Link>
         <span className="text-night-500"> / message {m.id}</span>
       </nav>
-      <PageHeader
-        title={m.subject}
-        actions={
-          <ButtonLink to="/mailbox" variant="secondary">
-            Back to the mailbox
-          </ButtonLink>
-        }
-      />
+      <PageHeader title={m.subject} back={{ to: mailbox, label: "Back to the mailbox" }} />
       <div className="grid gap-6">
         <Card title="Headers">
-          <dl className="grid grid-cols-1 gap-x-6 gap-y-2 sm:grid-cols-[10rem_1fr]">
-            {headers.map(([label, value]) => (
-              <div key={label} className="contents">
-                <dt className="text-sm text-night-600">{label}</dt>
-                <dd className="text-night-900">{value}</dd>
-              </div>
-            ))}
-          </dl>
+          <DetailList
+            items={headerDetails(m)}
+            className="grid grid-cols-1 gap-x-6 gap-y-2 sm:grid-cols-[10rem_1fr]"
+            itemClassName="contents"
+            valueClassName="text-night-900"
+          />
         </Card>
         <Card title="As the recipient sees it">
           <iframe

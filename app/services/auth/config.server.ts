@@ -1,4 +1,5 @@
 import * as v from "valibot";
+import { env } from "~/env.server";
 
 /**
  * Sign-in settings. Without OIDC_ISSUER the app uses the local fake identity provider that
@@ -32,6 +33,16 @@ export function parseAuthEnv(source: Record<string, string | undefined>): AuthEn
 
 export function authEnv(): AuthEnv {
   return parseAuthEnv(process.env);
+}
+
+/** What the sign-in page offers: the sign-on button's label, and whether the local stand-ins are in use. */
+export function signInOptions() {
+  const auth = authEnv();
+  return {
+    providerName: auth.OIDC_PROVIDER_NAME,
+    usingFakeProvider: auth.usingFakeProvider,
+    demoMode: env().DEMO_MODE === "1",
+  };
 }
 
 export const SESSION_COOKIE = "fd_session";

@@ -12,7 +12,7 @@ import { enqueueMail } from "~/services/mail/outbox.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 import { findOrCreateAccount, findUserByEmail } from "./accounts.server";
 import { EMAIL_LINK_LIFETIME_MS } from "./config.server";
-import { generateSecret, hashSecret } from "./tokens.server";
+import { generateSecret, hashSecret, SECRET_PATTERN } from "./tokens.server";
 
 /** Stores a new link token for `email` and queues the message carrying it. Returns the link. */
 export async function sendSignInLink(db: Database, email: string, next: string, now = new Date()) {
@@ -50,7 +50,7 @@ export type LinkResult =
  * unexpired, then finds or creates the account (proposer role for a new one).
  */
 export async function consumeSignInLink(db: Database, token: string, now = new Date()): Promise<LinkResult> {
-  if (!/^[a-z2-7]{32}$/.test(token)) return { ok: false, reason: "This sign-in link is not valid." };
+  if (!SECRET_PATTERN.test(token)) return { ok: false, reason: "This sign-in link is not valid." };
   const hash = hashSecret(token);
   const [used] = await db
     .update(emailSignInTokens)

@@ -1,11 +1,11 @@
 /** Session rows behind the `fd_session` cookie: random token in the cookie, its SHA-256 in the table. */
-import { and, eq, gt, lt, ne } from "drizzle-orm";
+import { and, eq, gt, lt, ne, type SQL } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
 import { sessions } from "~/db/schema/auth";
 import { users } from "~/db/schema/users";
 import { env } from "~/env.server";
 import { SESSION_COOKIE, SESSION_LIFETIME_MS, SESSION_RENEW_BEFORE_MS } from "./config.server";
-import { generateSecret, hashSecret } from "./tokens.server";
+import { generateSecret, hashSecret, SECRET_PATTERN } from "./tokens.server";
 
 export type SessionMethod = "sso" | "email-link";
 
@@ -38,7 +38,7 @@ export async function createSession(
  * Slides the expiry forward when less than half the lifetime remains.
  */
 export async function validateSessionToken(db: Database, token: string, now = new Date()) {
-  if (!/^[a-z2-7]{32}$/.test(token)) return null;
+  if (!SECRET_PATTERN.test(token)) return null;
   const id = hashSecret(token);
   const [row] = await db
     .select({ session: sessions, user: users })
@@ -75,20 +75,26 @@ export async function listUserSessions(db: Database, userId: number, now = new D
     .orderBy(sessions.lastSeenAt);
 }
 
-export async function revokeSession(db: Database, userId: number, sessionId: string) {
-  const deleted = await db
+/** Ends the person's sessions that also match `which` (all of them without it); true when any ended. */
+async function endSessions(db: Database, userId: number, which?: SQL) {
+  const ended = await db
     .delete(sessions)
-    .where(and(eq(sessions.id, sessionId), eq(sessions.userId, userId)))
+    .where(and(eq(sessions.userId, userId), which))
     .returning({ id: sessions.id });
-  return deleted.length > 0;
+  return ended.length > 0;
 }
 
-export async function revokeOtherSessions(db: Database, userId: number, keepSessionId: string) {
-  await db.delete(sessions).where(and(eq(sessions.userId, userId), ne(sessions.id, keepSessionId)));
+/** Ends one session of the person; false when it is not theirs or has already ended. */
+export function revokeSession(db: Database, userId: number, sessionId: string) {
+  return endSessions(db, userId, eq(sessions.id, sessionId));
 }
 
-export async function revokeAllSessions(db: Database, userId: number) {
-  await db.delete(sessions).where(eq(sessions.userId, userId));
+export function revokeOtherSessions(db: Database, userId: number, keepSessionId: string) {
+  return endSessions(db, userId, ne(sessions.id, keepSessionId));
+}
+
+export function revokeAllSessions(db: Database, userId: number) {
+  return endSessions(db, userId);
 }
 
 export async function deleteExpiredSessions(db: Database, now = new Date()) {

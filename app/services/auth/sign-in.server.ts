@@ -1,5 +1,5 @@
 /** Finishing a sign-in: a session row, its cookie, and the redirect to where the person was going. */
-import { redirect } from "react-router";
+import { href, redirect } from "react-router";
 import type { Database } from "~/db/client.server";
 import { safeNext } from "./oidc.server";
 import { createSession, type SessionMethod, sessionCookieHeader } from "./sessions.server";
@@ -22,4 +22,9 @@ export async function signInAndRedirect(
   headers.append("Set-Cookie", sessionCookieHeader(token, session.expiresAt));
   for (const h of extraHeaders) headers.append("Set-Cookie", h);
   return redirect(safeNext(next), { headers });
+}
+
+/** Back to the sign-in page, which shows `message` as the reason. */
+export function backToSignIn(message: string) {
+  return redirect(`${href("/sign-in")}?error=${encodeURIComponent(message)}`);
 }

@@ -1,6 +1,9 @@
 import { sha256 } from "@oslojs/crypto/sha2";
 import { encodeBase32LowerCaseNoPadding, encodeHexLowerCase } from "@oslojs/encoding";
 
+/** What `generateSecret` writes: 32 characters of lower-case base32. */
+export const SECRET_PATTERN = /^[a-z2-7]{32}$/;
+
 /** A fresh random secret: 20 bytes from the system's CSPRNG, base32 (32 characters). */
 export function generateSecret(): string {
   const bytes = new Uint8Array(20);

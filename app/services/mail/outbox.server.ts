@@ -6,8 +6,6 @@ import type { DbOrTx } from "~/db/client.server";
 import { MAIL_KINDS, type MailKind, type OutboxMessage, outboxMessages } from "~/db/schema/mail";
 import { wakeOutboxSender } from "./sender.server";
 
-/** The database itself or the `tx` of `db.transaction(async (tx) => …)`. */
-
 export type NewMail = {
   kind: MailKind;
   /** One recipient address. */

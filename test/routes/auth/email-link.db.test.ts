@@ -9,7 +9,7 @@ import { action as signInAction } from "~/routes/auth/sign-in";
 import { RATE_LIMITS } from "~/services/auth/config.server";
 import { deliverDue } from "~/services/mail/sender.server";
 import { createMailTransport } from "~/services/mail/transport.server";
-import { type FakeSmtp, startFakeSmtp } from "../../scripts/fakes/smtp";
+import { type FakeSmtp, startFakeSmtp } from "../../../scripts/fakes/smtp";
 
 let smtp: FakeSmtp;
 beforeAll(async () => {

@@ -3,6 +3,8 @@ import { count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
 import * as v from "valibot";
 import type { Database } from "~/db/client.server";
 import { type OutboxMessage, outboxMessages } from "~/db/schema/mail";
+import { formatUtc, utcText } from "~/lib/format";
+import { MAX_ROW_ID, toId } from "~/lib/not-found";
 
 export const MAILBOX_PAGE_SIZE = 50;
 
@@ -38,17 +40,10 @@ export function parseMailboxQuery(params: URLSearchParams): MailboxQuery {
   });
 }
 
-/** A message id from the address: a positive 32-bit integer written plainly, else null. */
-export const MessageIdSchema = v.pipe(
-  v.string(),
-  v.regex(/^[1-9]\d{0,9}$/),
-  v.transform(Number),
-  v.maxValue(2_147_483_647),
-);
-
+/** A message number from the address (`toId`), written plainly: "42", not "042" or " 42"; else null. */
 export function parseMessageId(raw: string | undefined): number | null {
-  const result = v.safeParse(MessageIdSchema, raw);
-  return result.success ? result.output : null;
+  const id = toId(raw);
+  return id !== null && String(id) === raw ? id : null;
 }
 
 /** `%`, `_` and `\` match themselves in the search, not as LIKE wildcards. */
@@ -105,12 +100,48 @@ export async function listMessages(db: Database, query: { q?: string; page?: num
 
 /** One message with its bodies, or null. */
 export async function getMessage(db: Database, id: number): Promise<OutboxMessage | null> {
-  if (!Number.isInteger(id) || id < 1 || id > 2_147_483_647) return null;
+  if (!Number.isInteger(id) || id < 1 || id > MAX_ROW_ID) return null;
   const [row] = await db.select().from(outboxMessages).where(eq(outboxMessages.id, id));
   return row ?? null;
 }
 
-/** An instant as `YYYY-MM-DD HH:MM UTC` (the same on server and browser), or null. */
-export function utcText(at: Date | null): string | null {
-  return at ? `${at.toISOString().slice(0, 16).replace("T", " ")} UTC` : null;
+/** What both mailbox pages show of a message: recipient (and whether it is the viewer), delivery state. */
+function summary(m: MailboxRow, viewerEmail: string) {
+  return {
+    id: m.id,
+    kind: m.kind,
+    to: m.toAddress,
+    toViewer: m.toAddress.toLowerCase() === viewerEmail.toLowerCase(),
+    subject: m.subject,
+    created: formatUtc(m.createdAt),
+    status: mailStatus(m),
+    attempts: m.attempts,
+    nextAttempt: utcText(m.nextAttemptAt),
+    lastError: m.lastError,
+    sent: utcText(m.sentAt),
+  };
+}
+
+export type MessageSummary = ReturnType<typeof summary>;
+
+/** One page of the mailbox list as the page shows it, for the viewer with this address. */
+export async function mailboxOverview(
+  db: Database,
+  { query, viewerEmail }: { query: MailboxQuery; viewerEmail: string },
+) {
+  const { rows, ...page } = await listMessages(db, query);
+  return { ...page, rows: rows.map((m) => ({ ...summary(m, viewerEmail), createdAt: m.createdAt.toISOString() })) };
+}
+
+/** One message with both its bodies, as the message page shows it; null when there is none. */
+export async function messageView(db: Database, { id, viewerEmail }: { id: number; viewerEmail: string }) {
+  const message = await getMessage(db, id);
+  if (!message) return null;
+  return {
+    ...summary(message, viewerEmail),
+    html: message.html,
+    text: message.text,
+    relatedUrl: message.relatedUrl && /^https?:\/\//i.test(message.relatedUrl) ? message.relatedUrl : null,
+    smtpMessageId: message.smtpMessageId,
+  };
 }

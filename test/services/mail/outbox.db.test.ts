@@ -1,27 +1,16 @@
-import { routeArgs, testDb } from "@test/routes";
+import { testDb } from "@test/routes";
 import { eq, sql } from "drizzle-orm";
 import { createElement } from "react";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { outboxMessages } from "~/db/schema/mail";
-import { userRoles, users } from "~/db/schema/users";
+import { users } from "~/db/schema/users";
 import { RoleChangeEmail } from "~/emails/RoleChangeEmail";
 import { SignInLinkEmail } from "~/emails/SignInLinkEmail";
-import { loader as mailboxLoader } from "~/routes/mailbox/index";
-import { loader as messageLoader } from "~/routes/mailbox/message";
-import { SESSION_COOKIE } from "~/services/auth/config.server";
-import { createSession } from "~/services/auth/sessions.server";
 import { parseMailEnv } from "~/services/mail/config.server";
-import {
-  getMessage,
-  listMessages,
-  MAILBOX_PAGE_SIZE,
-  parseMailboxQuery,
-  parseMessageId,
-} from "~/services/mail/mailbox.server";
 import { enqueueMail } from "~/services/mail/outbox.server";
 import { deliverDue, retryDelayMs, startOutboxSender } from "~/services/mail/sender.server";
 import { createMailTransport, type MailTransport } from "~/services/mail/transport.server";
-import { type FakeSmtp, startFakeSmtp } from "../../scripts/fakes/smtp";
+import { type FakeSmtp, startFakeSmtp } from "../../../scripts/fakes/smtp";
 
 const LINK = "http://localhost:3000/auth/email/verify?token=abcdefghijklmnopqrstuvwxyz234567";
 
@@ -355,114 +344,6 @@ describe("startOutboxSender", () => {
       expect(most).toBe(1);
     } finally {
       await sender.stop();
-    }
-  });
-});
-
-describe("mailbox reads", () => {
-  it("lists newest first, searches address and subject, pages by 50 and finds one message", async () => {
-    const db = testDb();
-    const base = Date.now() - 1_000_000;
-    const values = Array.from({ length: 120 }, (_, i) => ({
-      kind: "submission" as const,
-      toAddress: i % 3 === 0 ? `pi${i}@lumbre.example` : `coi${i}@example.org`,
-      subject: i === 7 ? "100% done_now" : `Proposal ${i} received`,
-      html: "<p>x</p>",
-      text: "x",
-      createdAt: new Date(base + i * 1000),
-    }));
-    await db.insert(outboxMessages).values(values);
-
-    const first = await listMessages(db, { page: 1 });
-    expect(first.total).toBe(120);
-    expect(first.pageCount).toBe(3);
-    expect(first.rows).toHaveLength(MAILBOX_PAGE_SIZE);
-    expect(first.rows[0].subject).toBe("Proposal 119 received");
-    const third = await listMessages(db, { page: 3 });
-    expect(third.rows).toHaveLength(20);
-    // Beyond the end: the last page.
-    expect((await listMessages(db, { page: 99 })).page).toBe(3);
-
-    expect((await listMessages(db, { q: "LUMBRE.example" })).total).toBe(40);
-    expect((await listMessages(db, { q: "Proposal 11" })).total).toBe(11); // 11, 110–119
-    // LIKE wildcards in the search match themselves.
-    const literal = await listMessages(db, { q: "100%" });
-    expect(literal.rows.map((r) => r.subject)).toEqual(["100% done_now"]);
-    expect((await listMessages(db, { q: "_" })).total).toBe(1);
-
-    const one = await getMessage(db, first.rows[0].id);
-    expect(one?.html).toBe("<p>x</p>");
-    expect(await getMessage(db, 999_999)).toBeNull();
-  });
-
-  it("reads the query string and the message number defensively", () => {
-    const q = (s: string) => parseMailboxQuery(new URLSearchParams(s));
-    expect(q("")).toEqual({ q: "", page: 1 });
-    expect(q("q=%20ines%20&page=2")).toEqual({ q: "ines", page: 2 });
-    for (const bad of ["page=0", "page=-3", "page=abc", "page=1.5", "page=99999999999", "page="])
-      expect(q(bad).page).toBe(1);
-    expect(q(`q=${"x".repeat(500)}`).q).toHaveLength(200);
-
-    expect(parseMessageId("42")).toBe(42);
-    for (const bad of [undefined, "", "0", "-1", "042", "4e2", "1.0", "abc", "99999999999", "2147483648"])
-      expect(parseMessageId(bad)).toBeNull();
-  });
-});
-
-describe("mailbox pages", () => {
-  async function signedIn(email: string) {
-    const db = testDb();
-    const [user] = await db.insert(users).values({ email, name: "Mara Oyarzún" }).returning();
-    await db.insert(userRoles).values({ userId: user.id, role: "admin" });
-    const { token } = await createSession(db, user.id, { method: "sso" });
-    return { headers: { Cookie: `${SESSION_COOKIE}=${token}` } };
-  }
-
-  async function thrownBy(fn: () => Promise<unknown>) {
-    try {
-      await fn();
-    } catch (e) {
-      return e as { status?: number; init?: { status?: number }; headers?: Headers };
-    }
-    throw new Error("expected the loader to throw");
-  }
-
-  it("sends anonymous visitors to sign in", async () => {
-    const thrown = await thrownBy(() => mailboxLoader(routeArgs("/mailbox")));
-    expect(thrown.status).toBe(302);
-    expect(thrown.headers?.get("Location")).toMatch(/^\/sign-in\?next=%2Fmailbox/);
-    const again = await thrownBy(() => messageLoader(routeArgs("/mailbox/1", { params: { messageId: "1" } })));
-    expect(again.status).toBe(302);
-  });
-
-  it("lists and shows messages, treats a bad page as page 1 and a bad number as 404", async () => {
-    const db = testDb();
-    const init = await signedIn("mara@example.org");
-    const mine = await enqueueMail(db, signInMail("MARA@example.org", "For the viewer"));
-    await enqueueMail(db, signInMail("other@example.org", "For someone else"));
-
-    const list = await mailboxLoader(routeArgs("/mailbox?page=banana&q=", init));
-    expect(list.page).toBe(1);
-    expect(list.total).toBe(2);
-    expect(list.rows.map((r) => [r.subject, r.status, r.toViewer])).toEqual([
-      ["For someone else", "pending", false],
-      ["For the viewer", "pending", true],
-    ]);
-    const found = await mailboxLoader(routeArgs("/mailbox?q=viewer", init));
-    expect(found.rows.map((r) => r.id)).toEqual([mine.id]);
-
-    const one = await messageLoader(
-      routeArgs(`/mailbox/${mine.id}`, { ...init, params: { messageId: String(mine.id) } }),
-    );
-    expect(one.message.subject).toBe("For the viewer");
-    expect(one.message.html).toContain(LINK);
-    expect(one.message.status).toBe("pending");
-
-    for (const bad of ["0", "abc", "1e3", "99999999999", String(mine.id + 1000)]) {
-      const thrown = await thrownBy(() =>
-        messageLoader(routeArgs(`/mailbox/${bad}`, { ...init, params: { messageId: bad } })),
-      );
-      expect(thrown.init?.status).toBe(404);
     }
   });
 });

@@ -6,7 +6,7 @@ import { seedDemoScenario } from "~/db/seed/factories.server";
 import { getViewer } from "~/lib/guards.server";
 import { loader as ssoCallback } from "~/routes/auth/sso-callback";
 import { loader as ssoStart } from "~/routes/auth/sso-start";
-import { startFakeIdentityProvider } from "../../scripts/fakes/identity-provider";
+import { startFakeIdentityProvider } from "../../../scripts/fakes/identity-provider";
 
 const CLIENT = { clientId: "fringe-docket-test", clientSecret: "test-secret-value" };
 let idp: Awaited<ReturnType<typeof startFakeIdentityProvider>>;
@@ -47,6 +47,18 @@ async function authorize(identity: { email: string; name: string; institute?: st
   return { callbackUrl: new URL(consent.headers.get("Location")!), flowCookie };
 }
 
+/** A demo person who signs in through the provider in most of these tests. */
+const KENJI = { email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" };
+
+/** Where an answer redirects to, decoded (the sign-in page carries its reason in the query). */
+const whereTo = (res: Response) => decodeURIComponent(res.headers.get("Location")!);
+
+/** The provider sends the browser back to the callback, with the flow cookie when the browser has it. */
+function returnFrom(callbackUrl: URL, flowCookie?: string) {
+  const headers = flowCookie ? { Cookie: flowCookie } : undefined;
+  return settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers })));
+}
+
 describe("single sign-on through the local provider", () => {
   it("signs in a known person with PKCE, state and a verified ID token, then returns to `next`", async () => {
     useProvider(idp.issuer);
@@ -54,9 +66,7 @@ describe("single sign-on through the local provider", () => {
       email: "henrik.solberg@fjellvik.example",
       name: "Henrik Solberg",
     });
-    const done = await settle(() =>
-      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
-    );
+    const done = await returnFrom(callbackUrl, flowCookie);
     expect(done.status).toBe(302);
     expect(done.headers.get("Location")).toBe("/account");
     const sessionCookie = done.headers.getSetCookie().find((c) => c.startsWith("fd_session="))!;
@@ -79,9 +89,7 @@ describe("single sign-on through the local provider", () => {
       name: "Noa Ferreira",
       institute: "Lagoa Observatory",
     });
-    const done = await settle(() =>
-      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
-    );
+    const done = await returnFrom(callbackUrl, flowCookie);
     expect(done.status).toBe(302);
     const viewer = await getViewer(new Request("http://localhost:3000/", { headers: { Cookie: cookiesFrom(done) } }));
     expect(viewer?.user).toMatchObject({ name: "Noa Ferreira", institute: "Lagoa Observatory" });
@@ -90,53 +98,36 @@ describe("single sign-on through the local provider", () => {
 
   it("rejects a forged state", async () => {
     useProvider(idp.issuer);
-    const { callbackUrl, flowCookie } = await authorize({
-      email: "kenji.morrow@tidewater.example",
-      name: "Kenji Morrow",
-    });
+    const { callbackUrl, flowCookie } = await authorize(KENJI);
     callbackUrl.searchParams.set("state", "forged-state-value");
-    const done = await settle(() =>
-      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
-    );
+    const done = await returnFrom(callbackUrl, flowCookie);
     expect(done.status).toBe(302);
-    expect(decodeURIComponent(done.headers.get("Location")!)).toContain("the sign-in state did not match");
+    expect(whereTo(done)).toContain("the sign-in state did not match");
     expect(done.headers.getSetCookie().some((c) => c.startsWith("fd_session="))).toBe(false);
   });
 
   it("rejects a callback without the flow cookie (started elsewhere)", async () => {
     useProvider(idp.issuer);
-    const { callbackUrl } = await authorize({ email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" });
-    const done = await settle(() => ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search)));
-    expect(decodeURIComponent(done.headers.get("Location")!)).toContain("started in another browser");
+    const { callbackUrl } = await authorize(KENJI);
+    const done = await returnFrom(callbackUrl);
+    expect(whereTo(done)).toContain("started in another browser");
   });
 
   it("rejects an expired authorization code", async () => {
     useProvider(shortIdp.issuer);
-    const { callbackUrl, flowCookie } = await authorize({
-      email: "kenji.morrow@tidewater.example",
-      name: "Kenji Morrow",
-    });
+    const { callbackUrl, flowCookie } = await authorize(KENJI);
     await new Promise((r) => setTimeout(r, 80));
-    const done = await settle(() =>
-      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
-    );
-    expect(decodeURIComponent(done.headers.get("Location")!)).toContain("rejected the code (invalid_grant)");
+    const done = await returnFrom(callbackUrl, flowCookie);
+    expect(whereTo(done)).toContain("rejected the code (invalid_grant)");
   });
 
   it("rejects a code used twice", async () => {
     useProvider(idp.issuer);
-    const { callbackUrl, flowCookie } = await authorize({
-      email: "kenji.morrow@tidewater.example",
-      name: "Kenji Morrow",
-    });
-    const first = await settle(() =>
-      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
-    );
+    const { callbackUrl, flowCookie } = await authorize(KENJI);
+    const first = await returnFrom(callbackUrl, flowCookie);
     expect(first.headers.getSetCookie().some((c) => c.startsWith("fd_session="))).toBe(true);
-    const again = await settle(() =>
-      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
-    );
-    expect(decodeURIComponent(again.headers.get("Location")!)).toContain("rejected the code");
+    const again = await returnFrom(callbackUrl, flowCookie);
+    expect(whereTo(again)).toContain("rejected the code");
   });
 
   it("refuses a deactivated account", async () => {
@@ -146,27 +137,20 @@ describe("single sign-on through the local provider", () => {
       email: "mei.chao@sierra-lumbre.example",
       name: "Mei-Lin Chao",
     });
-    const done = await settle(() =>
-      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
-    );
-    expect(decodeURIComponent(done.headers.get("Location")!)).toContain("deactivated");
+    const done = await returnFrom(callbackUrl, flowCookie);
+    expect(whereTo(done)).toContain("deactivated");
   });
 
   it("does not redirect to another site after sign-in", async () => {
     useProvider(idp.issuer);
-    const { callbackUrl, flowCookie } = await authorize(
-      { email: "kenji.morrow@tidewater.example", name: "Kenji Morrow" },
-      "//evil.example/steal",
-    );
-    const done = await settle(() =>
-      ssoCallback(routeArgs(callbackUrl.pathname + callbackUrl.search, { headers: { Cookie: flowCookie } })),
-    );
+    const { callbackUrl, flowCookie } = await authorize(KENJI, "//evil.example/steal");
+    const done = await returnFrom(callbackUrl, flowCookie);
     expect(done.headers.get("Location")).toBe("/");
   });
 
   it("explains when the provider is unreachable", async () => {
     useProvider("http://127.0.0.1:9");
     const start = await settle(() => ssoStart(routeArgs("/auth/sso/start")));
-    expect(decodeURIComponent(start.headers.get("Location")!)).toContain("Single sign-on is unavailable");
+    expect(whereTo(start)).toContain("Single sign-on is unavailable");
   });
 });

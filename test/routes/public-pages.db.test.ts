@@ -1,7 +1,7 @@
 import { routeArgs, testDb } from "@test/routes";
 import { describe, expect, it } from "vitest";
 import { seedDemoScenario } from "~/db/seed/factories.server";
-import { loader as homeLoader } from "~/routes/home";
+import { loader as homeLoader } from "~/routes/home/index";
 import { loader as notFoundLoader } from "~/routes/not-found";
 import { loader as registryLoader } from "~/routes/registry/overview";
 
