@@ -14,7 +14,7 @@
  */
 import { readFile } from "node:fs/promises";
 
-const USAGE = `usage: npm run -s cli -- <coverage|ephemeris|triangles> [--input FILE] [--pretty]
+const USAGE = `usage: npm run -s cli -- <coverage|ephemeris|triangles|plan> [--input FILE] [--pretty]
   Reads a JSON request from FILE (or standard input) and prints one JSON object.
   See docs/cli.md for the request and response fields.`;
 
@@ -100,8 +100,19 @@ async function run(opts: Options): Promise<unknown> {
       const { computeEphemeris } = await import("../app/engine");
       return computeEphemeris(parsed.value);
     }
+    case "plan": {
+      const { runPlan } = await import("./cli/plan");
+      const { CliRequestError } = await import("./cli/errors");
+      const request = await readRequest(opts.input);
+      try {
+        return await runPlan(request);
+      } catch (e) {
+        if (e instanceof CliRequestError) throw new UsageError(e.message);
+        throw e;
+      }
+    }
     default:
-      throw new UsageError(`unknown command "${opts.command}" (expected coverage, ephemeris or triangles)`);
+      throw new UsageError(`unknown command "${opts.command}" (expected coverage, ephemeris, triangles or plan)`);
   }
 }
 

@@ -6,6 +6,19 @@
  * Radians inside; degrees, milliarcseconds and hours only in the request and response objects.
  */
 
+// Night planning: calibrator–science–calibrator sequences through one night, and their validation
+export type { PlanRequest } from "./api/plan";
+export {
+  MAX_PLAN_BLOCKS,
+  MAX_PLAN_CALIBRATORS,
+  MAX_PLAN_DELAY_WORK,
+  MAX_PLAN_STATIONS,
+  MAX_PLAN_TARGETS,
+  PlanBlockRefSchema,
+  PlanRequestSchema,
+  parsePlanBlocks,
+  parsePlanRequest,
+} from "./api/plan";
 // Wire schemas: JSON validated into the inputs, one-line errors naming the field
 export type { CoverageRequest, EphemerisRequest, ParseResult, TrianglesRequest } from "./api/requests";
 export {
@@ -20,7 +33,6 @@ export {
   parseTrianglesRequest,
   TargetModelSchema,
 } from "./api/requests";
-
 // Time and sky
 export { airmassKastenYoung, airmassSecZ } from "./astro/airmass";
 export type { EphemerisResponse, TwilightTimesUtc } from "./astro/ephemeris";
@@ -46,7 +58,6 @@ export {
 } from "./astro/time";
 export type { NightEvents } from "./astro/twilight";
 export { nightEvents } from "./astro/twilight";
-
 // Inputs of the computations (degrees, mas, hours, metres on this edge)
 export type {
   BeamOptions,
@@ -61,7 +72,6 @@ export type {
   TargetModel,
   TrianglesInput,
 } from "./inputs";
-
 // Interferometry
 export { baselineCount, baselineIndex, buildBaselines } from "./interferometry/baselines";
 export { besselJ0, besselJ1, sphericalJ1OverX } from "./interferometry/bessel";
@@ -107,7 +117,6 @@ export {
   squaredVisibilities,
   visibilityPhases,
 } from "./interferometry/visibilities";
-
 // Constants and angle helpers
 export {
   clampedAcos,
@@ -126,3 +135,12 @@ export {
   wrapPi,
   wrapTwoPi,
 } from "./math";
+export type { PlanBlock } from "./planning/block-fields";
+export type { PlanBlockRef, PlanCalibratorInput, PlanInput, PlanTargetInput } from "./planning/inputs";
+export { PLAN_DEFAULTS, PLAN_GRID_STEP_SEC, PLAN_SAFETY_MARGINS } from "./planning/inputs";
+export type { PlanNight, PlanResponse, PlanSettings } from "./planning/plan";
+export { computePlan, PLAN_SAFETY_WARNING } from "./planning/plan";
+export { angularSeparationRad } from "./planning/separation";
+export type { UnplacedCode, UnplacedTarget } from "./planning/unplaced";
+export type { PlanRule, PlanValidation, PlanViolation, ValidateOptions } from "./planning/validate";
+export { validatePlan } from "./planning/validate";
