@@ -125,13 +125,22 @@ export function buildObjectTrack(
   const moonSep = new Float64Array(n);
   const bad = new Uint8Array(n);
   const badPrefix = new Int32Array(n + 1);
+  // The grid, straight from the night's arrays (the same arithmetic as `evaluate`, without objects).
   for (let k = 0; k < n; k++) {
-    const s = evaluate(sky.at(sky.originSec + k * sky.stepSec));
-    elev[k] = s.elevRad;
-    need[k] = s.delayNeedM;
-    moonSep[k] = s.moonSepRad;
-    bad[k] = s.bad;
-    badPrefix[k + 1] = badPrefix[k] + (s.bad === 0 ? 0 : 1);
+    const haRad = sky.lmstRad[k] - raRad;
+    const e = elevationRad(sky.latRad, decRad, haRad);
+    const d = delayLineStrokeM === null ? 0 : delayNeed(haRad);
+    const m = angularSeparationRad(raRad, decRad, sky.moonRaRad[k], sky.moonDecRad[k]);
+    let b = 0;
+    if (!(sky.sunAltRad[k] <= sky.sunLimitRad)) b |= BAD_DARK;
+    if (!(e >= elevLimit)) b |= BAD_ELEVATION;
+    if (!(d <= strokeLimit)) b |= BAD_DELAY;
+    if (moonMinRad > 0 && !(m >= moonMinRad + sky.moonParallaxRad[k] + moonMargin)) b |= BAD_MOON;
+    elev[k] = e;
+    need[k] = d;
+    moonSep[k] = m;
+    bad[k] = b;
+    badPrefix[k + 1] = badPrefix[k] + (b === 0 ? 0 : 1);
   }
   const runEnd = new Int32Array(n).fill(-1);
   for (let k = n - 1; k >= 0; k--) if (bad[k] === 0) runEnd[k] = k + 1 < n && bad[k + 1] === 0 ? runEnd[k + 1] : k;

@@ -107,7 +107,7 @@ export function computePlan(input: PlanInput): PlanResponse {
       if (r.code === "sun") warnings.push(`${t.input.name} is not planned. ${r.reason}.`);
     } else if (u.count < t.maxBlocks) {
       warnings.push(
-        `${t.input.name}: ${u.count} of ${t.maxBlocks} science blocks planned (${t.input.hoursOwed} h owed).`,
+        `${t.input.name}: ${u.count} of ${t.maxBlocks} science blocks planned (${roundTo(t.input.hoursOwed, 2)} h owed).`,
       );
     }
     t.calibrators.forEach((c, i) => {

@@ -139,7 +139,7 @@ export function unplacedReason(
   if (!scienceFits) {
     return {
       code: "window",
-      reason: `never observable ${during} for a whole ${input.scienceBlockMin}-min science block with its calibrator blocks`,
+      reason: `never observable ${during} for as long as one ${input.scienceBlockMin}-min science block`,
     };
   }
   const usable = t.calibratorUsable.filter(Boolean).length;

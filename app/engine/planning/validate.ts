@@ -8,7 +8,7 @@
  * `maxSequenceGapSec`, default 0). A calibrator block that both follows one science block and
  * precedes another serves two sequences.
  */
-import { RAD_TO_DEG } from "../math";
+import { RAD_TO_DEG, roundTo } from "../math";
 import { buildPlanContext, type PlanContext, type PlanTarget } from "./context";
 import { PLAN_SAFETY_MARGINS, type PlanBlockRef, type PlanInput } from "./inputs";
 import { isoFromSec } from "./night-sky";
@@ -243,7 +243,7 @@ export function validatePlan(
         if (u.count > r.target.maxBlocks || u.sec > r.target.allowedSec + 1e-6) {
           found[i].push({
             rule: "hoursOwed",
-            reason: `science time of ${name} reaches ${(u.sec / 3600).toFixed(2)} h in ${u.count} blocks, over the ${r.target.input.hoursOwed} h owed (at most ${r.target.maxBlocks} blocks of ${request.scienceBlockMin} min)`,
+            reason: `science time of ${name} reaches ${(u.sec / 3600).toFixed(2)} h in ${u.count} blocks, over the ${roundTo(r.target.input.hoursOwed, 2)} h owed (at most ${r.target.maxBlocks} ${r.target.maxBlocks === 1 ? "block" : "blocks"} of ${request.scienceBlockMin} min)`,
           });
         }
       }
