@@ -136,6 +136,9 @@ export {
   wrapTwoPi,
 } from "./math";
 export type { PlanBlock } from "./planning/block-fields";
+export { describePlanBlocks } from "./planning/block-fields";
+export type { PlanContext, PlanTarget } from "./planning/context";
+export { buildPlanContext } from "./planning/context";
 export type { PlanBlockRef, PlanCalibratorInput, PlanInput, PlanTargetInput } from "./planning/inputs";
 export { PLAN_DEFAULTS, PLAN_GRID_STEP_SEC, PLAN_SAFETY_MARGINS } from "./planning/inputs";
 export type { PlanNight, PlanResponse, PlanSettings } from "./planning/plan";

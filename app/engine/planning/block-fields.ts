@@ -3,8 +3,9 @@
  * at both ends, and the least Moon distance during the block.
  */
 import { airmassKastenYoung } from "../astro/airmass";
-import { RAD_TO_DEG, RAD_TO_HOUR, roundTo, wrapHours12 } from "../math";
-import type { PlanContext } from "./context";
+import { RAD_TO_DEG, RAD_TO_HOUR, roundTo, wrapHours12, wrapHours24 } from "../math";
+import { buildPlanContext, type PlanContext } from "./context";
+import type { PlanBlockRef, PlanInput } from "./inputs";
 import { isoFromSec } from "./night-sky";
 import type { PlacedBlock } from "./sequences";
 
@@ -34,6 +35,16 @@ export interface PlanBlock {
   executed: boolean;
 }
 
+/** Rounded to 1e-4 h, the upper end folded after rounding (11.99999 h reads −12, 23.99999 h reads 0). */
+const ha = (rad: number) => {
+  const h = roundTo(wrapHours12(rad * RAD_TO_HOUR), 4);
+  return h >= 12 ? h - 24 : h;
+};
+const lst = (rad: number) => {
+  const h = roundTo(wrapHours24(rad * RAD_TO_HOUR), 4);
+  return h >= 24 ? h - 24 : h;
+};
+
 const airmass = (elevDeg: number) => {
   const x = airmassKastenYoung(elevDeg);
   return Number.isFinite(x) ? roundTo(x, 3) : null;
@@ -56,9 +67,9 @@ export function describeBlock(ctx: PlanContext, b: PlacedBlock): PlanBlock {
     object: b.object,
     startUtc: isoFromSec(b.startSec),
     endUtc: isoFromSec(b.endSec),
-    startLstH: roundTo(start.sky.lmstRad * RAD_TO_HOUR, 4),
-    hourAngleStartH: roundTo(wrapHours12(start.haRad * RAD_TO_HOUR), 4),
-    hourAngleEndH: roundTo(wrapHours12(end.haRad * RAD_TO_HOUR), 4),
+    startLstH: lst(start.sky.lmstRad),
+    hourAngleStartH: ha(start.haRad),
+    hourAngleEndH: ha(end.haRad),
     elevationStartDeg: roundTo(elS, 2),
     elevationEndDeg: roundTo(elE, 2),
     airmassStart: airmass(elS),
@@ -66,4 +77,33 @@ export function describeBlock(ctx: PlanContext, b: PlacedBlock): PlanBlock {
     moonSeparationDeg: roundTo(moonSep * RAD_TO_DEG, 2),
     executed: b.executed,
   };
+}
+
+/**
+ * The response fields of blocks given by reference (e.g. after an edit by hand), so that a table can
+ * show them before they are validated. A block whose target, object or times cannot be resolved gives
+ * null; `executed` is copied from the reference when it carries one.
+ * @param context a context already built for this request (optional)
+ */
+export function describePlanBlocks(
+  input: PlanInput,
+  refs: readonly (PlanBlockRef & { executed?: boolean })[],
+  context?: PlanContext,
+): (PlanBlock | null)[] {
+  const ctx = context ?? buildPlanContext(input);
+  return refs.map((ref) => {
+    const target = ctx.byName.get(ref.target);
+    if (!target) return null;
+    const track =
+      ref.kind === "science"
+        ? ref.object === target.input.name
+          ? target.science
+          : undefined
+        : target.calibrators[target.input.calibrators.findIndex((c) => c.name === ref.object)];
+    const startSec = Date.parse(ref.startUtc) / 1000;
+    const endSec = Date.parse(ref.endUtc) / 1000;
+    if (!track || !Number.isInteger(startSec) || !Number.isInteger(endSec) || endSec <= startSec) return null;
+    const executed = ref.executed === true;
+    return describeBlock(ctx, { kind: ref.kind, target, track, object: ref.object, startSec, endSec, executed });
+  });
 }

@@ -3,7 +3,15 @@
  * with its reason; an untouched plan validates clean.
  */
 import { describe, expect, it } from "vitest";
-import { computeEphemeris, computePlan, type PlanBlockRef, parsePlanBlocks, validatePlan } from "~/engine";
+import {
+  buildPlanContext,
+  computeEphemeris,
+  computePlan,
+  describePlanBlocks,
+  type PlanBlockRef,
+  parsePlanBlocks,
+  validatePlan,
+} from "~/engine";
 import { planRequest, SITE, target, zenithTargets } from "./fixtures";
 
 const refs = (blocks: PlanBlockRef[]): PlanBlockRef[] =>
@@ -162,5 +170,16 @@ describe("validatePlan", () => {
       ok: false,
       message: "blocks[0].startUtc: must be a whole second",
     });
+  });
+});
+
+describe("describePlanBlocks", () => {
+  it("gives the planner's own fields for its blocks and null for what cannot be resolved", () => {
+    const req = planRequest({ targets: [target("A", 150, -31, { hoursOwed: 1 })] });
+    const plan = computePlan(req);
+    const again = describePlanBlocks(req, refs(plan.blocks));
+    expect(again).toEqual(plan.blocks);
+    const ctx = buildPlanContext(req);
+    expect(describePlanBlocks(req, [{ ...refs(plan.blocks)[0], object: "Nobody" }], ctx)).toEqual([null]);
   });
 });
