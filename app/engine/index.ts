@@ -6,19 +6,6 @@
  * Radians inside; degrees, milliarcseconds and hours only in the request and response objects.
  */
 
-// Night planning: calibrator–science–calibrator sequences through one night, and their validation
-export type { PlanRequest } from "./api/plan";
-export {
-  MAX_PLAN_BLOCKS,
-  MAX_PLAN_CALIBRATORS,
-  MAX_PLAN_DELAY_WORK,
-  MAX_PLAN_STATIONS,
-  MAX_PLAN_TARGETS,
-  PlanBlockRefSchema,
-  PlanRequestSchema,
-  parsePlanBlocks,
-  parsePlanRequest,
-} from "./api/plan";
 // Wire schemas: JSON validated into the inputs, one-line errors naming the field
 export type { CoverageRequest, EphemerisRequest, ParseResult, TrianglesRequest } from "./api/requests";
 export {
@@ -33,6 +20,7 @@ export {
   parseTrianglesRequest,
   TargetModelSchema,
 } from "./api/requests";
+
 // Time and sky
 export { airmassKastenYoung, airmassSecZ } from "./astro/airmass";
 export type { EphemerisResponse, TwilightTimesUtc } from "./astro/ephemeris";
@@ -58,6 +46,7 @@ export {
 } from "./astro/time";
 export type { NightEvents } from "./astro/twilight";
 export { nightEvents } from "./astro/twilight";
+
 // Inputs of the computations (degrees, mas, hours, metres on this edge)
 export type {
   BeamOptions,
@@ -72,6 +61,7 @@ export type {
   TargetModel,
   TrianglesInput,
 } from "./inputs";
+
 // Interferometry
 export { baselineCount, baselineIndex, buildBaselines } from "./interferometry/baselines";
 export { besselJ0, besselJ1, sphericalJ1OverX } from "./interferometry/bessel";
@@ -117,6 +107,7 @@ export {
   squaredVisibilities,
   visibilityPhases,
 } from "./interferometry/visibilities";
+
 // Constants and angle helpers
 export {
   clampedAcos,
@@ -135,6 +126,21 @@ export {
   wrapPi,
   wrapTwoPi,
 } from "./math";
+
+// Night planning: calibrator–science–calibrator sequences through one night, and their validation
+
+export type { PlanRequest } from "./api/plan";
+export {
+  MAX_PLAN_BLOCKS,
+  MAX_PLAN_CALIBRATORS,
+  MAX_PLAN_DELAY_WORK,
+  MAX_PLAN_STATIONS,
+  MAX_PLAN_TARGETS,
+  PlanBlockRefSchema,
+  PlanRequestSchema,
+  parsePlanBlocks,
+  parsePlanRequest,
+} from "./api/plan";
 export type { PlanBlock } from "./planning/block-fields";
 export { describePlanBlocks } from "./planning/block-fields";
 export type { PlanContext, PlanTarget } from "./planning/context";
