@@ -15,7 +15,11 @@
 import { readFile } from "node:fs/promises";
 import type { ParseResult } from "~/engine";
 
-const USAGE = `usage: npm run -s cli -- <coverage|ephemeris|triangles> [--input FILE] [--pretty]
+/** Every command, in the order the usage lists them. */
+const COMMANDS = ["coverage", "ephemeris", "triangles", "plan"] as const;
+const commandList = `${COMMANDS.slice(0, -1).join(", ")} or ${COMMANDS[COMMANDS.length - 1]}`;
+
+const USAGE = `usage: npm run -s cli -- <${COMMANDS.join("|")}> [--input FILE] [--pretty]
   Reads a JSON request from FILE (or standard input) and prints one JSON object.
   See docs/cli.md for the request and response fields.`;
 
@@ -28,7 +32,7 @@ interface Options {
 }
 
 function parseArgs(argv: string[]): Options | "help" {
-  if (argv.length === 0) throw new UsageError("no command given (coverage, ephemeris or triangles; --help for usage)");
+  if (argv.length === 0) throw new UsageError(`no command given (${commandList}; --help for usage)`);
   let command: string | null = null;
   let input: string | null = null;
   let pretty = false;
@@ -46,7 +50,7 @@ function parseArgs(argv: string[]): Options | "help" {
     else if (command === null) command = a;
     else throw new UsageError(`unexpected argument ${a}`);
   }
-  if (command === null) throw new UsageError("no command given (coverage, ephemeris or triangles)");
+  if (command === null) throw new UsageError(`no command given (${commandList})`);
   return { command, input, pretty };
 }
 
@@ -89,15 +93,16 @@ function command<T, R>(parse: (json: unknown) => ParseResult<T>, compute: (value
 
 async function run(opts: Options): Promise<unknown> {
   const engine = await import("~/engine");
-  const commands: Record<string, (json: unknown) => unknown> = {
+  const commands: Record<(typeof COMMANDS)[number], (json: unknown) => unknown> = {
     coverage: command(engine.parseCoverageRequest, engine.computeCoverage),
     triangles: command(engine.parseTrianglesRequest, engine.rankTriangles),
     ephemeris: command(engine.parseEphemerisRequest, engine.computeEphemeris),
+    plan: command(engine.parsePlanRequest, engine.computePlan),
   };
-  if (!Object.hasOwn(commands, opts.command)) {
-    throw new UsageError(`unknown command "${opts.command}" (expected coverage, ephemeris or triangles)`);
+  if (!(COMMANDS as readonly string[]).includes(opts.command)) {
+    throw new UsageError(`unknown command "${opts.command}" (expected ${commandList})`);
   }
-  return commands[opts.command](await readRequest(opts.input));
+  return commands[opts.command as (typeof COMMANDS)[number]](await readRequest(opts.input));
 }
 
 function fail(message: string, status: number): void {

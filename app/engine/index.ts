@@ -126,3 +126,30 @@ export {
   wrapPi,
   wrapTwoPi,
 } from "./math";
+
+// Night planning: calibrator–science–calibrator sequences through one night, and their validation
+
+export type { PlanRequest } from "./api/plan";
+export {
+  MAX_PLAN_BLOCKS,
+  MAX_PLAN_CALIBRATORS,
+  MAX_PLAN_DELAY_WORK,
+  MAX_PLAN_STATIONS,
+  MAX_PLAN_TARGETS,
+  PlanBlockRefSchema,
+  PlanRequestSchema,
+  parsePlanBlocks,
+  parsePlanRequest,
+} from "./api/plan";
+export type { PlanBlock } from "./planning/block-fields";
+export { describePlanBlocks } from "./planning/block-fields";
+export type { PlanContext, PlanTarget } from "./planning/context";
+export { buildPlanContext } from "./planning/context";
+export type { PlanBlockRef, PlanCalibratorInput, PlanInput, PlanTargetInput } from "./planning/inputs";
+export { PLAN_DEFAULTS, PLAN_GRID_STEP_SEC, PLAN_SAFETY_MARGINS } from "./planning/inputs";
+export type { PlanNight, PlanResponse, PlanSettings } from "./planning/plan";
+export { computePlan, PLAN_SAFETY_WARNING } from "./planning/plan";
+export { angularSeparationRad } from "./planning/separation";
+export type { UnplacedCode, UnplacedTarget } from "./planning/unplaced";
+export type { PlanRule, PlanValidation, PlanViolation, ValidateOptions } from "./planning/validate";
+export { validatePlan } from "./planning/validate";
