@@ -1,7 +1,7 @@
 /**
  * Fringe Docket command line: `npm run -s cli -- <command> [--input FILE] [--pretty]`.
  *
- * Commands: coverage, ephemeris, triangles. The request is a JSON object read
+ * Commands: coverage, ephemeris, triangles, plan. The request is a JSON object read
  * from FILE, or from standard input when --input is absent. On success exactly
  * one JSON object is written to standard output (exit 0). On a bad request —
  * unknown command or option, missing or unreadable file, invalid JSON, a
