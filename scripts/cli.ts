@@ -1,7 +1,7 @@
 /**
  * Fringe Docket command line: `npm run -s cli -- <command> [--input FILE] [--pretty]`.
  *
- * Commands: coverage, ephemeris, triangles. The request is a JSON object read
+ * Commands: coverage, ephemeris, triangles, rank. The request is a JSON object read
  * from FILE, or from standard input when --input is absent. On success exactly
  * one JSON object is written to standard output (exit 0). On a bad request —
  * unknown command or option, missing or unreadable file, invalid JSON, a
@@ -14,7 +14,7 @@
  */
 import { readFile } from "node:fs/promises";
 
-const USAGE = `usage: npm run -s cli -- <coverage|ephemeris|triangles> [--input FILE] [--pretty]
+const USAGE = `usage: npm run -s cli -- <coverage|ephemeris|triangles|rank> [--input FILE] [--pretty]
   Reads a JSON request from FILE (or standard input) and prints one JSON object.
   See docs/cli.md for the request and response fields.`;
 
@@ -27,7 +27,7 @@ interface Options {
 }
 
 function parseArgs(argv: string[]): Options | "help" {
-  if (argv.length === 0) throw new UsageError("no command given (coverage, ephemeris or triangles; --help for usage)");
+  if (argv.length === 0) throw new UsageError("no command given (coverage, ephemeris, triangles or rank; --help for usage)");
   let command: string | null = null;
   let input: string | null = null;
   let pretty = false;
@@ -45,7 +45,7 @@ function parseArgs(argv: string[]): Options | "help" {
     else if (command === null) command = a;
     else throw new UsageError(`unexpected argument ${a}`);
   }
-  if (command === null) throw new UsageError("no command given (coverage, ephemeris or triangles)");
+  if (command === null) throw new UsageError("no command given (coverage, ephemeris, triangles or rank)");
   return { command, input, pretty };
 }
 
@@ -100,8 +100,17 @@ async function run(opts: Options): Promise<unknown> {
       const { computeEphemeris } = await import("../app/engine");
       return computeEphemeris(parsed.value);
     }
+    case "rank": {
+      const { runRank } = await import("./cli/rank");
+      const { CliRequestError } = await import("./cli/errors");
+      try {
+        return await runRank(await readRequest(opts.input));
+      } catch (e) {
+        throw e instanceof CliRequestError ? new UsageError(e.message) : e;
+      }
+    }
     default:
-      throw new UsageError(`unknown command "${opts.command}" (expected coverage, ephemeris or triangles)`);
+      throw new UsageError(`unknown command "${opts.command}" (expected coverage, ephemeris, triangles or rank)`);
   }
 }
 

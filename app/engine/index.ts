@@ -126,3 +126,13 @@ export {
   wrapPi,
   wrapTwoPi,
 } from "./math";
+
+// ---------------------------------------------------------------- committee
+// Review normalization and ranking, dark time and LST pressure, suggested allocation, reviewer
+// assignment. (This comment stands apart so that import sorting keeps the section at the end.)
+
+export { MAX_RANK_ID_LENGTH, MAX_RANK_REVIEWS, parseRankRequest, RankRequestSchema } from "./api/rank";
+export type { RankInput, ReviewScore, ScoreScale } from "./committee/inputs";
+export type { RankedProposal, RankResult, ReviewerCalibration } from "./committee/rank";
+export { RANK_DECIMALS, rankReviews, reviewZScores } from "./committee/rank";
+export { meanAndPopulationSd } from "./committee/stats";
