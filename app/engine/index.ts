@@ -132,7 +132,26 @@ export {
 // assignment. (This comment stands apart so that import sorting keeps the section at the end.)
 
 export { MAX_RANK_ID_LENGTH, MAX_RANK_REVIEWS, parseRankRequest, RankRequestSchema } from "./api/rank";
-export type { RankInput, ReviewScore, ScoreScale } from "./committee/inputs";
+export type { DarkNight, DarkTime } from "./committee/dark-time";
+export {
+  addDarkIntervalToLst,
+  DEFAULT_LST_BINS,
+  darkTimeOverPeriod,
+  MAX_PERIOD_NIGHTS,
+  SIDEREAL_PER_SOLAR,
+} from "./committee/dark-time";
+export type {
+  DarkTimeOptions,
+  LstPressureInput,
+  PressureConfiguration,
+  PressureRequest,
+  RankInput,
+  ReviewScore,
+  ScoreScale,
+} from "./committee/inputs";
+export type { ConfigurationPressure, LstPressure, RequestPressure } from "./committee/lst-pressure";
+export { EDGE_SUBSAMPLES, LST_CELL_MIN, lstPressure } from "./committee/lst-pressure";
 export type { RankedProposal, RankResult, ReviewerCalibration } from "./committee/rank";
 export { RANK_DECIMALS, rankReviews, reviewZScores } from "./committee/rank";
 export { meanAndPopulationSd } from "./committee/stats";
+export { observabilityMasks } from "./interferometry/observability";
