@@ -132,6 +132,14 @@ export {
 // assignment. (This comment stands apart so that import sorting keeps the section at the end.)
 
 export { MAX_RANK_ID_LENGTH, MAX_RANK_REVIEWS, parseRankRequest, RankRequestSchema } from "./api/rank";
+export type {
+  AllocationResult,
+  AllocationSuggestion,
+  ConfigurationAllocation,
+  ProposalAllocation,
+  TargetGrant,
+} from "./committee/allocation";
+export { DEFAULT_MIN_GRANT_FRACTION, suggestAllocation } from "./committee/allocation";
 export type { DarkNight, DarkTime } from "./committee/dark-time";
 export {
   addDarkIntervalToLst,
@@ -141,6 +149,9 @@ export {
   SIDEREAL_PER_SOLAR,
 } from "./committee/dark-time";
 export type {
+  AllocationCapacity,
+  AllocationInput,
+  AllocationRequest,
   DarkTimeOptions,
   LstPressureInput,
   PressureConfiguration,
