@@ -140,6 +140,10 @@ export type {
   TargetGrant,
 } from "./committee/allocation";
 export { DEFAULT_MIN_GRANT_FRACTION, suggestAllocation } from "./committee/allocation";
+export type { AssignmentResult, AssignmentShortfall, ReviewerAssignment, ReviewerLoad } from "./committee/assignment";
+export { autoAssign, DEFAULT_REVIEWERS_PER_PROPOSAL } from "./committee/assignment";
+export type { Conflict, ConflictKind } from "./committee/conflicts";
+export { findConflicts } from "./committee/conflicts";
 export type { DarkNight, DarkTime } from "./committee/dark-time";
 export {
   addDarkIntervalToLst,
@@ -152,7 +156,12 @@ export type {
   AllocationCapacity,
   AllocationInput,
   AllocationRequest,
+  AssignmentInput,
+  AssignmentProposal,
+  AssignmentReviewer,
   DarkTimeOptions,
+  DeclaredConflict,
+  KeptAssignment,
   LstPressureInput,
   PressureConfiguration,
   PressureRequest,
@@ -162,6 +171,7 @@ export type {
 } from "./committee/inputs";
 export type { ConfigurationPressure, LstPressure, RequestPressure } from "./committee/lst-pressure";
 export { EDGE_SUBSAMPLES, LST_CELL_MIN, lstPressure } from "./committee/lst-pressure";
+export { ConvexFlowNetwork } from "./committee/min-cost-flow";
 export type { RankedProposal, RankResult, ReviewerCalibration } from "./committee/rank";
 export { RANK_DECIMALS, rankReviews, reviewZScores } from "./committee/rank";
 export { meanAndPopulationSd } from "./committee/stats";
