@@ -116,7 +116,8 @@ const caseArb = fc.record({
   ),
   f: fc.constantFrom(0.25, 0.5, 1),
 });
-const build = (c: fc.infer<typeof caseArb>): AllocationInput => ({
+type Case = typeof caseArb extends fc.Arbitrary<infer T> ? T : never;
+const build = (c: Case): AllocationInput => ({
   order: ["P0", "P1", "P2", "P3", "P4", "P5", "P6", "P7"],
   capacity: [
     { configuration: "A", hoursPerBin: c.capacity.A },
