@@ -9,13 +9,12 @@
  *     period's dark time.
  *  2. Observability of each request (target × configuration): the target's J2000 position precessed
  *     to local midnight of the period's middle night (the ≲ 30″ drift over a cycle is far below a cell);
- *     at LST the hour angle H = LST_c − α gives the elevation and the projected
- *     baselines, and the engine's observability rules (elevation limit; every baseline within the
- *     delay-line stroke) give the observable fraction m_c of the cell (rules evaluated at the cell
- *     edges; a cell holding an edge of the window is sub-sampled at 16 points, so an edge is placed
- *     to ~1/32 of a cell, ~10 s). Because H depends on LST only, the mask is the same on
- *     every night, and the observable time per cell over the period is m_c·D_c (darkness comes from
- *     step 1). Bins sum their cells.
+ *     at each LST the hour angle H = LST − α gives the elevation and the projected baselines, and the engine's observability rules (elevation limit; every baseline within the
+ *     delay-line stroke) say when it is observable (rules evaluated at the cell edges; a cell
+ *     holding an edge of the window is evaluated on 16 slices, each with its own darkness, so an edge
+ *     is placed to ~1/32 of a cell, ~10 s). Because H depends on LST only, the mask is the same on
+ *     every night, and the observable time per cell over the period is the darkness of the cell
+ *     (or of its observable slices) from step 1. Bins sum their cells.
  *  3. Spread: the requested hours h are spread over the bins in proportion to the observable hours,
  *     s_b = h·O_b / Σ O, so Σ_b s_b = h. A target with Σ O = 0 has all its hours unplaceable (with the
  *     reason) and a zero spread; it is never dropped silently.
@@ -87,6 +86,7 @@ export interface LstPressure {
 
 interface PreparedConfiguration {
   config: PressureConfiguration;
+  stationNames: string[];
   baselines: ReturnType<typeof buildBaselines>;
 }
 
@@ -124,12 +124,16 @@ export function lstPressure(dark: DarkTime, input: LstPressureInput): LstPressur
   const lonEastRad = dark.site.longitudeDeg * DEG_TO_RAD;
 
   // 1. Darkness per fine cell over the period.
-  const darkPerCell = new Float64Array(nCells);
+  // Darkness per slice of a cell (EDGE_SUBSAMPLES slices each), for cells that hold a window edge.
+  const darkPerSlice = new Float64Array(nCells * EDGE_SUBSAMPLES);
   for (const n of dark.nights) {
-    if (n.lstAtDarkStartH !== null) addDarkIntervalToLst(n.lstAtDarkStartH, n.darkHours, darkPerCell, n.weight);
+    if (n.lstAtDarkStartH !== null) addDarkIntervalToLst(n.lstAtDarkStartH, n.darkHours, darkPerSlice, n.weight);
   }
+  const darkPerCell = new Float64Array(nCells);
+  for (let i = 0; i < darkPerSlice.length; i++) darkPerCell[Math.floor(i / EDGE_SUBSAMPLES)] += darkPerSlice[i];
   let periodDarkH = 0;
   for (let c = 0; c < nCells; c++) periodDarkH += darkPerCell[c];
+  const darkness = { perCell: darkPerCell, perSlice: darkPerSlice };
 
   // Positions of date: local mean midnight of the period's middle night.
   const positionsOfDate = addDays(dark.firstNight, Math.floor((dark.periodNights - 1) / 2));
@@ -141,6 +145,7 @@ export function lstPressure(dark: DarkTime, input: LstPressureInput): LstPressur
     const xyz = stationsToEquatorial(config.stations, latRad);
     prepared.set(config.id, {
       config,
+      stationNames: config.stations.map((st) => st.name),
       baselines: buildBaselines(
         xyz,
         config.stations.map((s) => s.pathOffsetM),
@@ -164,12 +169,16 @@ export function lstPressure(dark: DarkTime, input: LstPressureInput): LstPressur
     if (!prep) return unplaceable(out, `configuration "${req.configuration}" is not offered in this cycle`);
     const minElevationDeg = req.minElevationDeg ?? prep.config.minElevationDeg;
     const pos = precessFromJ2000(req.raDeg * DEG_TO_RAD, req.decDeg * DEG_TO_RAD, jde);
-    const f = cellFractions(prep, pos.raRad * RAD_TO_HOUR, pos.decRad, latRad, minElevationDeg * DEG_TO_RAD, nCells);
-    let skyH = 0;
-    for (let c = 0; c < nCells; c++) {
-      skyH += f.sky[c] * darkPerCell[c];
-      out.observableHoursPerBin[Math.floor(c / sub)] += f.observable[c] * darkPerCell[c];
-    }
+    const f = observableDarkHours(
+      prep,
+      pos.raRad * RAD_TO_HOUR,
+      pos.decRad,
+      latRad,
+      minElevationDeg * DEG_TO_RAD,
+      darkness,
+    );
+    const skyH = f.skyH;
+    for (let c = 0; c < nCells; c++) out.observableHoursPerBin[Math.floor(c / sub)] += f.observablePerCell[c];
     for (let b = 0; b < nBins; b++) out.observableHours += out.observableHoursPerBin[b];
     if (!(out.observableHours > 0)) {
       const why =
@@ -221,68 +230,93 @@ export function lstPressure(dark: DarkTime, input: LstPressureInput): LstPressur
   };
 }
 
-/** Observable and sky-ok masks of a target on a configuration at hour angles haRad (radians). */
+/**
+ * Observable and sky-ok masks of a target on a configuration at hour angles haRad (radians). The
+ * elevation is computed everywhere; the projected baselines only where the target is above its limit
+ * (elsewhere the sample fails on elevation whatever the delay lines), then the engine's rules decide.
+ */
 function masksAt(prep: PreparedConfiguration, haRad: Float64Array, decRad: number, latRad: number, minElRad: number) {
-  const el = new Float64Array(haRad.length);
-  for (let i = 0; i < haRad.length; i++) el[i] = elevationRad(latRad, decRad, haRad[i]);
-  return observabilityMasks({
-    elevationRad: el,
+  const n = haRad.length;
+  const observable = new Uint8Array(n);
+  const skyOk = new Uint8Array(n);
+  const upIndex = new Int32Array(n);
+  const upHa = new Float64Array(n);
+  const upEl = new Float64Array(n);
+  let nUp = 0;
+  for (let i = 0; i < n; i++) {
+    const el = elevationRad(latRad, decRad, haRad[i]);
+    if (el >= minElRad) {
+      upIndex[nUp] = i;
+      upHa[nUp] = haRad[i];
+      upEl[nUp] = el;
+      nUp++;
+    }
+  }
+  if (nUp === 0) return { observable, skyOk };
+  const ha = upHa.subarray(0, nUp);
+  const m = observabilityMasks({
+    elevationRad: upEl.subarray(0, nUp),
     minElevationRad: minElRad,
     sunAltitudeRad: null,
-    tracks: computeUvwTracks(prep.baselines, haRad, decRad),
+    tracks: computeUvwTracks(prep.baselines, ha, decRad),
     baselines: prep.baselines,
-    stationNames: prep.config.stations.map((st) => st.name),
+    stationNames: prep.stationNames,
     delayLineStrokeM: prep.config.delayLineStrokeM,
   });
+  for (let k = 0; k < nUp; k++) {
+    observable[upIndex[k]] = m.observable[k];
+    skyOk[upIndex[k]] = m.skyOk[k];
+  }
+  return { observable, skyOk };
 }
 
 /**
- * Fraction of each fine LST cell in which the target is observable (and above its elevation limit),
- * 0..1. The rules are evaluated at the cell edges; a cell whose two edges agree takes their value, a
- * cell whose edges differ (a rising, setting or delay-line edge inside it) is sub-sampled at
- * {@link EDGE_SUBSAMPLES} points. A window shorter than one cell with both edges outside it is missed.
+ * Dark hours over the period in which the target is observable, per fine LST cell, and in which it is
+ * above its elevation limit (total). The rules are evaluated at the cell edges; a cell whose two edges
+ * agree takes their value for its whole darkness; a cell whose edges differ (a rising, setting or
+ * delay-line edge inside it) is evaluated at the centre of each of its {@link EDGE_SUBSAMPLES} slices,
+ * each slice weighted by its own darkness. A window shorter than one cell with both edges outside it is
+ * missed.
  */
-function cellFractions(
+function observableDarkHours(
   prep: PreparedConfiguration,
   raH: number,
   decRad: number,
   latRad: number,
   minElRad: number,
-  nCells: number,
-): { observable: Float64Array; sky: Float64Array } {
+  darkness: { perCell: Float64Array; perSlice: Float64Array },
+): { observablePerCell: Float64Array; skyH: number } {
+  const nCells = darkness.perCell.length;
+  const k = EDGE_SUBSAMPLES;
   const cellH = 24 / nCells;
   const edgeHa = new Float64Array(nCells);
   for (let c = 0; c < nCells; c++) edgeHa[c] = (c * cellH - raH) * HOUR_TO_RAD;
   const edges = masksAt(prep, edgeHa, decRad, latRad, minElRad);
-  const observable = new Float64Array(nCells);
-  const sky = new Float64Array(nCells);
+  const observablePerCell = new Float64Array(nCells);
+  let skyH = 0;
   const mixed: number[] = [];
   for (let c = 0; c < nCells; c++) {
     const next = (c + 1) % nCells;
     if (edges.observable[c] === edges.observable[next] && edges.skyOk[c] === edges.skyOk[next]) {
-      observable[c] = edges.observable[c];
-      sky[c] = edges.skyOk[c];
-    } else mixed.push(c);
+      if (edges.observable[c]) observablePerCell[c] = darkness.perCell[c];
+      if (edges.skyOk[c]) skyH += darkness.perCell[c];
+    } else if (darkness.perCell[c] > 0) mixed.push(c);
   }
   if (mixed.length > 0) {
-    const k = EDGE_SUBSAMPLES;
     const ha = new Float64Array(mixed.length * k);
     mixed.forEach((c, i) => {
       for (let j = 0; j < k; j++) ha[i * k + j] = ((c + (j + 0.5) / k) * cellH - raH) * HOUR_TO_RAD;
     });
-    const subMasks = masksAt(prep, ha, decRad, latRad, minElRad);
+    const slices = masksAt(prep, ha, decRad, latRad, minElRad);
     mixed.forEach((c, i) => {
-      let o = 0;
-      let s = 0;
       for (let j = 0; j < k; j++) {
-        o += subMasks.observable[i * k + j];
-        s += subMasks.skyOk[i * k + j];
+        const d = darkness.perSlice[c * k + j];
+        if (slices.observable[i * k + j]) observablePerCell[c] += d;
+        if (slices.skyOk[i * k + j]) skyH += d;
       }
-      observable[c] = o / k;
-      sky[c] = s / k;
     });
   }
-  return { observable, sky };
+  return { observablePerCell, skyH };
 }
 
 function unplaceable(out: RequestPressure, reason: string): RequestPressure {
