@@ -169,8 +169,9 @@ export type {
   ReviewScore,
   ScoreScale,
 } from "./committee/inputs";
+export { EDGE_SUBSAMPLES } from "./committee/lst-observability";
 export type { ConfigurationPressure, LstPressure, RequestPressure } from "./committee/lst-pressure";
-export { EDGE_SUBSAMPLES, LST_CELL_MIN, lstPressure } from "./committee/lst-pressure";
+export { LST_CELL_MIN, lstPressure } from "./committee/lst-pressure";
 export { ConvexFlowNetwork } from "./committee/min-cost-flow";
 export type { RankedProposal, RankResult, ReviewerCalibration } from "./committee/rank";
 export { RANK_DECIMALS, rankReviews, reviewZScores } from "./committee/rank";
