@@ -16,11 +16,11 @@
  * by at least 2M, more than any difference of the category term (≤ T²), so goal 3 always wins over 4.
  * A minimum-cost maximum flow fills goal 2 first.
  *
- * Why Σℓ² balances: the load vectors reachable by maximum flows are the integer bases of a polymatroid
- * (an M-convex set, shifted by the kept loads), and on such a set a minimizer of Σℓ² also minimizes
- * the largest load and maximizes the smallest one (Frank & Murota, "Discrete decreasing minimization",
- * Math. Oper. Res. 2022, from memory). Hence max − min ≤ 1 whenever any assignment filling goal 2
- * allows it; the tests check this against brute force on small committees.
+ * Why Σℓ² balances: the load vectors reachable by maximum flows are the integer points of the base of a
+ * polymatroid (shifted by the kept loads), and on such a set a point of least Σℓ² also has the least
+ * largest load and the greatest smallest load (lexicographically optimal bases: Fujishige, Math. Oper.
+ * Res. 5 (1980) 186–196, from memory). Hence max − min ≤ 1 whenever any assignment filling goal 2
+ * allows it; the tests check this against a brute force on small committees.
  *
  * Deterministic: proposals and reviewers are processed in id order, so the result does not depend on
  * the order of the input lists.

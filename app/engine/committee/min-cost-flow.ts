@@ -1,8 +1,9 @@
 /**
  * Minimum-cost flow with convex arc costs, by successive shortest paths (one unit per augmentation,
  * shortest paths by the queue-based Bellman–Ford method, which accepts the negative costs of residual
- * reverse arcs). Textbook method: Ahuja, Magnanti & Orlin, *Network Flows* (1993), §9.7 (successive
- * shortest paths) and §14.2 (convex costs as unit increments).
+ * reverse arcs). Textbook method: Ahuja, Magnanti & Orlin, *Network Flows* (1993), the chapters on
+ * minimum-cost flows (successive shortest paths) and on convex-cost flows (convex costs as unit
+ * increments) — chapter references from memory.
  *
  * Arc costs are convex and piecewise linear in the flow: the (j+1)-th unit on an arc costs
  * base + slope·j (slope ≥ 0). The residual forward arc costs the next unit's marginal cost and the
