@@ -153,3 +153,54 @@ export { angularSeparationRad } from "./planning/separation";
 export type { UnplacedCode, UnplacedTarget } from "./planning/unplaced";
 export type { PlanRule, PlanValidation, PlanViolation, ValidateOptions } from "./planning/validate";
 export { validatePlan } from "./planning/validate";
+
+// ---------------------------------------------------------------- committee
+// Review normalization and ranking, dark time and LST pressure, suggested allocation, reviewer
+// assignment. (This comment stands apart so that import sorting keeps the section at the end.)
+
+export { MAX_RANK_ID_LENGTH, MAX_RANK_REVIEWS, parseRankRequest, RankRequestSchema } from "./api/rank";
+export type {
+  AllocationResult,
+  AllocationSuggestion,
+  ConfigurationAllocation,
+  ProposalAllocation,
+  TargetGrant,
+} from "./committee/allocation";
+export { DEFAULT_MIN_GRANT_FRACTION, suggestAllocation } from "./committee/allocation";
+export type { AssignmentResult, AssignmentShortfall, ReviewerAssignment, ReviewerLoad } from "./committee/assignment";
+export { autoAssign, DEFAULT_REVIEWERS_PER_PROPOSAL } from "./committee/assignment";
+export type { Conflict, ConflictKind } from "./committee/conflicts";
+export { findConflicts } from "./committee/conflicts";
+export type { DarkNight, DarkTime } from "./committee/dark-time";
+export {
+  addDarkIntervalToLst,
+  DEFAULT_LST_BINS,
+  darkTimeOverPeriod,
+  MAX_PERIOD_NIGHTS,
+  SIDEREAL_PER_SOLAR,
+} from "./committee/dark-time";
+export type {
+  AllocationCapacity,
+  AllocationInput,
+  AllocationRequest,
+  AssignmentInput,
+  AssignmentProposal,
+  AssignmentReviewer,
+  DarkTimeOptions,
+  DeclaredConflict,
+  KeptAssignment,
+  LstPressureInput,
+  PressureConfiguration,
+  PressureRequest,
+  RankInput,
+  ReviewScore,
+  ScoreScale,
+} from "./committee/inputs";
+export { EDGE_SUBSAMPLES } from "./committee/lst-observability";
+export type { ConfigurationPressure, LstPressure, RequestPressure } from "./committee/lst-pressure";
+export { LST_CELL_MIN, lstPressure } from "./committee/lst-pressure";
+export { ConvexFlowNetwork } from "./committee/min-cost-flow";
+export type { RankedProposal, RankResult, ReviewerCalibration } from "./committee/rank";
+export { RANK_DECIMALS, rankReviews, reviewZScores } from "./committee/rank";
+export { meanAndPopulationSd } from "./committee/stats";
+export { observabilityMasks } from "./interferometry/observability";

@@ -103,3 +103,29 @@ export function assessObservability(input: ObservabilityInput): Observability {
   }
   return { observable, skyOk, baselineInRange, reasons };
 }
+
+/**
+ * The observable and sky-ok masks of {@link assessObservability}, by the same three rules, without the
+ * per-sample reasons and the per-baseline table: for callers that assess many targets and need only
+ * which samples pass (the committee's LST pressure). Returns 1/0 per sample, in sample order.
+ */
+export function observabilityMasks(input: ObservabilityInput): { observable: Uint8Array; skyOk: Uint8Array } {
+  const { elevationRad, minElevationRad, sunAltitudeRad, tracks, baselines, delayLineStrokeM } = input;
+  const nS = tracks.nSamples;
+  const nB = tracks.nBaselines;
+  const observable = new Uint8Array(nS);
+  const skyOk = new Uint8Array(nS);
+  const sunLimitRad = SUN_DARK_LIMIT_DEG / RAD_TO_DEG;
+  for (let s = 0; s < nS; s++) {
+    const sky = elevationRad[s] >= minElevationRad && (!sunAltitudeRad || sunAltitudeRad[s] < sunLimitRad);
+    skyOk[s] = sky ? 1 : 0;
+    let inRange = true;
+    if (delayLineStrokeM !== null) {
+      for (let b = 0; b < nB && inRange; b++) {
+        if (Math.abs(tracks.wM[b * nS + s] + baselines.pathOffsetDiffM[b]) > delayLineStrokeM) inRange = false;
+      }
+    }
+    observable[s] = sky && inRange ? 1 : 0;
+  }
+  return { observable, skyOk };
+}
