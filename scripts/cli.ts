@@ -1,7 +1,7 @@
 /**
  * Fringe Docket command line: `npm run -s cli -- <command> [--input FILE] [--pretty]`.
  *
- * Commands: coverage, ephemeris, triangles. The request is a JSON object read
+ * Commands: coverage, ephemeris, triangles, resolve, calibrators. The request is a JSON object read
  * from FILE, or from standard input when --input is absent. On success exactly
  * one JSON object is written to standard output (exit 0). On a bad request —
  * unknown command or option, missing or unreadable file, invalid JSON, a
@@ -13,8 +13,9 @@
  * subpaths), to keep start-up short.
  */
 import { readFile } from "node:fs/promises";
+import { CliRequestError } from "./cli/errors";
 
-const USAGE = `usage: npm run -s cli -- <coverage|ephemeris|triangles> [--input FILE] [--pretty]
+const USAGE = `usage: npm run -s cli -- <coverage|ephemeris|triangles|resolve|calibrators> [--input FILE] [--pretty]
   Reads a JSON request from FILE (or standard input) and prints one JSON object.
   See docs/cli.md for the request and response fields.`;
 
@@ -100,8 +101,20 @@ async function run(opts: Options): Promise<unknown> {
       const { computeEphemeris } = await import("../app/engine");
       return computeEphemeris(parsed.value);
     }
+    case "resolve":
+    case "calibrators": {
+      const request = await readRequest(opts.input);
+      try {
+        if (opts.command === "resolve") return await (await import("./cli/resolve")).runResolve(request);
+        return await (await import("./cli/calibrators")).runCalibrators(request);
+      } catch (e) {
+        throw e instanceof CliRequestError ? new UsageError(e.message) : e;
+      }
+    }
     default:
-      throw new UsageError(`unknown command "${opts.command}" (expected coverage, ephemeris or triangles)`);
+      throw new UsageError(
+        `unknown command "${opts.command}" (expected coverage, ephemeris, triangles, resolve or calibrators)`,
+      );
   }
 }
 
