@@ -124,7 +124,7 @@ export function lookupStar(catalogue: StarCatalogue, query: string): LookupResul
 }
 
 /**
- * Names to offer while a name is being typed: the exact match first, then names and designations that
+ * Names to offer while a name is being typed: the exact match first (not a typo correction), then names and designations that
  * begin with the text (brightest first), then trigram neighbours; distinct stars, at most `limit`.
  */
 export function suggestStars(
@@ -139,7 +139,7 @@ export function suggestStars(
   const q = fuzzyForm(text);
   if (q === "") return [];
   const hit = lookupStar(catalogue, text);
-  if (hit.found) add(hit.row);
+  if (hit.found && hit.matchedBy !== "typo") add(hit.row);
   const texts = catalogue.index.fuzzy.texts;
   const prefixed: number[] = [];
   for (let id = 0; id < texts.length; id++) if (texts[id].startsWith(q)) prefixed.push(catalogue.index.fuzzyRow[id]);
