@@ -36,8 +36,30 @@ export const NIGHT_STEP_MIN = 10;
 
 /** Great-circle distance between unit vectors, radians (chord formula, accurate at small angles). */
 function separationRad(ax: number, ay: number, az: number, bx: number, by: number, bz: number): number {
-  const chord = Math.hypot(ax - bx, ay - by, az - bz);
-  return 2 * Math.asin(Math.min(1, chord / 2));
+  const dx = ax - bx;
+  const dy = ay - by;
+  const dz = az - bz;
+  return 2 * Math.asin(Math.min(1, Math.sqrt(dx * dx + dy * dy + dz * dz) / 2));
+}
+
+/**
+ * The precession from J2000.0 to an instant as a rotation matrix (row-major 3×3): the images of the
+ * three basis vectors under the engine's precession, which is a rotation (Meeus eq. 21.4).
+ */
+function precessionMatrix(jde: number): Float64Array {
+  const m = new Float64Array(9);
+  const basis: [number, number][] = [
+    [0, 0],
+    [Math.PI / 2, 0],
+    [0, Math.PI / 2],
+  ];
+  basis.forEach(([ra, dec], col) => {
+    const p = precessFromJ2000(ra, dec, jde);
+    m[col] = Math.cos(p.decRad) * Math.cos(p.raRad);
+    m[3 + col] = Math.cos(p.decRad) * Math.sin(p.raRad);
+    m[6 + col] = Math.sin(p.decRad);
+  });
+  return m;
 }
 
 /** Uniform-disk V² of a diameter (mas) on a baseline (m) at a wavelength (m), by the engine's model code. */
@@ -76,8 +98,13 @@ export function shortlistCalibrators(catalogue: StarCatalogue, input: Calibrator
   const candidates: { row: number; distanceRad: number }[] = [];
   let excludedTarget = 0;
   let nearest = { row: -1, rad: Number.POSITIVE_INFINITY };
+  const cosMax = Math.cos(maxRad) - 1e-12;
   for (let row = 0; row < catalogue.size; row++) {
-    const d = separationRad(catalogue.unitX[row], catalogue.unitY[row], catalogue.unitZ[row], tx, ty, tz);
+    const ux = catalogue.unitX[row];
+    const uy = catalogue.unitY[row];
+    const uz = catalogue.unitZ[row];
+    if (ux * tx + uy * ty + uz * tz < cosMax) continue;
+    const d = separationRad(ux, uy, uz, tx, ty, tz);
     if (d > maxRad) continue;
     if (d < nearest.rad) nearest = { row, rad: d };
     if (row === targetRow || d <= matchRad) excludedTarget++;
@@ -120,7 +147,7 @@ export function shortlistCalibrators(catalogue: StarCatalogue, input: Calibrator
     warnings.push(`the target is never above ${input.minElevationDeg}° during the astronomical night of ${input.date}`);
   }
   const lmst = Float64Array.from(jd, (t) => lmstRad(t, lonRad));
-  const jdeMidnight = samples.night ? jdeFromJd(samples.night.localMidnightJd) : 0;
+  const precession = precessionMatrix(samples.night ? jdeFromJd(samples.night.localMidnightJd) : 2451545);
 
   // ---- the candidates
   const excluded = {
@@ -159,9 +186,15 @@ export function shortlistCalibrators(catalogue: StarCatalogue, input: Calibrator
     }
     let together = 0;
     if (targetSamples > 0) {
-      const ofDate = precessFromJ2000(catalogue.raRad[row], catalogue.decRad[row], jdeMidnight);
+      const m = precession;
+      const [ux, uy, uz] = [catalogue.unitX[row], catalogue.unitY[row], catalogue.unitZ[row]];
+      const x = m[0] * ux + m[1] * uy + m[2] * uz;
+      const y = m[3] * ux + m[4] * uy + m[5] * uz;
+      const z = m[6] * ux + m[7] * uy + m[8] * uz;
+      const raOfDate = Math.atan2(y, x);
+      const decOfDate = Math.asin(Math.max(-1, Math.min(1, z)));
       for (let s = 0; s < nS; s++) {
-        if (targetUp[s] && elevationRad(latRad, ofDate.decRad, lmst[s] - ofDate.raRad) >= minElRad) together++;
+        if (targetUp[s] && elevationRad(latRad, decOfDate, lmst[s] - raOfDate) >= minElRad) together++;
       }
     }
     if (together === 0) {
