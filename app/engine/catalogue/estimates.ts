@@ -19,9 +19,9 @@
  * Uncertainties (1σ) combine the B−V error propagated through the table's slope and an allowance for
  * what V and B−V cannot tell (luminosity class, metallicity, reddening). The data carry no photometric
  * errors, so B−V is taken as good to ±0.02 mag; the allowance is 5 % in diameter and 0.05 mag in band
- * magnitude. These three numbers are project choices, not published values. Applied to giants the dwarf
- * sequence overestimates diameters (redder giants are hotter than dwarfs of the same B−V), which errs
- * on the safe side for calibrator selection.
+ * magnitude. These three numbers are project choices, not published values. Applied to red giants
+ * (B−V beyond about 1.2) the dwarf sequence overestimates diameters (from memory: a K giant is hotter
+ * than the M dwarf of its B−V), which errs on the safe side for calibrator selection.
  */
 import { RAD_TO_MAS } from "../math";
 import { DWARF_COLOURS, interpolateColumn } from "./colour-table";

@@ -119,6 +119,11 @@ describe("text matching helpers", () => {
   it("extracts trigrams as PostgreSQL's pg_trgm does", () => {
     // pg_trgm documentation, F.35: show_trgm('cat') → {"  c"," ca","at ","cat"}.
     expect(trigramsOf("cat").sort()).toEqual(["  c", " ca", "at ", "cat"].sort());
+    // Reference values printed by PostgreSQL 15's pg_trgm similarity() (run once on a local cluster).
+    expect(trigramSimilarity("betelgeuse", "betelgeuze")).toBeCloseTo(0.5714286, 6);
+    expect(trigramSimilarity("sirius", "sirus")).toBeCloseTo(0.44444445, 6);
+    expect(trigramSimilarity("alf orionis", "alf orionsi")).toBeCloseTo(0.6, 6);
+    expect(trigramSimilarity("word", "two words")).toBeCloseTo(0.36363637, 6);
     expect(trigramSimilarity("word", "word")).toBe(1);
     expect(trigramSimilarity("abc", "xyz")).toBe(0);
   });
