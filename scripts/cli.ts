@@ -1,7 +1,7 @@
 /**
  * Fringe Docket command line: `npm run -s cli -- <command> [--input FILE] [--pretty]`.
  *
- * Commands: coverage, ephemeris, triangles, plan, rank. The request is a JSON object read
+ * Commands: coverage, ephemeris, triangles, plan, rank, resolve, calibrators. The request is a JSON object read
  * from FILE, or from standard input when --input is absent. On success exactly
  * one JSON object is written to standard output (exit 0). On a bad request —
  * unknown command or option, missing or unreadable file, invalid JSON, a
@@ -16,7 +16,7 @@ import { readFile } from "node:fs/promises";
 import type { ParseResult } from "~/engine";
 
 /** Every command, in the order the usage lists them. */
-const COMMANDS = ["coverage", "ephemeris", "triangles", "plan", "rank"] as const;
+const COMMANDS = ["coverage", "ephemeris", "triangles", "plan", "rank", "resolve", "calibrators"] as const;
 const commandList = `${COMMANDS.slice(0, -1).join(", ")} or ${COMMANDS[COMMANDS.length - 1]}`;
 
 const USAGE = `usage: npm run -s cli -- <${COMMANDS.join("|")}> [--input FILE] [--pretty]
@@ -91,14 +91,27 @@ function command<T, R>(parse: (json: unknown) => ParseResult<T>, compute: (value
   };
 }
 
+/** A computation's own refusal (`{ok: false, message, field?}`) as a usage error naming the field. */
+function settled<T>(
+  result: { ok: true; value: T } | { ok: false; message: string; field?: string },
+  field?: string,
+): T {
+  if (result.ok) return result.value;
+  const name = result.field ?? field;
+  throw new UsageError(name ? `${name}: ${result.message}` : result.message);
+}
+
 async function run(opts: Options): Promise<unknown> {
   const engine = await import("~/engine");
+  const { loadCatalogue: catalogue } = await import("~/services/catalogue/data.server");
   const commands: Record<(typeof COMMANDS)[number], (json: unknown) => unknown> = {
     coverage: command(engine.parseCoverageRequest, engine.computeCoverage),
     triangles: command(engine.parseTrianglesRequest, engine.rankTriangles),
     ephemeris: command(engine.parseEphemerisRequest, engine.computeEphemeris),
     plan: command(engine.parsePlanRequest, engine.computePlan),
     rank: command(engine.parseRankRequest, engine.rankReviews),
+    resolve: command(engine.parseResolveRequest, (v) => settled(engine.resolveStar(catalogue(), v.name), "name")),
+    calibrators: command(engine.parseCalibratorsRequest, (v) => settled(engine.shortlistCalibrators(catalogue(), v))),
   };
   if (!(COMMANDS as readonly string[]).includes(opts.command)) {
     throw new UsageError(`unknown command "${opts.command}" (expected ${commandList})`);

@@ -6,6 +6,14 @@
  * Radians inside; degrees, milliarcseconds and hours only in the request and response objects.
  */
 
+// Star catalogue: name lookup, estimates from V and B−V, calibrator shortlist (cli resolve, cli calibrators)
+export {
+  DEFAULT_CALIBRATOR_LIMIT,
+  DEFAULT_MAX_DISTANCE_DEG,
+  DEFAULT_MIN_VIS2,
+  MAX_CALIBRATOR_LIMIT,
+  parseCalibratorsRequest,
+} from "./api/calibrators";
 // Wire schemas: JSON validated into the inputs, one-line errors naming the field
 export type { CoverageRequest, EphemerisRequest, ParseResult, TrianglesRequest } from "./api/requests";
 export {
@@ -20,7 +28,7 @@ export {
   parseTrianglesRequest,
   TargetModelSchema,
 } from "./api/requests";
-
+export { MAX_NAME_LENGTH, parseResolveRequest } from "./api/resolve";
 // Time and sky
 export { airmassKastenYoung, airmassSecZ } from "./astro/airmass";
 export type { EphemerisResponse, TwilightTimesUtc } from "./astro/ephemeris";
@@ -46,7 +54,47 @@ export {
 } from "./astro/time";
 export type { NightEvents } from "./astro/twilight";
 export { nightEvents } from "./astro/twilight";
-
+export type { StarCatalogue, StarNames } from "./catalogue/build";
+export { buildCatalogue, designationsOf, displayName, VARIABILITY } from "./catalogue/build";
+export type { CalibratorsResult } from "./catalogue/calibrators";
+export {
+  NIGHT_STEP_MIN,
+  shortlistCalibrators,
+  TARGET_MATCH_ARCSEC,
+  uniformDiskVis2,
+} from "./catalogue/calibrators";
+export type { ColourTable } from "./catalogue/colour-table";
+export { DWARF_COLOURS, interpolateColumn } from "./catalogue/colour-table";
+export type { Constellation } from "./catalogue/constellations";
+export { CONSTELLATIONS, constellationByAbbr } from "./catalogue/constellations";
+export { foldText, GREEK_LETTERS, parseDesignation } from "./catalogue/designations";
+export type { Band, BandName, Estimate } from "./catalogue/estimates";
+export {
+  ASSUMED_BV_ERROR_MAG,
+  BAND_MAG_ALLOWANCE,
+  BANDS,
+  BOLOMETRIC_ZERO_POINT_W_M2,
+  bandForWavelength,
+  DIAMETER_ALLOWANCE,
+  ESTIMATE_BV_RANGE,
+  estimateBandMagnitude,
+  estimateDiameterMas,
+  STEFAN_BOLTZMANN,
+} from "./catalogue/estimates";
+export type { LookupResult } from "./catalogue/lookup";
+export { lookupStar, nearNames, suggestStars } from "./catalogue/lookup";
+export { describeStar, resolveStar, unknownNameMessage } from "./catalogue/resolve";
+export type { ScoreTerms } from "./catalogue/score";
+export { calibratorScore, DEFAULT_MAG_SCALE, SCORE_WEIGHTS, SCORING_TEXT } from "./catalogue/score";
+export { editDistance, TrigramIndex, trigramSimilarity, trigramsOf } from "./catalogue/trigram";
+export type {
+  CalibratorEntry,
+  CalibratorsInput,
+  CalibratorsResponse,
+  CalibratorTarget,
+  ResolveInput,
+  ResolveResponse,
+} from "./catalogue/types";
 // Inputs of the computations (degrees, mas, hours, metres on this edge)
 export type {
   BeamOptions,
@@ -61,7 +109,6 @@ export type {
   TargetModel,
   TrianglesInput,
 } from "./inputs";
-
 // Interferometry
 export { baselineCount, baselineIndex, buildBaselines } from "./interferometry/baselines";
 export { besselJ0, besselJ1, sphericalJ1OverX } from "./interferometry/bessel";
@@ -107,7 +154,6 @@ export {
   squaredVisibilities,
   visibilityPhases,
 } from "./interferometry/visibilities";
-
 // Constants and angle helpers
 export {
   clampedAcos,
