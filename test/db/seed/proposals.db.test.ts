@@ -11,7 +11,7 @@ import {
 import { seedDemoScenario } from "~/db/seed/factories.server";
 import { DEMO_PROPOSALS } from "~/db/seed/scenario";
 import { checkPdf } from "~/services/proposals/pdf";
-import { sha256Hex } from "~/services/proposals/upload.server";
+import { sha256Hex } from "~/services/proposals/science-case.server";
 import type { ProposalSnapshot } from "~/services/proposals/versions.server";
 
 describe("demo proposals in the seed", () => {
