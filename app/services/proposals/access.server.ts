@@ -138,7 +138,7 @@ export async function loadProposalForViewer(
     .innerJoin(cycles, eq(cycles.id, proposals.cycleId))
     .where(eq(proposals.id, proposalId));
   if (!row) proposalNotFound();
-  const members = await teamMembers(db, proposalId);
+  const members = await teamMembers(db, { proposalId });
   const subject: ProposalAccessSubject = { piId: row.proposal.piId, status: row.proposal.status, members };
   if (!canViewProposal(viewer, subject)) proposalNotFound();
   const mine = membershipOf(viewer, { members });
@@ -150,7 +150,7 @@ export async function loadProposalForViewer(
 }
 
 /** The co-investigators of a proposal in the order they were added, with the name and institute of their account. */
-export function teamMembers(db: DbOrTx, proposalId: number) {
+export function teamMembers(db: DbOrTx, { proposalId }: { proposalId: number }) {
   return db.query.proposalMembers.findMany({
     where: eq(proposalMembers.proposalId, proposalId),
     orderBy: asc(proposalMembers.id),

@@ -96,12 +96,13 @@ export async function saveHours(
  */
 export async function submitProposal(db: Database, ref: NamedRef) {
   const submitted = changeProposal(db, ref, "canSubmit", async ({ tx, proposal, cycle, now }) => {
-    const missing = await missingForSubmission(tx, proposal);
+    const missing = await missingForSubmission(tx, { proposal });
     if (missing.length > 0)
       throw new ProposalRefusal(400, `The proposal is not complete yet. It still needs ${listWords(missing)}.`);
     const frozen = await freezeVersion(tx, { proposal, cycle, submittedById: ref.viewer.user.id, now });
     const { version, report, snapshot, documentSha256 } = frozen;
-    await noticeTeam(tx, proposal, {
+    await noticeTeam(tx, {
+      proposal,
       kind: NOTICE_KIND.submitted,
       subject: proposalSubject("Proposal submitted", proposal.title, cycle.name),
       element: (to) =>
@@ -130,7 +131,8 @@ export async function withdrawProposal(db: Database, ref: NamedRef) {
   const withdrawn = changeProposal(db, ref, "canWithdraw", async ({ tx, proposal, cycle, now }) => {
     await tx.update(proposals).set({ status: "withdrawn", updatedAt: now }).where(eq(proposals.id, proposal.id));
     const reopenable = now.getTime() < cycle.submissionDeadline.getTime();
-    await noticeTeam(tx, proposal, {
+    await noticeTeam(tx, {
+      proposal,
       kind: NOTICE_KIND.withdrawn,
       subject: proposalSubject("Proposal withdrawn", proposal.title, cycle.name),
       element: (to) =>

@@ -15,8 +15,8 @@ export async function loadEditorDetails(
   { proposal, viewerId }: { proposal: typeof proposals.$inferSelect; viewerId: number },
 ) {
   const [hours, targetRows, document, versions, offered, bandRows, myTargets, team, pi] = await Promise.all([
-    requestedHours(db, proposal.id),
-    proposalTargetRows(db, proposal.id),
+    requestedHours(db, { proposalId: proposal.id }),
+    proposalTargetRows(db, { proposalId: proposal.id }),
     db
       .select({ ...documentColumns, uploadedBy: users.name })
       .from(proposalDocuments)
@@ -37,7 +37,7 @@ export async function loadEditorDetails(
       .orderBy(asc(instruments.name), asc(bands.centralWavelengthM)),
     db.select().from(targets).where(eq(targets.ownerId, viewerId)).orderBy(asc(targets.name)),
     // Read again after the viewer's own invitation may have been linked to their account.
-    teamMembers(db, proposal.id),
+    teamMembers(db, { proposalId: proposal.id }),
     db.query.users.findFirst({ where: eq(users.id, proposal.piId), columns: { name: true, email: true } }),
   ]);
   return { hours, targets: targetRows, document, versions, offered, bands: bandRows, myTargets, team, pi: pi ?? null };

@@ -23,11 +23,8 @@ export async function loadFeasibilityInput(
   });
   if (!proposal) throw new Error(`proposal ${proposalId} not found`);
   const { cycle, band } = proposal;
-  const hours = await requestedHours(db, proposalId);
-  const requested = await configurationsWithStations(
-    db,
-    hours.map((h) => h.configuration.id),
-  );
+  const hours = await requestedHours(db, { proposalId });
+  const requested = await configurationsWithStations(db, { configurationIds: hours.map((h) => h.configuration.id) });
 
   // The site: that of the requested configurations, else of the instrument, else the first one.
   const siteId = requested[0]?.siteId ?? band?.instrument.siteId ?? null;
@@ -62,7 +59,7 @@ export async function loadFeasibilityInput(
         pathOffsetM: m.pathOffsetM,
       })),
     })),
-    targets: (await proposalTargetRows(db, proposalId)).map(targetFieldsOf),
+    targets: (await proposalTargetRows(db, { proposalId })).map(targetFieldsOf),
   };
 }
 

@@ -79,7 +79,7 @@ async function lockFor(tx: Transaction, viewer: ProposalViewer, proposalId: numb
   const [proposal] = await tx.select().from(proposals).where(eq(proposals.id, proposalId)).for("update");
   if (!proposal) proposalNotFound();
   const [cycle] = await tx.select().from(cycles).where(eq(cycles.id, proposal.cycleId));
-  const members = await teamMembers(tx, proposalId);
+  const members = await teamMembers(tx, { proposalId });
   const abilities = abilitiesFor(viewer, { piId: proposal.piId, status: proposal.status, members }, cycle, now);
   if (!abilities.canView) proposalNotFound();
   if (!abilities[need]) throw refusalFor(need, abilities, cycle, proposal.status);

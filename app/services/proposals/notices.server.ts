@@ -38,7 +38,7 @@ export type Recipient = { email: string; name: string | null; userId: number | n
 async function teamAddresses(db: DbOrTx, proposal: typeof proposals.$inferSelect): Promise<Recipient[]> {
   const [pi] = await db.select().from(users).where(eq(users.id, proposal.piId));
   const out: Recipient[] = [{ email: pi.email, name: pi.name, userId: pi.id }];
-  for (const m of await teamMembers(db, proposal.id)) {
+  for (const m of await teamMembers(db, { proposalId: proposal.id })) {
     if (!out.some((o) => o.email.toLowerCase() === m.email.toLowerCase()))
       out.push({ email: m.email, name: m.user?.name ?? null, userId: m.userId });
   }
@@ -63,17 +63,18 @@ export async function queueNotice(
 /** Queues a notice to the whole team, one message each, written for each recipient by `element`. */
 export async function noticeTeam(
   db: DbOrTx,
-  proposal: typeof proposals.$inferSelect,
-  notice: { kind: MailKind; subject: string; element: (to: Recipient) => ReactElement },
+  {
+    proposal,
+    ...notice
+  }: {
+    proposal: typeof proposals.$inferSelect;
+    kind: MailKind;
+    subject: string;
+    element: (to: Recipient) => ReactElement;
+  },
 ) {
   for (const to of await teamAddresses(db, proposal)) {
-    await queueNotice(db, {
-      kind: notice.kind,
-      proposalId: proposal.id,
-      subject: notice.subject,
-      to,
-      element: notice.element(to),
-    });
+    await queueNotice(db, { ...notice, proposalId: proposal.id, to, element: notice.element(to) });
   }
 }
 

@@ -54,7 +54,7 @@ export function listOpenCycles(db: Database, { now }: { now: Date }) {
 }
 
 /** A proposal's targets in their order. */
-export function proposalTargetRows(db: DbOrTx, proposalId: number) {
+export function proposalTargetRows(db: DbOrTx, { proposalId }: { proposalId: number }) {
   return db
     .select()
     .from(proposalTargets)
@@ -63,7 +63,7 @@ export function proposalTargetRows(db: DbOrTx, proposalId: number) {
 }
 
 /** The hours a proposal requests, with each configuration's row, by configuration name. */
-export function requestedHours(db: DbOrTx, proposalId: number) {
+export function requestedHours(db: DbOrTx, { proposalId }: { proposalId: number }) {
   return db
     .select({ hours: proposalHours.hours, configuration: configurations })
     .from(proposalHours)
@@ -73,7 +73,7 @@ export function requestedHours(db: DbOrTx, proposalId: number) {
 }
 
 /** Configurations by id, by name, each with its stations in configuration order. */
-export async function configurationsWithStations(db: DbOrTx, configurationIds: number[]) {
+export async function configurationsWithStations(db: DbOrTx, { configurationIds }: { configurationIds: number[] }) {
   if (configurationIds.length === 0) return [];
   const rows = await db.query.configurations.findMany({
     where: inArray(configurations.id, configurationIds),
@@ -86,14 +86,14 @@ export async function configurationsWithStations(db: DbOrTx, configurationIds: n
 /** The configurations a cycle offers, by name, with their stations in order. */
 export async function offeredConfigurations(db: DbOrTx, { cycleId }: { cycleId: number }) {
   const offers = await db.query.cycleConfigurations.findMany({ where: eq(cycleConfigurations.cycleId, cycleId) });
-  return configurationsWithStations(
-    db,
-    offers.map((o) => o.configurationId),
-  );
+  return configurationsWithStations(db, { configurationIds: offers.map((o) => o.configurationId) });
 }
 
 /** What a proposal still lacks before it can be submitted, in plain words (empty: complete). */
-export async function missingForSubmission(db: DbOrTx, proposal: typeof proposals.$inferSelect): Promise<string[]> {
+export async function missingForSubmission(
+  db: DbOrTx,
+  { proposal }: { proposal: typeof proposals.$inferSelect },
+): Promise<string[]> {
   const [n] = await db
     .select({
       targets: countWhere(proposalTargets, proposalTargets.proposalId, proposal.id),

@@ -57,9 +57,9 @@ async function buildSnapshot(tx: Transaction, proposal: ProposalRow, cycle: Cycl
     .select({ id: users.id, name: users.name, email: users.email, institute: users.institute })
     .from(users)
     .where(eq(users.id, proposal.piId));
-  const members = await teamMembers(tx, proposal.id);
-  const hours = await requestedHours(tx, proposal.id);
-  const targetRows = await proposalTargetRows(tx, proposal.id);
+  const members = await teamMembers(tx, { proposalId: proposal.id });
+  const hours = await requestedHours(tx, { proposalId: proposal.id });
+  const targetRows = await proposalTargetRows(tx, { proposalId: proposal.id });
   const instrument = await snapshotInstrument(tx, proposal.bandId);
   const [doc] = await tx.select().from(proposalDocuments).where(eq(proposalDocuments.proposalId, proposal.id));
   const snapshot: ProposalSnapshot = {

@@ -39,7 +39,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   const { proposal, cycle, abilities } = await loadProposalForViewer(db, { viewer, proposalId: id, now });
   const [details, missing] = await Promise.all([
     loadEditorDetails(db, { proposal, viewerId: viewer.user.id }),
-    missingForSubmission(db, proposal),
+    missingForSubmission(db, { proposal }),
   ]);
   const editable = abilities.canEdit;
   const statusLabel = STATUS_WORDS[proposal.status];
@@ -65,7 +65,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
         label: `${b.instrumentName} — ${b.band.name} (${(b.band.centralWavelengthM * 1e6).toFixed(2)} µm, limit ${b.band.limitingMagnitude} mag)`,
       })),
       categories: [...SCIENCE_CATEGORIES],
-      limits: PROPOSAL_LIMITS,
+      limits: { titleMaxChars: PROPOSAL_LIMITS.titleMaxChars, abstractMaxWords: PROPOSAL_LIMITS.abstractMaxWords },
       cycleName: cycle.name,
       editable,
     } satisfies Omit<DetailsCardProps, "result">,
@@ -92,7 +92,12 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
         currentVersion: proposal.currentVersion,
         submittedAt: proposal.submittedAt?.toISOString() ?? null,
       },
-      abilities,
+      abilities: {
+        deadlinePassed: abilities.deadlinePassed,
+        canSubmit: abilities.canSubmit,
+        canWithdraw: abilities.canWithdraw,
+        canReopen: abilities.canReopen,
+      },
       deadline,
       countdown,
       missing,
