@@ -53,7 +53,7 @@ export default [
   ...prefix("proposals", [
     index("routes/proposals/list.tsx"),
     route("new", "routes/proposals/new.tsx"),
-    route(":proposalId", "routes/proposals/editor.tsx"),
+    route(":proposalId", "routes/proposals/editor/route.tsx"),
     route(":proposalId/targets/:targetId", "routes/proposals/target.tsx"),
     route(":proposalId/feasibility", "routes/proposals/feasibility.tsx"),
     route(":proposalId/science-case", "routes/proposals/science-case.ts"),

@@ -64,6 +64,10 @@ const input = (over: Partial<FeasibilityInput>): FeasibilityInput => ({
   ...over,
 });
 
+/** The report of one target with the extended-6 configuration in the H band. */
+const onExtended = (over: Partial<FeasibilityTarget>) =>
+  computeFeasibility(input({ configurations: [stationsOf("extended-6")], targets: [target(over)] }));
+
 const line = (cell: { lines: { check: string; verdict: string; reason: string }[] }, check: string) =>
   cell.lines.find((l) => l.check === check)!;
 
@@ -108,12 +112,7 @@ describe("feasibility report against published checks", () => {
   it("a 10 mas disk on the 137–456 m extended configuration is too resolved: fail", () => {
     // First null at 1.2197 λ/θ = 41.5 m for 10 mas at 1.65 µm (A&S Table 9.5); every extended
     // baseline lies beyond it, where the Airy pattern's rings stay below 1.75 % (from memory).
-    const report = computeFeasibility(
-      input({
-        configurations: [stationsOf("extended-6")],
-        targets: [target({ model: { type: "uniformDisk", diameterMas: 10 } })],
-      }),
-    );
+    const report = onExtended({ model: { type: "uniformDisk", diameterMas: 10 } });
     const v = line(report.cells[0], "visibility");
     expect(v.verdict).toBe("fail");
     expect(v.reason).toMatch(/Too resolved/);
@@ -145,12 +144,7 @@ describe("feasibility report against published checks", () => {
   it("tells a target the delay lines rule out from one below the horizon", () => {
     // Extended-6 spans 137–456 m while the stroke is 90 m: with all six stations the delay lines
     // rarely cover every baseline at once, but the target is up and subsets of stations observe.
-    const report = computeFeasibility(
-      input({
-        configurations: [stationsOf("extended-6")],
-        targets: [target({ raDeg: 164.12, decDeg: -45.6, model: { type: "uniformDisk", diameterMas: 0.9 } })],
-      }),
-    );
+    const report = onExtended({ raDeg: 164.12, decDeg: -45.6, model: { type: "uniformDisk", diameterMas: 0.9 } });
     const cell = report.cells[0];
     expect(cell.nights[0].upHours).toBeGreaterThan(cell.nights[0].observableHours);
     expect(line(cell, "observable-time").reason).toMatch(/90 m delay-line stroke/);

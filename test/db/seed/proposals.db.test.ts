@@ -11,7 +11,8 @@ import {
 import { seedDemoScenario } from "~/db/seed/factories.server";
 import { DEMO_PROPOSALS } from "~/db/seed/scenario";
 import { checkPdf } from "~/services/proposals/pdf";
-import { type ProposalSnapshot, sha256Hex } from "~/services/proposals/proposals.server";
+import { sha256Hex } from "~/services/proposals/science-case.server";
+import type { ProposalSnapshot } from "~/services/proposals/versions.server";
 
 describe("demo proposals in the seed", () => {
   it("writes a dozen proposals in every status, with frozen versions past draft, and is idempotent", async () => {

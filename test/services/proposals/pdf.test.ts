@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { checkPdf, formatBytes, MAX_PDF_BYTES, makeTinyPdf } from "~/services/proposals/pdf";
+import { formatBytes } from "~/lib/format";
+import { checkPdf, MAX_PDF_BYTES, makeTinyPdf } from "~/services/proposals/pdf";
 
 const ascii = (bytes: Uint8Array) => String.fromCharCode(...bytes);
 const bytesOf = (s: string) => Uint8Array.from(s, (c) => c.charCodeAt(0));
@@ -19,7 +20,9 @@ describe("science-case PDF check by content", () => {
     expect(text.slice(startxref, startxref + 4)).toBe("xref");
     const entries = [...text.slice(startxref).matchAll(/^(\d{10}) 00000 n $/gm)].map((m) => Number(m[1]));
     expect(entries).toHaveLength(5);
-    entries.forEach((offset, i) => expect(text.slice(offset, offset + `${i + 1} 0 obj`.length)).toBe(`${i + 1} 0 obj`));
+    for (const [i, offset] of entries.entries()) {
+      expect(text.slice(offset, offset + `${i + 1} 0 obj`.length)).toBe(`${i + 1} 0 obj`);
+    }
     // The content stream's /Length is the number of bytes between "stream\n" and "\nendstream".
     const m = /<< \/Length (\d+) >>\nstream\n([\s\S]*?)\nendstream/.exec(text)!;
     expect(m[2].length).toBe(Number(m[1]));

@@ -1,102 +1,16 @@
-/**
- * Small pieces shared by the proposal pages: status and verdict badges, the feasibility table,
- * and formatting helpers. Pure presentation: data comes from the loaders.
- */
-import { Badge, type BadgeTone } from "~/components/ui";
+/** The feasibility report as the proposal pages show it: overall verdict, problems, one card per cell. */
+import type { FeasibilityReport, Verdict } from "~/services/proposals/feasibility";
+import { VerdictBadge } from "./Badges";
+import { shownUtc } from "./utc";
 
-export type StatusKey =
-  | "draft"
-  | "submitted"
-  | "under_review"
-  | "accepted"
-  | "waitlisted"
-  | "declined"
-  | "scheduled"
-  | "withdrawn";
-
-const STATUS_TONE: Record<StatusKey, BadgeTone> = {
-  draft: "neutral",
-  submitted: "info",
-  under_review: "accent",
-  accepted: "ok",
-  waitlisted: "caution",
-  declined: "danger",
-  scheduled: "ok",
-  withdrawn: "neutral",
-};
-
-export function StatusBadge({ status, label }: { status: StatusKey; label: string }) {
-  return <Badge tone={STATUS_TONE[status]}>{label}</Badge>;
-}
-
-export type VerdictKey = "pass" | "caution" | "fail";
-
-const VERDICT: Record<VerdictKey, { tone: BadgeTone; label: string; mark: string }> = {
-  pass: { tone: "ok", label: "pass", mark: "✓" },
-  caution: { tone: "caution", label: "caution", mark: "!" },
-  fail: { tone: "danger", label: "fail", mark: "✕" },
-};
-
-export function VerdictBadge({ verdict }: { verdict: VerdictKey }) {
-  const v = VERDICT[verdict];
-  return (
-    <Badge tone={v.tone}>
-      <span aria-hidden="true" className="mr-1 font-semibold">
-        {v.mark}
-      </span>
-      {v.label}
-    </Badge>
-  );
-}
-
-export const fmtDeg = (x: number, d = 4) => `${x.toFixed(d)}°`;
-
-/** "2027-01-15 12:00 UTC" from an ISO string. */
-export const fmtUtc = (iso: string | null | undefined) => (iso ? `${iso.slice(0, 16).replace("T", " ")} UTC` : "—");
-
-export function describeMagnitudes(m: Record<string, number>): string {
-  const parts = Object.entries(m).map(([k, v]) => `${k} ${v}`);
-  return parts.length ? parts.join(", ") : "—";
-}
-
-type ReportShape = {
-  verdict: VerdictKey;
-  computedAt: string;
-  stepMin: number;
-  elapsedMs: number;
-  band: string | null;
-  problems: { label: string; verdict: VerdictKey; reason: string }[];
-  cells: {
-    target: string;
-    configuration: string;
-    verdict: VerdictKey;
-    nights: { date: string; when: string; darkHours: number; upHours?: number; observableHours: number }[];
-    figures: {
-      resolutionMas: number | null;
-      sizeMas: number | null;
-      vis2Min: number | null;
-      vis2Max: number | null;
-      longestBaselineM: number | null;
-    };
-    lines: { check: string; label: string; verdict: VerdictKey; reason: string }[];
-  }[];
-  thresholds: {
-    tooResolvedVis2: number;
-    unresolvedVis2: number;
-    magnitudeMarginMag: number;
-    minHoursPerNight: number;
-    stepMin: number;
-  };
-};
-
-const VERDICT_SENTENCE: Record<VerdictKey, string> = {
+const VERDICT_SENTENCE: Record<Verdict, string> = {
   pass: "Every line passes.",
   caution: "Feasible, with lines that ask for care.",
   fail: "At least one line fails: read the reasons below.",
 };
 
 /** The whole report: overall verdict, proposal-level problems, one card per target × configuration. */
-export function FeasibilityView({ report }: { report: ReportShape }) {
+export function FeasibilityView({ report }: { report: FeasibilityReport }) {
   return (
     <div className="grid gap-4">
       <div
@@ -108,7 +22,7 @@ export function FeasibilityView({ report }: { report: ReportShape }) {
         <VerdictBadge verdict={report.verdict} />
         <span className="text-night-800">{VERDICT_SENTENCE[report.verdict]}</span>
         <span className="ml-auto text-sm text-night-600">
-          {report.band ? `${report.band} · ` : ""}computed {fmtUtc(report.computedAt)} in {report.elapsedMs} ms,{" "}
+          {report.band ? `${report.band} · ` : ""}computed {shownUtc(report.computedAt)} in {report.elapsedMs} ms,{" "}
           {report.stepMin}-min steps
         </span>
       </div>
@@ -180,10 +94,4 @@ export function FeasibilityView({ report }: { report: ReportShape }) {
       </p>
     </div>
   );
-}
-
-/** Words as a reader counts them: runs of non-space characters (the abstract's limit counts these). */
-export function countWords(text: string): number {
-  const t = text.trim();
-  return t === "" ? 0 : t.split(/\s+/).length;
 }
