@@ -4,7 +4,6 @@
  * for 20 targets (the issue's budgets: lookup ≤ 50 ms, 20 shortlists ≤ 1 s in total).
  * Run alone with `npx tsx bench/catalogue.ts`.
  */
-import { cpus } from "node:os";
 import { fileURLToPath } from "node:url";
 import {
   buildCatalogue,
@@ -15,25 +14,7 @@ import {
   shortlistCalibrators,
 } from "../app/engine";
 import { readCatalogueJson } from "../app/services/catalogue/data.server";
-
-interface Timing {
-  medianMs: number;
-  minMs: number;
-  runs: number;
-}
-
-function time(fn: () => unknown, runs: number, warmup = 1): Timing {
-  for (let i = 0; i < warmup; i++) fn();
-  const t: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const t0 = performance.now();
-    fn();
-    t.push(performance.now() - t0);
-  }
-  t.sort((a, b) => a - b);
-  const mid = t.length >> 1;
-  return { medianMs: t.length % 2 ? t[mid] : 0.5 * (t[mid - 1] + t[mid]), minMs: t[0], runs };
-}
+import { machine, type Timing, time } from "./timing";
 
 /** Twenty bright targets of the January night sky at the demo site. */
 const TARGETS = [
@@ -104,7 +85,7 @@ export async function benchCatalogue(): Promise<string> {
 
   log("## Star catalogue");
   log("");
-  log(`- Machine: ${cpus()[0]?.model ?? "unknown"}, ${cpus().length} cores; Node ${process.version}`);
+  log(`- Machine: ${machine()}`);
   log(`- ${cat.size.toLocaleString("en-US")} stars, ${cat.counts.namedStars.toLocaleString("en-US")} named`);
   log("");
   log("| step | median | min | runs |");
