@@ -67,7 +67,7 @@ function hoursTogether(date: string, a: [number, number], b: [number, number], m
   return n / 6;
 }
 
-/** The documented score, written out: weights 0.4, 0.2, 0.25, 0.15 (docs/cli-catalogue.md). */
+/** The documented score, written out: weights 0.4, 0.2, 0.25, 0.15 (docs/cli.md, "The star catalogue"). */
 function documentedScore(
   c: CalibratorsResponse["calibrators"][number],
   res: CalibratorsResponse,
