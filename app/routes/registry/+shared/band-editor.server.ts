@@ -1,0 +1,58 @@
+/** The band editor's loaders and actions (new and edit), on the registry's editor skeleton. */
+import type { LoaderFunctionArgs, Params } from "react-router";
+import type { Database } from "~/db/client.server";
+import { deleteRecord, insertRecord, updateRecord } from "~/services/registry/commands.server";
+import { getBand } from "~/services/registry/queries.server";
+import { BandFormSchema, micronsToMetres } from "~/services/registry/schemas";
+import { deleteUnlessReferenced, editorAction, editorDb, formValues, loadOr404, saveRecord } from "./editor.server";
+import { BAND_FIELDS, namesOf } from "./fields";
+import { loadInstrument } from "./instrument-editor.server";
+import { instrumentHref } from "./links";
+
+const loadBand = (db: Database, params: Params) => loadOr404(db, "band", params.bandId, getBand);
+type Band = Awaited<ReturnType<typeof loadBand>>["band"];
+type Instrument = { id: number; name: string };
+
+export async function newBandLoader(args: LoaderFunctionArgs) {
+  const instrument = await loadInstrument(await editorDb(args), args.params);
+  return { instrument: { id: instrument.id, name: instrument.name } };
+}
+
+export async function editBandLoader(args: LoaderFunctionArgs) {
+  const { band, instrument } = await loadBand(await editorDb(args), args.params);
+  return { band, instrument: { id: instrument.id, name: instrument.name } };
+}
+
+/** Saves a band typed in micrometres; it is kept in metres. */
+function save(db: Database, form: FormData, instrument: Instrument, band: Band | null) {
+  return saveRecord(db, formValues(form, namesOf(BAND_FIELDS)), {
+    schema: BandFormSchema,
+    unique: { entity: "band", scopeId: instrument.id, exceptId: band?.id },
+    taken: (name) => `${instrument.name} already has a band named ${name}`,
+    write: async ({ centralWavelengthUm, bandwidthUm, ...rest }) => {
+      const values = {
+        ...rest,
+        centralWavelengthM: micronsToMetres(centralWavelengthUm),
+        bandwidthM: micronsToMetres(bandwidthUm),
+      };
+      if (band) await updateRecord(db, { entity: "band", id: band.id, values });
+      else await insertRecord(db, { entity: "band", values: { ...values, instrumentId: instrument.id } });
+      const text = band
+        ? `Band ${values.name} of ${instrument.name} saved.`
+        : `Band ${values.name} added to ${instrument.name}.`;
+      return { to: instrumentHref(instrument.id), text };
+    },
+  });
+}
+
+export const newBandAction = editorAction(loadInstrument, { save: ({ db, form, row }) => save(db, form, row, null) });
+
+export const editBandAction = editorAction(loadBand, {
+  save: ({ db, form, row }) => save(db, form, row.instrument, row.band),
+  delete: ({ db, row: { band, instrument } }) =>
+    deleteUnlessReferenced(
+      () => deleteRecord(db, { entity: "band", id: band.id }),
+      { form: `band ${band.name} is still referred to elsewhere (for example by proposals); nothing was deleted` },
+      { to: instrumentHref(instrument.id), text: `Band ${band.name} deleted from ${instrument.name}.` },
+    ),
+});
