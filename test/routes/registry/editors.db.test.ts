@@ -18,16 +18,20 @@ import { action as stationEditAction, loader as stationEditLoader } from "~/rout
 import { action as stationNewAction, loader as stationNewLoader } from "~/routes/registry/stations/new";
 import { loader as stationLoader } from "~/routes/registry/stations/station";
 import {
+  bandFields,
   countOf,
   flashOf,
   get,
   multipart,
   type Outcome,
   post,
+  remove,
   run,
+  save,
   seedAndSignIn,
   smallSite,
   stationByName,
+  stationFields,
 } from "./support";
 
 let demoSiteId: number;
@@ -203,16 +207,12 @@ describe("site", () => {
     expect(saved.status).toBe(302);
     expect((await testDb().select().from(sites).where(eq(sites.id, site.id)))[0].minElevationDeg).toBe(35);
 
-    const unconfirmed = await run(() =>
-      siteEditAction(post(path, "admin", { intent: "delete", confirmName: "mesa" }, params)),
-    );
+    const unconfirmed = await remove(siteEditAction, path, params, { confirmName: "mesa" });
     expect(unconfirmed.status).toBe(400);
     expect(unconfirmed.data.errors.confirmName).toBe("type the site's name, Mesa Borrar, to confirm");
     expect(await stationByName(site.id, "A1")).not.toBeNull();
 
-    const deleted = await run(() =>
-      siteEditAction(post(path, "admin", { intent: "delete", confirmName: "Mesa Borrar" }, params)),
-    );
+    const deleted = await remove(siteEditAction, path, params, { confirmName: "Mesa Borrar" });
     expect(deleted.status).toBe(302);
     expect(await testDb().select().from(sites).where(eq(sites.id, site.id))).toEqual([]);
     expect(await testDb().select().from(stations).where(eq(stations.siteId, site.id))).toEqual([]);
@@ -234,19 +234,10 @@ describe("site", () => {
       routeArgs("/registry/export/stations.csv?site=99999999999", { params: { file: "stations.csv" } }),
     );
     expect(exported.status).toBe(404);
-    const stray = await run(() =>
-      stationNewAction(
-        post("/registry/stations/new", "admin", {
-          intent: "save",
-          siteId: "99999999999",
-          name: "Q1",
-          eastM: "1",
-          northM: "1",
-          upM: "0",
-          pathOffsetM: "0",
-        }),
-      ),
-    );
+    const stray = await save(stationNewAction, "/registry/stations/new", {
+      siteId: "99999999999",
+      ...stationFields("Q1", "1", "1", "0", "0"),
+    });
     expect(stray.status).toBe(400);
     expect(stray.data.errors.form).toBe("the site was not found; it may have been deleted");
   });
@@ -255,19 +246,10 @@ describe("site", () => {
 describe("stations", () => {
   it("adds a valid station; refuses bad values and a taken name, writing nothing", async () => {
     const before = await countOf(stations);
-    const bad = await run(() =>
-      stationNewAction(
-        post("/registry/stations/new", "admin", {
-          intent: "save",
-          siteId: String(demoSiteId),
-          name: "",
-          eastM: "abc",
-          northM: "12,5",
-          upM: "0",
-          pathOffsetM: "",
-        }),
-      ),
-    );
+    const bad = await save(stationNewAction, "/registry/stations/new", {
+      siteId: String(demoSiteId),
+      ...stationFields("", "abc", "12,5", "0", ""),
+    });
     expect(bad.status).toBe(400);
     expect(bad.data.errors).toEqual({
       name: "is required",
@@ -276,36 +258,18 @@ describe("stations", () => {
       pathOffsetM: "is required",
     });
     expect(bad.data.values).toMatchObject({ eastM: "abc", northM: "12,5" });
-    const taken = await run(() =>
-      stationNewAction(
-        post("/registry/stations/new", "admin", {
-          intent: "save",
-          siteId: String(demoSiteId),
-          name: "C01",
-          eastM: "1",
-          northM: "2",
-          upM: "0",
-          pathOffsetM: "0",
-        }),
-      ),
-    );
+    const taken = await save(stationNewAction, "/registry/stations/new", {
+      siteId: String(demoSiteId),
+      ...stationFields("C01", "1", "2", "0", "0"),
+    });
     expect(taken.status).toBe(400);
     expect(taken.data.errors).toEqual({ name: "C01 is already a station at Sierra Lumbre Array" });
     expect(await countOf(stations)).toBe(before);
 
-    const ok = await run(() =>
-      stationNewAction(
-        post("/registry/stations/new", "admin", {
-          intent: "save",
-          siteId: String(demoSiteId),
-          name: "W9",
-          eastM: "-48.5",
-          northM: "60",
-          upM: "0.3",
-          pathOffsetM: "7.25",
-        }),
-      ),
-    );
+    const ok = await save(stationNewAction, "/registry/stations/new", {
+      siteId: String(demoSiteId),
+      ...stationFields("W9", "-48.5", "60", "0.3", "7.25"),
+    });
     expect(ok.status).toBe(302);
     expect(ok.location).toBe(`/registry?site=${demoSiteId}`);
     expect((await flashOf(ok))?.text).toBe("Station W9 added.");
@@ -327,41 +291,14 @@ describe("stations", () => {
     const a3 = (await stationByName(site.id, "A3"))!;
     const params = { stationId: String(a3.id) };
     const path = `/registry/stations/${a3.id}/edit`;
-    const bad = await run(() =>
-      stationEditAction(
-        post(
-          path,
-          "admin",
-          { intent: "save", name: "A3", eastM: "0", northM: "25000", upM: "0.5", pathOffsetM: "2" },
-          params,
-        ),
-      ),
-    );
+    const bad = await save(stationEditAction, path, stationFields("A3", "0", "25000", "0.5", "2"), params);
     expect(bad.status).toBe(400);
     expect(bad.data.errors).toEqual({ northM: "must be between -20000 and 20000 m" });
-    const clash = await run(() =>
-      stationEditAction(
-        post(
-          path,
-          "admin",
-          { intent: "save", name: "A1", eastM: "0", northM: "10", upM: "0.5", pathOffsetM: "2" },
-          params,
-        ),
-      ),
-    );
+    const clash = await save(stationEditAction, path, stationFields("A1", "0", "10", "0.5", "2"), params);
     expect(clash.data.errors).toEqual({ name: "A1 is already a station at Llano Editar" });
     expect(await stationByName(site.id, "A3")).toMatchObject({ northM: 10 });
 
-    const ok = await run(() =>
-      stationEditAction(
-        post(
-          path,
-          "admin",
-          { intent: "save", name: "A3b", eastM: "1", northM: "11", upM: "0.5", pathOffsetM: "2.5" },
-          params,
-        ),
-      ),
-    );
+    const ok = await save(stationEditAction, path, stationFields("A3b", "1", "11", "0.5", "2.5"), params);
     expect(ok.status).toBe(302);
     expect(ok.location).toBe(`/registry/stations/${a3.id}`);
     expect(await stationByName(site.id, "A3b")).toMatchObject({ id: a3.id, eastM: 1, northM: 11, pathOffsetM: 2.5 });
@@ -373,11 +310,7 @@ describe("stations", () => {
       get(`/registry/stations/${c04.id}/edit`, "admin", { stationId: String(c04.id) }),
     );
     expect(edit.usedBy).toEqual(["compact-3"]);
-    const refused = await run(() =>
-      stationEditAction(
-        post(`/registry/stations/${c04.id}/edit`, "admin", { intent: "delete" }, { stationId: String(c04.id) }),
-      ),
-    );
+    const refused = await remove(stationEditAction, `/registry/stations/${c04.id}/edit`, { stationId: String(c04.id) });
     expect(refused.status).toBe(409);
     expect(refused.data.deleteRefused).toBe(
       "C04 cannot be deleted while a configuration uses it: compact-3. Take it out of it first.",
@@ -385,22 +318,14 @@ describe("stations", () => {
     expect(await stationByName(demoSiteId, "C04")).not.toBeNull();
 
     const x01 = (await stationByName(demoSiteId, "X01"))!;
-    const many = await run(() =>
-      stationEditAction(
-        post(`/registry/stations/${x01.id}/edit`, "admin", { intent: "delete" }, { stationId: String(x01.id) }),
-      ),
-    );
+    const many = await remove(stationEditAction, `/registry/stations/${x01.id}/edit`, { stationId: String(x01.id) });
     expect(many.data.deleteRefused).toBe(
       "X01 cannot be deleted while configurations use it: extended-6, medium-4. Take it out of them first.",
     );
 
     const site = await smallSite("Llano Borrar");
     const a4 = (await stationByName(site.id, "A4"))!;
-    const gone = await run(() =>
-      stationEditAction(
-        post(`/registry/stations/${a4.id}/edit`, "admin", { intent: "delete" }, { stationId: String(a4.id) }),
-      ),
-    );
+    const gone = await remove(stationEditAction, `/registry/stations/${a4.id}/edit`, { stationId: String(a4.id) });
     expect(gone.status).toBe(302);
     expect(await stationByName(site.id, "A4")).toBeNull();
   });
@@ -460,21 +385,20 @@ describe("configurations", () => {
       .where(and(eq(configurations.siteId, site.id), eq(configurations.name, "pair")));
     const params = { configurationId: String(pair.id) };
     const path = `/registry/configurations/${pair.id}/edit`;
-    const clash = await run(() =>
-      configEditAction(post(path, "admin", { intent: "save", name: "other", stations: "A1 A2" }, params)),
-    );
+    const clash = await save(configEditAction, path, { name: "other", stations: "A1 A2" }, params);
     expect(clash.data.errors).toEqual({ name: "other is already a configuration at Pampa Edit" });
 
-    const ok = await run(() =>
-      configEditAction(
-        post(path, "admin", { intent: "save", name: "pair", description: "swapped", stations: "A2 A1 A4" }, params),
-      ),
+    const ok = await save(
+      configEditAction,
+      path,
+      { name: "pair", description: "swapped", stations: "A2 A1 A4" },
+      params,
     );
     expect(ok.status).toBe(302);
     const [after] = await testDb().select().from(configurations).where(eq(configurations.id, pair.id));
     expect(after).toMatchObject({ description: "swapped", offered: false });
 
-    const gone = await run(() => configEditAction(post(path, "admin", { intent: "delete" }, params)));
+    const gone = await remove(configEditAction, path, params);
     expect(gone.status).toBe(302);
     expect(await testDb().select().from(configurations).where(eq(configurations.id, pair.id))).toEqual([]);
     expect(
@@ -487,31 +411,21 @@ describe("configurations", () => {
 describe("instruments and bands", () => {
   it("adds an instrument, refusing fewer than 2 telescopes; adds bands from µm, stored in metres as typed", async () => {
     const before = await countOf(instruments);
-    const bad = await run(() =>
-      instrumentNewAction(
-        post("/registry/instruments/new", "admin", {
-          intent: "save",
-          siteId: String(demoSiteId),
-          name: "Chispa",
-          maxTelescopes: "1",
-        }),
-      ),
-    );
+    const bad = await save(instrumentNewAction, "/registry/instruments/new", {
+      siteId: String(demoSiteId),
+      name: "Chispa",
+      maxTelescopes: "1",
+    });
     expect(bad.status).toBe(400);
     expect(bad.data.errors).toEqual({ maxTelescopes: "must be between 2 and 50" });
     expect(await countOf(instruments)).toBe(before);
 
-    const ok = await run(() =>
-      instrumentNewAction(
-        post("/registry/instruments/new", "admin", {
-          intent: "save",
-          siteId: String(demoSiteId),
-          name: "Chispa",
-          description: "visible",
-          maxTelescopes: "4",
-        }),
-      ),
-    );
+    const ok = await save(instrumentNewAction, "/registry/instruments/new", {
+      siteId: String(demoSiteId),
+      name: "Chispa",
+      description: "visible",
+      maxTelescopes: "4",
+    });
     expect(ok.status).toBe(302);
     const [chispa] = await testDb()
       .select()
@@ -520,67 +434,21 @@ describe("instruments and bands", () => {
     expect(ok.location).toBe(`/registry/instruments/${chispa.id}/edit`);
 
     const params = { instrumentId: String(chispa.id) };
-    const badBand = await run(() =>
-      bandNewAction(
-        post(
-          `/registry/instruments/${chispa.id}/bands/new`,
-          "admin",
-          {
-            intent: "save",
-            name: "R",
-            centralWavelengthUm: "0.65",
-            bandwidthUm: "0.1",
-            channels: "0",
-            limitingMagnitude: "x",
-          },
-          params,
-        ),
-      ),
-    );
+    const newBand = (fields: Record<string, string>) =>
+      save(bandNewAction, `/registry/instruments/${chispa.id}/bands/new`, fields, params);
+    const badBand = await newBand(bandFields("R", "0.65", "0.1", "0", "x"));
     expect(badBand.status).toBe(400);
     expect(badBand.data.errors).toEqual({
       channels: "must be between 1 and 100000",
       limitingMagnitude: "must be a number",
     });
-    const wide = await run(() =>
-      bandNewAction(
-        post(
-          `/registry/instruments/${chispa.id}/bands/new`,
-          "admin",
-          {
-            intent: "save",
-            name: "R",
-            centralWavelengthUm: "0.65",
-            bandwidthUm: "1.5",
-            channels: "4",
-            limitingMagnitude: "5",
-          },
-          params,
-        ),
-      ),
-    );
+    const wide = await newBand(bandFields("R", "0.65", "1.5", "4", "5"));
     expect(wide.data.errors).toEqual({
       bandwidthUm: "must be less than twice the central wavelength (the band's short edge would fall below zero)",
     });
     expect(await testDb().select().from(bands).where(eq(bands.instrumentId, chispa.id))).toEqual([]);
 
-    const band = await run(() =>
-      bandNewAction(
-        post(
-          `/registry/instruments/${chispa.id}/bands/new`,
-          "admin",
-          {
-            intent: "save",
-            name: "R",
-            centralWavelengthUm: "0.65",
-            bandwidthUm: "0.1",
-            channels: "4",
-            limitingMagnitude: "5.5",
-          },
-          params,
-        ),
-      ),
-    );
+    const band = await newBand(bandFields("R", "0.65", "0.1", "4", "5.5"));
     expect(band.status).toBe(302);
     const [r] = await testDb().select().from(bands).where(eq(bands.instrumentId, chispa.id));
     expect(r).toMatchObject({
@@ -591,41 +459,14 @@ describe("instruments and bands", () => {
       limitingMagnitude: 5.5,
     });
 
-    const twice = await run(() =>
-      bandNewAction(
-        post(
-          `/registry/instruments/${chispa.id}/bands/new`,
-          "admin",
-          {
-            intent: "save",
-            name: "R",
-            centralWavelengthUm: "0.7",
-            bandwidthUm: "0.1",
-            channels: "4",
-            limitingMagnitude: "5",
-          },
-          params,
-        ),
-      ),
-    );
+    const twice = await newBand(bandFields("R", "0.7", "0.1", "4", "5"));
     expect(twice.data.errors).toEqual({ name: "Chispa already has a band named R" });
 
-    const edited = await run(() =>
-      bandEditAction(
-        post(
-          `/registry/bands/${r.id}/edit`,
-          "admin",
-          {
-            intent: "save",
-            name: "R",
-            centralWavelengthUm: "0.66",
-            bandwidthUm: "0.12",
-            channels: "5",
-            limitingMagnitude: "6",
-          },
-          { bandId: String(r.id) },
-        ),
-      ),
+    const edited = await save(
+      bandEditAction,
+      `/registry/bands/${r.id}/edit`,
+      bandFields("R", "0.66", "0.12", "5", "6"),
+      { bandId: String(r.id) },
     );
     expect(edited.status).toBe(302);
     expect((await testDb().select().from(bands).where(eq(bands.id, r.id)))[0]).toMatchObject({
@@ -633,66 +474,28 @@ describe("instruments and bands", () => {
       bandwidthM: 0.12e-6,
       channels: 5,
     });
-    const badEdit = await run(() =>
-      bandEditAction(
-        post(
-          `/registry/bands/${r.id}/edit`,
-          "admin",
-          {
-            intent: "save",
-            name: "",
-            centralWavelengthUm: "-1",
-            bandwidthUm: "0.12",
-            channels: "5",
-            limitingMagnitude: "6",
-          },
-          { bandId: String(r.id) },
-        ),
-      ),
-    );
+    const badEdit = await save(bandEditAction, `/registry/bands/${r.id}/edit`, bandFields("", "-1", "0.12", "5", "6"), {
+      bandId: String(r.id),
+    });
     expect(badEdit.data.errors).toEqual({
       name: "is required",
       centralWavelengthUm: "must be greater than 0 and at most 1000 µm",
     });
 
-    const renamed = await run(() =>
-      instrumentEditAction(
-        post(
-          `/registry/instruments/${chispa.id}/edit`,
-          "admin",
-          { intent: "save", name: "Brasa", maxTelescopes: "4" },
-          params,
-        ),
-      ),
+    const renamed = await save(
+      instrumentEditAction,
+      `/registry/instruments/${chispa.id}/edit`,
+      { name: "Brasa", maxTelescopes: "4" },
+      params,
     );
     expect(renamed.data.errors).toEqual({ name: "Brasa is already an instrument at this site" });
 
-    const bandGone = await run(() =>
-      bandEditAction(post(`/registry/bands/${r.id}/edit`, "admin", { intent: "delete" }, { bandId: String(r.id) })),
-    );
+    const bandGone = await remove(bandEditAction, `/registry/bands/${r.id}/edit`, { bandId: String(r.id) });
     expect(bandGone.status).toBe(302);
     expect(await testDb().select().from(bands).where(eq(bands.id, r.id))).toEqual([]);
 
-    await run(() =>
-      bandNewAction(
-        post(
-          `/registry/instruments/${chispa.id}/bands/new`,
-          "admin",
-          {
-            intent: "save",
-            name: "I",
-            centralWavelengthUm: "0.8",
-            bandwidthUm: "0.1",
-            channels: "4",
-            limitingMagnitude: "5",
-          },
-          params,
-        ),
-      ),
-    );
-    const gone = await run(() =>
-      instrumentEditAction(post(`/registry/instruments/${chispa.id}/edit`, "admin", { intent: "delete" }, params)),
-    );
+    await newBand(bandFields("I", "0.8", "0.1", "4", "5"));
+    const gone = await remove(instrumentEditAction, `/registry/instruments/${chispa.id}/edit`, params);
     expect(gone.status).toBe(302);
     expect(await testDb().select().from(instruments).where(eq(instruments.id, chispa.id))).toEqual([]);
     expect(await testDb().select().from(bands).where(eq(bands.instrumentId, chispa.id))).toEqual([]);

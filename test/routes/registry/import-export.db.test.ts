@@ -15,6 +15,9 @@ beforeAll(async () => {
 
 describe("import", () => {
   const HEADER = "name,eastM,northM,upM,pathOffsetM\n";
+  /** The administrator posts the import form. */
+  const importing = (fields: Record<string, string | File>) =>
+    run(() => importAction(multipart("/registry/import", "admin", fields)));
 
   /** Previews an uploaded file, or applies text as the preview's apply form carries it. */
   async function importStations(
@@ -25,17 +28,7 @@ describe("import", () => {
   ) {
     const payload: Record<string, string | File> =
       intent === "preview" ? { file: new File([text], "stations.csv", { type: "text/csv" }) } : { content: text };
-    return run(() =>
-      importAction(
-        multipart("/registry/import", "admin", {
-          intent,
-          kind: "stations",
-          siteId: String(siteId),
-          ...payload,
-          ...extra,
-        }),
-      ),
-    );
+    return importing({ intent, kind: "stations", siteId: String(siteId), ...payload, ...extra });
   }
 
   it("previews a station CSV as new, updated and unchanged without writing, then applies it in one go", async () => {
@@ -50,16 +43,12 @@ describe("import", () => {
     expect(await stationByName(site.id, "A2")).toMatchObject({ eastM: 10 });
 
     // The apply step posts the text the preview carried.
-    const applied = await run(() =>
-      importAction(
-        multipart("/registry/import", "admin", {
-          intent: "apply",
-          kind: "stations",
-          siteId: String(site.id),
-          content: preview.data.content,
-        }),
-      ),
-    );
+    const applied = await importing({
+      intent: "apply",
+      kind: "stations",
+      siteId: String(site.id),
+      content: preview.data.content,
+    });
     expect(applied.status).toBe(302);
     expect((await flashOf(applied))?.text).toBe(
       "Stations imported into Valle Importar: 1 new, 1 updated, 1 unchanged.",
@@ -76,16 +65,12 @@ describe("import", () => {
       const out =
         intent === "preview"
           ? await importStations(site.id, text, intent)
-          : await run(() =>
-              importAction(
-                multipart("/registry/import", "admin", {
-                  intent,
-                  kind: "stations",
-                  siteId: String(site.id),
-                  content: text,
-                }),
-              ),
-            );
+          : await importing({
+              intent,
+              kind: "stations",
+              siteId: String(site.id),
+              content: text,
+            });
       expect(out.status).toBe(400);
       expect(out.data.errors).toEqual(["row 2, eastM: must be a number"]);
       expect(out.data.content).toBeNull();
@@ -110,17 +95,13 @@ describe("import", () => {
       ["A4", "remove"],
     ]);
     expect(preview.data.notices).toEqual(["2 stations missing from the file stay because configurations use them."]);
-    const applied = await run(() =>
-      importAction(
-        multipart("/registry/import", "admin", {
-          intent: "apply",
-          kind: "stations",
-          siteId: String(site.id),
-          content: text,
-          removeMissing: "on",
-        }),
-      ),
-    );
+    const applied = await importing({
+      intent: "apply",
+      kind: "stations",
+      siteId: String(site.id),
+      content: text,
+      removeMissing: "on",
+    });
     expect(applied.status).toBe(302);
     const names = (await testDb().select().from(stations).where(eq(stations.siteId, site.id)))
       .map((s) => s.name)
@@ -133,27 +114,19 @@ describe("import", () => {
     const same = await importStations(site.id, `${HEADER}A1,0,0,0,0\n`, "apply");
     expect(same.status).toBe(302);
     expect(await flashOf(same)).toEqual({ kind: "info", text: "The file matches the registry; nothing was changed." });
-    const odd = await run(() =>
-      importAction(
-        multipart("/registry/import", "admin", {
-          intent: "erase",
-          kind: "stations",
-          siteId: String(site.id),
-          content: HEADER,
-        }),
-      ),
-    );
+    const odd = await importing({
+      intent: "erase",
+      kind: "stations",
+      siteId: String(site.id),
+      content: HEADER,
+    });
     expect(odd.status).toBe(400);
     expect(odd.data.errors).toEqual(["Unknown action."]);
-    const noSite = await run(() =>
-      importAction(
-        multipart("/registry/import", "admin", {
-          intent: "preview",
-          kind: "stations",
-          content: `${HEADER}A1,0,0,0,0\n`,
-        }),
-      ),
-    );
+    const noSite = await importing({
+      intent: "preview",
+      kind: "stations",
+      content: `${HEADER}A1,0,0,0,0\n`,
+    });
     expect(noSite.data.errors).toEqual(["Choose the site the stations belong to."]);
   });
 
@@ -161,23 +134,15 @@ describe("import", () => {
     const site = await smallSite("Valle Json");
     const json = JSON.stringify([{ name: "J1", eastM: 1, northM: 2, upM: 0, pathOffsetM: 0 }]);
     const file = new File([json], "stations.json", { type: "application/json" });
-    const ok = await run(() =>
-      importAction(
-        multipart("/registry/import", "admin", { intent: "preview", kind: "stations", siteId: String(site.id), file }),
-      ),
-    );
+    const ok = await importing({ intent: "preview", kind: "stations", siteId: String(site.id), file });
     expect(ok.data.stations.counts.new).toBe(1);
 
-    const empty = await run(() =>
-      importAction(
-        multipart("/registry/import", "admin", {
-          intent: "preview",
-          kind: "stations",
-          siteId: String(site.id),
-          file: new File([], "empty.csv"),
-        }),
-      ),
-    );
+    const empty = await importing({
+      intent: "preview",
+      kind: "stations",
+      siteId: String(site.id),
+      file: new File([], "empty.csv"),
+    });
     expect(empty.status).toBe(400);
     expect(empty.data.errors).toEqual(["The file is empty."]);
 
@@ -199,37 +164,25 @@ describe("import", () => {
       ],
       "latin1.csv",
     );
-    const notUtf8 = await run(() =>
-      importAction(
-        multipart("/registry/import", "admin", {
-          intent: "preview",
-          kind: "stations",
-          siteId: String(site.id),
-          file: latin1,
-        }),
-      ),
-    );
+    const notUtf8 = await importing({
+      intent: "preview",
+      kind: "stations",
+      siteId: String(site.id),
+      file: latin1,
+    });
     expect(notUtf8.data.errors).toEqual(["The file is not UTF-8 text; save it as UTF-8 and try again."]);
 
     const huge = new File([new Uint8Array(MAX_IMPORT_BYTES + 100_000).fill(0x41)], "huge.csv");
-    const tooBig = await run(() =>
-      importAction(
-        multipart("/registry/import", "admin", {
-          intent: "preview",
-          kind: "stations",
-          siteId: String(site.id),
-          file: huge,
-        }),
-      ),
-    );
+    const tooBig = await importing({
+      intent: "preview",
+      kind: "stations",
+      siteId: String(site.id),
+      file: huge,
+    });
     expect(tooBig.status).toBe(413);
     expect(tooBig.data.errors).toEqual(["The file is larger than the limit of 1 MB; split it into smaller files."]);
 
-    const nothing = await run(() =>
-      importAction(
-        multipart("/registry/import", "admin", { intent: "preview", kind: "stations", siteId: String(site.id) }),
-      ),
-    );
+    const nothing = await importing({ intent: "preview", kind: "stations", siteId: String(site.id) });
     expect(nothing.data.errors).toEqual(["Choose a file, or paste its text into the box."]);
     expect(await stationByName(site.id, "J1")).toBeNull();
   });
@@ -241,9 +194,7 @@ describe("import", () => {
     );
     expect(exported.headers.get("Content-Disposition")).toBe('attachment; filename="meseta-todo-registry.json"');
     const text = await exported.text();
-    const same = await run(() =>
-      importAction(multipart("/registry/import", "admin", { intent: "preview", kind: "registry", content: text })),
-    );
+    const same = await importing({ intent: "preview", kind: "registry", content: text });
     expect(same.status).toBe(200);
     expect(same.data.registry.counts.stations).toEqual({ new: 0, updated: 0, unchanged: 4, remove: 0, keep: 0 });
     expect(same.data.registry.site.change).toBe("unchanged");
@@ -259,11 +210,7 @@ describe("import", () => {
       bandwidthM: 0.3e-6,
       limitingMagnitude: 6.5,
     });
-    const applied = await run(() =>
-      importAction(
-        multipart("/registry/import", "admin", { intent: "apply", kind: "registry", content: JSON.stringify(file) }),
-      ),
-    );
+    const applied = await importing({ intent: "apply", kind: "registry", content: JSON.stringify(file) });
     expect(applied.status).toBe(302);
     expect((await testDb().select().from(sites).where(eq(sites.id, site.id)))[0].delayLineStrokeM).toBe(75);
     expect(await stationByName(site.id, "A5")).not.toBeNull();
@@ -278,11 +225,7 @@ describe("import", () => {
     file.site.delayLineStrokeM = 60;
     file.stations.push({ name: "A6", eastM: 1, northM: 1, upM: 0, pathOffsetM: 0 });
     file.configurations.push({ name: "ghost", stations: ["A1", "Q9"] });
-    const refused = await run(() =>
-      importAction(
-        multipart("/registry/import", "admin", { intent: "apply", kind: "registry", content: JSON.stringify(file) }),
-      ),
-    );
+    const refused = await importing({ intent: "apply", kind: "registry", content: JSON.stringify(file) });
     expect(refused.status).toBe(400);
     expect(refused.data.errors).toEqual([
       "configurations row 3, stations: Q9 is neither in the file's stations nor at the site",

@@ -114,3 +114,32 @@ export async function smallSite(name: string) {
   });
   return site;
 }
+
+type Handler = (args: never) => unknown;
+type Fields = Record<string, string>;
+
+/** The administrator saves a form (intent "save") through an action. */
+export const save = (handler: Handler, path: string, fields: Fields, params: Fields = {}) =>
+  run(() => handler(post(path, "admin", { intent: "save", ...fields }, params)));
+
+/** The administrator posts a page's delete form (intent "delete"). */
+export const remove = (handler: Handler, path: string, params: Fields, fields: Fields = {}) =>
+  run(() => handler(post(path, "admin", { intent: "delete", ...fields }, params)));
+
+/** A station's form fields, as typed (metres). */
+export const stationFields = (name: string, eastM: string, northM: string, upM = "0", pathOffsetM = "0") => ({
+  name,
+  eastM,
+  northM,
+  upM,
+  pathOffsetM,
+});
+
+/** A band's form fields, as typed (micrometres). */
+export const bandFields = (
+  name: string,
+  centralWavelengthUm: string,
+  bandwidthUm: string,
+  channels: string,
+  limitingMagnitude: string,
+) => ({ name, centralWavelengthUm, bandwidthUm, channels, limitingMagnitude });

@@ -68,33 +68,19 @@ describe("value rules shared with the forms", () => {
     expect(!twice.success && fieldErrors(twice.issues)).toEqual({ stations: "lists C01 twice" });
   });
 
+  /** Band H as the form takes it: central wavelength and bandwidth in µm. */
+  const bandH = (centralWavelengthUm: string, channels: string, bandwidthUm: string, limitingMagnitude: string) =>
+    v.safeParse(BandFormSchema, { name: "H", centralWavelengthUm, channels, bandwidthUm, limitingMagnitude });
+
   it("takes band wavelengths in µm, stores metres as typed, and keeps the bandwidth below twice the centre", () => {
-    const ok = v.safeParse(BandFormSchema, {
-      name: "H",
-      centralWavelengthUm: "1.65",
-      channels: "6",
-      bandwidthUm: "0.3",
-      limitingMagnitude: "7.5",
-    });
+    const ok = bandH("1.65", "6", "0.3", "7.5");
     expect(ok.success).toBe(true);
     expect(micronsToMetres(1.65)).toBe(1.65e-6);
     expect(micronsToMetres(2.2)).toBe(2.2e-6);
     expect(metresToMicrons(1.65e-6)).toBe(1.65);
-    const wide = v.safeParse(BandFormSchema, {
-      name: "H",
-      centralWavelengthUm: "1",
-      channels: "1.5",
-      bandwidthUm: "0.5",
-      limitingMagnitude: "7",
-    });
+    const wide = bandH("1", "1.5", "0.5", "7");
     expect(!wide.success && fieldErrors(wide.issues)).toEqual({ channels: "must be a whole number" });
-    const wide2 = v.safeParse(BandFormSchema, {
-      name: "H",
-      centralWavelengthUm: "1",
-      channels: "1",
-      bandwidthUm: "2",
-      limitingMagnitude: "7",
-    });
+    const wide2 = bandH("1", "1", "2", "7");
     expect(!wide2.success && fieldErrors(wide2.issues)).toEqual({
       bandwidthUm: "must be less than twice the central wavelength (the band's short edge would fall below zero)",
     });

@@ -4,23 +4,14 @@ import { TextField } from "~/components/ui";
 import { sentence } from "~/lib/form-errors";
 import type { Route as EditRoute } from "../configurations/+types/edit";
 import type { Route as NewRoute } from "../configurations/+types/new";
-import {
-  type Defaults,
-  DeleteCard,
-  EditorPage,
-  FieldList,
-  type FormState,
-  NoSiteYet,
-  registryTitle,
-} from "./EditorPage";
-import type { EditorState } from "./editor.server";
+import * as Editor from "./EditorPage";
 import { CONFIGURATION_FIELDS } from "./fields";
 import { overviewHref } from "./links";
 import { type MapStation, StationMap } from "./StationMap";
 
-export const newConfigurationMeta = () => registryTitle("New configuration");
+export const newConfigurationMeta = () => Editor.meta("New configuration");
 export const editConfigurationMeta = ({ data }: EditRoute.MetaArgs) =>
-  registryTitle(`Edit ${data?.configuration.name ?? "configuration"}`);
+  Editor.meta(`Edit ${data?.configuration.name ?? "configuration"}`);
 
 const splitNames = (list: string) => list.split(/[\s,;]+/).filter(Boolean);
 
@@ -49,8 +40,8 @@ function ConfigurationFields({
   stations,
   widest,
 }: {
-  state: FormState;
-  defaults: Defaults;
+  state: Editor.FormState;
+  defaults: Editor.Defaults;
   stations: MapStation[];
   /** Most telescopes any instrument combines (0 when there are no instruments). */
   widest: number;
@@ -68,7 +59,7 @@ function ConfigurationFields({
   return (
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,22rem)_minmax(0,1fr)]">
       <div className="grid content-start gap-4">
-        <FieldList specs={CONFIGURATION_FIELDS.slice(0, 2)} state={state} defaults={defaults} />
+        <Editor.FieldList specs={CONFIGURATION_FIELDS.slice(0, 2)} state={state} defaults={defaults} />
         <label className="inline-flex items-center gap-2 text-sm font-medium text-night-800">
           <input type="checkbox" name="offered" defaultChecked={offeredDefault} className="h-4 w-4 accent-ember-700" />
           Offered to proposers
@@ -99,55 +90,52 @@ function ConfigurationFields({
   );
 }
 
-type Props = {
-  loaderData: NewRoute.ComponentProps["loaderData"] | EditRoute.ComponentProps["loaderData"];
-  actionData?: EditorState;
-};
-
-export function ConfigurationEditor({ loaderData, actionData }: Props) {
-  const { stations, widest } = loaderData;
-  if (!("configuration" in loaderData)) {
-    const { site } = loaderData;
-    if (!site) return <NoSiteYet title="New configuration">A configuration is a set of the site's stations.</NoSiteYet>;
+export function ConfigurationEditor({
+  loaderData,
+  actionData,
+}: Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>) {
+  const configuration = "configuration" in loaderData ? loaderData.configuration : null;
+  const site = "site" in loaderData ? loaderData.site : null;
+  if (!configuration && !site)
     return (
-      <EditorPage
-        title="New configuration"
-        lead={`A named set of ${site.name}'s stations that cycles can offer.`}
-        state={actionData}
-        fields={CONFIGURATION_FIELDS}
-        submitLabel="Add configuration"
-        cancelTo={overviewHref(site.id)}
-        ariaLabel="New configuration"
-      >
-        <input type="hidden" name="siteId" value={site.id} />
-        <ConfigurationFields state={actionData} defaults={{ offered: "on" }} stations={stations} widest={widest} />
-      </EditorPage>
+      <Editor.NoSiteYet title="New configuration">A configuration is a set of the site's stations.</Editor.NoSiteYet>
     );
-  }
-  const { configuration } = loaderData;
-  const defaults = {
-    name: configuration.name,
-    description: configuration.description,
-    offered: configuration.offered ? "on" : "",
-    stations: configuration.stationNames.join(" "),
-  };
+  const defaults: Editor.Defaults = configuration
+    ? {
+        name: configuration.name,
+        description: configuration.description,
+        offered: configuration.offered ? "on" : "",
+        stations: configuration.stationNames.join(" "),
+      }
+    : { offered: "on" };
   return (
-    <EditorPage
-      title={`Edit configuration ${configuration.name}`}
-      lead={`A station set of ${loaderData.siteName}.`}
+    <Editor.Page
+      noun="configuration"
+      editing={configuration?.name ?? null}
+      lead={
+        "siteName" in loaderData
+          ? `A station set of ${loaderData.siteName}.`
+          : `A named set of ${site?.name}'s stations that cycles can offer.`
+      }
       state={actionData}
       fields={CONFIGURATION_FIELDS}
-      submitLabel="Save configuration"
-      cancelTo={overviewHref(configuration.siteId)}
-      ariaLabel={`Edit configuration ${configuration.name}`}
+      cancelTo={overviewHref(configuration?.siteId ?? site?.id)}
       below={
-        <DeleteCard title="Delete this configuration" buttonLabel={`Delete ${configuration.name}`}>
-          Its stations stay registered. To keep it but stop proposers from asking for it, untick “Offered to proposers”
-          instead.
-        </DeleteCard>
+        configuration ? (
+          <Editor.DeleteCard title="Delete this configuration" buttonLabel={`Delete ${configuration.name}`}>
+            Its stations stay registered. To keep it but stop proposers from asking for it, untick “Offered to
+            proposers” instead.
+          </Editor.DeleteCard>
+        ) : undefined
       }
     >
-      <ConfigurationFields state={actionData} defaults={defaults} stations={stations} widest={widest} />
-    </EditorPage>
+      {site ? <input type="hidden" name="siteId" value={site.id} /> : null}
+      <ConfigurationFields
+        state={actionData}
+        defaults={defaults}
+        stations={loaderData.stations}
+        widest={loaderData.widest}
+      />
+    </Editor.Page>
   );
 }

@@ -1,5 +1,5 @@
 /**
- * The page of every registry editor: the title, the save form with its error summary, fields and
+ * The page of every registry editor (read it as a namespace: `import * as Editor`, `<Editor.Page>`): the title, the save form with its error summary, fields and
  * save/cancel buttons, and on an edit page the cards below it (delete, an instrument's bands). A
  * refused post (`EditorState`, status 400) shows its messages and keeps what was typed.
  */
@@ -70,43 +70,45 @@ function summary(state: FormState, labels: Record<string, string>): string[] {
   );
 }
 
+/** The props of an editor serving a new and an edit page: either page's loader data, a refused post. */
+export type Props<N extends { loaderData: unknown }, E extends { loaderData: unknown }> = {
+  loaderData: N["loaderData"] | E["loaderData"];
+  actionData?: EditorState;
+};
+
 type EditorPageProps = {
-  title: string;
+  /** What the page edits, as its labels say it: "station". */
+  noun: string;
+  /** The name of the record being edited; null on the new page. */
+  editing: string | null;
+  /** Heading and form name when not "New {noun}" / "Edit {noun} {name}". */
+  label?: string;
+  /** A heading other than the label. */
+  title?: string;
   lead?: string;
   state: FormState;
   fields: FieldSpec[];
-  submitLabel: string;
   cancelTo: string;
-  ariaLabel: string;
   /** The form's fields. */
   children: ReactNode;
   /** Cards below the form (an edit page's delete card). */
   below?: ReactNode;
 };
 
-/** The editor's page: header, the save form in a card, and the cards below it. */
-export function EditorPage({
-  title,
-  lead,
-  state,
-  fields,
-  submitLabel,
-  cancelTo,
-  ariaLabel,
-  children,
-  below,
-}: EditorPageProps) {
+/** The editor's page: header, the save form in a card ("Add …" or "Save …"), and the cards below it. */
+export function Page({ noun, editing, label, title, lead, state, fields, cancelTo, children, below }: EditorPageProps) {
   const navigation = useNavigation();
   const busy = navigation.state === "submitting" && navigation.formData?.get("intent") === "save";
+  const name = label ?? (editing === null ? `New ${noun}` : `Edit ${noun} ${editing}`);
   const form = (
     <Card>
-      <Form method="post" noValidate aria-label={ariaLabel} className="space-y-5">
+      <Form method="post" noValidate aria-label={name} className="space-y-5">
         <input type="hidden" name="intent" value="save" />
         <FormErrors errors={summary(state, labelsOf(fields))} />
         {children}
         <div className="flex flex-wrap gap-3">
           <Button type="submit" disabled={busy}>
-            {busy ? "Saving…" : submitLabel}
+            {busy ? "Saving…" : `${editing === null ? "Add" : "Save"} ${noun}`}
           </Button>
           <Link to={cancelTo} className={buttonClass("secondary")}>
             Cancel
@@ -117,7 +119,7 @@ export function EditorPage({
   );
   return (
     <>
-      <PageHeader title={title} lead={lead} />
+      <PageHeader title={title ?? name} lead={lead} />
       {below ? (
         <div className="grid grid-cols-1 gap-6">
           {form}
@@ -172,4 +174,4 @@ export function NoSiteYet({ title, children }: { title: string; children: ReactN
 }
 
 /** A registry page's meta: "{what} — Array registry — Fringe Docket". */
-export const registryTitle = (what: string) => [{ title: `${what} — Array registry — Fringe Docket` }];
+export const meta = (what: string) => [{ title: `${what} — Array registry — Fringe Docket` }];

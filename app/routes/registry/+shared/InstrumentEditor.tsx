@@ -4,14 +4,13 @@ import { ButtonLink, Card, type Column, DataTable, EmptyState } from "~/componen
 import { metresToMicrons } from "~/services/registry/schemas";
 import type { Route as EditRoute } from "../instruments/+types/edit";
 import type { Route as NewRoute } from "../instruments/+types/new";
-import { DeleteCard, defaultsOf, EditorPage, FieldList, NoSiteYet, registryTitle } from "./EditorPage";
-import type { EditorState } from "./editor.server";
+import * as Editor from "./EditorPage";
 import { INSTRUMENT_FIELDS } from "./fields";
 import { overviewHref } from "./links";
 
-export const newInstrumentMeta = () => registryTitle("New instrument");
+export const newInstrumentMeta = () => Editor.meta("New instrument");
 export const editInstrumentMeta = ({ data }: EditRoute.MetaArgs) =>
-  registryTitle(`Edit ${data?.instrument.name ?? "instrument"}`);
+  Editor.meta(`Edit ${data?.instrument.name ?? "instrument"}`);
 
 type EditData = EditRoute.ComponentProps["loaderData"];
 type BandRow = EditData["instrument"]["bands"][number];
@@ -68,58 +67,46 @@ function BandsCard({ instrument }: { instrument: EditData["instrument"] }) {
   );
 }
 
-type Props = { loaderData: NewRoute.ComponentProps["loaderData"] | EditData; actionData?: EditorState };
-
-export function InstrumentEditor({ loaderData, actionData }: Props) {
-  if (!("instrument" in loaderData)) {
-    const { site } = loaderData;
-    if (!site) return <NoSiteYet title="New instrument">Instruments belong to a site.</NoSiteYet>;
-    return (
-      <EditorPage
-        title="New instrument"
-        lead={`A beam combiner at ${site.name}. Its bands come next.`}
-        state={actionData}
-        fields={INSTRUMENT_FIELDS}
-        submitLabel="Add instrument"
-        cancelTo={overviewHref(site.id)}
-        ariaLabel="New instrument"
-      >
-        <input type="hidden" name="siteId" value={site.id} />
-        <div className="grid max-w-xl gap-4">
-          <FieldList specs={INSTRUMENT_FIELDS} state={actionData} defaults={{}} />
-        </div>
-      </EditorPage>
-    );
-  }
-  const { instrument, largest } = loaderData;
-  const bandCount = instrument.bands.length;
-  const below = (
+export function InstrumentEditor({
+  loaderData,
+  actionData,
+}: Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>) {
+  const edit = "instrument" in loaderData ? loaderData : null;
+  const site = "site" in loaderData ? loaderData.site : null;
+  if (!edit && !site) return <Editor.NoSiteYet title="New instrument">Instruments belong to a site.</Editor.NoSiteYet>;
+  const instrument = edit?.instrument ?? null;
+  const largest = edit?.largest;
+  const below = instrument ? (
     <>
       <BandsCard instrument={instrument} />
-      <DeleteCard title="Delete this instrument" buttonLabel={`Delete ${instrument.name}`}>
-        Its {bandCount} band{bandCount === 1 ? "" : "s"} go with it. This cannot be undone.
-      </DeleteCard>
+      <Editor.DeleteCard title="Delete this instrument" buttonLabel={`Delete ${instrument.name}`}>
+        Its {instrument.bands.length} band{instrument.bands.length === 1 ? "" : "s"} go with it. This cannot be undone.
+      </Editor.DeleteCard>
     </>
-  );
+  ) : undefined;
   return (
-    <EditorPage
-      title={`Edit instrument ${instrument.name}`}
-      lead={`A beam combiner at ${loaderData.siteName}.`}
+    <Editor.Page
+      noun="instrument"
+      editing={instrument?.name ?? null}
+      lead={edit ? `A beam combiner at ${edit.siteName}.` : `A beam combiner at ${site?.name}. Its bands come next.`}
       state={actionData}
       fields={INSTRUMENT_FIELDS}
-      submitLabel="Save instrument"
-      cancelTo={overviewHref(instrument.siteId)}
-      ariaLabel={`Edit instrument ${instrument.name}`}
+      cancelTo={overviewHref(instrument?.siteId ?? site?.id)}
       below={below}
     >
+      {site ? <input type="hidden" name="siteId" value={site.id} /> : null}
       <div className="grid max-w-xl gap-4">
-        <FieldList specs={INSTRUMENT_FIELDS} state={actionData} defaults={defaultsOf(instrument, INSTRUMENT_FIELDS)} />
+        <Editor.FieldList
+          specs={INSTRUMENT_FIELDS}
+          state={actionData}
+          defaults={instrument ? Editor.defaultsOf(instrument, INSTRUMENT_FIELDS) : {}}
+        />
       </div>
-      {largest && largest.size > instrument.maxTelescopes ? (
+      {instrument && largest && largest.size > instrument.maxTelescopes ? (
         <p className="text-sm font-medium text-caution-700">
           The largest configuration, {largest.name}, has {largest.size} stations: more than this instrument combines.
         </p>
       ) : null}
-    </EditorPage>
+    </Editor.Page>
   );
 }

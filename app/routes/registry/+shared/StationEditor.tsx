@@ -2,24 +2,14 @@
 import { useState } from "react";
 import type { Route as EditRoute } from "../stations/+types/edit";
 import type { Route as NewRoute } from "../stations/+types/new";
-import {
-  type Defaults,
-  DeleteCard,
-  defaultsOf,
-  EditorPage,
-  FieldList,
-  type FormState,
-  NoSiteYet,
-  registryTitle,
-} from "./EditorPage";
-import type { EditorState } from "./editor.server";
+import * as Editor from "./EditorPage";
 import { STATION_FIELDS, STATION_NAME_FIELD, STATION_POSITION_FIELDS } from "./fields";
 import { overviewHref, stationHref } from "./links";
 import { type MapStation, StationMap } from "./StationMap";
 
-export const newStationMeta = () => registryTitle("New station");
+export const newStationMeta = () => Editor.meta("New station");
 export const editStationMeta = ({ data }: EditRoute.MetaArgs) =>
-  registryTitle(`Edit station ${data?.station.name ?? ""}`);
+  Editor.meta(`Edit station ${data?.station.name ?? ""}`);
 
 /** The nearest neighbours of the station being edited, so the plan starts framed on it; null for a new one. */
 function framing(stations: MapStation[], editing: string | null) {
@@ -37,8 +27,8 @@ function StationFields({
   stations,
   editing,
 }: {
-  state: FormState;
-  defaults: Defaults;
+  state: Editor.FormState;
+  defaults: Editor.Defaults;
   stations: MapStation[];
   /** The station being edited (drawn only at its typed position), or null for a new one. */
   editing: string | null;
@@ -63,9 +53,9 @@ function StationFields({
       }}
     >
       <div className="grid content-start gap-4">
-        <FieldList specs={[STATION_NAME_FIELD]} state={state} defaults={defaults} />
+        <Editor.FieldList specs={[STATION_NAME_FIELD]} state={state} defaults={defaults} />
         <div className="grid grid-cols-2 gap-4">
-          <FieldList specs={STATION_POSITION_FIELDS} state={state} defaults={defaults} />
+          <Editor.FieldList specs={STATION_POSITION_FIELDS} state={state} defaults={defaults} />
         </div>
         <p className="text-sm text-night-600">
           East, north and up are metres from the array's reference point; the path offset is the station's fixed extra
@@ -83,41 +73,10 @@ function StationFields({
   );
 }
 
-type Props = {
-  loaderData: NewRoute.ComponentProps["loaderData"] | EditRoute.ComponentProps["loaderData"];
-  actionData?: EditorState;
-};
-
-export function StationEditor({ loaderData, actionData }: Props) {
-  if (!("station" in loaderData)) {
-    const { site } = loaderData;
-    if (!site) return <NoSiteYet title="New station">Stations are placed relative to a site.</NoSiteYet>;
-    return (
-      <EditorPage
-        title="New station"
-        lead={`A station of ${site.name}. The map shows where it falls among the others as you type.`}
-        state={actionData}
-        fields={STATION_FIELDS}
-        submitLabel="Add station"
-        cancelTo={overviewHref(site.id)}
-        ariaLabel="New station"
-      >
-        <input type="hidden" name="siteId" value={site.id} />
-        <StationFields
-          state={actionData}
-          defaults={{ upM: "0", pathOffsetM: "0" }}
-          stations={loaderData.stations}
-          editing={null}
-        />
-      </EditorPage>
-    );
-  }
-  const { station, usedBy } = loaderData;
-  const defaults = defaultsOf(station, STATION_FIELDS);
-  const refused = actionData?.deleteRefused;
-  const saveState = refused ? null : actionData;
-  const deleteCard = (
-    <DeleteCard title="Delete this station" buttonLabel={`Delete ${station.name}`}>
+/** A station's delete card: refused, and why, while a configuration uses it. */
+function DeleteStationCard({ name, usedBy, refused }: { name: string; usedBy: string[]; refused?: string | null }) {
+  return (
+    <Editor.DeleteCard title="Delete this station" buttonLabel={`Delete ${name}`}>
       {refused ? (
         <p
           role="alert"
@@ -129,20 +88,45 @@ export function StationEditor({ loaderData, actionData }: Props) {
       {usedBy.length > 0
         ? `Used by ${usedBy.join(", ")}: a station in a configuration cannot be deleted.`
         : "No configuration uses this station. Deleting it cannot be undone."}
-    </DeleteCard>
+    </Editor.DeleteCard>
   );
+}
+
+export function StationEditor({
+  loaderData,
+  actionData,
+}: Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>) {
+  const edit = "station" in loaderData ? loaderData : null;
+  const site = "site" in loaderData ? loaderData.site : null;
+  if (!edit && !site)
+    return <Editor.NoSiteYet title="New station">Stations are placed relative to a site.</Editor.NoSiteYet>;
+  const station = edit?.station ?? null;
+  const saveState = actionData?.deleteRefused ? null : actionData;
   return (
-    <EditorPage
-      title={`Edit station ${station.name}`}
-      lead={`A station of ${loaderData.siteName}. Configurations that use it follow its new position.`}
+    <Editor.Page
+      noun="station"
+      editing={station?.name ?? null}
+      lead={
+        edit
+          ? `A station of ${edit.siteName}. Configurations that use it follow its new position.`
+          : `A station of ${site?.name}. The map shows where it falls among the others as you type.`
+      }
       state={saveState}
       fields={STATION_FIELDS}
-      submitLabel="Save station"
-      cancelTo={stationHref(station.id)}
-      ariaLabel={`Edit station ${station.name}`}
-      below={deleteCard}
+      cancelTo={station ? stationHref(station.id) : overviewHref(site?.id)}
+      below={
+        edit ? (
+          <DeleteStationCard name={edit.station.name} usedBy={edit.usedBy} refused={actionData?.deleteRefused} />
+        ) : undefined
+      }
     >
-      <StationFields state={saveState} defaults={defaults} stations={loaderData.stations} editing={station.name} />
-    </EditorPage>
+      {site ? <input type="hidden" name="siteId" value={site.id} /> : null}
+      <StationFields
+        state={saveState}
+        defaults={station ? Editor.defaultsOf(station, STATION_FIELDS) : { upM: "0", pathOffsetM: "0" }}
+        stations={loaderData.stations}
+        editing={station?.name ?? null}
+      />
+    </Editor.Page>
   );
 }

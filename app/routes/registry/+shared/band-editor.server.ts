@@ -4,28 +4,28 @@ import type { Database } from "~/db/client.server";
 import { deleteRecord, insertRecord, updateRecord } from "~/services/registry/commands.server";
 import { getBand } from "~/services/registry/queries.server";
 import { BandFormSchema, micronsToMetres } from "~/services/registry/schemas";
-import { deleteUnlessReferenced, editorAction, editorDb, formValues, loadOr404, saveRecord } from "./editor.server";
+import * as editor from "./editor.server";
 import { BAND_FIELDS, namesOf } from "./fields";
 import { loadInstrument } from "./instrument-editor.server";
 import { instrumentHref } from "./links";
 
-const loadBand = (db: Database, params: Params) => loadOr404(db, "band", params.bandId, getBand);
+const loadBand = (db: Database, params: Params) => editor.loadOr404(db, "band", params.bandId, getBand);
 type Band = Awaited<ReturnType<typeof loadBand>>["band"];
 type Instrument = { id: number; name: string };
 
 export async function newBandLoader(args: LoaderFunctionArgs) {
-  const instrument = await loadInstrument(await editorDb(args), args.params);
+  const instrument = await loadInstrument(await editor.adminDb(args), args.params);
   return { instrument: { id: instrument.id, name: instrument.name } };
 }
 
 export async function editBandLoader(args: LoaderFunctionArgs) {
-  const { band, instrument } = await loadBand(await editorDb(args), args.params);
+  const { band, instrument } = await loadBand(await editor.adminDb(args), args.params);
   return { band, instrument: { id: instrument.id, name: instrument.name } };
 }
 
 /** Saves a band typed in micrometres; it is kept in metres. */
 function save(db: Database, form: FormData, instrument: Instrument, band: Band | null) {
-  return saveRecord(db, formValues(form, namesOf(BAND_FIELDS)), {
+  return editor.saveRecord(db, editor.formValues(form, namesOf(BAND_FIELDS)), {
     schema: BandFormSchema,
     unique: { entity: "band", scopeId: instrument.id, exceptId: band?.id },
     taken: (name) => `${instrument.name} already has a band named ${name}`,
@@ -45,14 +45,16 @@ function save(db: Database, form: FormData, instrument: Instrument, band: Band |
   });
 }
 
-export const newBandAction = editorAction(loadInstrument, { save: ({ db, form, row }) => save(db, form, row, null) });
+export const newBandAction = editor.action(loadInstrument, { save: ({ db, form, row }) => save(db, form, row, null) });
 
-export const editBandAction = editorAction(loadBand, {
+export const editBandAction = editor.action(loadBand, {
   save: ({ db, form, row }) => save(db, form, row.instrument, row.band),
   delete: ({ db, row: { band, instrument } }) =>
-    deleteUnlessReferenced(
+    editor.deleteUnlessReferenced(
       () => deleteRecord(db, { entity: "band", id: band.id }),
-      { form: `band ${band.name} is still referred to elsewhere (for example by proposals); nothing was deleted` },
+      {
+        form: `band ${band.name} is still referred to elsewhere (for example by proposals); editor.nothing was deleted`,
+      },
       { to: instrumentHref(instrument.id), text: `Band ${band.name} deleted from ${instrument.name}.` },
     ),
 });

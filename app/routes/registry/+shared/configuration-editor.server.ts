@@ -4,23 +4,12 @@ import type { Database } from "~/db/client.server";
 import { deleteRecord, saveConfiguration } from "~/services/registry/commands.server";
 import { getConfiguration, siteMap, widestInstrument } from "~/services/registry/queries.server";
 import { ConfigurationSchema } from "~/services/registry/schemas";
-import {
-  deleteUnlessReferenced,
-  editorAction,
-  editorDb,
-  type FormValues,
-  formValues,
-  loadOr404,
-  newAtSiteAction,
-  saveRecord,
-  siteName,
-  siteOfPage,
-} from "./editor.server";
+import * as editor from "./editor.server";
 import { CONFIGURATION_FIELDS, namesOf } from "./fields";
 import { overviewHref } from "./links";
 
 const loadConfiguration = (db: Database, params: Params) =>
-  loadOr404(db, "configuration", params.configurationId, getConfiguration);
+  editor.loadOr404(db, "configuration", params.configurationId, getConfiguration);
 type Configuration = Awaited<ReturnType<typeof loadConfiguration>>;
 
 /** The site plan and the widest instrument, for the station list's map and warning. */
@@ -30,36 +19,36 @@ async function siteFigures(db: Database, siteId: number) {
 }
 
 export async function newConfigurationLoader(args: LoaderFunctionArgs) {
-  const db = await editorDb(args);
-  const site = await siteOfPage(db, args.url);
+  const db = await editor.adminDb(args);
+  const site = await editor.siteOfPage(db, args.url);
   if (!site) return { site, stations: [], widest: 0 };
   const { stations, widest } = await siteFigures(db, site.id);
   return { site, stations, widest };
 }
 
 export async function editConfigurationLoader(args: LoaderFunctionArgs) {
-  const db = await editorDb(args);
+  const db = await editor.adminDb(args);
   const configuration = await loadConfiguration(db, args.params);
   return { configuration, ...(await siteFigures(db, configuration.siteId)) };
 }
 
 /** The form as typed; an unticked checkbox sends nothing: not offered. */
-const readConfiguration = (form: FormData): FormValues => ({
-  ...formValues(form, namesOf(CONFIGURATION_FIELDS)),
+const readConfiguration = (form: FormData): editor.FormValues => ({
+  ...editor.formValues(form, namesOf(CONFIGURATION_FIELDS)),
   offered: form.get("offered") === "on" ? "on" : "off",
 });
 
-function save(db: Database, values: FormValues, siteId: number, configuration: Configuration | null) {
-  return saveRecord(db, values, {
+function save(db: Database, values: editor.FormValues, siteId: number, configuration: Configuration | null) {
+  return editor.saveRecord(db, values, {
     schema: ConfigurationSchema,
     unique: { entity: "configuration", scopeId: siteId, exceptId: configuration?.id },
-    taken: async (name) => `${name} is already a configuration at ${await siteName(db, siteId)}`,
+    taken: async (name) => `${name} is already a configuration at ${await editor.siteName(db, siteId)}`,
     write: async (record) => {
       const saved = await saveConfiguration(db, { siteId, id: configuration?.id, values: record });
       if (!saved.ok) {
         const unknown = saved.unknownStations;
         const are = unknown.length > 1 ? "are not stations" : "is not a station";
-        return { refused: { stations: `${unknown.join(", ")} ${are} at ${await siteName(db, siteId)}` } };
+        return { refused: { stations: `${unknown.join(", ")} ${are} at ${await editor.siteName(db, siteId)}` } };
       }
       const widest = await widestInstrument(db, { siteId });
       const size = record.stations.length;
@@ -73,14 +62,14 @@ function save(db: Database, values: FormValues, siteId: number, configuration: C
   });
 }
 
-export const newConfigurationAction = newAtSiteAction(readConfiguration, (db, values, siteId) =>
+export const newConfigurationAction = editor.newAtSiteAction(readConfiguration, (db, values, siteId) =>
   save(db, values, siteId, null),
 );
 
-export const editConfigurationAction = editorAction(loadConfiguration, {
+export const editConfigurationAction = editor.action(loadConfiguration, {
   save: ({ db, form, row }) => save(db, readConfiguration(form), row.siteId, row),
   delete: ({ db, row }) =>
-    deleteUnlessReferenced(
+    editor.deleteUnlessReferenced(
       () => deleteRecord(db, { entity: "configuration", id: row.id }),
       {
         form: `${row.name} is still referred to elsewhere (for example by proposals or a cycle); withdraw it from those first, or untick “Offered” instead`,

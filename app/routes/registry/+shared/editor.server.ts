@@ -1,5 +1,5 @@
 /**
- * The one skeleton of the registry's editors (site, station, configuration, instrument, band), for
+ * The one skeleton of the registry's editors (read it as a namespace: `import * as editor`) (site, station, configuration, instrument, band), for
  * creating and editing alike: the administrator's guard, the record named by the address or a 404,
  * the post read through the capped reader, the values checked by the feature's schemas, a name
  * already taken answered on the name field (checked first, and again should the insert hit the
@@ -34,7 +34,7 @@ export const sendOn = (done: Done) => redirectWithFlash(done.to, { kind: done.ki
 type Answer = Response | ReturnType<typeof refuse>;
 
 /** Every editor loader and action starts here: the administrator's guard, then the database. */
-export async function editorDb({ request, context }: LoaderFunctionArgs): Promise<Database> {
+export async function adminDb({ request, context }: LoaderFunctionArgs): Promise<Database> {
   await requirePermission(request, "registry:edit");
   return context.get(dbContext);
 }
@@ -82,12 +82,12 @@ const Intent = v.picklist(["save", "delete"], "Unknown action.");
  * An editor's action: guard, the record (`load` throws the 404), the post; an edit page (one with a
  * `delete` handler) also names its intent, save or delete.
  */
-export function editorAction<T>(
+export function action<T>(
   load: (db: Database, params: Params) => Promise<T>,
   handlers: { save: Handler<T>; delete?: Handler<T> },
 ) {
   return async (args: ActionFunctionArgs): Promise<Answer> => {
-    const db = await editorDb(args);
+    const db = await adminDb(args);
     const row = await load(db, args.params);
     const body = await readFormBody(args.request, { tooLargeMessage: "The form is too large to be a registry entry." });
     if (!body.ok) return refuse({ form: body.error }, {}, body.status);
@@ -110,7 +110,7 @@ export function newAtSiteAction(
   read: (form: FormData) => FormValues,
   save: (db: Database, values: FormValues, siteId: number) => Promise<Answer>,
 ) {
-  return editorAction(nothing, {
+  return action(nothing, {
     save: async ({ db, form }) => {
       const values = read(form);
       const id = toId(formText(form, "siteId"));

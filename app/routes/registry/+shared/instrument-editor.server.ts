@@ -4,32 +4,21 @@ import type { Database } from "~/db/client.server";
 import { deleteRecord, insertRecord, updateRecord } from "~/services/registry/commands.server";
 import { getInstrument, getSite, largestConfiguration } from "~/services/registry/queries.server";
 import { InstrumentSchema } from "~/services/registry/schemas";
-import {
-  deleteUnlessReferenced,
-  editorAction,
-  editorDb,
-  type FormValues,
-  formValues,
-  loadOr404,
-  newAtSiteAction,
-  saveRecord,
-  siteName,
-  siteOfPage,
-} from "./editor.server";
+import * as editor from "./editor.server";
 import { INSTRUMENT_FIELDS, namesOf } from "./fields";
 import { instrumentHref, overviewHref } from "./links";
 
 /** The instrument a route parameter names, with its bands; or the 404 page. */
 export const loadInstrument = (db: Database, params: Params) =>
-  loadOr404(db, "instrument", params.instrumentId, getInstrument);
+  editor.loadOr404(db, "instrument", params.instrumentId, getInstrument);
 type Instrument = Awaited<ReturnType<typeof loadInstrument>>;
 
 export async function newInstrumentLoader(args: LoaderFunctionArgs) {
-  return { site: await siteOfPage(await editorDb(args), args.url) };
+  return { site: await editor.siteOfPage(await editor.adminDb(args), args.url) };
 }
 
 export async function editInstrumentLoader(args: LoaderFunctionArgs) {
-  const db = await editorDb(args);
+  const db = await editor.adminDb(args);
   const instrument = await loadInstrument(db, args.params);
   const [site, largest] = await Promise.all([
     getSite(db, { id: instrument.siteId }),
@@ -38,12 +27,12 @@ export async function editInstrumentLoader(args: LoaderFunctionArgs) {
   return { instrument, siteName: site?.name ?? "", largest };
 }
 
-function save(db: Database, values: FormValues, siteId: number, instrument: Instrument | null) {
-  return saveRecord(db, values, {
+function save(db: Database, values: editor.FormValues, siteId: number, instrument: Instrument | null) {
+  return editor.saveRecord(db, values, {
     schema: InstrumentSchema,
     unique: { entity: "instrument", scopeId: siteId, exceptId: instrument?.id },
     taken: async (name) =>
-      `${name} is already an instrument at ${instrument ? "this site" : await siteName(db, siteId)}`,
+      `${name} is already an instrument at ${instrument ? "this site" : await editor.siteName(db, siteId)}`,
     write: async (record) => {
       if (instrument) {
         await updateRecord(db, { entity: "instrument", id: instrument.id, values: record });
@@ -55,19 +44,19 @@ function save(db: Database, values: FormValues, siteId: number, instrument: Inst
   });
 }
 
-const readInstrument = (form: FormData) => formValues(form, namesOf(INSTRUMENT_FIELDS));
+const readInstrument = (form: FormData) => editor.formValues(form, namesOf(INSTRUMENT_FIELDS));
 
-export const newInstrumentAction = newAtSiteAction(readInstrument, (db, values, siteId) =>
+export const newInstrumentAction = editor.newAtSiteAction(readInstrument, (db, values, siteId) =>
   save(db, values, siteId, null),
 );
 
-export const editInstrumentAction = editorAction(loadInstrument, {
+export const editInstrumentAction = editor.action(loadInstrument, {
   save: ({ db, form, row }) => save(db, readInstrument(form), row.siteId, row),
   delete: ({ db, row }) =>
-    deleteUnlessReferenced(
+    editor.deleteUnlessReferenced(
       () => deleteRecord(db, { entity: "instrument", id: row.id }),
       {
-        form: `${row.name} or one of its bands is still referred to elsewhere (for example by proposals); nothing was deleted`,
+        form: `${row.name} or one of its bands is still referred to elsewhere (for example by proposals); editor.nothing was deleted`,
       },
       { to: overviewHref(row.siteId), text: `Instrument ${row.name} and its bands deleted.` },
     ),

@@ -4,37 +4,27 @@ import type { Database } from "~/db/client.server";
 import { deleteSite, insertRecord, updateRecord } from "~/services/registry/commands.server";
 import { getSite, siteContents } from "~/services/registry/queries.server";
 import { SiteSchema } from "~/services/registry/schemas";
-import {
-  deleteUnlessReferenced,
-  editorAction,
-  editorDb,
-  formText,
-  formValues,
-  loadOr404,
-  nothing,
-  refuse,
-  saveRecord,
-} from "./editor.server";
+import * as editor from "./editor.server";
 import { namesOf, SITE_FIELDS } from "./fields";
 import { overviewHref } from "./links";
 
 const timeZones = () => Intl.supportedValuesOf("timeZone");
-const loadSite = (db: Database, params: Params) => loadOr404(db, "site", params.siteId, getSite);
+const loadSite = (db: Database, params: Params) => editor.loadOr404(db, "site", params.siteId, getSite);
 type Site = Awaited<ReturnType<typeof loadSite>>;
 
 export async function newSiteLoader(args: LoaderFunctionArgs) {
-  await editorDb(args);
+  await editor.adminDb(args);
   return { timeZones: timeZones() };
 }
 
 export async function editSiteLoader(args: LoaderFunctionArgs) {
-  const db = await editorDb(args);
+  const db = await editor.adminDb(args);
   const site = await loadSite(db, args.params);
   return { site, contents: await siteContents(db, { siteId: site.id }), timeZones: timeZones() };
 }
 
 function saveSite(db: Database, form: FormData, site: Site | null) {
-  return saveRecord(db, formValues(form, namesOf(SITE_FIELDS)), {
+  return editor.saveRecord(db, editor.formValues(form, namesOf(SITE_FIELDS)), {
     schema: SiteSchema,
     unique: { entity: "site", exceptId: site?.id },
     taken: (name) => `a site named ${name} already exists`,
@@ -51,23 +41,23 @@ function saveSite(db: Database, form: FormData, site: Site | null) {
 
 /** Deletes the site with everything at it, once its name is typed to confirm. */
 async function removeSite({ db, form, row: site }: { db: Database; form: FormData; row: Site }) {
-  const confirmName = formText(form, "confirmName").trim();
+  const confirmName = editor.formText(form, "confirmName").trim();
   if (confirmName !== site.name)
-    return refuse({ confirmName: `type the site's name, ${site.name}, to confirm` }, { confirmName });
-  return deleteUnlessReferenced(
+    return editor.refuse({ confirmName: `type the site's name, ${site.name}, to confirm` }, { confirmName });
+  return editor.deleteUnlessReferenced(
     () => deleteSite(db, { siteId: site.id }),
     {
       confirmName:
-        "other records (such as proposals or cycles) still refer to this site's configurations or instruments; nothing was deleted",
+        "other records (such as proposals or cycles) still refer to this site's configurations or instruments; editor.nothing was deleted",
     },
     { to: overviewHref(), text: `Site ${site.name} and everything registered at it were deleted.` },
     { confirmName },
   );
 }
 
-export const newSiteAction = editorAction(nothing, { save: ({ db, form }) => saveSite(db, form, null) });
+export const newSiteAction = editor.action(editor.nothing, { save: ({ db, form }) => saveSite(db, form, null) });
 
-export const editSiteAction = editorAction(loadSite, {
+export const editSiteAction = editor.action(loadSite, {
   save: ({ db, form, row }) => saveSite(db, form, row),
   delete: removeSite,
 });
