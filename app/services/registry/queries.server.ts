@@ -9,43 +9,31 @@ export async function listSites(db: Database) {
   return db.select().from(sites).orderBy(asc(sites.name));
 }
 
+/** A configuration's station list, in order, as the relational query reads it. */
+const memberNames = {
+  orderBy: asc(configurationStations.position),
+  columns: { position: true },
+  with: { station: { columns: { name: true } } },
+} as const;
+
+/** A configuration row with its station names in order (baseline i–j is station j minus station i). */
+function withStationNames<C extends { stations: { station: { name: string } }[] }>({ stations: members, ...row }: C) {
+  return { ...row, stationNames: members.map((m) => m.station.name) };
+}
+
 /** One site with its stations, configurations (stations in order) and instruments with bands. */
 export async function loadSiteRegistry(db: DbOrTx, siteId: number) {
-  const [site] = await db.select().from(sites).where(eq(sites.id, siteId));
-  if (!site) return null;
-  const [stationRows, configRows, memberRows, instrumentRows, bandRows] = await Promise.all([
-    db.select().from(stations).where(eq(stations.siteId, siteId)).orderBy(asc(stations.name)),
-    db.select().from(configurations).where(eq(configurations.siteId, siteId)).orderBy(asc(configurations.name)),
-    db
-      .select({
-        configurationId: configurationStations.configurationId,
-        position: configurationStations.position,
-        stationName: stations.name,
-      })
-      .from(configurationStations)
-      .innerJoin(stations, eq(stations.id, configurationStations.stationId))
-      .where(eq(stations.siteId, siteId))
-      .orderBy(asc(configurationStations.position)),
-    db.select().from(instruments).where(eq(instruments.siteId, siteId)).orderBy(asc(instruments.name)),
-    db
-      .select({ band: bands })
-      .from(bands)
-      .innerJoin(instruments, eq(instruments.id, bands.instrumentId))
-      .where(eq(instruments.siteId, siteId))
-      .orderBy(asc(bands.centralWavelengthM)),
-  ]);
-  return {
-    site,
-    stations: stationRows,
-    configurations: configRows.map((c) => ({
-      ...c,
-      stationNames: memberRows.filter((m) => m.configurationId === c.id).map((m) => m.stationName),
-    })),
-    instruments: instrumentRows.map((i) => ({
-      ...i,
-      bands: bandRows.filter((b) => b.band.instrumentId === i.id).map((b) => b.band),
-    })),
-  };
+  const found = await db.query.sites.findFirst({
+    where: eq(sites.id, siteId),
+    with: {
+      stations: { orderBy: asc(stations.name) },
+      configurations: { orderBy: asc(configurations.name), with: { stations: memberNames } },
+      instruments: { orderBy: asc(instruments.name), with: { bands: { orderBy: asc(bands.centralWavelengthM) } } },
+    },
+  });
+  if (!found) return null;
+  const { stations: stationRows, configurations: configRows, instruments: instrumentRows, ...site } = found;
+  return { site, stations: stationRows, configurations: configRows.map(withStationNames), instruments: instrumentRows };
 }
 
 export type SiteRegistry = NonNullable<Awaited<ReturnType<typeof loadSiteRegistry>>>;
@@ -123,15 +111,11 @@ export async function configurationsUsingStation(db: DbOrTx, { stationId }: { st
 }
 
 export async function getConfiguration(db: DbOrTx, { id }: { id: number }) {
-  const [row] = await db.select().from(configurations).where(eq(configurations.id, id));
-  if (!row) return null;
-  const members = await db
-    .select({ name: stations.name })
-    .from(configurationStations)
-    .innerJoin(stations, eq(stations.id, configurationStations.stationId))
-    .where(eq(configurationStations.configurationId, id))
-    .orderBy(asc(configurationStations.position));
-  return { ...row, stationNames: members.map((m) => m.name) };
+  const row = await db.query.configurations.findFirst({
+    where: eq(configurations.id, id),
+    with: { stations: memberNames },
+  });
+  return row ? withStationNames(row) : null;
 }
 
 /** The most telescopes any instrument of the site combines (0 without instruments). */
@@ -158,23 +142,19 @@ export async function largestConfiguration(db: DbOrTx, { siteId }: { siteId: num
 }
 
 export async function getInstrument(db: DbOrTx, { id }: { id: number }) {
-  const [row] = await db.select().from(instruments).where(eq(instruments.id, id));
-  if (!row) return null;
-  const bandRows = await db
-    .select()
-    .from(bands)
-    .where(eq(bands.instrumentId, id))
-    .orderBy(asc(bands.centralWavelengthM));
-  return { ...row, bands: bandRows };
+  const row = await db.query.instruments.findFirst({
+    where: eq(instruments.id, id),
+    with: { bands: { orderBy: asc(bands.centralWavelengthM) } },
+  });
+  return row ?? null;
 }
 
+/** A band with the instrument it belongs to. */
 export async function getBand(db: DbOrTx, { id }: { id: number }) {
-  const [row] = await db
-    .select({ band: bands, instrument: instruments })
-    .from(bands)
-    .innerJoin(instruments, eq(instruments.id, bands.instrumentId))
-    .where(eq(bands.id, id));
-  return row ?? null;
+  const row = await db.query.bands.findFirst({ where: eq(bands.id, id), with: { instrument: true } });
+  if (!row) return null;
+  const { instrument, ...band } = row;
+  return { band, instrument };
 }
 
 /** Each registry record is named uniquely within its scope: the site (or, for a band, its instrument). */

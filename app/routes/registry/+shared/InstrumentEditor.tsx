@@ -4,6 +4,7 @@ import { ButtonLink, Card, type Column, DataTable, EmptyState } from "~/componen
 import { metresToMicrons } from "~/services/registry/schemas";
 import type { Route as EditRoute } from "../instruments/+types/edit";
 import type { Route as NewRoute } from "../instruments/+types/new";
+import { bandColumns as bandFigures } from "./columns";
 import * as Editor from "./EditorPage";
 import { INSTRUMENT_FIELDS } from "./fields";
 import { overviewHref } from "./links";
@@ -30,16 +31,7 @@ const bandColumns: Column<BandRow>[] = [
       </Link>
     ),
   },
-  {
-    key: "wavelength",
-    header: "Central wavelength",
-    unit: "µm",
-    align: "right",
-    value: (b) => metresToMicrons(b.centralWavelengthM),
-  },
-  { key: "bandwidth", header: "Bandwidth", unit: "µm", align: "right", value: (b) => metresToMicrons(b.bandwidthM) },
-  { key: "channels", header: "Channels", align: "right", value: (b) => b.channels },
-  { key: "limit", header: "Limiting magnitude", unit: "mag", align: "right", value: (b) => b.limitingMagnitude },
+  ...bandFigures<BandRow>(metresToMicrons),
 ];
 
 function BandsCard({ instrument }: { instrument: EditData["instrument"] }) {

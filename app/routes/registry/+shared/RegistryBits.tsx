@@ -7,17 +7,21 @@ export const linkClass = "font-medium text-ember-800 underline-offset-2 hover:un
 export function FactList({
   facts,
   className,
+  itemClassName,
   valueClassName,
+  label,
 }: {
   facts: [label: string, value: string, wide?: boolean][];
   className: string;
+  itemClassName?: string;
   valueClassName: string;
+  label?: string;
 }) {
   return (
-    <dl className={className}>
-      {facts.map(([label, value, wide]) => (
-        <div key={label} className={wide ? "col-span-2" : undefined}>
-          <dt className="text-sm text-night-600">{label}</dt>
+    <dl className={className} aria-label={label}>
+      {facts.map(([name, value, wide]) => (
+        <div key={name} className={cx(itemClassName, wide && "col-span-2") || undefined}>
+          <dt className="text-sm text-night-600">{name}</dt>
           <dd className={cx("num", valueClassName)}>{value}</dd>
         </div>
       ))}

@@ -6,6 +6,7 @@
 import { useMemo, useState } from "react";
 import { baseLayout, Plot, SERIES_COLOURS } from "~/components/plots/Plot";
 import { cx } from "~/components/ui";
+import { FactList } from "./RegistryBits";
 import {
   baselines,
   extent,
@@ -64,14 +65,13 @@ function Figures({
     }
   }
   return (
-    <dl className="grid gap-2 text-sm" aria-label={name ? `Figures of ${name}` : "Figures of the site"}>
-      {rows.map(([k, v]) => (
-        <div key={k} className="flex justify-between gap-3 border-b border-night-100 pb-1">
-          <dt className="text-night-600">{k}</dt>
-          <dd className="num text-right font-medium">{v}</dd>
-        </div>
-      ))}
-    </dl>
+    <FactList
+      facts={rows}
+      label={name ? `Figures of ${name}` : "Figures of the site"}
+      className="grid gap-2 text-sm"
+      itemClassName="flex justify-between gap-3 border-b border-night-100 pb-1"
+      valueClassName="text-right font-medium"
+    />
   );
 }
 

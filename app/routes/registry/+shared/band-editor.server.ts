@@ -53,7 +53,7 @@ export const editBandAction = editor.action(loadBand, {
     editor.deleteUnlessReferenced(
       () => deleteRecord(db, { entity: "band", id: band.id }),
       {
-        form: `band ${band.name} is still referred to elsewhere (for example by proposals); editor.nothing was deleted`,
+        form: `band ${band.name} is still referred to elsewhere (for example by proposals); nothing was deleted`,
       },
       { to: instrumentHref(instrument.id), text: `Band ${band.name} deleted from ${instrument.name}.` },
     ),

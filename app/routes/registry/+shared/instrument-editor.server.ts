@@ -56,7 +56,7 @@ export const editInstrumentAction = editor.action(loadInstrument, {
     editor.deleteUnlessReferenced(
       () => deleteRecord(db, { entity: "instrument", id: row.id }),
       {
-        form: `${row.name} or one of its bands is still referred to elsewhere (for example by proposals); editor.nothing was deleted`,
+        form: `${row.name} or one of its bands is still referred to elsewhere (for example by proposals); nothing was deleted`,
       },
       { to: overviewHref(row.siteId), text: `Instrument ${row.name} and its bands deleted.` },
     ),

@@ -48,7 +48,7 @@ async function removeSite({ db, form, row: site }: { db: Database; form: FormDat
     () => deleteSite(db, { siteId: site.id }),
     {
       confirmName:
-        "other records (such as proposals or cycles) still refer to this site's configurations or instruments; editor.nothing was deleted",
+        "other records (such as proposals or cycles) still refer to this site's configurations or instruments; nothing was deleted",
     },
     { to: overviewHref(), text: `Site ${site.name} and everything registered at it were deleted.` },
     { confirmName },

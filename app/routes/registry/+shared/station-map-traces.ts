@@ -75,22 +75,27 @@ export function frameRanges(points: MapPoint[] | null) {
   return { x: [cx - half, cx + half], y: [cy - half, cy + half] };
 }
 
+/** A scatter trace of stations at their east and north positions, named by `text`. */
+const atStations = (list: MapStation[], trace: Record<string, unknown>) => ({
+  type: "scatter",
+  x: list.map((s) => s.eastM),
+  y: list.map((s) => s.northM),
+  text: list.map((s) => s.name),
+  ...trace,
+});
+
 type PointStyle = { colour: string; textSize: number; marker: object; extra: string };
 
 /** One marked and named point: a ringed station, or a position being typed. */
-function pointTrace(name: string, point: MapPoint, text: string, { colour, textSize, marker, extra }: PointStyle) {
-  return {
-    type: "scatter",
+function pointTrace(name: string, point: MapStation, { colour, textSize, marker, extra }: PointStyle) {
+  return atStations([point], {
     mode: "markers+text",
     name,
-    x: [point.eastM],
-    y: [point.northM],
-    text: [text],
     textposition: "bottom center",
     textfont: { size: textSize, color: colour },
     marker: { color: colour, ...marker },
     hovertemplate: `<b>%{text}</b><br>${AT}<extra>${extra}</extra>`,
-  };
+  });
 }
 
 export type MapScene = {
@@ -117,28 +122,20 @@ export function mapTraces({ stations, shown, colour, focus, preview, nearest, sc
     (s, i) => !memberNames.has(s.name) && s.name !== focus && nearest[i] / scale >= LABEL_SPACING_PX,
   );
   const traces: Record<string, unknown>[] = [
-    {
-      type: "scatter",
+    atStations(stations, {
       mode: "markers",
       name: shown ? "Other stations" : "Stations",
-      x: stations.map((s) => s.eastM),
-      y: stations.map((s) => s.northM),
-      text: stations.map((s) => s.name),
       marker: { size: 8, color: shown ? "#a5b0c8" : STATION_GREY, line: { width: 1, color: "#ffffff" } },
       hovertemplate: `<b>%{text}</b><br>${AT}<extra></extra>`,
-    },
-    {
-      type: "scatter",
+    }),
+    atStations(labelled, {
       mode: "text",
       name: "Station names",
       showlegend: false,
       hoverinfo: "skip",
-      x: labelled.map((s) => s.eastM),
-      y: labelled.map((s) => s.northM),
-      text: labelled.map((s) => s.name),
       textposition: "top center",
       textfont: { size: 11, color: "#414c66" },
-    },
+    }),
   ];
   if (shown && members.length > 0) {
     const n = members.length;
@@ -152,31 +149,27 @@ export function mapTraces({ stations, shown, colour, focus, preview, nearest, sc
         opacity: 0.55,
         hoverinfo: "skip",
       },
-      {
-        type: "scatter",
+      atStations(members, {
         mode: "markers+text",
         name: `${shown.name}: ${n} stations`,
-        x: members.map((m) => m.eastM),
-        y: members.map((m) => m.northM),
-        text: members.map((m) => m.name),
         textposition: "top center",
         textfont: { size: 13, color: colour },
         marker: { size: 14, color: colour, line: { width: 2, color: "#ffffff" } },
         hovertemplate: `<b>%{text}</b><br>${AT}<extra>${shown.name}</extra>`,
-      },
+      }),
     );
   }
   const focused = focus ? byName.get(focus) : undefined;
   if (focused) {
     const marker = { size: 22, symbol: "circle-open", line: { width: 3 } };
     const style = { colour: FOCUS_COLOUR, textSize: 14, marker, extra: "" };
-    traces.push(pointTrace(`Station ${focused.name}`, focused, focused.name, style));
+    traces.push(pointTrace(`Station ${focused.name}`, focused, style));
   }
   if (preview && Number.isFinite(preview.eastM) && Number.isFinite(preview.northM)) {
     const marker = { size: 14, symbol: "diamond", line: { width: 2, color: "#ffffff" } };
     const style = { colour: PREVIEW_COLOUR, textSize: 13, marker, extra: "as typed" };
     const name = preview.name ? `${preview.name} (as typed)` : "Position as typed";
-    traces.push(pointTrace(name, preview, preview.name || "new", style));
+    traces.push(pointTrace(name, { ...preview, name: preview.name || "new" }, style));
   }
   return traces;
 }

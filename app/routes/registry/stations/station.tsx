@@ -4,6 +4,7 @@ import { dbContext } from "~/context";
 import { getViewer } from "~/lib/guards.server";
 import { idParam, invariantResponse } from "~/lib/not-found";
 import { stationWithRegistry } from "~/services/registry/queries.server";
+import { fixedColumn } from "../+shared/columns";
 import { overviewHref, stationHref } from "../+shared/links";
 import { FactList, linkClass, OfferedBadge } from "../+shared/RegistryBits";
 import { StationMap } from "../+shared/StationMap";
@@ -53,19 +54,6 @@ function baselinesFrom(station: Point, stations: Point[]): BaselineRow[] {
     .sort((a, b) => a.lengthM - b.lengthM);
 }
 
-/** A column of a baseline figure, shown and sorted to `digits` decimals. */
-function figure(key: keyof BaselineRow, header: string, unit: string, digits: number): Column<BaselineRow> {
-  const round = (x: number) => Math.round(x * 10 ** digits) / 10 ** digits;
-  return {
-    key,
-    header,
-    unit,
-    align: "right",
-    value: (b) => round(b[key] as number),
-    render: (b) => (b[key] as number).toFixed(digits),
-  };
-}
-
 const baselineColumns: Column<BaselineRow>[] = [
   {
     key: "to",
@@ -77,12 +65,12 @@ const baselineColumns: Column<BaselineRow>[] = [
       </Link>
     ),
   },
-  figure("lengthM", "Length", "m", 2),
-  figure("groundM", "On the ground", "m", 2),
-  figure("paDeg", "Direction, east of north", "°", 1),
-  figure("dE", "East", "m", 2),
-  figure("dN", "North", "m", 2),
-  figure("dU", "Up", "m", 2),
+  fixedColumn("length", "Length", "m", (b) => b.lengthM, 2, true),
+  fixedColumn("ground", "On the ground", "m", (b) => b.groundM, 2, true),
+  fixedColumn("pa", "Direction, east of north", "°", (b) => b.paDeg, 1, true),
+  fixedColumn("de", "East", "m", (b) => b.dE, 2, true),
+  fixedColumn("dn", "North", "m", (b) => b.dN, 2, true),
+  fixedColumn("du", "Up", "m", (b) => b.dU, 2, true),
 ];
 
 export default function StationPage({ loaderData }: Route.ComponentProps) {

@@ -2,6 +2,7 @@
 import { href, Link } from "react-router";
 import { Card, type Column, DataTable, EmptyState } from "~/components/ui";
 import type { SiteRegistry } from "~/services/registry/queries.server";
+import { bandColumns as bandFigures } from "../columns";
 import { instrumentHref, withSite } from "../links";
 import { linkClass, OfferedBadge } from "../RegistryBits";
 import { addButton } from "./SiteCards";
@@ -18,16 +19,7 @@ const bandColumns: Column<BandRow>[] = [
   { key: "instrument", header: "Instrument", value: (b) => b.instrument },
   { key: "telescopes", header: "Telescopes", align: "right", value: (b) => b.maxTelescopes },
   { key: "band", header: "Band", value: (b) => b.name },
-  {
-    key: "wavelength",
-    header: "Central wavelength",
-    unit: "µm",
-    align: "right",
-    value: (b) => microns(b.centralWavelengthM),
-  },
-  { key: "bandwidth", header: "Bandwidth", unit: "µm", align: "right", value: (b) => microns(b.bandwidthM) },
-  { key: "channels", header: "Channels", align: "right", value: (b) => b.channels },
-  { key: "limit", header: "Limiting magnitude", unit: "mag", align: "right", value: (b) => b.limitingMagnitude },
+  ...bandFigures<BandRow>(microns),
 ];
 
 type Props = { registry: SiteRegistry; canEdit: boolean };

@@ -2,6 +2,7 @@
 import { href, Link } from "react-router";
 import { ButtonLink, Card, type Column, DataTable, EmptyState } from "~/components/ui";
 import type { SiteRegistry } from "~/services/registry/queries.server";
+import { fixedColumn } from "../columns";
 import { overviewHref, stationHref, withSite } from "../links";
 import { FactList, linkClass } from "../RegistryBits";
 import { StationMap } from "../StationMap";
@@ -9,16 +10,6 @@ import { StationMap } from "../StationMap";
 type StationRow = SiteRegistry["stations"][number];
 
 const fmt = (x: number, digits: number) => x.toFixed(digits);
-
-/** A column of a station's position in metres, shown with two decimals. */
-const position = (key: keyof StationRow, header: string): Column<StationRow> => ({
-  key,
-  header,
-  unit: "m",
-  align: "right",
-  value: (s) => s[key] as number,
-  render: (s) => fmt(s[key] as number, 2),
-});
 
 const stationColumns: Column<StationRow>[] = [
   {
@@ -31,10 +22,10 @@ const stationColumns: Column<StationRow>[] = [
       </Link>
     ),
   },
-  { ...position("eastM", "East"), key: "east" },
-  { ...position("northM", "North"), key: "north" },
-  { ...position("upM", "Up"), key: "up" },
-  { ...position("pathOffsetM", "Path offset"), key: "offset" },
+  fixedColumn("east", "East", "m", (s) => s.eastM, 2),
+  fixedColumn("north", "North", "m", (s) => s.northM, 2),
+  fixedColumn("up", "Up", "m", (s) => s.upM, 2),
+  fixedColumn("offset", "Path offset", "m", (s) => s.pathOffsetM, 2),
   {
     key: "radius",
     header: "Distance from centre",
