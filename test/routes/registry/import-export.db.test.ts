@@ -18,6 +18,9 @@ describe("import", () => {
   /** The administrator posts the import form. */
   const importing = (fields: Record<string, string | File>) =>
     run(() => importAction(multipart("/registry/import", "admin", fields)));
+  /** Previews a station import into a site. */
+  const previewStations = (siteId: number, fields: Record<string, string | File> = {}) =>
+    importing({ intent: "preview", kind: "stations", siteId: String(siteId), ...fields });
 
   /** Previews an uploaded file, or applies text as the preview's apply form carries it. */
   async function importStations(
@@ -134,15 +137,10 @@ describe("import", () => {
     const site = await smallSite("Valle Json");
     const json = JSON.stringify([{ name: "J1", eastM: 1, northM: 2, upM: 0, pathOffsetM: 0 }]);
     const file = new File([json], "stations.json", { type: "application/json" });
-    const ok = await importing({ intent: "preview", kind: "stations", siteId: String(site.id), file });
+    const ok = await previewStations(site.id, { file });
     expect(ok.data.stations.counts.new).toBe(1);
 
-    const empty = await importing({
-      intent: "preview",
-      kind: "stations",
-      siteId: String(site.id),
-      file: new File([], "empty.csv"),
-    });
+    const empty = await previewStations(site.id, { file: new File([], "empty.csv") });
     expect(empty.status).toBe(400);
     expect(empty.data.errors).toEqual(["The file is empty."]);
 
@@ -164,25 +162,15 @@ describe("import", () => {
       ],
       "latin1.csv",
     );
-    const notUtf8 = await importing({
-      intent: "preview",
-      kind: "stations",
-      siteId: String(site.id),
-      file: latin1,
-    });
+    const notUtf8 = await previewStations(site.id, { file: latin1 });
     expect(notUtf8.data.errors).toEqual(["The file is not UTF-8 text; save it as UTF-8 and try again."]);
 
     const huge = new File([new Uint8Array(MAX_IMPORT_BYTES + 100_000).fill(0x41)], "huge.csv");
-    const tooBig = await importing({
-      intent: "preview",
-      kind: "stations",
-      siteId: String(site.id),
-      file: huge,
-    });
+    const tooBig = await previewStations(site.id, { file: huge });
     expect(tooBig.status).toBe(413);
     expect(tooBig.data.errors).toEqual(["The file is larger than the limit of 1 MB; split it into smaller files."]);
 
-    const nothing = await importing({ intent: "preview", kind: "stations", siteId: String(site.id) });
+    const nothing = await previewStations(site.id);
     expect(nothing.data.errors).toEqual(["Choose a file, or paste its text into the box."]);
     expect(await stationByName(site.id, "J1")).toBeNull();
   });

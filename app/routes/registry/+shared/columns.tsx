@@ -1,5 +1,22 @@
-/** Table columns the registry's pages share: fixed-decimal figures, and a band's wavelengths and limits. */
+/** Table columns the registry's pages share: a station link, fixed-decimal figures, a band's wavelengths and limits. */
+import { Link } from "react-router";
 import type { Column } from "~/components/ui";
+import { stationHref } from "./links";
+import { linkClass } from "./RegistryBits";
+
+/** A station's name, linking to its page. */
+export function stationColumn<Row extends { id: number; name: string }>(key: string, header: string): Column<Row> {
+  return {
+    key,
+    header,
+    value: (s) => s.name,
+    render: (s) => (
+      <Link to={stationHref(s.id)} className={linkClass}>
+        {s.name}
+      </Link>
+    ),
+  };
+}
 
 /**
  * A right-aligned figure shown with `digits` decimals; sorted and exported as it is, or rounded to

@@ -4,8 +4,8 @@ import { dbContext } from "~/context";
 import { getViewer } from "~/lib/guards.server";
 import { idParam, invariantResponse } from "~/lib/not-found";
 import { stationWithRegistry } from "~/services/registry/queries.server";
-import { fixedColumn } from "../+shared/columns";
-import { overviewHref, stationHref } from "../+shared/links";
+import { fixedColumn, stationColumn } from "../+shared/columns";
+import { overviewHref } from "../+shared/links";
 import { FactList, linkClass, OfferedBadge } from "../+shared/RegistryBits";
 import { StationMap } from "../+shared/StationMap";
 import type { Route } from "./+types/station";
@@ -55,16 +55,7 @@ function baselinesFrom(station: Point, stations: Point[]): BaselineRow[] {
 }
 
 const baselineColumns: Column<BaselineRow>[] = [
-  {
-    key: "to",
-    header: "To station",
-    value: (b) => b.name,
-    render: (b) => (
-      <Link to={stationHref(b.id)} className={linkClass}>
-        {b.name}
-      </Link>
-    ),
-  },
+  stationColumn("to", "To station"),
   fixedColumn("length", "Length", "m", (b) => b.lengthM, 2, true),
   fixedColumn("ground", "On the ground", "m", (b) => b.groundM, 2, true),
   fixedColumn("pa", "Direction, east of north", "°", (b) => b.paDeg, 1, true),
@@ -73,10 +64,52 @@ const baselineColumns: Column<BaselineRow>[] = [
   fixedColumn("du", "Up", "m", (b) => b.dU, 2, true),
 ];
 
+type Loaded = Route.ComponentProps["loaderData"];
+
+function PositionCard({ station }: { station: Loaded["station"] }) {
+  const m = (x: number, digits = 3) => `${x.toFixed(digits)} m`;
+  return (
+    <Card title="Position">
+      <FactList
+        className="grid grid-cols-2 gap-x-6 gap-y-3"
+        valueClassName="font-semibold"
+        facts={[
+          ["East", m(station.eastM)],
+          ["North", m(station.northM)],
+          ["Up", m(station.upM)],
+          ["Path offset", m(station.pathOffsetM)],
+          ["From the reference point", m(Math.hypot(station.eastM, station.northM), 1)],
+        ]}
+      />
+    </Card>
+  );
+}
+
+/** The configurations the station is in, with their size and whether they are offered. */
+function UsedByCard({ usedBy }: { usedBy: Loaded["configurations"] }) {
+  return (
+    <Card title="In configurations">
+      {usedBy.length === 0 ? (
+        <p className="text-sm text-night-600">No configuration uses this station.</p>
+      ) : (
+        <ul className="space-y-2">
+          {usedBy.map((c) => (
+            <li key={c.name} className="flex items-center justify-between gap-2 text-sm">
+              <span className="font-medium">{c.name}</span>
+              <span className="text-night-600">
+                {c.stationNames.length} stations <OfferedBadge offered={c.offered} />
+              </span>
+            </li>
+          ))}
+        </ul>
+      )}
+    </Card>
+  );
+}
+
 export default function StationPage({ loaderData }: Route.ComponentProps) {
   const { station, stations, configurations, site, canEdit } = loaderData;
   const usedBy = configurations.filter((c) => c.stationNames.includes(station.name));
-  const m = (x: number, digits = 3) => `${x.toFixed(digits)} m`;
   return (
     <>
       <PageHeader
@@ -103,35 +136,8 @@ export default function StationPage({ loaderData }: Route.ComponentProps) {
       />
       <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,20rem)_minmax(0,1fr)]">
         <div className="grid content-start gap-6">
-          <Card title="Position">
-            <FactList
-              className="grid grid-cols-2 gap-x-6 gap-y-3"
-              valueClassName="font-semibold"
-              facts={[
-                ["East", m(station.eastM)],
-                ["North", m(station.northM)],
-                ["Up", m(station.upM)],
-                ["Path offset", m(station.pathOffsetM)],
-                ["From the reference point", m(Math.hypot(station.eastM, station.northM), 1)],
-              ]}
-            />
-          </Card>
-          <Card title="In configurations">
-            {usedBy.length === 0 ? (
-              <p className="text-sm text-night-600">No configuration uses this station.</p>
-            ) : (
-              <ul className="space-y-2">
-                {usedBy.map((c) => (
-                  <li key={c.name} className="flex items-center justify-between gap-2 text-sm">
-                    <span className="font-medium">{c.name}</span>
-                    <span className="text-night-600">
-                      {c.stationNames.length} stations <OfferedBadge offered={c.offered} />
-                    </span>
-                  </li>
-                ))}
-              </ul>
-            )}
-          </Card>
+          <PositionCard station={station} />
+          <UsedByCard usedBy={usedBy} />
         </div>
         <Card title="Site plan">
           <StationMap

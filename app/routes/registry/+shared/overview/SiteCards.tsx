@@ -2,8 +2,8 @@
 import { href, Link } from "react-router";
 import { ButtonLink, Card, type Column, DataTable, EmptyState } from "~/components/ui";
 import type { SiteRegistry } from "~/services/registry/queries.server";
-import { fixedColumn } from "../columns";
-import { overviewHref, stationHref, withSite } from "../links";
+import { fixedColumn, stationColumn } from "../columns";
+import { overviewHref, withSite } from "../links";
 import { FactList, linkClass } from "../RegistryBits";
 import { StationMap } from "../StationMap";
 
@@ -12,16 +12,7 @@ type StationRow = SiteRegistry["stations"][number];
 const fmt = (x: number, digits: number) => x.toFixed(digits);
 
 const stationColumns: Column<StationRow>[] = [
-  {
-    key: "name",
-    header: "Station",
-    value: (s) => s.name,
-    render: (s) => (
-      <Link to={stationHref(s.id)} className={linkClass}>
-        {s.name}
-      </Link>
-    ),
-  },
+  stationColumn("name", "Station"),
   fixedColumn("east", "East", "m", (s) => s.eastM, 2),
   fixedColumn("north", "North", "m", (s) => s.northM, 2),
   fixedColumn("up", "Up", "m", (s) => s.upM, 2),
