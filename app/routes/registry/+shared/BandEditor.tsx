@@ -9,10 +9,9 @@ import { instrumentHref } from "./links";
 export const newBandMeta = () => Editor.meta("New band");
 export const editBandMeta = ({ data }: EditRoute.MetaArgs) => Editor.meta(`Edit band ${data?.band.name ?? ""}`);
 
-export function BandEditor({
-  loaderData,
-  actionData,
-}: Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>) {
+type Props = Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>;
+
+export function BandEditor({ loaderData, actionData }: Props) {
   const { instrument } = loaderData;
   const band = "band" in loaderData ? loaderData.band : null;
   const defaults: Editor.Defaults = band

@@ -90,10 +90,9 @@ function ConfigurationFields({
   );
 }
 
-export function ConfigurationEditor({
-  loaderData,
-  actionData,
-}: Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>) {
+type Props = Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>;
+
+export function ConfigurationEditor({ loaderData, actionData }: Props) {
   const configuration = "configuration" in loaderData ? loaderData.configuration : null;
   const site = "site" in loaderData ? loaderData.site : null;
   if (!configuration && !site)

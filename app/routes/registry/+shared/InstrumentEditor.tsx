@@ -59,10 +59,9 @@ function BandsCard({ instrument }: { instrument: EditData["instrument"] }) {
   );
 }
 
-export function InstrumentEditor({
-  loaderData,
-  actionData,
-}: Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>) {
+type Props = Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>;
+
+export function InstrumentEditor({ loaderData, actionData }: Props) {
   const edit = "instrument" in loaderData ? loaderData : null;
   const site = "site" in loaderData ? loaderData.site : null;
   if (!edit && !site) return <Editor.NoSiteYet title="New instrument">Instruments belong to a site.</Editor.NoSiteYet>;

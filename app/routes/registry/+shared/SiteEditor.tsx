@@ -56,10 +56,9 @@ function DeleteSiteCard({ site, contents, state }: Pick<Data, "site" | "contents
   );
 }
 
-export function SiteEditor({
-  loaderData,
-  actionData,
-}: Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>) {
+type Props = Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>;
+
+export function SiteEditor({ loaderData, actionData }: Props) {
   const edit = "site" in loaderData ? loaderData : null;
   const site = edit?.site ?? null;
   // A refused delete answers on the confirmation field; the save form keeps its defaults.

@@ -92,10 +92,9 @@ function DeleteStationCard({ name, usedBy, refused }: { name: string; usedBy: st
   );
 }
 
-export function StationEditor({
-  loaderData,
-  actionData,
-}: Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>) {
+type Props = Editor.Props<NewRoute.ComponentProps, EditRoute.ComponentProps>;
+
+export function StationEditor({ loaderData, actionData }: Props) {
   const edit = "station" in loaderData ? loaderData : null;
   const site = "site" in loaderData ? loaderData.site : null;
   if (!edit && !site)

@@ -1,7 +1,7 @@
 /** The band editor's loaders and actions (new and edit), on the registry's editor skeleton. */
 import type { LoaderFunctionArgs, Params } from "react-router";
 import type { Database } from "~/db/client.server";
-import { deleteRecord, insertRecord, updateRecord } from "~/services/registry/commands.server";
+import { insertRecord, updateRecord } from "~/services/registry/commands.server";
 import { getBand } from "~/services/registry/queries.server";
 import { BandFormSchema, micronsToMetres } from "~/services/registry/schemas";
 import * as editor from "./editor.server";
@@ -19,7 +19,7 @@ export async function newBandLoader(args: LoaderFunctionArgs) {
 }
 
 export async function editBandLoader(args: LoaderFunctionArgs) {
-  const { band, instrument } = await loadBand(await editor.adminDb(args), args.params);
+  const { band, instrument } = (await editor.editing(args, loadBand)).row;
   return { band, instrument: { id: instrument.id, name: instrument.name } };
 }
 
@@ -51,10 +51,9 @@ export const editBandAction = editor.action(loadBand, {
   save: ({ db, form, row }) => save(db, form, row.instrument, row.band),
   delete: ({ db, row: { band, instrument } }) =>
     editor.deleteUnlessReferenced(
-      () => deleteRecord(db, { entity: "band", id: band.id }),
-      {
-        form: `band ${band.name} is still referred to elsewhere (for example by proposals); nothing was deleted`,
-      },
+      db,
+      { entity: "band", id: band.id },
+      `band ${band.name} is still referred to elsewhere (for example by proposals); nothing was deleted`,
       { to: instrumentHref(instrument.id), text: `Band ${band.name} deleted from ${instrument.name}.` },
     ),
 });

@@ -1,7 +1,7 @@
 /** The configuration editor's loaders and actions (new and edit), on the registry's editor skeleton. */
 import type { LoaderFunctionArgs, Params } from "react-router";
 import type { Database } from "~/db/client.server";
-import { deleteRecord, saveConfiguration } from "~/services/registry/commands.server";
+import { saveConfiguration } from "~/services/registry/commands.server";
 import { getConfiguration, siteMap, widestInstrument } from "~/services/registry/queries.server";
 import { ConfigurationSchema } from "~/services/registry/schemas";
 import * as editor from "./editor.server";
@@ -27,8 +27,7 @@ export async function newConfigurationLoader(args: LoaderFunctionArgs) {
 }
 
 export async function editConfigurationLoader(args: LoaderFunctionArgs) {
-  const db = await editor.adminDb(args);
-  const configuration = await loadConfiguration(db, args.params);
+  const { db, row: configuration } = await editor.editing(args, loadConfiguration);
   return { configuration, ...(await siteFigures(db, configuration.siteId)) };
 }
 
@@ -62,18 +61,18 @@ function save(db: Database, values: editor.FormValues, siteId: number, configura
   });
 }
 
-export const newConfigurationAction = editor.newAtSiteAction(readConfiguration, (db, values, siteId) =>
-  save(db, values, siteId, null),
-);
+/** Deletes the configuration; its stations stay. Refused while proposals or cycles refer to it. */
+const removeConfiguration = ({ db, row }: editor.Post<Configuration>) =>
+  editor.deleteUnlessReferenced(
+    db,
+    { entity: "configuration", id: row.id },
+    `${row.name} is still referred to elsewhere (for example by proposals or a cycle); withdraw it from those first, or untick “Offered” instead`,
+    { to: overviewHref(row.siteId), text: `Configuration ${row.name} deleted.` },
+  );
 
-export const editConfigurationAction = editor.action(loadConfiguration, {
-  save: ({ db, form, row }) => save(db, readConfiguration(form), row.siteId, row),
-  delete: ({ db, row }) =>
-    editor.deleteUnlessReferenced(
-      () => deleteRecord(db, { entity: "configuration", id: row.id }),
-      {
-        form: `${row.name} is still referred to elsewhere (for example by proposals or a cycle); withdraw it from those first, or untick “Offered” instead`,
-      },
-      { to: overviewHref(row.siteId), text: `Configuration ${row.name} deleted.` },
-    ),
-});
+export const [newConfigurationAction, editConfigurationAction] = editor.atSiteActions(
+  readConfiguration,
+  loadConfiguration,
+  save,
+  removeConfiguration,
+);

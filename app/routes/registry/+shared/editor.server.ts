@@ -16,6 +16,7 @@ import { type FieldErrors, fieldErrors } from "~/lib/form-errors";
 import { requirePermission } from "~/lib/guards.server";
 import { idParam, invariantResponse, toId } from "~/lib/not-found";
 import { isUniqueViolation, PG_FOREIGN_KEY_VIOLATION, pgCode } from "~/lib/pg-errors";
+import { deleteRecord } from "~/services/registry/commands.server";
 import { getSite, nameTaken, type RegistryEntity, resolveSite } from "~/services/registry/queries.server";
 
 export type FormValues = Record<string, string>;
@@ -51,6 +52,12 @@ export async function loadOr404<T>(
   return row;
 }
 
+/** An edit page's loader starts here: the guard, then the record its address names (or the 404 page). */
+export async function editing<T>(args: LoaderFunctionArgs, load: (db: Database, params: Params) => Promise<T>) {
+  const db = await adminDb(args);
+  return { db, row: await load(db, args.params) };
+}
+
 /** The text of a form field ("" when it is missing or a file). */
 export const formText = (form: FormData, key: string) => {
   const value = form.get(key);
@@ -74,7 +81,7 @@ export async function siteOfPage(db: Database, url: URL) {
   return site ? { id: site.id, name: site.name } : null;
 }
 
-type Post<T> = { db: Database; form: FormData; row: T };
+export type Post<T> = { db: Database; form: FormData; row: T };
 type Handler<T> = (post: Post<T>) => Promise<Answer>;
 const Intent = v.picklist(["save", "delete"], "Unknown action.");
 
@@ -121,6 +128,22 @@ export function newAtSiteAction(
   });
 }
 
+/**
+ * The new and the edit action of a record of a site (a station, configuration or instrument):
+ * `save` writes the form as `read` takes it, for the site and the record (null when new).
+ */
+export function atSiteActions<T extends { siteId: number }>(
+  read: (form: FormData) => FormValues,
+  load: (db: Database, params: Params) => Promise<T>,
+  save: (db: Database, values: FormValues, siteId: number, row: T | null) => Promise<Answer>,
+  remove: Handler<T>,
+) {
+  return [
+    newAtSiteAction(read, (db, values, siteId) => save(db, values, siteId, null)),
+    action(load, { save: ({ db, form, row }) => save(db, read(form), row.siteId, row), delete: remove }),
+  ] as const;
+}
+
 /** How a record is saved: its schema, the scope its name is unique in, and the write itself. */
 export type SaveSpec<T extends { name: string }> = {
   schema: v.GenericSchema<unknown, T>;
@@ -152,8 +175,21 @@ export async function saveRecord<T extends { name: string }>(
   return "refused" in done ? refuse(done.refused, values) : sendOn(done);
 }
 
-/** Deletes a record unless other records still refer to it: then `refusal` (status 409) and nothing goes. */
+/**
+ * Deletes a configuration, an instrument or a band unless other records still refer to it: then
+ * `refusal` stands on the form (status 409) and nothing goes.
+ */
 export async function deleteUnlessReferenced(
+  db: Database,
+  record: { entity: "configuration" | "instrument" | "band"; id: number },
+  refusal: string,
+  done: Done,
+): Promise<Answer> {
+  return deleteOrRefuse(() => deleteRecord(db, record), { form: refusal }, done);
+}
+
+/** Runs `remove` unless other records still refer to what it deletes: then `refusal` (status 409), nothing deleted. */
+export async function deleteOrRefuse(
   remove: () => Promise<unknown>,
   refusal: FieldErrors,
   done: Done,

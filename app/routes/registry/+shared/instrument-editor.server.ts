@@ -1,7 +1,7 @@
 /** The instrument editor's loaders and actions (new and edit), on the registry's editor skeleton. */
 import type { LoaderFunctionArgs, Params } from "react-router";
 import type { Database } from "~/db/client.server";
-import { deleteRecord, insertRecord, updateRecord } from "~/services/registry/commands.server";
+import { insertRecord, updateRecord } from "~/services/registry/commands.server";
 import { getInstrument, getSite, largestConfiguration } from "~/services/registry/queries.server";
 import { InstrumentSchema } from "~/services/registry/schemas";
 import * as editor from "./editor.server";
@@ -18,8 +18,7 @@ export async function newInstrumentLoader(args: LoaderFunctionArgs) {
 }
 
 export async function editInstrumentLoader(args: LoaderFunctionArgs) {
-  const db = await editor.adminDb(args);
-  const instrument = await loadInstrument(db, args.params);
+  const { db, row: instrument } = await editor.editing(args, loadInstrument);
   const [site, largest] = await Promise.all([
     getSite(db, { id: instrument.siteId }),
     largestConfiguration(db, { siteId: instrument.siteId }),
@@ -46,18 +45,18 @@ function save(db: Database, values: editor.FormValues, siteId: number, instrumen
 
 const readInstrument = (form: FormData) => editor.formValues(form, namesOf(INSTRUMENT_FIELDS));
 
-export const newInstrumentAction = editor.newAtSiteAction(readInstrument, (db, values, siteId) =>
-  save(db, values, siteId, null),
-);
+/** Deletes the instrument with its bands. Refused while proposals refer to one of them. */
+const removeInstrument = ({ db, row }: editor.Post<Instrument>) =>
+  editor.deleteUnlessReferenced(
+    db,
+    { entity: "instrument", id: row.id },
+    `${row.name} or one of its bands is still referred to elsewhere (for example by proposals); nothing was deleted`,
+    { to: overviewHref(row.siteId), text: `Instrument ${row.name} and its bands deleted.` },
+  );
 
-export const editInstrumentAction = editor.action(loadInstrument, {
-  save: ({ db, form, row }) => save(db, readInstrument(form), row.siteId, row),
-  delete: ({ db, row }) =>
-    editor.deleteUnlessReferenced(
-      () => deleteRecord(db, { entity: "instrument", id: row.id }),
-      {
-        form: `${row.name} or one of its bands is still referred to elsewhere (for example by proposals); nothing was deleted`,
-      },
-      { to: overviewHref(row.siteId), text: `Instrument ${row.name} and its bands deleted.` },
-    ),
-});
+export const [newInstrumentAction, editInstrumentAction] = editor.atSiteActions(
+  readInstrument,
+  loadInstrument,
+  save,
+  removeInstrument,
+);

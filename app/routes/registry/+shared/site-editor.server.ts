@@ -18,8 +18,7 @@ export async function newSiteLoader(args: LoaderFunctionArgs) {
 }
 
 export async function editSiteLoader(args: LoaderFunctionArgs) {
-  const db = await editor.adminDb(args);
-  const site = await loadSite(db, args.params);
+  const { db, row: site } = await editor.editing(args, loadSite);
   return { site, contents: await siteContents(db, { siteId: site.id }), timeZones: timeZones() };
 }
 
@@ -44,7 +43,7 @@ async function removeSite({ db, form, row: site }: { db: Database; form: FormDat
   const confirmName = editor.formText(form, "confirmName").trim();
   if (confirmName !== site.name)
     return editor.refuse({ confirmName: `type the site's name, ${site.name}, to confirm` }, { confirmName });
-  return editor.deleteUnlessReferenced(
+  return editor.deleteOrRefuse(
     () => deleteSite(db, { siteId: site.id }),
     {
       confirmName:

@@ -18,8 +18,7 @@ export async function newStationLoader(args: LoaderFunctionArgs) {
 }
 
 export async function editStationLoader(args: LoaderFunctionArgs) {
-  const db = await editor.adminDb(args);
-  const station = await loadStation(db, args.params);
+  const { db, row: station } = await editor.editing(args, loadStation);
   const [map, usedBy] = await Promise.all([
     siteMap(db, { siteId: station.siteId }),
     configurationsUsingStation(db, { stationId: station.id }),
@@ -53,11 +52,9 @@ async function removeStation({ db, row: station }: { db: Database; row: Station 
 
 const readStation = (form: FormData) => editor.formValues(form, namesOf(STATION_FIELDS));
 
-export const newStationAction = editor.newAtSiteAction(readStation, (db, values, siteId) =>
-  saveStation(db, values, siteId, null),
+export const [newStationAction, editStationAction] = editor.atSiteActions(
+  readStation,
+  loadStation,
+  saveStation,
+  removeStation,
 );
-
-export const editStationAction = editor.action(loadStation, {
-  save: ({ db, form, row }) => saveStation(db, readStation(form), row.siteId, row),
-  delete: removeStation,
-});
