@@ -1,7 +1,8 @@
 /**
- * The page of every registry editor (read it as a namespace: `import * as Editor`, `<Editor.Page>`): the title, the save form with its error summary, fields and
- * save/cancel buttons, and on an edit page the cards below it (delete, an instrument's bands). A
- * refused post (`EditorState`, status 400) shows its messages and keeps what was typed.
+ * The page of every registry editor, read as a namespace (`import * as Editor`, `<Editor.Page>`):
+ * the title, the save form with its error summary, fields and save/cancel buttons, and on an edit
+ * page the cards below it (delete, an instrument's bands). A refused post (`EditorState`, status
+ * 400) shows its messages and keeps what was typed.
  */
 import type { ReactNode } from "react";
 import { Form, href, Link, useNavigation } from "react-router";

@@ -1,10 +1,11 @@
 /**
- * The one skeleton of the registry's editors (read it as a namespace: `import * as editor`) (site, station, configuration, instrument, band), for
- * creating and editing alike: the administrator's guard, the record named by the address or a 404,
- * the post read through the capped reader, the values checked by the feature's schemas, a name
- * already taken answered on the name field (checked first, and again should the insert hit the
- * unique index), and a redirect with a flash message. A refused post answers `EditorState`: the
- * form shows the messages and keeps what was typed.
+ * The one skeleton of the registry's editors (site, station, configuration, instrument, band), for
+ * creating and editing alike; read it as a namespace (`import * as editor`). The steps: the
+ * administrator's guard, the record the address names or a 404, the post read through the capped
+ * reader, the values checked by the feature's schemas, a name already taken answered on the name
+ * field (checked first, and again should the insert hit the unique index), and a redirect with a
+ * flash message. A refused post answers `EditorState`: the form shows the messages and keeps what
+ * was typed.
  */
 import { type ActionFunctionArgs, data, type LoaderFunctionArgs, type Params } from "react-router";
 import * as v from "valibot";
