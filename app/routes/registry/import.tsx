@@ -1,5 +1,6 @@
 import { href, Link } from "react-router";
 import * as v from "valibot";
+import { ErrorPage } from "~/components/ErrorPage";
 import { PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
 import { readFormBody } from "~/lib/body.server";
@@ -83,4 +84,6 @@ export default function ImportPage({ loaderData, actionData }: Route.ComponentPr
   );
 }
 
-export { ErrorPage as ErrorBoundary } from "~/components/ErrorPage";
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}

@@ -1,4 +1,5 @@
 import { href } from "react-router";
+import { ErrorPage } from "~/components/ErrorPage";
 import { ButtonLink, EmptyState, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
 import { getViewer } from "~/lib/guards.server";
@@ -78,4 +79,6 @@ export default function RegistryOverview({ loaderData }: Route.ComponentProps) {
   );
 }
 
-export { ErrorPage as ErrorBoundary } from "~/components/ErrorPage";
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}

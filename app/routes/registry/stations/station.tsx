@@ -1,4 +1,5 @@
 import { href, Link } from "react-router";
+import { ErrorPage } from "~/components/ErrorPage";
 import { ButtonLink, Card, type Column, DataTable, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
 import { getViewer } from "~/lib/guards.server";
@@ -164,4 +165,6 @@ export default function StationPage({ loaderData }: Route.ComponentProps) {
   );
 }
 
-export { ErrorPage as ErrorBoundary } from "~/components/ErrorPage";
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorPage error={error} />;
+}
