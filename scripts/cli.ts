@@ -1,7 +1,7 @@
 /**
  * Fringe Docket command line: `npm run -s cli -- <command> [--input FILE] [--pretty]`.
  *
- * Commands: coverage, ephemeris, triangles. The request is a JSON object read
+ * Commands: coverage, ephemeris, triangles, simulate, reconstruct. The request is a JSON object read
  * from FILE, or from standard input when --input is absent. On success exactly
  * one JSON object is written to standard output (exit 0). On a bad request —
  * unknown command or option, missing or unreadable file, invalid JSON, a
@@ -14,7 +14,8 @@
  */
 import { readFile } from "node:fs/promises";
 
-const USAGE = `usage: npm run -s cli -- <coverage|ephemeris|triangles> [--input FILE] [--pretty]
+const USAGE = `usage: npm run -s cli -- <coverage|ephemeris|triangles|simulate|reconstruct> [--input FILE] [--pretty]
+       npm run -s cli -- simulate [--input FILE] --oifits OUT.fits   (also writes the data as OIFITS 2)
   Reads a JSON request from FILE (or standard input) and prints one JSON object.
   See docs/cli.md for the request and response fields.`;
 
@@ -24,6 +25,7 @@ interface Options {
   command: string;
   input: string | null;
   pretty: boolean;
+  oifits: string | null;
 }
 
 function parseArgs(argv: string[]): Options | "help" {
@@ -31,6 +33,7 @@ function parseArgs(argv: string[]): Options | "help" {
   let command: string | null = null;
   let input: string | null = null;
   let pretty = false;
+  let oifits: string | null = null;
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     if (a === "-h" || a === "--help" || a === "help") return "help";
@@ -41,12 +44,19 @@ function parseArgs(argv: string[]): Options | "help" {
       input = next;
       i++;
     } else if (a.startsWith("--input=")) input = a.slice("--input=".length);
+    else if (a === "--oifits") {
+      const next = argv[i + 1];
+      if (next === undefined || next.startsWith("--")) throw new UsageError("--oifits needs a file name");
+      oifits = next;
+      i++;
+    } else if (a.startsWith("--oifits=")) oifits = a.slice("--oifits=".length);
     else if (a.startsWith("-")) throw new UsageError(`unknown option ${a}`);
     else if (command === null) command = a;
     else throw new UsageError(`unexpected argument ${a}`);
   }
   if (command === null) throw new UsageError("no command given (coverage, ephemeris or triangles)");
-  return { command, input, pretty };
+  if (oifits !== null && command !== "simulate") throw new UsageError("--oifits applies to simulate only");
+  return { command, input, pretty, oifits };
 }
 
 async function readStdin(): Promise<string> {
@@ -100,8 +110,29 @@ async function run(opts: Options): Promise<unknown> {
       const { computeEphemeris } = await import("../app/engine");
       return computeEphemeris(parsed.value);
     }
+    case "simulate": {
+      const { runSimulate } = await import("./cli/simulate");
+      return withRequestErrors(async () => runSimulate(await readRequest(opts.input), { oifitsPath: opts.oifits }));
+    }
+    case "reconstruct": {
+      const { runReconstruct } = await import("./cli/reconstruct");
+      return withRequestErrors(async () => runReconstruct(await readRequest(opts.input)));
+    }
     default:
-      throw new UsageError(`unknown command "${opts.command}" (expected coverage, ephemeris or triangles)`);
+      throw new UsageError(
+        `unknown command "${opts.command}" (expected coverage, ephemeris, triangles, simulate or reconstruct)`,
+      );
+  }
+}
+
+/** Maps a command's CliRequestError to the usage-error path (exit 2, one line on standard error). */
+async function withRequestErrors(fn: () => Promise<unknown>): Promise<unknown> {
+  const { CliRequestError } = await import("./cli/errors");
+  try {
+    return await fn();
+  } catch (e) {
+    if (e instanceof CliRequestError) throw new UsageError(e.message);
+    throw e;
   }
 }
 
