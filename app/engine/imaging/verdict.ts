@@ -9,7 +9,7 @@
  *  - uniform or limb-darkened disk: the diameter D of the uniform disk that, convolved with the clean
  *    beam, best matches the reconstruction convolved with the clean beam (least squares in the Fourier
  *    plane, equivalent to the image plane by Parseval's theorem; golden-section search over D from one
- *    pixel to half the field); recovered when within 10 % of the model's. A disk smaller than half the
+ *    pixel to 0.9 of the field); recovered when within 10 % of the model's. A disk smaller than half the
  *    clean beam is reported as unresolved.
  *  - any other model: bands of the fidelity ρ — ≥ 0.9 recovers the structure, ≥ 0.7 the overall shape,
  *    ≥ 0.5 only the broad outline, below that the coverage does not support imaging it (our bands).
@@ -80,7 +80,10 @@ export function measureBinary(image: Float64Array, n: number, pixelRad: number) 
   };
 }
 
-/** Uniform-disk diameter (radians) best matching the beam-convolved image, searched in [Δ, N Δ / 2]. */
+/**
+ * Uniform-disk diameter (radians) whose image convolved with `beam` best matches `image` convolved with
+ * `beam` (least squares in the Fourier plane), searched in [Δ, 0.9 N Δ].
+ */
 export function fitDiskDiameterRad(image: Float64Array, n: number, pixelRad: number, beam: GaussianBeam): number {
   const dft = new GridDft(n);
   const { re, im } = dft.forward(image);
@@ -123,7 +126,7 @@ export function fitDiskDiameterRad(image: Float64Array, n: number, pixelRad: num
     return total;
   };
   const lo = pixelRad;
-  const hi = (n * pixelRad) / 2;
+  const hi = 0.9 * n * pixelRad;
   const steps = 48;
   let best = 0;
   let bestCost = Number.POSITIVE_INFINITY;
