@@ -14,7 +14,7 @@
  *
  * Closure-phase weights of the fit ("amplitude" weighting, the default): a phase cannot be known better
  * than the amplitude it rides on. With circular Gaussian noise on a visibility, σ_φ = σ_|V| / |V| at high
- * signal-to-noise (Thompson, Moran & Swenson 2017, §9.3 — from memory), and σ_|V| = σ(V²) / (2|V|). Each
+ * signal-to-noise (Thompson, Moran & Swenson 2017, ch. 9 — chapter from memory), and σ_|V| = σ(V²) / (2|V|). Each
  * of the three baselines whose measured V² has a signal-to-noise V²/σ(V²) below 10 (near a visibility
  * null) adds (σ(V²) / (2 max(V², σ(V²))))² to the closure phase's variance (V² and σ the inverse-variance
  * mean at that point; nothing when no V² was measured there); the variance is capped at π². Elsewhere the
