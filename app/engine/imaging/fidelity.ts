@@ -3,8 +3,8 @@
  *
  * Clean beam: the elliptical Gaussian with the FWHM and position angle of the dirty beam's central lobe,
  * fitted by interferometry/beam-fit.ts to the dirty beam of the data's uv points (natural weights) at the
- * reconstruction's pixel scale; when the lobe cannot be fitted (e.g. a single baseline) a circular beam
- * of FWHM λ/(2 B_max) = 1/(2 r_max).
+ * reconstruction's pixel scale; when the lobe cannot be fitted (e.g. a single baseline) or comes out
+ * narrower than half a pixel, a circular beam of FWHM λ/(2 B_max) = 1/(2 r_max).
  * Model image: the model convolved with the clean beam, computed in the Fourier plane (the model's
  * visibilities times the beam's transform, grid-dft.ts), so points and sharp edges are exact.
  * Fidelity: the normalized cross-correlation (Pearson coefficient over the pixels)
@@ -68,8 +68,14 @@ export function cleanBeamAndDirtyImage(
   const big = nextPow2(Math.max(64, 2 * n));
   const result = dirtyBeam(uW, vW, { gridSize: big, pixelRad });
   const fit = fitBeam(result.image, big, pixelRad);
+  const measurable =
+    fit.fwhmMajorRad !== null &&
+    fit.fwhmMinorRad !== null &&
+    fit.positionAngleRad !== null &&
+    fit.fwhmMinorRad >= 0.5 * pixelRad &&
+    Number.isFinite(fit.fwhmMajorRad);
   const beam: GaussianBeam =
-    fit.fwhmMajorRad !== null && fit.fwhmMinorRad !== null && fit.positionAngleRad !== null
+    measurable && fit.fwhmMajorRad !== null && fit.fwhmMinorRad !== null && fit.positionAngleRad !== null
       ? {
           fwhmMajorRad: fit.fwhmMajorRad,
           fwhmMinorRad: fit.fwhmMinorRad,
