@@ -1,7 +1,8 @@
 /**
  * Engine benchmark: `npm run bench`. Runs in-process, reports the median of
  * several runs after warm-up, and writes its section of docs/benchmarks.md, followed by
- * the planner, committee and catalogue benchmarks (bench/planning.ts, committee.ts, catalogue.ts).
+ * the planner, committee, catalogue and imaging benchmarks (bench/planning.ts, committee.ts,
+ * catalogue.ts, imaging.ts).
  *
  * (a) coverage of 6 stations × 600 hour-angle samples × 100 channels
  *     (15 baselines → 900 000 uv points) with model squared visibilities and all
@@ -24,6 +25,7 @@ import {
 import { computeFeasibility, type FeasibilityInput } from "~/services/proposals/feasibility";
 import { benchCatalogue } from "./catalogue";
 import { benchCommittee } from "./committee";
+import { benchImaging } from "./imaging";
 import { benchPlanning } from "./planning";
 import { machine, type Timing, time, writeBenchmarkSection } from "./timing";
 
@@ -258,7 +260,7 @@ async function main() {
   log(`| ${d.cells} | ${ms(d.timing)} (${d.timing.minMs.toFixed(1)}) | ${d.verdict} |`);
 
   // ---- the other parts of the engine, each with a section of its own
-  for (const section of [benchPlanning, benchCommittee, benchCatalogue]) {
+  for (const section of [benchPlanning, benchCommittee, benchCatalogue, benchImaging]) {
     log("");
     log((await section()).trimEnd());
   }

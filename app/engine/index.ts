@@ -14,6 +14,16 @@ export {
   MAX_CALIBRATOR_LIMIT,
   parseCalibratorsRequest,
 } from "./api/calibrators";
+// Imaging preview: simulated data, OIFITS 2 export, image reconstruction, fidelity and verdict
+export type { ReconstructRequest } from "./api/reconstruct";
+export {
+  DEFAULT_IMAGE_GRID,
+  DEFAULT_MAX_ITERATIONS,
+  DEFAULT_TOLERANCE,
+  MAX_RECONSTRUCT_CLOSURE_PHASES,
+  MAX_RECONSTRUCT_VIS2,
+  parseReconstructRequest,
+} from "./api/reconstruct";
 // Wire schemas: JSON validated into the inputs, one-line errors naming the field
 export type { CoverageRequest, EphemerisRequest, ParseResult, TrianglesRequest } from "./api/requests";
 export {
@@ -29,6 +39,14 @@ export {
   TargetModelSchema,
 } from "./api/requests";
 export { MAX_NAME_LENGTH, parseResolveRequest } from "./api/resolve";
+export type { SimulateRequest } from "./api/simulate";
+export {
+  DEFAULT_NOISE,
+  DEFAULT_OIFITS,
+  MAX_SIMULATED_CLOSURE_PHASES,
+  MAX_SIMULATED_VIS2,
+  parseSimulateRequest,
+} from "./api/simulate";
 // Time and sky
 export { airmassKastenYoung, airmassSecZ } from "./astro/airmass";
 export type { EphemerisResponse, TwilightTimesUtc } from "./astro/ephemeris";
@@ -95,6 +113,68 @@ export type {
   ResolveInput,
   ResolveResponse,
 } from "./catalogue/types";
+export type { ReconstructionAssessment } from "./imaging/assessment";
+export { assessReconstruction } from "./imaging/assessment";
+export type { WeightSearch, WeightTrial } from "./imaging/auto-weight";
+export { MAX_WEIGHT, MIN_WEIGHT, searchWeight } from "./imaging/auto-weight";
+export { DataTerms } from "./imaging/chi2";
+export type { PreparedData } from "./imaging/data";
+export { prepareData } from "./imaging/data";
+export type { GaussianBeam } from "./imaging/fidelity";
+export {
+  beamTransform,
+  cleanBeamAndDirtyImage,
+  convolvedModelImage,
+  convolveWithBeam,
+  fidelity,
+  normalizedCrossCorrelation,
+} from "./imaging/fidelity";
+export type { BinaryColumn, ColumnCode, FitsCard, FitsValue } from "./imaging/fits";
+export { binaryTableHdu, concatBytes, formatCard, formatReal, headerBytes, primaryHdu } from "./imaging/fits";
+export { enuToEcefOffset, geodeticToEcef, WGS84_A_M, WGS84_INV_F } from "./imaging/geocentric";
+export { GridDft } from "./imaging/grid-dft";
+export type {
+  ClosurePhaseDatum,
+  ClosurePhaseTriangles,
+  ImageOptions,
+  ImagingData,
+  NoiseInput,
+  OifitsOptions,
+  PriorInput,
+  ReconstructInput,
+  Regularizer,
+  SimulateInput,
+  StartInput,
+  Vis2Datum,
+} from "./imaging/inputs";
+export { besselI0, KaiserBessel, kaiserBesselBeta } from "./imaging/kaiser-bessel";
+export { DEFAULT_KERNEL_WIDTH, ImageTransform } from "./imaging/nufft";
+export { ImagingObjective } from "./imaging/objective";
+export { oifitsBytes } from "./imaging/oifits";
+export type { BoundedOptions, BoundedResult, Objective, StopReason } from "./imaging/projected-lbfgs";
+export { minimizeBounded } from "./imaging/projected-lbfgs";
+export { Mt19937 } from "./imaging/random";
+export type { ProgressCallback, ReconstructionResult } from "./imaging/reconstruct";
+export { recentre, reconstructImage } from "./imaging/reconstruct";
+export type { FidelityResponse, ReconstructResponse } from "./imaging/reconstruct-response";
+export { computeReconstruction, reconstructResponse } from "./imaging/reconstruct-response";
+export { RegularizationTerm } from "./imaging/regularizers";
+export type {
+  SimulatedClosurePhase,
+  SimulatedData,
+  SimulatedVis2,
+  SimulateResponse,
+} from "./imaging/simulate";
+export { simulateData, simulateResponse } from "./imaging/simulate";
+export {
+  dirtyAmplitudeImage,
+  fitGaussianFwhmRad,
+  flatImage,
+  gaussianImage,
+  perturb,
+} from "./imaging/start-image";
+export type { BinaryMeasurement, Verdict } from "./imaging/verdict";
+export { fitDiskDiameterRad, measureBinary, verdictFor } from "./imaging/verdict";
 // Inputs of the computations (degrees, mas, hours, metres on this edge)
 export type {
   BeamOptions,
