@@ -7,6 +7,7 @@
  *
  * `benchCommittee()` returns the markdown section; run alone with `npx tsx bench/committee.ts`.
  */
+
 import { fileURLToPath } from "node:url";
 import { DEMO_CONFIGURATIONS, DEMO_SITE, DEMO_STATIONS } from "../app/db/seed/scenario";
 import {
@@ -21,19 +22,8 @@ import {
   rankReviews,
   suggestAllocation,
 } from "../app/engine";
+import { rng as generator } from "../test/support/random";
 import { machine, type Timing, time } from "./timing";
-
-/** Small fixed-seed generator (mulberry32), so the case is the same on every run. */
-function generator(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const N_PROPOSALS = 300;
 const N_REVIEWERS = 25;

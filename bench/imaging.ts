@@ -9,6 +9,7 @@
  * `export async function benchImaging(): Promise<string>` returns the markdown section; run directly
  * (`npx tsx bench/imaging.ts`) it prints it.
  */
+
 import { readFileSync } from "node:fs";
 import { cpus, loadavg } from "node:os";
 import { pathToFileURL } from "node:url";
@@ -26,15 +27,7 @@ import {
   simulateResponse,
   type TargetModel,
 } from "../app/engine";
-
-const STATIONS = [
-  { name: "C01", eastM: 0, northM: 0, upM: 0, pathOffsetM: 0 },
-  { name: "C02", eastM: 16, northM: 0, upM: 0, pathOffsetM: 2 },
-  { name: "C05", eastM: 8, northM: 13.86, upM: 0, pathOffsetM: 4 },
-  { name: "W1", eastM: -182, northM: 64, upM: 1.2, pathOffsetM: 40 },
-  { name: "N2", eastM: 35, northM: 228, upM: 2.1, pathOffsetM: 55 },
-  { name: "E3", eastM: 301, northM: -117, upM: -0.9, pathOffsetM: 70 },
-];
+import { SIX_STATIONS as STATIONS } from "../test/support/six-stations";
 
 const BINARY: TargetModel = { type: "binary", separationMas: 2.5, positionAngleDeg: 56, fluxRatio: 0.5 };
 const DISK: TargetModel = { type: "uniformDisk", diameterMas: 1.4 };

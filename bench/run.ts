@@ -12,6 +12,7 @@
  * (c) the same kind of beam by direct Fourier summation, on fewer points (the
  *     direct sum costs N² × points), next to the FFT beam of those points.
  */
+
 import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "~/db/seed/scenario";
 import {
   type CoverageRequest,
@@ -23,21 +24,12 @@ import {
   parseCoverageRequest,
 } from "~/engine";
 import { computeFeasibility, type FeasibilityInput } from "~/services/proposals/feasibility";
+import { SIX_STATIONS as STATIONS } from "../test/support/six-stations";
 import { benchCatalogue } from "./catalogue";
 import { benchCommittee } from "./committee";
 import { benchImaging } from "./imaging";
 import { benchPlanning } from "./planning";
 import { machine, type Timing, time, writeBenchmarkSection } from "./timing";
-
-/** Six stations of the demo array (invented Sierra Lumbre Array): three core, three outriggers. */
-const STATIONS = [
-  { name: "C01", eastM: 0, northM: 0, upM: 0, pathOffsetM: 0 },
-  { name: "C02", eastM: 16, northM: 0, upM: 0, pathOffsetM: 2 },
-  { name: "C05", eastM: 8, northM: 13.86, upM: 0, pathOffsetM: 4 },
-  { name: "W1", eastM: -182, northM: 64, upM: 1.2, pathOffsetM: 40 },
-  { name: "N2", eastM: 35, northM: 228, upM: 2.1, pathOffsetM: 55 },
-  { name: "E3", eastM: 301, northM: -117, upM: -0.9, pathOffsetM: 70 },
-];
 
 function request(nSamples: number, nChannels: number, model: unknown): CoverageRequest {
   const hourAnglesH = Array.from({ length: nSamples }, (_, i) => -4 + (8 * i) / (nSamples - 1));

@@ -1,3 +1,4 @@
+import { rng } from "@test/random";
 import { describe, expect, it } from "vitest";
 import {
   DataTerms,
@@ -8,17 +9,6 @@ import {
   prepareData,
   RegularizationTerm,
 } from "~/engine";
-
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** A small data set: 4 stations' baselines at a few hour angles, V² and closure phases of every triangle. */
 function smallData(seed: number): ImagingData {

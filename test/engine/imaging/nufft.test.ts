@@ -1,17 +1,7 @@
+import { rng } from "@test/random";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { besselI0, ImageTransform, KaiserBessel, kaiserBesselBeta } from "~/engine";
-
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Direct DFT written here: V(u, v) = Σ I[y, x] exp(−2πi (u (x − c)Δ + v (y − c)Δ)), c = ⌊N/2⌋. */
 function directDft(image: Float64Array, n: number, pixel: number, u: number, v: number) {

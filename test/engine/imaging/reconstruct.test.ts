@@ -1,3 +1,4 @@
+import { SIX_STATIONS as SIX } from "@test/six-stations";
 import { describe, expect, it } from "vitest";
 import {
   computeReconstruction,
@@ -15,16 +16,6 @@ const POSITION_ANGLE_TOLERANCE_DEG = 5;
 const DIAMETER_TOLERANCE = 0.1;
 const RICH_FIDELITY_AT_LEAST = 0.9;
 const SPARSE_FIDELITY_GAP_AT_LEAST = 0.3;
-
-/** Six stations of the invented demo array: three core, three outriggers. */
-const SIX = [
-  { name: "C01", eastM: 0, northM: 0, upM: 0, pathOffsetM: 0 },
-  { name: "C02", eastM: 16, northM: 0, upM: 0, pathOffsetM: 2 },
-  { name: "C05", eastM: 8, northM: 13.86, upM: 0, pathOffsetM: 4 },
-  { name: "W1", eastM: -182, northM: 64, upM: 1.2, pathOffsetM: 40 },
-  { name: "N2", eastM: 35, northM: 228, upM: 2.1, pathOffsetM: 55 },
-  { name: "E3", eastM: 301, northM: -117, upM: -0.9, pathOffsetM: 70 },
-];
 
 /** A good coverage: 6 stations × 30 hour angles × 8 channels; a sparse one: 3 stations × 3 × 1. */
 function simulated(model: TargetModel, sparse = false) {
