@@ -5,7 +5,8 @@
  * from FILE, or from standard input when --input is absent. On success exactly
  * one JSON object is written to standard output (exit 0). On a bad request —
  * unknown command or option, missing or unreadable file, invalid JSON, a
- * validation failure — nothing is written to standard output, one line
+ * validation failure, a request over the cost budget — nothing is written to
+ * standard output, one line
  * `error: <reason>` goes to standard error and the exit status is 2 (1 for an
  * unexpected internal failure). See docs/cli.md.
  *
@@ -13,7 +14,7 @@
  * its subpaths), to keep start-up short.
  */
 import { readFile } from "node:fs/promises";
-import type { ParseResult } from "~/engine";
+import type { BudgetFailure, ParseResult } from "~/engine";
 
 const USAGE = `usage: npm run -s cli -- <coverage|ephemeris|triangles> [--input FILE] [--pretty]
   Reads a JSON request from FILE (or standard input) and prints one JSON object.
@@ -78,11 +79,20 @@ async function readRequest(input: string | null): Promise<unknown> {
   }
 }
 
-/** A command: the engine's parser of its request, then the computation (a refusal is a usage error). */
-function command<T, R>(parse: (json: unknown) => ParseResult<T>, compute: (value: T) => R) {
+/**
+ * A command: the engine's parser of its request, its cost budget, then the computation, in this
+ * process (a refusal or a request over budget is a usage error).
+ */
+function command<T, R>(
+  parse: (json: unknown) => ParseResult<T>,
+  budget: (value: T) => BudgetFailure | null,
+  compute: (value: T) => R,
+) {
   return (json: unknown): R => {
     const parsed = parse(json);
     if (!parsed.ok) throw new UsageError(parsed.message);
+    const over = budget(parsed.value);
+    if (over) throw new UsageError(over.message);
     return compute(parsed.value);
   };
 }
@@ -90,9 +100,9 @@ function command<T, R>(parse: (json: unknown) => ParseResult<T>, compute: (value
 async function run(opts: Options): Promise<unknown> {
   const engine = await import("~/engine");
   const commands: Record<string, (json: unknown) => unknown> = {
-    coverage: command(engine.parseCoverageRequest, engine.computeCoverage),
-    triangles: command(engine.parseTrianglesRequest, engine.rankTriangles),
-    ephemeris: command(engine.parseEphemerisRequest, engine.computeEphemeris),
+    coverage: command(engine.parseCoverageRequest, engine.coverageBudgetFailure, engine.computeCoverage),
+    triangles: command(engine.parseTrianglesRequest, engine.trianglesBudgetFailure, engine.rankTriangles),
+    ephemeris: command(engine.parseEphemerisRequest, () => null, engine.computeEphemeris),
   };
   if (!Object.hasOwn(commands, opts.command)) {
     throw new UsageError(`unknown command "${opts.command}" (expected coverage, ephemeris or triangles)`);
