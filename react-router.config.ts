@@ -12,4 +12,10 @@ export default {
     v8_trailingSlashAwareDataRequests: true,
     v8_viteEnvironmentApi: true,
   },
+  // The computation pool's worker threads load a file of their own: compile it beside the server
+  // bundle (app/services/api/pool.server.ts looks for it there).
+  async buildEnd({ reactRouterConfig, viteConfig }) {
+    const { buildComputeWorker } = await import("./scripts/build-worker");
+    await buildComputeWorker(viteConfig.root, `${reactRouterConfig.buildDirectory}/server`);
+  },
 } satisfies Config;

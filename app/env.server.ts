@@ -1,4 +1,5 @@
 import * as v from "valibot";
+import { COMPUTE_ENV_ENTRIES } from "./services/api/config.server";
 import { MAIL_ENV_ENTRIES } from "./services/mail/config.server";
 
 /**
@@ -28,6 +29,7 @@ const EnvSchema = v.object({
   /** "1" shows the demo sign-ins and everybody's mailbox: for the demo scenario only. */
   DEMO_MODE: v.optional(v.picklist(["0", "1"]), "1"),
   ...MAIL_ENV_ENTRIES,
+  ...COMPUTE_ENV_ENTRIES,
 });
 
 export type Env = v.InferOutput<typeof EnvSchema>;

@@ -13,7 +13,7 @@
  * its subpaths), to keep start-up short.
  */
 import { readFile, writeFile } from "node:fs/promises";
-import type { ParseResult } from "~/engine";
+import type { BudgetFailure, ParseResult } from "~/engine";
 
 /** Every command, in the order the usage lists them. */
 const COMMANDS = [
@@ -100,11 +100,20 @@ async function readRequest(input: string | null): Promise<unknown> {
   }
 }
 
-/** A command: the engine's parser of its request, then the computation (a refusal is a usage error). */
-function command<T, R>(parse: (json: unknown) => ParseResult<T>, compute: (value: T) => R) {
+/**
+ * A command: the engine's parser of its request, then its cost budget where it has one, then the
+ * computation, in this process (a refusal or a request over budget is a usage error).
+ */
+function command<T, R>(
+  parse: (json: unknown) => ParseResult<T>,
+  compute: (value: T) => R,
+  budget: (value: T) => BudgetFailure | null = () => null,
+) {
   return (json: unknown): R => {
     const parsed = parse(json);
     if (!parsed.ok) throw new UsageError(parsed.message);
+    const over = budget(parsed.value);
+    if (over) throw new UsageError(over.message);
     return compute(parsed.value);
   };
 }
@@ -132,8 +141,8 @@ async function run(opts: Options): Promise<unknown> {
   const engine = await import("~/engine");
   const { loadCatalogue: catalogue } = await import("~/services/catalogue/data.server");
   const commands: Record<(typeof COMMANDS)[number], (json: unknown) => unknown> = {
-    coverage: command(engine.parseCoverageRequest, engine.computeCoverage),
-    triangles: command(engine.parseTrianglesRequest, engine.rankTriangles),
+    coverage: command(engine.parseCoverageRequest, engine.computeCoverage, engine.coverageBudgetFailure),
+    triangles: command(engine.parseTrianglesRequest, engine.rankTriangles, engine.trianglesBudgetFailure),
     ephemeris: command(engine.parseEphemerisRequest, engine.computeEphemeris),
     plan: command(engine.parsePlanRequest, engine.computePlan),
     rank: command(engine.parseRankRequest, engine.rankReviews),

@@ -25,14 +25,28 @@ export {
   parseReconstructRequest,
 } from "./api/reconstruct";
 // Wire schemas: JSON validated into the inputs, one-line errors naming the field
-export type { CoverageRequest, EphemerisRequest, ParseResult, TrianglesRequest } from "./api/requests";
+export type { BudgetFailure, CostEstimate } from "./api/budget";
+export {
+  coverageBudgetFailure,
+  coverageCost,
+  MAX_COMPONENT_EVALUATIONS,
+  MAX_RANKED_CLOSURE_PHASES,
+  MAX_RESPONSE_BYTES,
+  trianglesBudgetFailure,
+  trianglesCost,
+} from "./api/budget";
 export {
   DEFAULT_MIN_ELEVATION_DEG,
+  longestNightMinutes,
   MAX_CLOSURE_VALUES,
   MAX_SAMPLES,
   MAX_UV_POINTS,
-  MODEL_TYPES,
   maxNightSamples,
+} from "./api/limits";
+export { MAX_MODEL_COMPONENTS, MAX_SUM_DEPTH, modelShape } from "./api/model-shape";
+export type { CoverageRequest, EphemerisRequest, ParseResult, TrianglesRequest } from "./api/requests";
+export {
+  MODEL_TYPES,
   parseCoverageRequest,
   parseEphemerisRequest,
   parseTrianglesRequest,

@@ -59,6 +59,23 @@ describe("command line", { timeout: 60_000 }, () => {
       /^error: target\.decDeg: must be between -90 and 90$/,
     ],
     ["invalid JSON", ["coverage"], "{oops", /^error: the request is not valid JSON/],
+    [
+      "a request over the cost budget",
+      ["coverage"],
+      JSON.stringify({
+        ...coverageRequest,
+        target: {
+          ...coverageRequest.target,
+          model: {
+            type: "sum",
+            components: Array.from({ length: 50 }, () => ({ model: { type: "point" }, flux: 1 })),
+          },
+        },
+        hourAnglesH: Array.from({ length: 20_000 }, (_, i) => -6 + (12 * i) / 20_000),
+        wavelengthsM: Array.from({ length: 10 }, (_, i) => 1.5e-6 + i * 1e-8),
+      }),
+      /^error: target\.model: 50 components × 600 000 uv points = 30 000 000 component evaluations \(limit 10 000 000\); use fewer components, stations, samples or channels$/,
+    ],
     ["an unknown command", ["cover", "--input", "x.json"], undefined, /^error: unknown command "cover"/],
     ["a missing file", ["ephemeris", "--input", "/nonexistent/req.json"], undefined, /^error: input file not found/],
   ];
@@ -69,7 +86,7 @@ describe("command line", { timeout: 60_000 }, () => {
         args.map((a) => (a === "BAD" ? badFile : a)),
         stdin,
       );
-      expect(r.status).not.toBe(0);
+      expect(r.status).toBe(2);
       expect(r.stdout).toBe("");
       const lines = r.stderr.trimEnd().split("\n");
       expect(lines).toHaveLength(1);

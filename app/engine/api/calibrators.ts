@@ -6,7 +6,8 @@
  */
 import * as v from "valibot";
 import type { CalibratorsInput, CalibratorTarget } from "../catalogue/types";
-import { DEFAULT_MIN_ELEVATION_DEG, formatIssues, IsoDateSchema, type ParseResult, SiteSchema } from "./requests";
+import { DEFAULT_MIN_ELEVATION_DEG } from "./limits";
+import { formatIssues, IsoDateSchema, type ParseResult, SiteSchema } from "./requests";
 import { StarNameSchema } from "./resolve";
 
 export const DEFAULT_MAX_DISTANCE_DEG = 10;

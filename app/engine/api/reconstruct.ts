@@ -15,7 +15,8 @@ import type {
   Vis2Datum,
 } from "../imaging/inputs";
 import type { TargetModel } from "../inputs";
-import { formatIssues, MAX_WAVELENGTH_M, type ParseResult, TargetModelSchema } from "./requests";
+import { MAX_WAVELENGTH_M } from "./limits";
+import { formatIssues, type ParseResult, TargetModelSchema } from "./requests";
 
 /** Most V² and closure-phase values one reconstruction accepts. */
 export const MAX_RECONSTRUCT_VIS2 = 100_000;

@@ -21,27 +21,19 @@ import type {
   TrianglesInput,
 } from "../inputs";
 import { isPowerOfTwo } from "../math";
-
-// ---------------------------------------------------------------- limits
-
-/** Most hour-angle samples a request may ask for (explicit list or night sampling). */
-export const MAX_SAMPLES = 20_000;
-/** Most stations in one request. */
-export const MAX_STATIONS = 64;
-/** Most spectral channels (wavelengths) in one request. */
-export const MAX_WAVELENGTHS = 2000;
-/** Most uv points (baselines × samples × wavelengths) one request may produce. */
-export const MAX_UV_POINTS = 3_000_000;
-/** Most closure-phase values (triangles × samples × wavelengths) one request may produce. */
-export const MAX_CLOSURE_VALUES = 6_000_000;
-/** Longest wavelength accepted, metres: catches micrometres typed as metres. */
-export const MAX_WAVELENGTH_M = 1e-3;
-/** Default minimum elevation when a request gives none, degrees (air mass 2). */
-export const DEFAULT_MIN_ELEVATION_DEG = 30;
-/** Default dirty-beam grid size, pixels per side. */
-export const DEFAULT_GRID_SIZE = 256;
-/** Default number of triangles returned by the triangle finder (all when larger). */
-export const DEFAULT_MAX_TRIANGLES = 50;
+import {
+  coverageRuleFailure,
+  DEFAULT_GRID_SIZE,
+  DEFAULT_MAX_TRIANGLES,
+  DEFAULT_MIN_ELEVATION_DEG,
+  MAX_SAMPLES,
+  MAX_STATIONS,
+  MAX_WAVELENGTH_M,
+  MAX_WAVELENGTHS,
+  maxNightSamples,
+  samplingRuleFailure,
+} from "./limits";
+import { modelShapeFailure } from "./model-shape";
 
 // ---------------------------------------------------------------- building blocks
 
@@ -125,7 +117,20 @@ export const MODEL_TYPES = ["point", "uniformDisk", "gaussian", "limbDarkenedDis
 
 const modelTypeMessage = `must be one of ${MODEL_TYPES.join(", ")}`;
 
-export const TargetModelSchema: v.GenericSchema<unknown, TargetModel> = v.lazy(() =>
+/**
+ * A target model. Its shape (sum nesting, components in all: ./model-shape.ts) is checked first,
+ * without recursion, so a deeply nested model is refused before the recursive checks below run.
+ */
+export const TargetModelSchema: v.GenericSchema<unknown, TargetModel> = v.pipe(
+  v.unknown(),
+  v.check(
+    (model) => modelShapeFailure(model) === null,
+    (issue) => modelShapeFailure(issue.input) ?? "has an unacceptable shape",
+  ),
+  v.lazy(() => ModelVariantSchema),
+);
+
+const ModelVariantSchema: v.GenericSchema<unknown, TargetModel> = v.lazy(() =>
   v.variant(
     "type",
     [
@@ -200,11 +205,6 @@ const HourAnglesSchema = v.pipe(
   v.maxLength(MAX_SAMPLES, `must list at most ${MAX_SAMPLES} hour-angle samples`),
 );
 
-/** Largest number of samples a night of at most 24 h can produce at a step (aligned to the step). */
-export function maxNightSamples(stepMin: number): number {
-  return Math.floor(1440 / stepMin) + 1;
-}
-
 export const NightSamplingSchema = v.object(
   {
     date: IsoDateSchema,
@@ -253,70 +253,6 @@ const commonEntries = {
   minElevationDeg: v.optional(between(0, 90), DEFAULT_MIN_ELEVATION_DEG),
   delayLineStrokeM: v.optional(v.nullable(positive()), null),
 };
-
-interface SamplingShape {
-  stations: unknown[];
-  wavelengthsM: number[];
-  hourAnglesH?: number[];
-  night?: { stepMin: number };
-}
-
-/** Upper bound of the number of hour-angle samples a validated request can produce. */
-export function sampleCountBound(req: { hourAnglesH?: number[]; night?: { stepMin: number } }): number {
-  if (req.hourAnglesH) return req.hourAnglesH.length;
-  if (req.night) return Math.min(MAX_SAMPLES, maxNightSamples(req.night.stepMin));
-  return 0;
-}
-
-/**
- * The size of what a request asks for, against its limit: `pairs` (baselines) or `triples` (closure
- * triangles) of stations × samples × wavelengths.
- */
-function sizeCheck(r: SamplingShape, of: "uv points" | "closure phases"): { text: string; ok: boolean } {
-  const n = r.stations.length;
-  const groups = of === "uv points" ? (n * (n - 1)) / 2 : (n * (n - 1) * (n - 2)) / 6;
-  const groupName = of === "uv points" ? "baselines" : "triangles";
-  const limit = of === "uv points" ? MAX_UV_POINTS : MAX_CLOSURE_VALUES;
-  const s = sampleCountBound(r);
-  const c = r.wavelengthsM.length;
-  const total = groups * s * c;
-  return {
-    ok: total <= limit,
-    text: `request too large: ${groups} ${groupName} × ${s} samples × ${c} wavelengths = ${total} ${of} (limit ${limit})`,
-  };
-}
-
-/**
- * Cross-field rules of coverage and triangle requests, checked after the
- * schema: sampling given exactly once and the size limits. Returns the first
- * failure or null.
- */
-export function samplingRuleFailure(r: SamplingShape): { message: string; field: string } | null {
-  if (r.hourAnglesH && r.night) return { field: "hourAnglesH", message: "give either hourAnglesH or night, not both" };
-  if (!r.hourAnglesH && !r.night)
-    return { field: "hourAnglesH", message: "is required (or give night: {date, stepMin})" };
-  const uv = sizeCheck(r, "uv points");
-  if (!uv.ok) return { field: "wavelengthsM", message: uv.text };
-  const cl = sizeCheck(r, "closure phases");
-  if (!cl.ok) return { field: "stations", message: cl.text };
-  return null;
-}
-
-/** Largest grid for which the beam and dirty images are returned (they grow as gridSize²). */
-export const MAX_IMAGE_GRID = 512;
-
-/** Cross-field rules of a coverage request: the sampling rules plus the image size. */
-export function coverageRuleFailure(r: SamplingShape & { beam: BeamOptions | null }): {
-  message: string;
-  field: string;
-} | null {
-  const sampling = samplingRuleFailure(r);
-  if (sampling) return sampling;
-  if (r.beam?.includeImages && r.beam.gridSize > MAX_IMAGE_GRID) {
-    return { field: "beam.includeImages", message: `images are returned only for gridSize up to ${MAX_IMAGE_GRID}` };
-  }
-  return null;
-}
 
 // ---------------------------------------------------------------- requests
 

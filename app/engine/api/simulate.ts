@@ -5,13 +5,8 @@
  */
 import * as v from "valibot";
 import type { ClosurePhaseTriangles, NoiseInput, OifitsOptions, SimulateInput } from "../imaging/inputs";
-import {
-  CoverageRequestSchema,
-  coverageRuleFailure,
-  formatIssues,
-  type ParseResult,
-  sampleCountBound,
-} from "./requests";
+import { coverageRuleFailure, sampleCountBound } from "./limits";
+import { CoverageRequestSchema, formatIssues, type ParseResult } from "./requests";
 
 /** Most V² values a simulation may produce (baselines × samples × channels). */
 export const MAX_SIMULATED_VIS2 = 100_000;

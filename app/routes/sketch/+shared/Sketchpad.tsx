@@ -71,7 +71,9 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
     : coverage.isValidating
       ? "Computing the sketch…"
       : built.ok && coverage.error
-        ? "Not computed: fix the marked input"
+        ? coverage.error.retryAfterS !== null
+          ? `The server is busy: asking again in ${coverage.error.retryAfterS} s`
+          : "Not computed: fix the marked input"
         : built.ok && upToDate
           ? `Up to date (${((coverage.data?.elapsedMs ?? 0) / 1000).toFixed(2)} s round trip)`
           : built.ok

@@ -125,7 +125,9 @@ export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [
               ranking.isValidating
                 ? `Ranking ${asked?.body.stations.length ?? 0} stations…`
                 : ranking.error
-                  ? "Not ranked: fix the marked input"
+                  ? ranking.error.retryAfterS !== null
+                    ? `The server is busy: asking again in ${ranking.error.retryAfterS} s`
+                    : "Not ranked: fix the marked input"
                   : ranking.data
                     ? `Ranked in a ${(ranking.data.elapsedMs / 1000).toFixed(2)} s round trip`
                     : "Not ranked yet"

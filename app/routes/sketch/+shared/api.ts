@@ -11,6 +11,8 @@ export class ApiError extends Error {
     readonly status: number,
     message: string,
     readonly field: string | null,
+    /** Seconds the server asked to wait (Retry-After of a 429 or 503: the computation pool was full). */
+    readonly retryAfterS: number | null = null,
   ) {
     super(message);
     this.name = "ApiError";
@@ -54,7 +56,13 @@ export async function postJson<T>(url: string, bodyText: string): Promise<Timed<
         : typeof body.error === "string"
           ? body.error
           : `The server answered ${res.status}.`;
-    throw new ApiError(res.status, message, typeof body.field === "string" ? body.field : null);
+    const retryAfter = Number(res.headers.get("Retry-After"));
+    throw new ApiError(
+      res.status,
+      message,
+      typeof body.field === "string" ? body.field : null,
+      (res.status === 429 || res.status === 503) && retryAfter > 0 ? retryAfter : null,
+    );
   }
   if (json === null) throw new ApiError(res.status, "The server's answer was not JSON.", null);
   return { result: json as T, elapsedMs: performance.now() - started, request: bodyText };
@@ -64,9 +72,13 @@ type Key = readonly [string, string];
 
 const fetcher = <T>([url, body]: Key) => postJson<T>(url, body);
 
+/** Times a request refused because the computation pool was full is asked again. */
+const BUSY_RETRIES = 5;
+
 /**
  * SWR over a POST route. `body` null means "nothing to ask" (no request). The previous answer is kept
- * while a new one loads; errors are not retried (a 400 stays a 400 until the input changes).
+ * while a new one loads; a refusal is not asked again (a 400 stays a 400 until the input changes),
+ * except "busy, try again later" (429/503 with Retry-After), asked again after the time it names.
  */
 export function useApi<T>(url: string, body: unknown | null) {
   const key: Key | null = body === null ? null : [url, JSON.stringify(body)];
@@ -75,6 +87,10 @@ export function useApi<T>(url: string, body: unknown | null) {
     revalidateOnFocus: false,
     revalidateOnReconnect: false,
     revalidateIfStale: false,
-    shouldRetryOnError: false,
+    shouldRetryOnError: (err) => err instanceof ApiError && err.retryAfterS !== null,
+    onErrorRetry: (err, _key, _config, revalidate, { retryCount }) => {
+      if (!(err instanceof ApiError) || err.retryAfterS === null || retryCount > BUSY_RETRIES) return;
+      setTimeout(() => revalidate({ retryCount }), err.retryAfterS * 1000);
+    },
   });
 }
