@@ -88,11 +88,29 @@ function failureOf(error: unknown): RequestFailure | null {
   return null;
 }
 
+/** A write whose Origin header names another site than the one it was sent to. */
+function crossOriginPost(request: Request): boolean {
+  const origin = request.headers.get("Origin");
+  if (!origin || ["GET", "HEAD"].includes(request.method.toUpperCase())) return false;
+  try {
+    return new URL(origin).host !== new URL(request.url).host;
+  } catch {
+    return true;
+  }
+}
+
 export const handleError: HandleErrorFunction = (error, { request, context }) => {
   if (request.signal.aborted) return;
   // A 4xx the router answers itself (a POST to a page without a form, an unknown address) is the
   // client's mistake, answered as such; nothing to log.
   if (isRouteErrorResponse(error) && error.status < 500) return;
+  if (crossOriginPost(request)) {
+    // React Router refused a form posted from another site (400) before any action ran.
+    console.warn(
+      `[cross-site] ${request.method} ${new URL(request.url).pathname} from ${request.headers.get("Origin")}`,
+    );
+    return;
+  }
   const failure = failureOf(error);
   if (failure) {
     // Not a bug of ours to log with a stack: the root middleware answers it (503, 413 or 400).

@@ -168,7 +168,9 @@ export function createAppServer(options: AppServerOptions) {
   const handlers = new WeakMap<ServerBuild, ReturnType<typeof createRequestHandler>>();
   const loadBuild = typeof options.build === "function" ? options.build : async () => options.build as ServerBuild;
 
-  app.all("*", async (req: express.Request & Tracked, res, next) => {
+  // `use`, not `all("*")`: express would decode the path as a route parameter and fail (500) on
+  // malformed percent-encoding; the app reads the address itself and answers that with a 404.
+  app.use(async (req: express.Request & Tracked, res, next) => {
     try {
       const build = await loadBuild();
       let handle = handlers.get(build);

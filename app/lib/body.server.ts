@@ -55,8 +55,9 @@ export function declaredLength(request: Request): number | null {
 
 export async function readBodyCapped(request: Request, maxBytes: number): Promise<CappedBody> {
   const declared = declaredLength(request);
+  // Cancelling is not awaited: for a tee'd body (`request.clone()`) it settles only once both copies are cancelled.
   if (declared !== null && declared > maxBytes) {
-    await request.body?.cancel().catch(() => undefined);
+    void request.body?.cancel().catch(() => undefined);
     return { ok: false, reason: "too-large" };
   }
   if (!request.body) return { ok: true, bytes: new Uint8Array(0) };
@@ -69,7 +70,7 @@ export async function readBodyCapped(request: Request, maxBytes: number): Promis
       if (done) break;
       total += value.byteLength;
       if (total > maxBytes) {
-        await reader.cancel().catch(() => undefined);
+        void reader.cancel().catch(() => undefined);
         return { ok: false, reason: "too-large" };
       }
       chunks.push(value);
@@ -129,7 +130,7 @@ export async function readFormBody(
   const unreadable = { ok: false, status: 400, error: "The form could not be read; please send it again." } as const;
   const type = mediaType(request);
   if (type !== "" && !FORM_MEDIA_TYPES.includes(type)) {
-    await request.body?.cancel().catch(() => undefined);
+    void request.body?.cancel().catch(() => undefined);
     return { ok: false, status: 415, error: `This page takes a form, not ${type}.` };
   }
   const read = await readBodyCapped(request, maxBytes);

@@ -19,7 +19,9 @@ import {
   FORM_MEDIA_TYPES,
   formProblem,
   mediaType,
+  parseForm,
   REQUEST_BODY_MAX_BYTES,
+  readBodyCapped,
 } from "./body.server";
 import { withSecurityHeaders } from "./security-headers.server";
 
@@ -84,20 +86,22 @@ export const checkRequest: MiddlewareFunction<Response> = async ({ request, cont
   const cap = CONTENT_TYPE_MAX_BYTES[type as keyof typeof CONTENT_TYPE_MAX_BYTES] ?? REQUEST_BODY_MAX_BYTES;
   const length = declaredLength(request);
   if (length !== null && length > cap) {
-    await request.body?.cancel().catch(() => undefined);
+    void request.body?.cancel().catch(() => undefined);
     throw refuse(request, 413, `The request is larger than ${megabytes(cap)}.`);
   }
   if (FORM_MEDIA_TYPES.includes(type)) {
-    // A copy of the (already capped) body, parsed once here so every form route gets the same checks.
-    let form: FormData;
-    try {
-      form = await request.clone().formData();
-    } catch {
-      if (context.get(bodyRefusalContext)) {
-        throw refuse(request, 413, `The request is larger than ${megabytes(REQUEST_BODY_MAX_BYTES)}.`);
+    // A copy of the body, counted against the cap (also when it comes chunked, without a length) and
+    // parsed once here, so every form route gets the same checks whoever reads the body later.
+    const copy = request.clone();
+    const read = await readBodyCapped(copy, cap);
+    if (!read.ok) {
+      if (read.reason === "too-large" || context.get(bodyRefusalContext)) {
+        throw refuse(request, 413, `The request is larger than ${megabytes(cap)}.`);
       }
       throw refuse(request, 400, "The form could not be read; please send it again.");
     }
+    const form = await parseForm(copy, read.bytes);
+    if (!form) throw refuse(request, 400, "The form could not be read; please send it again.");
     const problem = formProblem(form);
     if (problem) throw refuse(request, 400, problem);
   }
@@ -123,7 +127,7 @@ export const answerFailures: MiddlewareFunction<Response> = async ({ request, co
     ? "body-too-large"
     : context.get(requestFailureContext);
   if (!failure) return response;
-  await response.body?.cancel().catch(() => undefined);
+  void response.body?.cancel().catch(() => undefined);
   const answer = FAILURE_ANSWERS[failure];
   const headers: Record<string, string> = answer.status === 503 ? { "Retry-After": String(RETRY_AFTER_SECONDS) } : {};
   const refused = refuse(request, answer.status, answer.message, headers);

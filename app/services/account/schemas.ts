@@ -1,4 +1,5 @@
 import * as v from "valibot";
+import { sentField } from "~/lib/form-errors";
 import { strictNumber } from "~/lib/numbers";
 import { TOKEN_LIFETIMES_DAYS, TOKEN_SCOPES } from "~/lib/permissions";
 
@@ -43,10 +44,15 @@ const TokenId = v.pipe(
 export const AccountActionSchema = v.variant(
   "intent",
   [
-    v.object({ intent: v.literal("revoke-session"), sessionId: SessionId }),
+    v.object({ intent: v.literal("revoke-session"), sessionId: sentField(SessionId) }),
     v.object({ intent: v.literal("revoke-other-sessions") }),
-    v.object({ intent: v.literal("create-token"), name: TokenName, scopes: TokenScopes, lifetimeDays: TokenLifetime }),
-    v.object({ intent: v.literal("revoke-token"), tokenId: TokenId }),
+    v.object({
+      intent: v.literal("create-token"),
+      name: sentField(TokenName),
+      scopes: TokenScopes,
+      lifetimeDays: sentField(TokenLifetime),
+    }),
+    v.object({ intent: v.literal("revoke-token"), tokenId: sentField(TokenId) }),
   ],
   "Unknown action.",
 );

@@ -1,5 +1,6 @@
 import * as v from "valibot";
 import { ROLES } from "~/db/schema/users";
+import { sentField } from "~/lib/form-errors";
 
 /** A person's number as the People page posts it: digits only ("12", never "0x0c", "1e1" or " 12"). */
 const PersonId = v.pipe(
@@ -14,9 +15,13 @@ const PersonId = v.pipe(
 export const PeopleActionSchema = v.variant(
   "intent",
   [
-    v.object({ intent: v.literal("set-roles"), userId: PersonId, roles: v.array(v.picklist(ROLES, "Unknown role.")) }),
-    v.object({ intent: v.literal("deactivate"), userId: PersonId }),
-    v.object({ intent: v.literal("reactivate"), userId: PersonId }),
+    v.object({
+      intent: v.literal("set-roles"),
+      userId: sentField(PersonId),
+      roles: v.array(v.picklist(ROLES, "Unknown role.")),
+    }),
+    v.object({ intent: v.literal("deactivate"), userId: sentField(PersonId) }),
+    v.object({ intent: v.literal("reactivate"), userId: sentField(PersonId) }),
   ],
   "Unknown action.",
 );

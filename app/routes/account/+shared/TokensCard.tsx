@@ -62,7 +62,7 @@ function TokenLine({ token: t }: { token: AccountToken }) {
 function ScopeChoices({ typed }: { typed: TypedToken | null }) {
   const ticked = (s: TokenScope) => (typed ? typed.scopes.includes(s) : s === "computations:read");
   return (
-    <fieldset className="min-w-60 flex-1">
+    <fieldset className="sm:col-span-2">
       <legend className="mb-1 text-sm font-medium text-night-900">The token may</legend>
       {TOKEN_SCOPES.map((s) => (
         <label key={s} className="flex items-center gap-2 py-0.5 text-sm text-night-800">
@@ -127,7 +127,7 @@ export function TokensCard({
         />
         <LifetimeChoice typed={typed} />
         <ScopeChoices typed={typed} />
-        <div>
+        <div className="sm:col-span-2">
           <Button type="submit" disabled={busy}>
             Create token
           </Button>
