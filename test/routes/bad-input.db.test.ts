@@ -313,7 +313,27 @@ const CORPUS: Case[] = [
     says: "NUL character",
   },
   { name: "a NUL in the people search", path: "/admin/users?q=%00", as: "admin", status: 400, says: "NUL character" },
-  { name: "LIKE wildcards in the people search", path: "/admin/users?q=%25", as: "admin", status: 200, says: "People" },
+  {
+    name: "LIKE wildcards in the people search",
+    path: "/admin/users?q=%25",
+    as: "admin",
+    status: 200,
+    says: "Nobody matches “%”",
+  },
+  {
+    name: "a people search over 100 characters",
+    path: `/admin/users?q=${"p".repeat(101)}`,
+    as: "admin",
+    status: 400,
+    says: "The search text is longer than 100 characters; nothing was searched.",
+  },
+  {
+    name: "a mailbox search over 200 characters",
+    path: `/mailbox?q=${"m".repeat(201)}`,
+    as: "proposer",
+    status: 400,
+    says: "The search text is longer than 200 characters; nothing was searched.",
+  },
   {
     name: "a site number past any integer in the registry export",
     path: `/registry/export/stations.csv?site=${HUGE}`,

@@ -1,4 +1,4 @@
-import { Form, href, Link } from "react-router";
+import { data, Form, href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import {
   Badge,
@@ -13,7 +13,7 @@ import {
 } from "~/components/ui";
 import { dbContext } from "~/context";
 import { requireMailboxReader } from "~/lib/guards.server";
-import { mailboxOverview, parseMailboxQuery } from "~/services/mailbox/queries.server";
+import { MAILBOX_QUERY_MAX, mailboxOverview, parseMailboxQuery } from "~/services/mailbox/queries.server";
 import { Pager } from "./+shared/Pager";
 import { attemptsText, Recipient, StatusBadge } from "./+shared/parts";
 import type { Route } from "./+types/index";
@@ -22,7 +22,8 @@ export async function loader({ request, url, context }: Route.LoaderArgs) {
   const viewer = await requireMailboxReader(request);
   const query = parseMailboxQuery(url.searchParams);
   const reader = { email: viewer.user.email, readsAll: viewer.readsAll };
-  return mailboxOverview(context.get(dbContext), { query, reader });
+  const overview = await mailboxOverview(context.get(dbContext), { query, reader });
+  return data(overview, { status: query.qTooLong ? 400 : 200 });
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "Mailbox — Fringe Docket" }];
@@ -95,7 +96,7 @@ function NoMessages({ q }: { q: string }) {
 }
 
 export default function Mailbox({ loaderData }: Route.ComponentProps) {
-  const { q, page, pageCount, pageSize, total, rows, readsAll } = loaderData;
+  const { q, page, pageCount, pageSize, total, rows, readsAll, qTooLong } = loaderData;
   const first = total === 0 ? 0 : (page - 1) * pageSize + 1;
   const last = Math.min(total, page * pageSize);
   return (
@@ -111,7 +112,19 @@ export default function Mailbox({ loaderData }: Route.ComponentProps) {
       <div className="grid gap-6">
         <Form method="get" action={href("/mailbox")} role="search" className="flex flex-wrap items-end gap-3">
           <div className="min-w-64 flex-1">
-            <TextField label="Search by address or subject" name="q" type="search" defaultValue={q} maxLength={200} />
+            <TextField
+              label="Search by address or subject"
+              name="q"
+              type="search"
+              defaultValue={q}
+              maxLength={MAILBOX_QUERY_MAX}
+              hint={`Up to ${MAILBOX_QUERY_MAX} characters.`}
+              error={
+                qTooLong
+                  ? `The search text is longer than ${MAILBOX_QUERY_MAX} characters; nothing was searched.`
+                  : undefined
+              }
+            />
           </div>
           <Button type="submit">Search</Button>
           {q ? (

@@ -33,29 +33,28 @@ function readable(reader: MailboxReader): SQL | undefined {
   return reader.readsAll ? undefined : sql`lower(${outboxMessages.toAddress}) = lower(${reader.email})`;
 }
 
+/** Longest search text, characters (stated beside the search box). */
+export const MAILBOX_QUERY_MAX = 200;
+
 /**
- * The list's query string: `q` searches address and subject (trimmed, at most 200 characters, blank
- * means no search); `page` counts from 1, and anything that is not a positive whole number is page 1.
+ * The list's query string: `q` searches address and subject (trimmed, blank means no search; a text
+ * over MAILBOX_QUERY_MAX characters is not cut short but refused: no search, `qTooLong` set); `page`
+ * counts from 1, and anything that is not a positive whole number is page 1.
  */
 export const MailboxQuerySchema = v.object({
-  q: v.fallback(
-    v.pipe(
-      v.string(),
-      v.trim(),
-      v.transform((s) => s.slice(0, 200)),
-    ),
-    "",
-  ),
+  q: v.fallback(v.pipe(v.string(), v.trim()), ""),
   page: v.fallback(v.pipe(v.string(), v.regex(/^\d{1,6}$/), v.transform(Number), v.integer(), v.minValue(1)), 1),
 });
 
-export type MailboxQuery = v.InferOutput<typeof MailboxQuerySchema>;
+export type MailboxQuery = v.InferOutput<typeof MailboxQuerySchema> & { qTooLong: boolean };
 
 export function parseMailboxQuery(params: URLSearchParams): MailboxQuery {
-  return v.parse(MailboxQuerySchema, {
+  const parsed = v.parse(MailboxQuerySchema, {
     q: params.get("q") ?? undefined,
     page: params.get("page") ?? undefined,
   });
+  const qTooLong = parsed.q.length > MAILBOX_QUERY_MAX;
+  return { ...parsed, q: qTooLong ? "" : parsed.q, qTooLong };
 }
 
 /** A message number from the address (`toId`), written plainly: "42", not "042" or " 42"; else null. */
@@ -115,7 +114,7 @@ export async function listMessages(
   query: { q?: string; page?: number },
   reader: MailboxReader,
 ): Promise<MailboxPage> {
-  const q = (query.q ?? "").trim().slice(0, 200);
+  const q = (query.q ?? "").trim().slice(0, MAILBOX_QUERY_MAX);
   const asked = Number.isInteger(query.page) && (query.page ?? 0) >= 1 ? (query.page as number) : 1;
   const search: SQL | undefined = q
     ? or(ilike(outboxMessages.toAddress, likePattern(q)), ilike(outboxMessages.subject, likePattern(q)))
@@ -213,6 +212,7 @@ export async function mailboxOverview(db: Database, { query, reader }: { query: 
   const { rows, ...page } = await listMessages(db, query, reader);
   return {
     ...page,
+    qTooLong: query.qTooLong,
     readsAll: reader.readsAll,
     rows: rows.map((m) => ({ ...summary(m, reader.email), createdAt: m.createdAt.toISOString() })),
   };

@@ -20,6 +20,9 @@ import {
   parseMessageId,
 } from "~/services/mailbox/queries.server";
 
+/** The mailbox list's loader data (it answers through `data()` to carry its status). */
+const listPage = async (args: Parameters<typeof mailboxLoader>[0]) => (await mailboxLoader(args)).data;
+
 const LINK = "http://localhost:3000/auth/email/verify?token=abcdefghijklmnopqrstuvwxyz234567";
 
 /** A sign-in notice for `to` under `subject`, its body carrying LINK. */
@@ -78,11 +81,13 @@ describe("mailbox reads", () => {
 
   it("reads the query string and the message number defensively", () => {
     const q = (s: string) => parseMailboxQuery(new URLSearchParams(s));
-    expect(q("")).toEqual({ q: "", page: 1 });
-    expect(q("q=%20ines%20&page=2")).toEqual({ q: "ines", page: 2 });
+    expect(q("")).toEqual({ q: "", page: 1, qTooLong: false });
+    expect(q("q=%20ines%20&page=2")).toEqual({ q: "ines", page: 2, qTooLong: false });
     for (const bad of ["page=0", "page=-3", "page=abc", "page=1.5", "page=99999999999", "page="])
       expect(q(bad).page).toBe(1);
-    expect(q(`q=${"x".repeat(500)}`).q).toHaveLength(200);
+    // A search text over the stated limit is refused, never cut short silently.
+    expect(q(`q=${"x".repeat(201)}`)).toEqual({ q: "", page: 1, qTooLong: true });
+    expect(q(`q=${"x".repeat(200)}`).q).toHaveLength(200);
 
     expect(parseMessageId("42")).toBe(42);
     for (const bad of [undefined, "", "0", "-1", "042", "4e2", "1.0", "abc", "99999999999", "2147483648"])
@@ -122,14 +127,14 @@ describe("mailbox pages", () => {
     const mine = await enqueueMail(db, signInMail("MARA@example.org", "For the viewer"));
     await enqueueMail(db, signInMail("other@example.org", "For someone else"));
 
-    const list = await mailboxLoader(routeArgs("/mailbox?page=banana&q=", init));
+    const list = await listPage(routeArgs("/mailbox?page=banana&q=", init));
     expect(list.page).toBe(1);
     expect(list.total).toBe(2);
     expect(list.rows.map((r) => [r.subject, r.status, r.toViewer])).toEqual([
       ["For someone else", "queued", false],
       ["For the viewer", "queued", true],
     ]);
-    const found = await mailboxLoader(routeArgs("/mailbox?q=viewer", init));
+    const found = await listPage(routeArgs("/mailbox?q=viewer", init));
     expect(found.rows.map((r) => r.id)).toEqual([mine.id]);
 
     const one = await messageLoader(
@@ -181,7 +186,7 @@ describe("whose mail a signed-in person reads", () => {
       .where(eq(outboxMessages.toAddress, "root@lumbre.example"));
     expect(admins).toContain("token=");
 
-    const list = await mailboxLoader(routeArgs("/mailbox", ines));
+    const list = await listPage(routeArgs("/mailbox", ines));
     expect(list.readsAll).toBe(false);
     expect(list.rows.map((r) => r.subject)).toEqual(["Ines's link"]);
     // The administrator's sign-in link is "no such message" to her, by number or by search.
@@ -189,7 +194,7 @@ describe("whose mail a signed-in person reads", () => {
       messageLoader(routeArgs(`/mailbox/${adminRow.id}`, { ...ines, params: { messageId: String(adminRow.id) } })),
     );
     expect(theirs).toBe(404);
-    expect((await mailboxLoader(routeArgs("/mailbox?q=root", ines))).total).toBe(0);
+    expect((await listPage(routeArgs("/mailbox?q=root", ines))).total).toBe(0);
     const own = await messageLoader(
       routeArgs(`/mailbox/${hers.id}`, { ...ines, params: { messageId: String(hers.id) } }),
     );
@@ -205,7 +210,7 @@ describe("whose mail a signed-in person reads", () => {
     const open = () =>
       messageLoader(routeArgs(`/mailbox/${row.id}`, { ...admin, params: { messageId: String(row.id) } }));
 
-    const list = await mailboxLoader(routeArgs("/mailbox", admin));
+    const list = await listPage(routeArgs("/mailbox", admin));
     expect(list.readsAll).toBe(true);
     expect(list.rows.map((r) => r.to)).toContain("kenji@tidewater.example");
     const live = (await open()).message;
