@@ -21,6 +21,7 @@ import { database } from "./db/client.server";
 import { env } from "./env.server";
 import { readFlash } from "./lib/flash.server";
 import { getViewer } from "./lib/guards.server";
+import { answerFailures, checkRequest, finishResponse } from "./lib/middleware.server";
 import { sectionsFor } from "./lib/permissions";
 import { crossSiteReason } from "./services/auth/origin.server";
 
@@ -42,7 +43,18 @@ const provideDatabase: Route.MiddlewareFunction = async ({ context }, next) => {
   return next();
 };
 
-export const middleware: Route.MiddlewareFunction[] = [refuseCrossSite, provideDatabase];
+/**
+ * In order: security headers on every answer (and Retry-After on a 503); cross-site writes refused;
+ * the address and body checked (NUL characters, size, content type); the database handle; and,
+ * around the loaders and actions, a database outage or an oversized body answered 503 / 413.
+ */
+export const middleware: Route.MiddlewareFunction[] = [
+  finishResponse,
+  refuseCrossSite,
+  checkRequest,
+  provideDatabase,
+  answerFailures,
+];
 
 export const links: Route.LinksFunction = () => [
   {
@@ -71,7 +83,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     {
       flash,
       viewer: viewer ? { name: viewer.user.name, email: viewer.user.email, roles: viewer.roles } : null,
-      sections: sectionsFor(viewer?.roles ?? [], { signedIn: !!viewer, demoMode }),
+      sections: sectionsFor(viewer?.roles ?? [], { signedIn: !!viewer }),
       demoMode,
     },
     { headers },

@@ -133,7 +133,7 @@ const MATRIX: Row[] = [
   get("/proposals/:proposalId/versions/:version", "/proposals/4/versions/1", { ...proposerOnly, proposer: 404 }),
   get("/cycles/new", "/cycles/new", chairOnly),
   get("/cycles/:cycleId/edit", "/cycles/1/edit", chairOnly),
-  // Demo mode (as the test server runs): every signed-in person may read the mailbox.
+  // Every signed-in person reads their own mail there (administrators everyone's); demo mode or not.
   get("/mailbox", "/mailbox", signedIn("ok")),
   get("/mailbox/:messageId", "/mailbox/999999", signedIn(404)),
   post("/api/coverage", "/api/coverage", coverageBody, { ...all("ok"), anonymous: "unauthorized" }),
@@ -178,6 +178,16 @@ afterAll(async () => {
   await close?.();
 });
 
+/** A row's body as its route takes it: JSON for the API, a form (its fields) for a page. */
+function bodyOf(row: Row): { body?: string; headers: Record<string, string> } {
+  if (row.body === undefined) return { headers: {} };
+  if (row.path.startsWith("/api/")) {
+    return { body: JSON.stringify(row.body), headers: { "Content-Type": "application/json" } };
+  }
+  const form = new URLSearchParams(row.body as Record<string, string>).toString();
+  return { body: form, headers: { "Content-Type": "application/x-www-form-urlencoded" } };
+}
+
 function judge(res: Response): Outcome {
   if (res.status === 302 && (res.headers.get("Location") ?? "").startsWith("/sign-in")) return "sign-in";
   if (res.status === 403) return "forbidden";
@@ -197,13 +207,12 @@ describe("access matrix", () => {
     it(`${row.method} ${row.path}`, async () => {
       const outcomes: Partial<Record<Who, Outcome>> = {};
       for (const who of WHO) {
-        const headers: Record<string, string> = {};
+        const headers: Record<string, string> = { ...bodyOf(row).headers };
         if (cookies[who as Role]) headers.Cookie = cookies[who as Role]!;
-        if (row.body !== undefined) headers["Content-Type"] = "application/json";
         const res = await fetch(`${baseUrl}${row.path}`, {
           method: row.method,
           headers,
-          body: row.body === undefined ? undefined : JSON.stringify(row.body),
+          body: bodyOf(row).body,
           redirect: "manual",
         });
         outcomes[who] = judge(res);
@@ -212,6 +221,27 @@ describe("access matrix", () => {
       expect(outcomes).toEqual(row.expect);
     });
   }
+
+  it("never lets an API token open a page: what needs a sign-in answers it 403, the API as its owner", async () => {
+    const mismatches: string[] = [];
+    for (const row of MATRIX) {
+      const res = await fetch(`${baseUrl}${row.path}`, {
+        method: row.method,
+        headers: { Authorization: `Bearer ${tokenOfProposer}`, ...bodyOf(row).headers },
+        body: bodyOf(row).body,
+        redirect: "manual",
+      });
+      await res.arrayBuffer();
+      const api = row.path.startsWith("/api/");
+      // A token is nobody on a page: what sends strangers to sign in refuses it (unless everyone is sent there).
+      const sameForAll = new Set(Object.values(row.expect)).size === 1;
+      const stranger = row.expect.anonymous;
+      const expected = api ? row.expect.proposer : stranger === "sign-in" && !sameForAll ? "forbidden" : stranger;
+      const got = judge(res);
+      if (got !== expected) mismatches.push(`${row.method} ${row.path}: ${got}, expected ${expected}`);
+    }
+    expect(mismatches).toEqual([]);
+  });
 
   it("accepts an API token in place of a session, and refuses a bad one with 401 JSON", async () => {
     const ok = await fetch(`${baseUrl}/api/coverage`, {

@@ -1,22 +1,20 @@
 /**
- * The app server: the production build behind express (or the Vite dev server with --dev), the
- * local stand-ins for hosted services when no real one is configured (the sign-on provider when
- * OIDC_ISSUER is unset, the SMTP server when SMTP_HOST is unset), and the outbox sender loop.
- * Prints where everything lives and who can sign in; stops everything on Ctrl-C or SIGTERM.
+ * The app server: the production build behind express (or, with --dev, Vite's dev server inside the
+ * same express app: scripts/app-server.ts), the local stand-ins for hosted services when no real one
+ * is configured (the sign-on provider when OIDC_ISSUER is unset, the SMTP server when SMTP_HOST is
+ * unset), and the outbox sender loop. Prints where everything lives and who can sign in; stops
+ * everything on Ctrl-C or SIGTERM.
  */
-import { type ChildProcess, spawn } from "node:child_process";
-import type { Server } from "node:http";
+import { createServer, type Server } from "node:http";
 import { fileURLToPath, pathToFileURL } from "node:url";
-import { createRequestHandler } from "@react-router/express";
-import express from "express";
-import { RouterContextProvider, type ServerBuild } from "react-router";
-import { clientAddressContext } from "~/context";
+import type { ServerBuild } from "react-router";
 import { closeDatabase } from "~/db/client.server";
 import { DEMO_PEOPLE } from "~/db/seed/scenario";
 import { env } from "~/env.server";
 import { authEnv } from "~/services/auth/config.server";
 import { parseMailEnv } from "~/services/mail/config.server";
 import { ensureOutboxSender } from "~/services/mail/sender.server";
+import { createAppServer } from "./app-server";
 import { startFakeIdentityProvider } from "./fakes/identity-provider";
 import { startFakeSmtp } from "./fakes/smtp";
 
@@ -69,57 +67,57 @@ if (!process.env.SMTP_HOST) {
   notes.push(`  Local SMTP catcher: 127.0.0.1:${smtp.port} (messages also listed in the app's mailbox)`);
 }
 
-if (dev) {
-  const child: ChildProcess = spawn(
-    process.execPath,
-    [`${root}/node_modules/@react-router/dev/bin.js`, "dev", "--port", String(config.PORT), "--host", config.HOST],
-    { stdio: "inherit", env: process.env, cwd: root },
-  );
-  child.on("exit", (code) => void stop(code ?? 0));
-  stops.push(() => {
-    if (child.exitCode === null) child.kill("SIGTERM");
+/** express in front of the app (scripts/app-server.ts): the built bundle, or Vite's dev server in process. */
+async function appServer(
+  httpServer: Server,
+): Promise<ReturnType<typeof createAppServer> & { close?: () => Promise<void> }> {
+  const trustedProxies = config.TRUSTED_PROXIES;
+  if (!dev) {
+    const build = (await import(pathToFileURL(`${buildDir}/server/index.js`).href)) as ServerBuild;
+    return createAppServer({ build, mode: "production", trustedProxies, clientDir: `${buildDir}/client` });
+  }
+  // Development: the same server, with Vite (HMR and on-the-fly builds) as middleware in this process,
+  // so the client address, the body cap and the headers work exactly as in production.
+  const { createServer: createViteServer, isRunnableDevEnvironment } = await import("vite");
+  const vite = await createViteServer({
+    root,
+    server: { middlewareMode: true, ws: { server: httpServer } },
+    appType: "custom",
   });
-  // The dev server runs in its own process; mail written there goes out on the sender's next poll.
-  const sender = ensureOutboxSender();
-  if (sender) stops.push(() => sender.stop());
-} else {
-  const build = (await import(pathToFileURL(`${buildDir}/server/index.js`).href)) as ServerBuild;
-  const app = express();
-  app.disable("x-powered-by");
-  app.use("/assets", express.static(`${buildDir}/client/assets`, { immutable: true, maxAge: "1y" }));
-  app.use(express.static(`${buildDir}/client`, { maxAge: "1h" }));
-  app.all(
-    "*",
-    createRequestHandler({
-      build,
-      mode: "production",
-      getLoadContext(req) {
-        const context = new RouterContextProvider();
-        context.set(clientAddressContext, req.socket.remoteAddress ?? "unknown");
-        return context as never;
-      },
-    }),
-  );
-  const server: Server = await new Promise((resolve, reject) => {
-    const s = app.listen(config.PORT, config.HOST, () => resolve(s));
-    s.once("error", reject);
+  const ssr = vite.environments.ssr;
+  if (!isRunnableDevEnvironment(ssr)) throw new Error("the Vite SSR environment cannot run modules");
+  const built = createAppServer({
+    build: () => ssr.runner.import("virtual:react-router/server-build") as Promise<ServerBuild>,
+    mode: "development",
+    trustedProxies,
+    before: [vite.middlewares],
   });
-  stops.push(
-    () =>
-      new Promise<void>((resolve) => {
-        server.closeAllConnections();
-        server.close(() => resolve());
-      }),
-  );
-  const sender = ensureOutboxSender();
-  if (sender) stops.push(() => sender.stop());
-  stops.push(() => closeDatabase());
+  return { ...built, close: () => vite.close() };
 }
 
-const shown = config.HOST === "0.0.0.0" || config.HOST === "127.0.0.1" ? "localhost" : config.HOST;
+const server = createServer();
+const { app, attach, close } = await appServer(server);
+if (close) stops.push(close);
+server.on("request", app);
+attach(server);
+await new Promise<void>((resolve, reject) => {
+  server.once("error", reject);
+  server.listen(config.PORT, config.HOST, () => resolve());
+});
+stops.push(
+  () =>
+    new Promise<void>((resolve) => {
+      server.closeAllConnections();
+      server.close(() => resolve());
+    }),
+);
+const sender = ensureOutboxSender();
+if (sender) stops.push(() => sender.stop());
+stops.push(() => closeDatabase());
+
 const lines = [
   "",
-  `  Fringe Docket is running on http://${shown}:${config.PORT}${dev ? " (development)" : ""}`,
+  `  Fringe Docket is running on ${config.APP_ORIGIN}${dev ? " (development)" : ""}`,
   ...notes,
   "",
   ...(config.DEMO_MODE === "1"

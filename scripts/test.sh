@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# npm test: PostgreSQL on loopback, typecheck, unit + integration tests, production build, browser
+# npm test: PostgreSQL on loopback, typecheck, production build, unit + integration tests, browser
 # tests; prints one summary line and leaves nothing running that it started.
 set -uo pipefail
 cd "$(dirname "$0")/.."
@@ -44,19 +44,25 @@ npx biome ci --reporter=summary . || failed_steps+=("lint")
 step "Typecheck"
 npm run -s typecheck || failed_steps+=("typecheck")
 
+# The build comes first: some integration tests drive the built server in process (test/support/built-app.ts).
+step "Production build"
+built=0
+if npx react-router build >"$results/build.log" 2>&1; then
+  tail -n 3 "$results/build.log"
+  built=1
+else
+  cat "$results/build.log"
+  failed_steps+=("build")
+fi
+
 step "Unit and integration tests"
 npx vitest run --project unit --project integration \
   --reporter=default --reporter=json --outputFile.json="$results/tests.json" || failed_steps+=("unit/integration")
 
-step "Production build"
-if npx react-router build >"$results/build.log" 2>&1; then
-  tail -n 3 "$results/build.log"
+if [ "$built" = "1" ]; then
   step "Browser tests (Chromium)"
   npx vitest run --project e2e \
     --reporter=default --reporter=json --outputFile.json="$results/e2e.json" || failed_steps+=("browser")
-else
-  cat "$results/build.log"
-  failed_steps+=("build")
 fi
 
 node - "$results" "${failed_steps[@]}" <<'JS'

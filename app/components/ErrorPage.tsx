@@ -14,13 +14,26 @@ const copy: Record<number, { title: string; text: string; advice?: string }> = {
     advice: "If you think it should, ask the array's administrator.",
   },
   404: { title: "Nothing here", text: "The page you asked for does not exist, or it has moved." },
+  413: {
+    title: "That was more than this page takes",
+    text: "The form or file you sent is larger than the limit. Nothing was saved; send a smaller one.",
+  },
+  415: {
+    title: "This page cannot read what was sent",
+    text: "The request came in a format this page does not take. Nothing was saved.",
+  },
+  429: { title: "Too many attempts", text: "Please wait a few minutes and try again." },
   500: {
     title: "Something went wrong on our side",
     text: "The error has been logged. Your saved work is safe; please try again in a moment.",
   },
+  503: {
+    title: "Fringe Docket is catching its breath",
+    text: "It cannot reach its database just now. Nothing was saved half-way; please try again in a minute.",
+  },
 };
 
-/** The one error page for 403/404/500 and friends, used by every route's boundary. */
+/** The one error page for 403/404/413/500/503 and friends, used by every route's boundary. */
 export function ErrorPage({ error }: { error: unknown }) {
   let status = 500;
   let detail: string | null = null;

@@ -6,24 +6,6 @@
  * Radians inside; degrees, milliarcseconds and hours only in the request and response objects.
  */
 
-// Star catalogue: name lookup, estimates from V and B−V, calibrator shortlist (cli resolve, cli calibrators)
-export {
-  DEFAULT_CALIBRATOR_LIMIT,
-  DEFAULT_MAX_DISTANCE_DEG,
-  DEFAULT_MIN_VIS2,
-  MAX_CALIBRATOR_LIMIT,
-  parseCalibratorsRequest,
-} from "./api/calibrators";
-// Imaging preview: simulated data, OIFITS 2 export, image reconstruction, fidelity and verdict
-export type { ReconstructRequest } from "./api/reconstruct";
-export {
-  DEFAULT_IMAGE_GRID,
-  DEFAULT_MAX_ITERATIONS,
-  DEFAULT_TOLERANCE,
-  MAX_RECONSTRUCT_CLOSURE_PHASES,
-  MAX_RECONSTRUCT_VIS2,
-  parseReconstructRequest,
-} from "./api/reconstruct";
 // Wire schemas: JSON validated into the inputs, one-line errors naming the field
 export type { BudgetFailure, CostEstimate } from "./api/budget";
 export {
@@ -35,6 +17,14 @@ export {
   trianglesBudgetFailure,
   trianglesCost,
 } from "./api/budget";
+// Star catalogue: name lookup, estimates from V and B−V, calibrator shortlist (cli resolve, cli calibrators)
+export {
+  DEFAULT_CALIBRATOR_LIMIT,
+  DEFAULT_MAX_DISTANCE_DEG,
+  DEFAULT_MIN_VIS2,
+  MAX_CALIBRATOR_LIMIT,
+  parseCalibratorsRequest,
+} from "./api/calibrators";
 export {
   DEFAULT_MIN_ELEVATION_DEG,
   longestNightMinutes,
@@ -44,6 +34,16 @@ export {
   maxNightSamples,
 } from "./api/limits";
 export { MAX_MODEL_COMPONENTS, MAX_SUM_DEPTH, modelShape } from "./api/model-shape";
+// Imaging preview: simulated data, OIFITS 2 export, image reconstruction, fidelity and verdict
+export type { ReconstructRequest } from "./api/reconstruct";
+export {
+  DEFAULT_IMAGE_GRID,
+  DEFAULT_MAX_ITERATIONS,
+  DEFAULT_TOLERANCE,
+  MAX_RECONSTRUCT_CLOSURE_PHASES,
+  MAX_RECONSTRUCT_VIS2,
+  parseReconstructRequest,
+} from "./api/reconstruct";
 export type { CoverageRequest, EphemerisRequest, ParseResult, TrianglesRequest } from "./api/requests";
 export {
   MODEL_TYPES,

@@ -2,7 +2,7 @@
  * Validation issues → field errors, one shape for every form: `{ [field]: message }`, the first
  * message per field, keyed by the dotted path of the field ("stations.0.name"), "form" for the whole.
  */
-import type * as v from "valibot";
+import * as v from "valibot";
 
 export type FieldErrors = Record<string, string>;
 
@@ -24,4 +24,12 @@ export function fieldErrors(issues: readonly v.BaseIssue<unknown>[], options: { 
 export function sentence(fragment: string): string {
   const s = fragment.charAt(0).toUpperCase() + fragment.slice(1);
   return /[.!?)]$/.test(s) ? s : `${s}.`;
+}
+
+/**
+ * `schema` for a form field that may be left out of the post: a missing field reads as "", so the
+ * field's own rule answers with its own message (valibot would otherwise say "Invalid key").
+ */
+export function sentField<T extends v.GenericSchema<string, unknown>>(schema: T) {
+  return v.pipe(v.optional(v.string(), ""), schema);
 }

@@ -16,7 +16,8 @@ export const PERMISSIONS = [
   "ranking:board",
   "cycles:manage",
   "nights:build",
-  "mailbox:read",
+  "mailbox:own",
+  "mailbox:all",
   "users:manage",
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
@@ -24,19 +25,45 @@ export type Permission = (typeof PERMISSIONS)[number];
 /** Permissions anybody has, signed in or not. */
 export const PUBLIC_PERMISSIONS: readonly Permission[] = ["registry:read"];
 
+/**
+ * Permissions every signed-in person has, whatever their roles: reading their own notices (the
+ * mailbox stands in for each person's inbox). Nothing here depends on the demo mode.
+ */
+export const SIGNED_IN_PERMISSIONS: readonly Permission[] = ["mailbox:own"];
+
 export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
   proposer: ["registry:read", "sketch:use", "proposals:own"],
   reviewer: ["registry:read", "sketch:use", "review:desk"],
   chair: ["registry:read", "sketch:use", "review:desk", "ranking:board", "cycles:manage"],
   scheduler: ["registry:read", "sketch:use", "nights:build"],
-  admin: ["registry:read", "registry:edit", "sketch:use", "mailbox:read", "users:manage"],
+  admin: ["registry:read", "registry:edit", "sketch:use", "mailbox:all", "users:manage"],
 };
 
-export function permissionsFor(roles: readonly Role[]): Set<Permission> {
+/** What a person with `roles` may do; `signedIn` adds what every signed-in person may do. */
+export function permissionsFor(roles: readonly Role[], options: { signedIn?: boolean } = {}): Set<Permission> {
   const out = new Set<Permission>(PUBLIC_PERMISSIONS);
+  if (options.signedIn) for (const p of SIGNED_IN_PERMISSIONS) out.add(p);
   for (const role of roles) for (const p of ROLE_PERMISSIONS[role]) out.add(p);
   return out;
 }
+
+/**
+ * What a personal API token may be allowed to do, chosen when it is made. A token never opens a
+ * page (account, tokens, people or any other): only the JSON API, within its scopes and the roles
+ * of its owner.
+ */
+export const TOKEN_SCOPES = ["computations:read", "proposals:read", "proposals:write"] as const;
+export type TokenScope = (typeof TOKEN_SCOPES)[number];
+
+export const TOKEN_SCOPE_LABELS: Record<TokenScope, string> = {
+  "computations:read": "Run computations (coverage, ephemeris, triangles)",
+  "proposals:read": "Read your own proposals",
+  "proposals:write": "Change your own proposals",
+};
+
+/** Token lifetimes offered, days; the default is stated where tokens are made. */
+export const TOKEN_LIFETIMES_DAYS = [7, 30, 90, 180, 365] as const;
+export const DEFAULT_TOKEN_LIFETIME_DAYS = 90;
 
 export function can(roles: readonly Role[], permission: Permission): boolean {
   return permissionsFor(roles).has(permission);
@@ -95,8 +122,8 @@ export const SECTIONS: readonly Section[] = [
   {
     label: "Mailbox",
     to: href("/mailbox"),
-    permission: "mailbox:read",
-    summary: "Every notice the app has sent or is about to send, as the recipients see it.",
+    permission: "mailbox:own",
+    summary: "The notices the app has sent you or is about to send (administrators see everyone's).",
   },
   {
     label: "People",
@@ -106,15 +133,8 @@ export const SECTIONS: readonly Section[] = [
   },
 ];
 
-/**
- * The sections a person sees. In demo mode every signed-in person may read the mailbox, so the
- * demo's e-mails can be followed without a real inbox.
- */
-export function sectionsFor(
-  roles: readonly Role[],
-  options: { signedIn?: boolean; demoMode?: boolean } = {},
-): Section[] {
-  const granted = permissionsFor(roles);
-  if (options.signedIn && options.demoMode) granted.add("mailbox:read");
+/** The sections a person sees (the same for the demo and for a real installation). */
+export function sectionsFor(roles: readonly Role[], options: { signedIn?: boolean } = {}): Section[] {
+  const granted = permissionsFor(roles, { signedIn: options.signedIn });
   return SECTIONS.filter((s) => granted.has(s.permission));
 }

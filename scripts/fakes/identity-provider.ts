@@ -2,6 +2,9 @@
  * A local OpenID Connect identity provider for development and tests, on loopback only.
  * Discovery, authorization (a page to pick or type an identity), token (authorization code + PKCE
  * S256, client secret by HTTP Basic or form) and JWKS endpoints; ID tokens signed with RS256.
+ * The subject (`sub`) is derived from the e-mail address unless the authorization post names one
+ * (`sub`, for tests); `email_verified` is true unless the post says `email_verified=0` (the typed
+ * identity's "not verified" choice).
  *
  * Standalone: `node --import tsx scripts/fakes/identity-provider.ts` (FAKE_IDP_PORT, default 9411).
  */
@@ -10,7 +13,15 @@ import { createServer, type IncomingMessage, type ServerResponse } from "node:ht
 import type { AddressInfo } from "node:net";
 import { exportJWK, generateKeyPair, type JWK, SignJWT } from "jose";
 
-export type FakeIdentity = { email: string; name: string; institute?: string };
+export type FakeIdentity = {
+  email: string;
+  name: string;
+  institute?: string;
+  /** The `sub` claim; derived from the e-mail address when absent. */
+  subject?: string;
+  /** The `email_verified` claim; true when absent. */
+  emailVerified?: boolean;
+};
 export type FakeClient = { clientId: string; clientSecret: string; redirectUris: string[] };
 
 type PendingCode = {
@@ -68,7 +79,7 @@ function page(res: ServerResponse, status: number, title: string, body: string) 
  .who:hover,.who:focus-visible{border-color:#a03611;outline:3px solid #e35a1a55}
  .who small{display:block;color:#414c66}
  label{display:block;margin:.6rem 0 .2rem;font-weight:600;font-size:.9rem}
- input{font:inherit;width:100%;box-sizing:border-box;padding:.5rem;border:1px solid #a5b0c8;border-radius:8px}
+ input,select{font:inherit;width:100%;box-sizing:border-box;padding:.5rem;border:1px solid #a5b0c8;border-radius:8px}
  .go{margin-top:1rem;background:#a03611;color:#fff;border:0;border-radius:8px;padding:.6rem 1rem}
  .err{color:#a3261c;font-weight:600}
 </style></head><body><main>${body}</main></body></html>`);
@@ -146,6 +157,7 @@ ${people ? `<h2 style="font-size:1rem">Demo people</h2>${people}` : ""}
 <label for="name">Name</label><input id="name" name="name" required maxlength="200">
 <label for="email">E-mail</label><input id="email" name="email" type="email" required maxlength="254">
 <label for="institute">Institute</label><input id="institute" name="institute" maxlength="200">
+<label for="email_verified">E-mail address</label><select id="email_verified" name="email_verified"><option value="1">verified by this service</option><option value="0">not verified</option></select>
 <button class="go" type="submit">Sign in as this person</button></form>`,
     );
   }
@@ -180,7 +192,7 @@ ${people ? `<h2 style="font-size:1rem">Demo people</h2>${people}` : ""}
     const now = Math.floor(Date.now() / 1000);
     const claims: Record<string, unknown> = {
       email: pending.identity.email,
-      email_verified: true,
+      email_verified: pending.identity.emailVerified !== false,
       name: pending.identity.name,
       institute: pending.identity.institute ?? "",
     };
@@ -188,7 +200,7 @@ ${people ? `<h2 style="font-size:1rem">Demo people</h2>${people}` : ""}
     const idToken = await new SignJWT(claims)
       .setProtectedHeader({ alg: "RS256", kid })
       .setIssuer(issuer)
-      .setSubject(subjectFor(pending.identity.email))
+      .setSubject(pending.identity.subject ?? subjectFor(pending.identity.email))
       .setAudience(client.clientId)
       .setIssuedAt(now)
       .setExpirationTime(now + idTokenTtlS)
@@ -243,7 +255,13 @@ ${people ? `<h2 style="font-size:1rem">Demo people</h2>${people}` : ""}
         redirectUri: checked.redirectUri,
         codeChallenge: checked.challenge,
         nonce: checked.nonce,
-        identity: { email, name: name.slice(0, 200), institute: (form.get("institute") ?? "").slice(0, 200) },
+        identity: {
+          email,
+          name: name.slice(0, 200),
+          institute: (form.get("institute") ?? "").slice(0, 200),
+          subject: form.get("sub")?.trim().slice(0, 200) || undefined,
+          emailVerified: form.get("email_verified") !== "0",
+        },
         expiresAt: Date.now() + codeTtlMs,
       });
       const target = new URL(checked.redirectUri);

@@ -1,5 +1,16 @@
 import { describe, expect, it } from "vitest";
-import { parseForm, readBodyCapped } from "~/lib/body.server";
+import {
+  BODY_TOO_LARGE_CODE,
+  CONTENT_TYPE_MAX_BYTES,
+  isBodyTooLarge,
+  parseForm,
+  REQUEST_BODY_MAX_BYTES,
+  readBodyCapped,
+  readFormBody,
+} from "~/lib/body.server";
+import { MAX_BODY_BYTES } from "~/lib/json.server";
+import { MAX_FORM_BODY_BYTES, MAX_UPLOAD_BODY_BYTES } from "~/services/proposals/upload.server";
+import { MAX_IMPORT_BYTES } from "~/services/registry/upload";
 
 function streamed(chunks: number, size: number) {
   const body = new ReadableStream<Uint8Array>({
@@ -45,5 +56,57 @@ describe("reading a body with a cap", () => {
     const badRead = await readBodyCapped(bad, 1000);
     if (!badRead.ok) throw new Error("expected a body");
     expect(await parseForm(bad, badRead.bytes)).toBeNull();
+  });
+});
+
+describe("the shared form reader", () => {
+  const post = (body: BodyInit, type?: string) =>
+    new Request("http://localhost/x", {
+      method: "POST",
+      body,
+      headers: type ? { "Content-Type": type } : {},
+    });
+
+  it("answers another content type with 415 and a form over the cap with 413, never a 500", async () => {
+    expect(await readFormBody(post("hello", "text/plain"))).toEqual({
+      ok: false,
+      status: 415,
+      error: "This page takes a form, not text/plain.",
+    });
+    expect(await readFormBody(post('{"a":1}', "application/json"))).toMatchObject({ ok: false, status: 415 });
+    const big = await readFormBody(post(`a=${"x".repeat(70_000)}`, "application/x-www-form-urlencoded"));
+    expect(big).toMatchObject({
+      ok: false,
+      status: 413,
+      error: "The form is larger than 64 KB; shorten the longest text and send it again.",
+    });
+  });
+
+  it("refuses a NUL character in a field, naming the field, instead of storing or dropping it", async () => {
+    const read = await readFormBody(post("name=ok&notes=a%00b", "application/x-www-form-urlencoded"));
+    expect(read).toMatchObject({ ok: false, status: 400 });
+    expect(!read.ok && read.error).toMatch(/The field “notes” contains a NUL character/);
+    const fine = await readFormBody(post("name=Lumbre%20Nova", "application/x-www-form-urlencoded"));
+    expect(fine.ok && fine.form.get("name")).toBe("Lumbre Nova");
+  });
+
+  it("reads the app server's cut-off stream as too large", async () => {
+    const cut = new ReadableStream<Uint8Array>({
+      start(controller) {
+        controller.enqueue(new Uint8Array(10));
+        controller.error(Object.assign(new Error("too large"), { code: BODY_TOO_LARGE_CODE }));
+      },
+    });
+    const req = new Request("http://localhost/x", { method: "POST", body: cut, duplex: "half" } as RequestInit);
+    expect(await readBodyCapped(req, 1000)).toEqual({ ok: false, reason: "too-large" });
+    expect(isBodyTooLarge(new TypeError("failed", { cause: { code: BODY_TOO_LARGE_CODE } }))).toBe(true);
+    expect(isBodyTooLarge(new Error("other"))).toBe(false);
+  });
+
+  it("has a server-wide cap at least as large as every route's own", () => {
+    expect(REQUEST_BODY_MAX_BYTES).toBeGreaterThanOrEqual(MAX_UPLOAD_BODY_BYTES);
+    expect(REQUEST_BODY_MAX_BYTES).toBeGreaterThanOrEqual(MAX_IMPORT_BYTES);
+    expect(CONTENT_TYPE_MAX_BYTES["application/json"]).toBeGreaterThanOrEqual(MAX_BODY_BYTES);
+    expect(CONTENT_TYPE_MAX_BYTES["application/x-www-form-urlencoded"]).toBeGreaterThanOrEqual(MAX_FORM_BODY_BYTES);
   });
 });

@@ -27,13 +27,20 @@ describe("permissions", () => {
 });
 
 describe("sections by role", () => {
-  it("shows People only to administrators and the mailbox to admins or, in demo mode, to everyone signed in", () => {
+  it("shows People only to administrators, and everyone signed in their own mailbox", () => {
     const labels = (roles: Parameters<typeof sectionsFor>[0], o?: Parameters<typeof sectionsFor>[1]) =>
       sectionsFor(roles, o).map((s) => s.label);
-    expect(labels(["admin"])).toContain("People");
-    expect(labels(["chair"])).not.toContain("People");
-    expect(labels(["proposer"], { signedIn: true, demoMode: false })).not.toContain("Mailbox");
-    expect(labels(["proposer"], { signedIn: true, demoMode: true })).toContain("Mailbox");
-    expect(labels([], { signedIn: false, demoMode: true })).not.toContain("Mailbox");
+    expect(labels(["admin"], { signedIn: true })).toContain("People");
+    expect(labels(["chair"], { signedIn: true })).not.toContain("People");
+    expect(labels(["proposer"], { signedIn: true })).toContain("Mailbox");
+    expect(labels([], { signedIn: false })).not.toContain("Mailbox");
+  });
+
+  it("lets only administrators read everybody's mail; the demo mode is not a permission", () => {
+    expect(permissionsFor(["proposer"], { signedIn: true }).has("mailbox:own")).toBe(true);
+    for (const role of ["proposer", "reviewer", "chair", "scheduler"] as const)
+      expect(permissionsFor([role], { signedIn: true }).has("mailbox:all"), role).toBe(false);
+    expect(permissionsFor(["admin"], { signedIn: true }).has("mailbox:all")).toBe(true);
+    expect(permissionsFor([]).has("mailbox:own")).toBe(false);
   });
 });

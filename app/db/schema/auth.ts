@@ -1,3 +1,4 @@
+import { sql } from "drizzle-orm";
 import { index, jsonb, pgTable, serial, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
 import { optionalRefTo, refTo } from "./columns";
 import { users } from "./users";
@@ -18,6 +19,7 @@ export const sessions = pgTable(
     /** How the session began: "sso" or "email-link". */
     method: text("method").notNull(),
     userAgent: text("user_agent").notNull().default(""),
+    /** The client's address when the session began (the socket's peer, or what a trusted proxy forwarded). */
     ipAddress: text("ip_address").notNull().default(""),
   },
   (t) => [index("sessions_user_idx").on(t.userId)],
@@ -46,6 +48,13 @@ export const apiTokens = pgTable(
     /** First characters of the token, shown so a person can tell tokens apart. */
     prefix: text("prefix").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    /**
+     * What the token may do (app/lib/permissions.ts TOKEN_SCOPES): "computations:read",
+     * "proposals:read", "proposals:write". A token opens the JSON API only, never a page.
+     */
+    scopes: text("scopes").array().$type<string[]>().notNull().default(sql`'{}'::text[]`),
+    /** After this instant the token is refused (90 days after creation unless chosen otherwise). */
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull().default(sql`now() + interval '90 days'`),
     lastUsedAt: timestamp("last_used_at", { withTimezone: true }),
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
   },

@@ -9,6 +9,7 @@ import { users } from "./users";
  */
 export const MAIL_KINDS = [
   "sign-in-link",
+  "sign-in-late",
   "role-change",
   "submission",
   "withdrawal",
@@ -23,7 +24,8 @@ export type MailKind = (typeof MAIL_KINDS)[number];
 /**
  * The outbox: every e-mail the app sends, written in the same transaction as the change that caused
  * it and delivered later by the sender loop (app/services/mail/sender.server.ts). A row is sent once
- * `sentAt` is set; until then `attempts`, `nextAttemptAt` and `lastError` describe the retries.
+ * `sentAt` is set; until then it is queued and `attempts`, `nextAttemptAt` and `lastError` describe
+ * the retries; `abandonedAt` marks one given up because it could no longer arrive in time.
  */
 export const outboxMessages = pgTable(
   "outbox_messages",
@@ -46,13 +48,20 @@ export const outboxMessages = pgTable(
     /** The sender picks the message up at or after this instant. */
     nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
     lastError: text("last_error"),
+    /**
+     * A message that has not gone out by then is not sent at all (a sign-in link that would arrive
+     * dead); null for messages that keep their use.
+     */
+    deliverBy: timestamp("deliver_by", { withTimezone: true }),
+    /** Set when the sender gave the message up (past `deliverBy`); it is never sent after that. */
+    abandonedAt: timestamp("abandoned_at", { withTimezone: true }),
     sentAt: timestamp("sent_at", { withTimezone: true }),
     /** The Message-ID the message was sent with. */
     smtpMessageId: text("smtp_message_id"),
   },
   (t) => [
     // The sender's query: unsent rows in order of their next attempt.
-    index("outbox_messages_due_idx").on(t.nextAttemptAt, t.id).where(sql`sent_at is null`),
+    index("outbox_messages_due_idx").on(t.nextAttemptAt, t.id).where(sql`sent_at is null and abandoned_at is null`),
     // The mailbox lists newest first.
     index("outbox_messages_created_idx").on(t.createdAt.desc(), t.id.desc()),
     index("outbox_messages_user_idx").on(t.userId),

@@ -22,9 +22,16 @@ export async function action({ request, context }: Route.ActionArgs) {
   const viewer = await requireUser(request);
   const body = await readFormBody(request);
   if (!body.ok) return refused(body.error, body.status);
-  const form = Object.fromEntries(body.form);
+  const form: Record<string, unknown> = { ...Object.fromEntries(body.form), scopes: body.form.getAll("scopes") };
   const parsed = v.safeParse(AccountActionSchema, form);
-  if (!parsed.success) return refused(parsed.issues[0].message, 400, String(form.name ?? ""));
+  if (!parsed.success) {
+    const typed = {
+      name: String(body.form.get("name") ?? ""),
+      scopes: body.form.getAll("scopes").map(String),
+      lifetimeDays: String(body.form.get("lifetimeDays") ?? ""),
+    };
+    return refused(parsed.issues[0].message, 400, typed);
+  }
   const db = context.get(dbContext);
   const input = parsed.output;
   switch (input.intent) {
@@ -75,7 +82,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         <TokensCard
           tokens={loaderData.tokens}
           newToken={actionData?.newToken ?? null}
-          tokenName={actionData?.tokenName ?? ""}
+          typed={actionData?.typed ?? null}
         />
       </div>
     </>

@@ -1,11 +1,11 @@
-import { Form, useSearchParams } from "react-router";
+import { data, Form, useSearchParams } from "react-router";
 import * as v from "valibot";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Alert, Button, PageHeader, TextField } from "~/components/ui";
 import { dbContext } from "~/context";
 import { readFormBody } from "~/lib/body.server";
 import { requirePermission } from "~/lib/guards.server";
-import { findPerson, peopleOverview } from "~/services/admin/people.server";
+import { findPerson, PEOPLE_QUERY_MAX, peopleOverview } from "~/services/admin/people.server";
 import { PeopleActionSchema } from "~/services/admin/schemas";
 import { AuditLogCard } from "./+shared/AuditLogCard";
 import { refused, saveRoles, switchActive } from "./+shared/intents.server";
@@ -14,8 +14,14 @@ import type { Route } from "./+types/users";
 
 export async function loader({ request, url, context }: Route.LoaderArgs) {
   await requirePermission(request, "users:manage");
-  const q = (url.searchParams.get("q") ?? "").slice(0, 100);
-  return { q, ...(await peopleOverview(context.get(dbContext), { q })) };
+  const asked = (url.searchParams.get("q") ?? "").trim();
+  // A search over the stated limit is refused with a word, never cut short silently.
+  const qTooLong = asked.length > PEOPLE_QUERY_MAX;
+  const q = qTooLong ? "" : asked;
+  return data(
+    { q, qTooLong, ...(await peopleOverview(context.get(dbContext), { q })) },
+    { status: qTooLong ? 400 : 200 },
+  );
 }
 
 export async function action({ request, context }: Route.ActionArgs) {
@@ -54,7 +60,18 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
       />
       <Form method="get" role="search" className="mb-4 flex max-w-xl items-end gap-3">
         <div className="flex-1">
-          <TextField label="Search by name, e-mail or institute" name="q" defaultValue={params.get("q") ?? ""} />
+          <TextField
+            label="Search by name, e-mail or institute"
+            name="q"
+            defaultValue={params.get("q") ?? ""}
+            maxLength={PEOPLE_QUERY_MAX}
+            hint={`Up to ${PEOPLE_QUERY_MAX} characters.`}
+            error={
+              loaderData.qTooLong
+                ? `The search text is longer than ${PEOPLE_QUERY_MAX} characters; nothing was searched.`
+                : undefined
+            }
+          />
         </div>
         <Button type="submit" variant="secondary">
           Search

@@ -6,7 +6,7 @@ import { dbContext } from "~/context";
 import { readFormBody } from "~/lib/body.server";
 import { clientAddress } from "~/services/auth/client-address.server";
 import { consumeSignInLink } from "~/services/auth/email-link.server";
-import { safeNext } from "~/services/auth/oidc.server";
+import { safeNext } from "~/services/auth/next.server";
 import { recordSignInAttempt } from "~/services/auth/rate-limit.server";
 import { SignInLinkSchema } from "~/services/auth/schemas";
 import { signInAndRedirect } from "~/services/auth/sign-in.server";

@@ -1,4 +1,4 @@
-import { data, Form, href, Link, redirect, useNavigation } from "react-router";
+import { data, Form, href, redirect, useNavigation } from "react-router";
 import * as v from "valibot";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Alert, Button, Card, TextField } from "~/components/ui";
@@ -8,7 +8,7 @@ import { getViewer } from "~/lib/guards.server";
 import { clientAddress } from "~/services/auth/client-address.server";
 import { signInOptions } from "~/services/auth/config.server";
 import { sendSignInLink } from "~/services/auth/email-link.server";
-import { safeNext } from "~/services/auth/oidc.server";
+import { safeNext } from "~/services/auth/next.server";
 import { recordSignInAttempt } from "~/services/auth/rate-limit.server";
 import { EmailLinkRequestSchema } from "~/services/auth/schemas";
 import type { Route } from "./+types/sign-in";
@@ -76,17 +76,15 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
       <Card title="With a link by e-mail">
         {actionData?.sent ? (
           <div role="status" className="space-y-2">
-            <p className="font-medium text-ok-700">A sign-in link is on its way to {actionData.email}.</p>
+            <p className="font-medium text-ok-700">Your sign-in link for {actionData.email} is queued for delivery.</p>
             <p className="text-sm text-night-700">
-              It works once, for 15 minutes. Your first sign-in creates your account.
+              It normally arrives within a minute and works once, for 15 minutes. If our mail server is slow, a link
+              that could no longer arrive in time is not sent at all: you will get a short note instead, and you can ask
+              here for a new one. Your first sign-in creates your account.
             </p>
             {loaderData.demoMode ? (
               <p className="text-sm text-night-700">
-                Demo mode: the message also appears in the{" "}
-                <Link className="font-medium text-ember-700 underline" to={href("/mailbox")}>
-                  mailbox
-                </Link>{" "}
-                once you are signed in, and in the local mail catcher.
+                Demo mode: no e-mail leaves this machine; the message is caught by the local mail catcher.
               </p>
             ) : null}
           </div>
@@ -99,6 +97,7 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
               name="email"
               type="email"
               autoComplete="email"
+              maxLength={254}
               required
               defaultValue={actionData?.email ?? ""}
               error={actionData?.fieldError ?? undefined}

@@ -24,6 +24,7 @@ export async function loader({ request, context }: Route.LoaderArgs) {
     name: result.identity.name,
     institute: result.identity.institute,
     ssoSubject: result.identity.subject,
+    emailVerified: result.identity.emailVerified,
   });
   if (!account.user) throw backToSignIn(account.reason ?? "This account cannot sign in.");
   return signInAndRedirect(db, request, account.user.id, "sso", result.next, clientAddress(context), [

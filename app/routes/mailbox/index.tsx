@@ -1,4 +1,4 @@
-import { Form, href, Link } from "react-router";
+import { data, Form, href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import {
   Badge,
@@ -13,7 +13,7 @@ import {
 } from "~/components/ui";
 import { dbContext } from "~/context";
 import { requireMailboxReader } from "~/lib/guards.server";
-import { mailboxOverview, parseMailboxQuery } from "~/services/mailbox/queries.server";
+import { MAILBOX_QUERY_MAX, mailboxOverview, parseMailboxQuery } from "~/services/mailbox/queries.server";
 import { Pager } from "./+shared/Pager";
 import { attemptsText, Recipient, StatusBadge } from "./+shared/parts";
 import type { Route } from "./+types/index";
@@ -21,7 +21,9 @@ import type { Route } from "./+types/index";
 export async function loader({ request, url, context }: Route.LoaderArgs) {
   const viewer = await requireMailboxReader(request);
   const query = parseMailboxQuery(url.searchParams);
-  return mailboxOverview(context.get(dbContext), { query, viewerEmail: viewer.user.email });
+  const reader = { email: viewer.user.email, readsAll: viewer.readsAll };
+  const overview = await mailboxOverview(context.get(dbContext), { query, reader });
+  return data(overview, { status: query.qTooLong ? 400 : 200 });
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "Mailbox — Fringe Docket" }];
@@ -32,7 +34,7 @@ function StatusCell({ row }: { row: Row }) {
   if (row.status !== "retrying") return <StatusBadge status={row.status} />;
   return (
     <div className="space-y-1">
-      <StatusBadge status="retrying">retrying · {attemptsText(row.attempts)}</StatusBadge>
+      <StatusBadge status="retrying">queued · retrying · {attemptsText(row.attempts)}</StatusBadge>
       <p className="text-xs text-night-600">next {row.nextAttempt}</p>
       {row.lastError ? (
         <p className="max-w-xs truncate text-xs text-danger-700" title={row.lastError}>
@@ -67,7 +69,7 @@ const columns: Column<Row>[] = [
   {
     key: "status",
     header: "Status",
-    value: (m) => (m.status === "retrying" ? `retrying (${m.attempts})` : m.status),
+    value: (m) => (m.status === "retrying" ? `queued, retrying (${m.attempts})` : m.status),
     render: (m) => <StatusCell row={m} />,
   },
 ];
@@ -88,25 +90,41 @@ function NoMessages({ q }: { q: string }) {
     </EmptyState>
   ) : (
     <EmptyState title="No messages yet">
-      Messages show up here as soon as the app writes them: a sign-in link, a change of roles, a decision.
+      Notices show up here as soon as the app writes them: a change of roles, a submission, a decision.
     </EmptyState>
   );
 }
 
 export default function Mailbox({ loaderData }: Route.ComponentProps) {
-  const { q, page, pageCount, pageSize, total, rows } = loaderData;
+  const { q, page, pageCount, pageSize, total, rows, readsAll, qTooLong } = loaderData;
   const first = total === 0 ? 0 : (page - 1) * pageSize + 1;
   const last = Math.min(total, page * pageSize);
   return (
     <>
       <PageHeader
         title="Mailbox"
-        lead="Every e-mail Fringe Docket has written, newest first: delivered, waiting for its first attempt, or retrying while the mail server does not answer."
+        lead={
+          readsAll
+            ? "Every e-mail Fringe Docket has written, newest first: delivered, queued, or queued and retrying while the mail server does not answer. One-time sign-in links that are still valid are hidden from everyone but their recipient."
+            : "The e-mails Fringe Docket has written to you, newest first: delivered, queued, or queued and retrying while the mail server does not answer."
+        }
       />
       <div className="grid gap-6">
         <Form method="get" action={href("/mailbox")} role="search" className="flex flex-wrap items-end gap-3">
           <div className="min-w-64 flex-1">
-            <TextField label="Search by address or subject" name="q" type="search" defaultValue={q} maxLength={200} />
+            <TextField
+              label="Search by address or subject"
+              name="q"
+              type="search"
+              defaultValue={q}
+              maxLength={MAILBOX_QUERY_MAX}
+              hint={`Up to ${MAILBOX_QUERY_MAX} characters.`}
+              error={
+                qTooLong
+                  ? `The search text is longer than ${MAILBOX_QUERY_MAX} characters; nothing was searched.`
+                  : undefined
+              }
+            />
           </div>
           <Button type="submit">Search</Button>
           {q ? (
@@ -127,7 +145,12 @@ export default function Mailbox({ loaderData }: Route.ComponentProps) {
               </p>
             }
           >
-            <DataTable caption="Outgoing e-mail, newest first" columns={columns} rows={rows} exportName="mailbox" />
+            <DataTable
+              caption={readsAll ? "Outgoing e-mail, newest first" : "Your e-mail, newest first"}
+              columns={columns}
+              rows={rows}
+              exportName="mailbox"
+            />
             {pageCount > 1 ? <Pager page={page} pageCount={pageCount} hrefFor={(n) => pageHref(q, n)} /> : null}
           </Card>
         )}

@@ -1,6 +1,6 @@
 import { href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Badge, Card, type Detail, DetailList, PageHeader } from "~/components/ui";
+import { Alert, Badge, Card, type Detail, DetailList, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
 import { requireMailboxReader } from "~/lib/guards.server";
 import { invariantResponse } from "~/lib/not-found";
@@ -14,7 +14,9 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   const viewer = await requireMailboxReader(request);
   const id = parseMessageId(params.messageId);
   invariantResponse(id, NO_SUCH_MESSAGE);
-  const message = await messageView(context.get(dbContext), { id, viewerEmail: viewer.user.email });
+  const reader = { email: viewer.user.email, readsAll: viewer.readsAll };
+  // Somebody else's message is "no such message" to a reader who may not read it.
+  const message = await messageView(context.get(dbContext), { id, reader });
   invariantResponse(message, NO_SUCH_MESSAGE);
   return { message };
 }
@@ -45,15 +47,19 @@ function LinkedText({ text }: { text: string }) {
   );
 }
 
-/** Where the message stands: sent (and when), pending, or retrying with the failed attempts so far. */
+/** Where the message stands: delivered (and when), queued, retrying with the failed attempts so far, or given up. */
 function Delivery({ message: m }: { message: Message }) {
-  if (m.status === "pending") return <StatusBadge status="pending" />;
+  if (m.status === "queued") return <StatusBadge status="queued" />;
+  const when =
+    m.status === "delivered"
+      ? m.sent
+      : m.status === "abandoned"
+        ? `given up ${m.abandoned}`
+        : `${attemptsText(m.attempts, "failed")}, next ${m.nextAttempt}`;
   return (
     <span className="inline-flex flex-wrap items-center gap-2">
       <StatusBadge status={m.status} />
-      <span className="num">
-        {m.status === "sent" ? m.sent : `${attemptsText(m.attempts, "failed")}, next ${m.nextAttempt}`}
-      </span>
+      <span className="num">{when}</span>
     </span>
   );
 }
@@ -95,6 +101,12 @@ export default function MailboxMessage({ loaderData }: Route.ComponentProps) {
       </nav>
       <PageHeader title={m.subject} back={{ to: mailbox, label: "Back to the mailbox" }} />
       <div className="grid gap-6">
+        {m.linkHiddenUntil ? (
+          <Alert tone="info">
+            This message carries a one-time sign-in link that is still valid, so it is hidden here: only its recipient
+            may use it. It is shown once it has been used or has expired ({m.linkHiddenUntil} at the latest).
+          </Alert>
+        ) : null}
         <Card title="Headers">
           <DetailList
             items={headerDetails(m)}

@@ -4,6 +4,7 @@
  */
 import type { Database } from "~/db/client.server";
 import { formatUtc, utcText } from "~/lib/format";
+import type { TokenScope } from "~/lib/permissions";
 import { createApiToken, listApiTokens, revokeApiToken } from "~/services/auth/api-tokens.server";
 import { listUserSessions, revokeOtherSessions, revokeSession } from "~/services/auth/sessions.server";
 
@@ -16,6 +17,7 @@ export async function accountOverview(db: Database, { userId }: { userId: number
         id: s.id,
         method: s.method,
         userAgent: s.userAgent,
+        address: s.ipAddress,
         started: formatUtc(s.createdAt),
         lastUsed: formatUtc(s.lastSeenAt),
         expires: formatUtc(s.expiresAt),
@@ -25,7 +27,10 @@ export async function accountOverview(db: Database, { userId }: { userId: number
       id: t.id,
       name: t.name,
       prefix: t.prefix,
+      scopes: t.scopes,
       created: formatUtc(t.createdAt),
+      expires: formatUtc(t.expiresAt),
+      expired: t.expiresAt.getTime() <= Date.now(),
       lastUsed: utcText(t.lastUsedAt) ?? "never",
       revokedAt: t.revokedAt?.toISOString() ?? null,
     })),
@@ -45,10 +50,13 @@ export function endOtherSessions(db: Database, { userId, keepSessionId }: { user
   return revokeOtherSessions(db, userId, keepSessionId);
 }
 
-/** A new token for the person; the secret is in the answer and nowhere else. */
-export async function issueApiToken(db: Database, { userId, name }: { userId: number; name: string }) {
-  const { token } = await createApiToken(db, userId, name);
-  return { name, token };
+/** A new token for the person, with its scopes and lifetime; the secret is in the answer and nowhere else. */
+export async function issueApiToken(
+  db: Database,
+  { userId, name, scopes, lifetimeDays }: { userId: number; name: string; scopes: TokenScope[]; lifetimeDays: number },
+) {
+  const { token, row } = await createApiToken(db, userId, name, { scopes, lifetimeDays });
+  return { name, token, scopes: row.scopes, expires: formatUtc(row.expiresAt) };
 }
 
 /** Revokes one of the person's tokens; false when it is not theirs or is already revoked. */

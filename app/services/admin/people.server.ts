@@ -15,13 +15,25 @@ import { revokeAllSessions } from "~/services/auth/sessions.server";
 import { enqueueMail } from "~/services/mail/outbox.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 
+/** Longest search text on the People page, characters (stated beside the search box). */
+export const PEOPLE_QUERY_MAX = 100;
+
+/** `%`, `_` and `\` match themselves in a search, not as LIKE wildcards. */
+function likePattern(term: string): string {
+  return `%${term.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
 /** An account as stored. */
 export type Person = typeof users.$inferSelect;
 
 export async function searchUsers(db: Database, q: string, limit = 100) {
   const term = q.trim();
   const where = term
-    ? or(ilike(users.name, `%${term}%`), ilike(users.email, `%${term}%`), ilike(users.institute, `%${term}%`))
+    ? or(
+        ilike(users.name, likePattern(term)),
+        ilike(users.email, likePattern(term)),
+        ilike(users.institute, likePattern(term)),
+      )
     : undefined;
   const list = await db.select().from(users).where(where).orderBy(asc(users.name)).limit(limit);
   const roles = list.length

@@ -10,7 +10,13 @@ const AuthEnvSchema = v.object({
   OIDC_CLIENT_ID: v.optional(v.pipe(v.string(), v.minLength(1)), "fringe-docket"),
   OIDC_CLIENT_SECRET: v.optional(v.pipe(v.string(), v.minLength(1)), "fringe-docket-local-secret"),
   FAKE_IDP_PORT: v.optional(
-    v.pipe(v.string(), v.transform(Number), v.integer(), v.minValue(1), v.maxValue(65535)),
+    v.pipe(
+      v.string(),
+      v.regex(/^\d{1,5}$/, "must be a port number"),
+      v.transform(Number),
+      v.minValue(1, "must be a port number"),
+      v.maxValue(65535, "must be a port number"),
+    ),
     "9411",
   ),
   /** Label of the sign-in button. */
@@ -51,6 +57,12 @@ export const SESSION_LIFETIME_MS = 30 * 24 * 3600 * 1000;
 /** A session is pushed forward when less than this remains, so not every request writes. */
 export const SESSION_RENEW_BEFORE_MS = 15 * 24 * 3600 * 1000;
 export const EMAIL_LINK_LIFETIME_MS = 15 * 60 * 1000;
+/**
+ * A sign-in link is only worth sending while at least this much of its life is left (time to read
+ * the message and press the button); later it is not sent at all and the person is asked to request
+ * a new one.
+ */
+export const EMAIL_LINK_USEFUL_MS = 3 * 60 * 1000;
 
 /** Sign-in attempts allowed per window, by client address and by e-mail address. */
 export const RATE_LIMITS = {

@@ -11,10 +11,14 @@ import { env } from "~/env.server";
 import { enqueueMail } from "~/services/mail/outbox.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 import { findOrCreateAccount, findUserByEmail } from "./accounts.server";
-import { EMAIL_LINK_LIFETIME_MS } from "./config.server";
+import { EMAIL_LINK_LIFETIME_MS, EMAIL_LINK_USEFUL_MS } from "./config.server";
 import { generateSecret, hashSecret, SECRET_PATTERN } from "./tokens.server";
 
-/** Stores a new link token for `email` and queues the message carrying it. Returns the link. */
+/**
+ * Stores a new link token for `email` and queues the message carrying it. Returns the link. The
+ * message is given up (and a notice asking to request a new link sent instead) when the mail server
+ * has not taken it while the link still has EMAIL_LINK_USEFUL_MS to run.
+ */
 export async function sendSignInLink(db: Database, email: string, next: string, now = new Date()) {
   const token = generateSecret();
   const url = new URL("/auth/email/verify", env().APP_ORIGIN);
@@ -35,6 +39,7 @@ export async function sendSignInLink(db: Database, email: string, next: string, 
       subject: "Your Fringe Docket sign-in link",
       element: createElement(SignInLinkEmail, { name: existing?.name ?? null, url: url.toString(), expiresMinutes }),
       userId: existing?.id,
+      deliverBy: new Date(now.getTime() + EMAIL_LINK_LIFETIME_MS - EMAIL_LINK_USEFUL_MS),
     });
   });
   wakeOutboxSender();
@@ -69,7 +74,7 @@ export async function consumeSignInLink(db: Database, token: string, now = new D
     if (row.usedAt) return { ok: false, reason: "This sign-in link has already been used. Ask for a new one." };
     return { ok: false, reason: "This sign-in link has expired (links last 15 minutes). Ask for a new one." };
   }
-  const account = await findOrCreateAccount(db, { email: used.email });
+  const account = await findOrCreateAccount(db, { email: used.email, emailVerified: true });
   if (!account.user) return { ok: false, reason: account.reason ?? "This account cannot sign in." };
   return { ok: true, user: account.user, created: account.created };
 }

@@ -15,7 +15,10 @@ import { createCookie } from "react-router";
 import * as v from "valibot";
 import { env } from "~/env.server";
 import { authEnv } from "./config.server";
+import { safeNext } from "./next.server";
 import { cookieIsSecure } from "./sessions.server";
+
+export { safeNext };
 
 const DiscoverySchema = v.object({
   issuer: v.string(),
@@ -35,10 +38,18 @@ const FlowSchema = v.object({
 const ClaimsSchema = v.object({
   sub: v.pipe(v.string(), v.minLength(1)),
   email: v.pipe(v.string(), v.email()),
+  /** OpenID Connect Core §5.1: true when the provider has checked the person owns `email`. */
+  email_verified: v.optional(v.unknown()),
   name: v.optional(v.string()),
   institute: v.optional(v.string()),
 });
-export type SsoIdentity = { subject: string; email: string; name?: string; institute?: string };
+export type SsoIdentity = {
+  subject: string;
+  email: string;
+  emailVerified: boolean;
+  name?: string;
+  institute?: string;
+};
 
 export class SsoError extends Error {}
 
@@ -77,12 +88,6 @@ function flowCookie() {
     secrets: [env().COOKIE_SECRET],
     maxAge: 600,
   });
-}
-
-/** Only local paths may be a destination after sign-in (no open redirects). */
-export function safeNext(next: string | null | undefined): string {
-  if (!next?.startsWith("/") || next.startsWith("//") || next.startsWith("/\\")) return "/";
-  return next;
 }
 
 /** The provider's authorization URL and the cookie that remembers state, verifier and nonce. */
@@ -150,6 +155,8 @@ export async function completeSso(
     identity: {
       subject: `${discovery.issuer} ${claims.output.sub}`,
       email: claims.output.email,
+      // Only a boolean true counts (some providers send the string "true": that counts too).
+      emailVerified: claims.output.email_verified === true || claims.output.email_verified === "true",
       name: claims.output.name,
       institute: claims.output.institute,
     },

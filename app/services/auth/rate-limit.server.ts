@@ -6,6 +6,26 @@ import { RATE_LIMITS } from "./config.server";
 export type RateLimitResult = { ok: true } | { ok: false; retryAfterSeconds: number; message: string };
 
 /**
+ * The bucket an address counts in: an IPv4 address on its own; an IPv6 address by its /64 network
+ * (one host or home usually holds a whole /64, so counting single addresses would let it rotate).
+ */
+export function addressBucket(address: string): string {
+  const a = address.trim().toLowerCase();
+  if (!a.includes(":")) return a || "unknown";
+  const [head, tail = ""] = a.split("::");
+  const left = head ? head.split(":") : [];
+  const right = tail ? tail.split(":") : [];
+  const groups = a.includes("::")
+    ? [...left, ...Array(Math.max(0, 8 - left.length - right.length)).fill("0"), ...right]
+    : left;
+  if (groups.length !== 8 || groups.some((g) => !/^[0-9a-f]{1,4}$/.test(g))) return a;
+  return `${groups
+    .slice(0, 4)
+    .map((g) => g.replace(/^0+(?=.)/, ""))
+    .join(":")}::/64`;
+}
+
+/**
  * Records a sign-in attempt for the client address (and the e-mail address when given) and says
  * whether it stays within the limits of RATE_LIMITS. A refused attempt is not recorded.
  */
@@ -16,7 +36,7 @@ export async function recordSignInAttempt(
   limits: { windowMs: number; perAddress: number; perEmail: number } = RATE_LIMITS,
 ): Promise<RateLimitResult> {
   const since = new Date(now.getTime() - limits.windowMs);
-  const keys = [`ip:${input.address}`];
+  const keys = [`ip:${addressBucket(input.address)}`];
   if (input.email) keys.push(`email:${input.email.trim().toLowerCase()}`);
   const counts = await db
     .select({

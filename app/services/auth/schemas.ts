@@ -10,11 +10,15 @@ export const EmailLinkRequestSchema = v.object({
     v.maxLength(254, "That e-mail address is too long."),
     v.email("That does not look like an e-mail address."),
   ),
-  next: v.optional(v.string(), "/"),
+  next: v.optional(v.string("The destination after sign-in must be a path."), "/"),
 });
 
 /** A sign-in link as it comes back: its token (shown in the page, posted by its button) and the way on. */
 export const SignInLinkSchema = v.object({
-  token: v.pipe(v.string(), v.regex(SECRET_PATTERN, "This sign-in link is not valid.")),
+  // A missing token reads as "" and fails the pattern with the same sentence.
+  token: v.pipe(
+    v.optional(v.string("This sign-in link is not valid."), ""),
+    v.regex(SECRET_PATTERN, "This sign-in link is not valid."),
+  ),
   next: v.optional(v.string(), "/"),
 });

@@ -124,12 +124,21 @@ export function clearSessionCookieHeader(): string {
   return parts.join("; ");
 }
 
+/**
+ * The value of cookie `name`, percent-decoded; null when it is absent or cannot be decoded (a
+ * mangled cookie such as `fd_session=%` is treated as no cookie, never as an error).
+ */
 export function readCookie(request: Request, name: string): string | null {
   const header = request.headers.get("Cookie");
   if (!header) return null;
   for (const part of header.split(";")) {
     const [k, ...rest] = part.trim().split("=");
-    if (k === name) return decodeURIComponent(rest.join("="));
+    if (k !== name) continue;
+    try {
+      return decodeURIComponent(rest.join("="));
+    } catch {
+      return null;
+    }
   }
   return null;
 }

@@ -1,7 +1,7 @@
 /** Finishing a sign-in: a session row, its cookie, and the redirect to where the person was going. */
 import { href, redirect } from "react-router";
 import type { Database } from "~/db/client.server";
-import { safeNext } from "./oidc.server";
+import { safeNext } from "./next.server";
 import { createSession, type SessionMethod, sessionCookieHeader } from "./sessions.server";
 
 export async function signInAndRedirect(

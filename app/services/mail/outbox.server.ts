@@ -15,6 +15,8 @@ export type NewMail = {
   element: ReactElement;
   userId?: number | null;
   relatedUrl?: string | null;
+  /** Not sent at all if it has not gone out by then (a sign-in link that would arrive dead). */
+  deliverBy?: Date | null;
 };
 
 const NewMailSchema = v.object({
@@ -69,6 +71,7 @@ export async function enqueueMail(db: DbOrTx, mail: NewMail): Promise<OutboxMess
       text,
       userId: parsed.output.userId ?? null,
       relatedUrl: parsed.output.relatedUrl ?? null,
+      deliverBy: mail.deliverBy ?? null,
     })
     .returning();
   if (!(db instanceof PgTransaction)) wakeOutboxSender();

@@ -1,25 +1,68 @@
-import { and, asc, eq, getTableColumns, isNull, lte, sql } from "drizzle-orm";
-import { type Database, database } from "~/db/client.server";
-import { outboxMessages } from "~/db/schema/mail";
+import { and, asc, eq, getTableColumns, gt, isNull, lte, sql } from "drizzle-orm";
+import { createElement } from "react";
+import { type Database, database, type Transaction } from "~/db/client.server";
+import { type OutboxMessage, outboxMessages } from "~/db/schema/mail";
+import { users } from "~/db/schema/users";
+import { SIGN_IN_LATE_SUBJECT, SignInLateEmail } from "~/emails/SignInLateEmail";
+import { env } from "~/env.server";
 import { parseMailEnv } from "./config.server";
+import { enqueueMail } from "./outbox.server";
 import { createMailTransport, type MailTransport, senderDomain } from "./transport.server";
 
 /** First retry after this many milliseconds; each further failure doubles it. */
 export const RETRY_BASE_MS = 5_000;
-/** Retries never wait longer than this, milliseconds (10 min). */
-export const RETRY_CAP_MS = 600_000;
+/**
+ * Retries never wait longer than this, milliseconds (20 s). With the sender waking for each retry
+ * when it is due, a message waiting out a mail-server outage goes out at most this long (plus the
+ * time of the attempt itself) after the server is back, well within 30 s; once one message gets
+ * through, the others that are waiting are sent in the same pass.
+ */
+export const RETRY_CAP_MS = 20_000;
 
 /**
- * Wait before the next attempt after `failures` failed attempts (1, 2, 3 … → 5 s, 10 s, 20 s …),
- * capped at 10 min. Values below 1 count as 1.
+ * Wait before the next attempt after `failures` failed attempts (1, 2, 3 … → 5 s, 10 s, 20 s, 20 s …),
+ * capped at RETRY_CAP_MS. Values below 1 count as 1.
  */
 export function retryDelayMs(failures: number): number {
   const n = Number.isFinite(failures) ? Math.max(1, Math.floor(failures)) : 1;
-  return Math.min(RETRY_CAP_MS, RETRY_BASE_MS * 2 ** (n - 1));
+  return Math.min(RETRY_CAP_MS, RETRY_BASE_MS * 2 ** (Math.min(n, 30) - 1));
 }
 
 export type DeliveryFailure = { id: number; error: string; attempts: number; nextAttemptAt: Date };
-export type DeliveryReport = { sent: number[]; failed: DeliveryFailure[] };
+export type DeliveryReport = {
+  sent: number[];
+  failed: DeliveryFailure[];
+  /** Messages given up because they could no longer arrive in time (never sent). */
+  abandoned?: number[];
+  /** How many messages waiting out a back-off were made due because this pass got one through. */
+  broughtForward?: number;
+};
+
+/**
+ * Gives up a message whose `deliverBy` has passed: it is marked abandoned and never sent. For a
+ * sign-in link, the person gets a short notice in its place asking them to request a new link.
+ */
+async function abandon(tx: Transaction, row: OutboxMessage, now: Date) {
+  await tx
+    .update(outboxMessages)
+    .set({
+      abandonedAt: now,
+      lastError: "Not sent: it could no longer arrive before it expired.",
+    })
+    .where(eq(outboxMessages.id, row.id));
+  if (row.kind !== "sign-in-link") return;
+  const [person] = row.userId ? await tx.select().from(users).where(eq(users.id, row.userId)) : [];
+  await enqueueMail(tx, {
+    kind: "sign-in-late",
+    to: row.toAddress,
+    subject: SIGN_IN_LATE_SUBJECT,
+    element: createElement(SignInLateEmail, {
+      name: person?.name ?? null,
+      signInUrl: new URL("/sign-in", env().APP_ORIGIN).toString(),
+    }),
+    userId: row.userId,
+  });
+}
 
 function describeError(e: unknown): string {
   if (e instanceof Error) {
@@ -39,6 +82,8 @@ function describeError(e: unknown): string {
  * sent (or given its next attempt) before that transaction commits, so concurrent senders never take
  * the same message and a message marked sent is never taken again. A failure sets `attempts`,
  * `lastError` and `nextAttemptAt = now + retryDelayMs(attempts)`; the message waits for that instant.
+ * A message past its `deliverBy` is abandoned instead of sent (see `abandon`). When any message got
+ * through, the others waiting out a back-off are made due at once: the server is evidently back.
  */
 export async function deliverDue(
   db: Database,
@@ -48,6 +93,7 @@ export async function deliverDue(
   const batch = Math.max(1, Math.floor(options.batch ?? 20));
   const domain = senderDomain(transport.from);
   const report: DeliveryReport = { sent: [], failed: [] };
+  const abandoned: number[] = [];
 
   for (let i = 0; i < batch; i++) {
     const taken = await db.transaction(async (tx) => {
@@ -57,13 +103,24 @@ export async function deliverDue(
           clock: sql`now()`.mapWith(outboxMessages.nextAttemptAt),
         })
         .from(outboxMessages)
-        .where(and(isNull(outboxMessages.sentAt), lte(outboxMessages.nextAttemptAt, options.now ?? sql`now()`)))
+        .where(
+          and(
+            isNull(outboxMessages.sentAt),
+            isNull(outboxMessages.abandonedAt),
+            lte(outboxMessages.nextAttemptAt, options.now ?? sql`now()`),
+          ),
+        )
         .orderBy(asc(outboxMessages.nextAttemptAt), asc(outboxMessages.id))
         .limit(1)
         .for("update", { skipLocked: true });
       if (!found) return false;
       const { clock, ...row } = found;
       const now = options.now ?? clock;
+      if (row.deliverBy && row.deliverBy.getTime() <= now.getTime()) {
+        await abandon(tx, row, now);
+        abandoned.push(row.id);
+        return true;
+      }
       try {
         const { messageId } = await transport.send({
           to: row.toAddress,
@@ -93,7 +150,37 @@ export async function deliverDue(
     });
     if (!taken) break;
   }
+  if (report.sent.length > 0) {
+    // The server took a message: the ones waiting out a back-off need not wait any longer.
+    const forward = await db
+      .update(outboxMessages)
+      .set({ nextAttemptAt: options.now ?? sql`now()` })
+      .where(
+        and(
+          isNull(outboxMessages.sentAt),
+          isNull(outboxMessages.abandonedAt),
+          gt(outboxMessages.attempts, 0),
+          gt(outboxMessages.nextAttemptAt, options.now ?? sql`now()`),
+        ),
+      )
+      .returning({ id: outboxMessages.id });
+    if (forward.length > 0) report.broughtForward = forward.length;
+  }
+  if (abandoned.length > 0) report.abandoned = abandoned;
   return report;
+}
+
+/** Milliseconds until the earliest queued message is due (0 when one is due now), or null when none waits. */
+export async function msUntilNextDue(db: Database): Promise<number | null> {
+  const [row] = await db
+    .select({
+      ms: sql<number | null>`extract(epoch from (min(${outboxMessages.nextAttemptAt}) - now())) * 1000`.mapWith((x) =>
+        x === null ? null : Number(x),
+      ),
+    })
+    .from(outboxMessages)
+    .where(and(isNull(outboxMessages.sentAt), isNull(outboxMessages.abandonedAt)));
+  return row?.ms === null || row?.ms === undefined ? null : Math.max(0, row.ms);
 }
 
 export type OutboxSender = {
@@ -113,9 +200,10 @@ function activeSenders(): Set<OutboxSender> {
 }
 
 /**
- * Runs `deliverDue` now and then every `intervalMs` after the previous pass ends (a timeout chain,
- * so passes never overlap; the timer does not keep the process alive). A pass that finds a full
- * batch runs again at once. Problems are logged with console.warn and the loop goes on.
+ * Runs `deliverDue` now and then every `intervalMs` after the previous pass ends, or sooner when a
+ * queued message falls due before that (a timeout chain, so passes never overlap; the timer does not
+ * keep the process alive). A pass that finds a full batch, or that got a message through after an
+ * outage, runs again at once. Problems are logged with console.warn and the loop goes on.
  */
 export function startOutboxSender({
   db,
@@ -132,6 +220,7 @@ export function startOutboxSender({
   let again = false;
   let running: Promise<void> | null = null;
   let timer: ReturnType<typeof setTimeout> | undefined;
+  let nextMs = intervalMs;
 
   function schedule(ms: number) {
     if (stopped) return;
@@ -159,13 +248,18 @@ export function startOutboxSender({
                 `next attempt ${first.nextAttemptAt.toISOString()}`,
             );
           }
-          if (report.sent.length + report.failed.length >= batch) again = true;
+          if (report.sent.length + report.failed.length + (report.abandoned?.length ?? 0) >= batch) again = true;
+          // Messages just made due (the server is back) go in the next round of this pass.
+          if (report.broughtForward) again = true;
         } while (again && !stopped);
+        const due = await msUntilNextDue(db);
+        nextMs = due === null ? intervalMs : Math.min(intervalMs, Math.max(50, Math.ceil(due)));
       } catch (e) {
+        nextMs = intervalMs;
         console.warn(`[outbox] delivery pass failed: ${describeError(e)}`);
       } finally {
         running = null;
-        schedule(intervalMs);
+        schedule(nextMs);
       }
     })();
     return running;

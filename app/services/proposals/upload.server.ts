@@ -38,7 +38,7 @@ export function readProposalForm(request: Request): Promise<FormBody> {
 /** A post that may be an upload, and the field its refusal is about ("document" for an upload). */
 export type ProposalPost =
   | { ok: true; form: FormData; multipart: boolean }
-  | { ok: false; status: 400 | 413; error: string; field: "form" | "document" };
+  | { ok: false; status: 400 | 413 | 415; error: string; field: "form" | "document" };
 
 /**
  * Reads a post of the editor: an upload (multipart) of at most `MAX_UPLOAD_BODY_BYTES`, whose

@@ -5,6 +5,7 @@
 import * as v from "valibot";
 import { type TargetModel, TargetModelSchema } from "~/engine";
 import { parseDeclination, parseRightAscension } from "~/lib/coordinates";
+import { parseNumber } from "~/lib/numbers";
 import {
   Magnitude,
   type ModelColumn,
@@ -52,12 +53,13 @@ function checked<T>(
 function numberCell(raw: string | undefined, column: string, row: number, errors: RowError[]): number | undefined {
   const text = (raw ?? "").trim();
   if (text === "") return undefined;
-  const x = Number(text.replace(/\u2212/g, "-"));
-  if (!Number.isFinite(x)) {
-    errors.push({ row, column, message: `"${text}" is not a number` });
+  // Strictly: "0x10" or "1e3" is refused, never read as 16 or 1000.
+  const read = parseNumber(text);
+  if (!read.ok) {
+    errors.push({ row, column, message: `"${text}" is not a number (write it plainly, such as 12.5)` });
     return undefined;
   }
-  return x;
+  return read.value;
 }
 
 /** Builds the model of one row from its cells, or reports what is missing. */
@@ -141,8 +143,10 @@ export function readTargetCells(
     const magnitude = checked(Magnitude, value, { row, column }, errors);
     if (magnitude !== undefined) magnitudes[column.slice(4).toUpperCase()] = magnitude;
   }
-  const notes = v.parse(TargetNotes, cells.notes ?? "");
-  if (errors.length || name === undefined || !ra.ok || !dec.ok || !model) return { target: null, errors };
+  const notes = checked(TargetNotes, cells.notes ?? "", { row, column: "notes" }, errors);
+  if (errors.length || name === undefined || notes === undefined || !ra.ok || !dec.ok || !model) {
+    return { target: null, errors };
+  }
   return { target: { name, raDeg: ra.deg, decDeg: dec.deg, model, magnitudes, notes }, errors };
 }
 

@@ -54,11 +54,7 @@ export const TargetName = v.pipe(
   v.nonEmpty("a name is required"),
   v.maxLength(80, "at most 80 characters"),
 );
-export const TargetNotes = v.pipe(
-  v.string(),
-  v.trim(),
-  v.transform((s) => s.slice(0, 1000)),
-);
+export const TargetNotes = v.pipe(v.string(), v.trim(), v.maxLength(1000, "at most 1 000 characters"));
 export const Magnitude = v.pipe(
   v.number(),
   v.minValue(-30, "a magnitude between -30 and 30"),

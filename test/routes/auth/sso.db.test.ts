@@ -32,7 +32,10 @@ afterAll(async () => {
 afterEach(() => useProvider(idp.issuer));
 
 /** The browser's part: start, pick an identity on the provider's page, come back with a code. */
-async function authorize(identity: { email: string; name: string; institute?: string }, next = "/account") {
+async function authorize(
+  identity: { email: string; name: string; institute?: string; sub?: string; emailVerified?: boolean },
+  next = "/account",
+) {
   const start = await settle(() => ssoStart(routeArgs(`/auth/sso/start?next=${encodeURIComponent(next)}`)));
   expect(start.status).toBe(302);
   const authorizeUrl = new URL(start.headers.get("Location")!);
@@ -42,6 +45,8 @@ async function authorize(identity: { email: string; name: string; institute?: st
   form.set("email", identity.email);
   form.set("name", identity.name);
   form.set("institute", identity.institute ?? "");
+  if (identity.sub) form.set("sub", identity.sub);
+  if (identity.emailVerified === false) form.set("email_verified", "0");
   const consent = await fetch(`${authorizeUrl.origin}/authorize`, { method: "POST", body: form, redirect: "manual" });
   expect(consent.status).toBe(302);
   return { callbackUrl: new URL(consent.headers.get("Location")!), flowCookie };
@@ -152,5 +157,76 @@ describe("single sign-on through the local provider", () => {
     useProvider("http://127.0.0.1:9");
     const start = await settle(() => ssoStart(routeArgs("/auth/sso/start")));
     expect(whereTo(start)).toContain("Single sign-on is unavailable");
+  });
+
+  it("does not redirect to another host through a tab, a backslash or CR/LF in `next`", async () => {
+    useProvider(idp.issuer);
+    for (const next of ["/\t/evil.example", "/\\evil.example", "/\r\nSet-Cookie: x=1"]) {
+      const { callbackUrl, flowCookie } = await authorize(KENJI, next);
+      const done = await returnFrom(callbackUrl, flowCookie);
+      expect(done.headers.get("Location"), JSON.stringify(next)).toBe("/");
+    }
+  });
+});
+
+describe("linking a sign-on identity to an account", () => {
+  const sessionOf = (res: Response) => res.headers.getSetCookie().some((c) => c.startsWith("fd_session="));
+  const subjectOf = async (email: string) =>
+    (await testDb().select().from(users).where(eq(users.email, email)))[0]?.ssoSubject ?? null;
+
+  it("links by e-mail only when the provider has verified the address", async () => {
+    useProvider(idp.issuer);
+    const email = "tomasz.wierzbicki@baltic-stellar.example";
+    await testDb().update(users).set({ ssoSubject: null }).where(eq(users.email, email));
+    const unverified = await authorize({ email, name: "Impostor", sub: "someone-else", emailVerified: false });
+    const refused = await returnFrom(unverified.callbackUrl, unverified.flowCookie);
+    expect(whereTo(refused)).toContain("has not verified this e-mail address");
+    expect(sessionOf(refused)).toBe(false);
+    expect(await subjectOf(email)).toBeNull();
+
+    const verified = await authorize({ email, name: "Tomasz Wierzbicki", sub: "tomasz-at-provider" });
+    const done = await returnFrom(verified.callbackUrl, verified.flowCookie);
+    expect(done.headers.get("Location")).toBe("/account");
+    expect(await subjectOf(email)).toBe(`${idp.issuer} tomasz-at-provider`);
+  });
+
+  it("creates no account for an address the provider has not verified", async () => {
+    useProvider(idp.issuer);
+    const { callbackUrl, flowCookie } = await authorize({
+      email: "unverified.newcomer@lagoa-obs.example",
+      name: "Newcomer",
+      emailVerified: false,
+    });
+    const done = await returnFrom(callbackUrl, flowCookie);
+    expect(whereTo(done)).toContain("has not verified your e-mail address");
+    expect(await testDb().select().from(users).where(eq(users.email, "unverified.newcomer@lagoa-obs.example"))).toEqual(
+      [],
+    );
+  });
+
+  it("never hands an account linked to one subject to another subject with the same address", async () => {
+    useProvider(idp.issuer);
+    const email = "amara.okafor@harmattan-obs.example";
+    const first = await authorize({ email, name: "Amara Okafor", sub: "amara-1" });
+    await returnFrom(first.callbackUrl, first.flowCookie);
+    expect(await subjectOf(email)).toBe(`${idp.issuer} amara-1`);
+    const second = await authorize({ email, name: "Amara Okafor", sub: "amara-2" });
+    const refused = await returnFrom(second.callbackUrl, second.flowCookie);
+    expect(whereTo(refused)).toContain("linked to another single sign-on identity");
+    expect(sessionOf(refused)).toBe(false);
+    expect(await subjectOf(email)).toBe(`${idp.issuer} amara-1`);
+  });
+
+  it("finds a linked account by its subject even when the provider's address for it changed", async () => {
+    useProvider(idp.issuer);
+    const email = "ilse.brandt@nordkap.example";
+    await testDb().insert(users).values({ email, name: "Ilse Brandt" });
+    const first = await authorize({ email, name: "Ilse Brandt", sub: "ilse-stable" });
+    await returnFrom(first.callbackUrl, first.flowCookie);
+    expect(await subjectOf(email)).toBe(`${idp.issuer} ilse-stable`);
+    const moved = await authorize({ email: "i.brandt@new-domain.example", name: "Ilse Brandt", sub: "ilse-stable" });
+    const done = await returnFrom(moved.callbackUrl, moved.flowCookie);
+    const viewer = await getViewer(new Request("http://localhost:3000/", { headers: { Cookie: cookiesFrom(done) } }));
+    expect(viewer?.user.email).toBe(email);
   });
 });

@@ -1,15 +1,15 @@
 import { formPost, routeArgs, settle, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { beforeEach, describe, expect, it } from "vitest";
-import { sessions } from "~/db/schema/auth";
+import { apiTokens, sessions } from "~/db/schema/auth";
 import { users } from "~/db/schema/users";
 import { seedDemoScenario } from "~/db/seed/factories.server";
 import { getViewer, requireApiUser, requirePermission, requireUser } from "~/lib/guards.server";
 import { action as accountAction, loader as accountLoader } from "~/routes/account/index";
 import { findUserByEmail } from "~/services/auth/accounts.server";
-import { authenticateApiToken, createApiToken, revokeApiToken } from "~/services/auth/api-tokens.server";
+import { authenticateApiToken, checkApiToken, createApiToken, revokeApiToken } from "~/services/auth/api-tokens.server";
 import { SESSION_LIFETIME_MS } from "~/services/auth/config.server";
-import { createSession, revokeSession, validateSessionToken } from "~/services/auth/sessions.server";
+import { createSession, readCookie, revokeSession, validateSessionToken } from "~/services/auth/sessions.server";
 import { hashSecret } from "~/services/auth/tokens.server";
 
 const DAY = 24 * 3600 * 1000;
@@ -19,6 +19,7 @@ beforeEach(async () => {
   // One database per file: start each test with the demo people active and nobody signed in.
   await seedDemoScenario(testDb());
   await testDb().delete(sessions);
+  await testDb().delete(apiTokens);
   await testDb().update(users).set({ active: true });
   userId = (await findUserByEmail(testDb(), "ines.arroyo@valle-alto.example"))!.id;
 });
@@ -136,13 +137,130 @@ describe("API tokens", () => {
       data: { error: expect.stringContaining("Give the token a name") },
     });
     const created = (await accountAction(
-      routeArgs("/account", formPost({ intent: "create-token", name: "nightly plots" }, cookie)),
+      routeArgs(
+        "/account",
+        formPost(
+          { intent: "create-token", name: "nightly plots", scopes: "computations:read", lifetimeDays: "90" },
+          cookie,
+        ),
+      ),
     )) as {
       newToken: { token: string };
     };
     expect(created.newToken.token).toMatch(/^fdk_[a-z2-7]{32}$/);
     const page = await accountLoader(routeArgs("/account", { headers: cookie }));
     expect(JSON.stringify(page)).not.toContain(created.newToken.token);
-    expect(page.tokens[0]).toMatchObject({ name: "nightly plots", revokedAt: null });
+    expect(page.tokens[0]).toMatchObject({ name: "nightly plots", revokedAt: null, scopes: ["computations:read"] });
+  });
+
+  it("carry the scopes they were given and an expiry, 90 days unless chosen otherwise", async () => {
+    const t0 = new Date("2027-01-01T00:00:00Z");
+    const { token, row } = await createApiToken(testDb(), userId, "plots", { now: t0 });
+    expect(row.scopes).toEqual(["computations:read"]);
+    expect(row.expiresAt.getTime() - t0.getTime()).toBe(90 * DAY);
+    expect((await checkApiToken(testDb(), token, new Date(t0.getTime() + 89 * DAY))).ok).toBe(true);
+    expect(await checkApiToken(testDb(), token, new Date(t0.getTime() + 90 * DAY))).toMatchObject({
+      ok: false,
+      reason: "expired",
+    });
+    const short = await createApiToken(testDb(), userId, "one week", { lifetimeDays: 7, scopes: ["proposals:read"] });
+    expect(short.row.expiresAt.getTime() - short.row.createdAt.getTime()).toBe(7 * DAY);
+    await expect(createApiToken(testDb(), userId, "forever", { lifetimeDays: 3650 })).rejects.toThrow(/1 to 365 days/);
+    await expect(createApiToken(testDb(), userId, "nothing", { scopes: [] })).rejects.toThrow(/at least one scope/);
+  });
+
+  it("are refused past their expiry with a 401 that says so", async () => {
+    const past = new Date(Date.now() - 91 * DAY);
+    const { token } = await createApiToken(testDb(), userId, "old", { now: past });
+    const res = await settle(() =>
+      requireApiUser(
+        new Request("http://localhost:3000/api/coverage", { headers: { Authorization: `Bearer ${token}` } }),
+      ),
+    );
+    expect(res.status).toBe(401);
+    expect((await res.json()).error).toMatch(/^This API token expired on \d{4}-\d\d-\d\d \d\d:\d\d UTC/);
+  });
+
+  it("do only what their scopes allow: a token without computations cannot run one", async () => {
+    const { token } = await createApiToken(testDb(), userId, "reader", { scopes: ["proposals:read"] });
+    const req = () =>
+      new Request("http://localhost:3000/api/coverage", {
+        method: "POST",
+        headers: { Authorization: `Bearer ${token}` },
+      });
+    const res = await settle(() => requireApiUser(req(), "sketch:use"));
+    expect(res.status).toBe(403);
+    expect((await res.json()).error).toBe(
+      "This API token does not have the computations:read scope; create one that has it.",
+    );
+    const ok = await requireApiUser(req(), undefined, { scope: "proposals:read" });
+    expect(ok.scopes && [...ok.scopes]).toEqual(["proposals:read"]);
+  });
+
+  it("never open a page: not the account page, where more tokens could be made, nor People", async () => {
+    const { token } = await createApiToken(testDb(), userId, "all of it", {
+      scopes: ["computations:read", "proposals:read", "proposals:write"],
+    });
+    const auth = { Authorization: `Bearer ${token}` };
+    const page = await settle(() => accountLoader(routeArgs("/account", { headers: auth })));
+    expect(page.status).toBe(403);
+    expect(await page.text()).toMatch(/An API token opens the JSON API/);
+    const mint = await settle(() =>
+      accountAction(
+        routeArgs(
+          "/account",
+          formPost({ intent: "create-token", name: "second", scopes: "computations:read", lifetimeDays: "365" }, auth),
+        ),
+      ),
+    );
+    expect(mint.status).toBe(403);
+    const asAdmin = await settle(() =>
+      requirePermission(new Request("http://localhost:3000/admin/users", { headers: auth }), "users:manage"),
+    );
+    expect(asAdmin.status).toBe(403);
+    expect(await getViewer(new Request("http://localhost:3000/", { headers: auth }))).toBeNull();
+    expect((await testDb().select().from(apiTokens).where(eq(apiTokens.userId, userId))).map((t) => t.name)).toEqual([
+      "all of it",
+    ]);
+  });
+
+  it("states the limits on the form and refuses what is outside them with a reason", async () => {
+    const { token: session } = await createSession(testDb(), userId, { method: "sso" });
+    const cookie = { Cookie: `fd_session=${session}` };
+    const post = (fields: Record<string, string | string[]>) =>
+      accountAction(routeArgs("/account", formPost({ intent: "create-token", ...fields }, cookie)));
+    const cases: [Record<string, string | string[]>, RegExp][] = [
+      [{ name: "x".repeat(81), scopes: "computations:read", lifetimeDays: "90" }, /80 characters or fewer/],
+      [{ name: "none", lifetimeDays: "90" }, /Tick at least one/],
+      [{ name: "odd", scopes: "everything", lifetimeDays: "90" }, /Unknown scope/],
+      [{ name: "hex", scopes: "computations:read", lifetimeDays: "0x5a" }, /lifetime must be a whole number/],
+      [{ name: "exp", scopes: "computations:read", lifetimeDays: "9e1" }, /lifetime must be a whole number/],
+      [
+        { name: "long", scopes: "computations:read", lifetimeDays: "3650" },
+        /Choose a lifetime of 7, 30, 90, 180, 365 days/,
+      ],
+    ];
+    for (const [fields, message] of cases) {
+      const res = await post(fields);
+      expect(res, JSON.stringify(fields)).toMatchObject({
+        init: { status: 400 },
+        data: { error: expect.stringMatching(message) },
+      });
+    }
+    expect(await testDb().select().from(apiTokens).where(eq(apiTokens.userId, userId))).toEqual([]);
+    const revokeHex = await accountAction(
+      routeArgs("/account", formPost({ intent: "revoke-token", tokenId: "0x10" }, cookie)),
+    );
+    expect(revokeHex).toMatchObject({ init: { status: 400 }, data: { error: "Unknown token." } });
+  });
+});
+
+describe("a mangled session cookie", () => {
+  it("counts as no cookie, never as an error", async () => {
+    for (const cookie of ["fd_session=%", "fd_session=%E0%A4%A", "fd_session=%%%; other=1"]) {
+      const req = new Request("http://localhost:3000/account", { headers: { Cookie: cookie } });
+      expect(readCookie(req, "fd_session"), cookie).toBeNull();
+      expect(await getViewer(req)).toBeNull();
+    }
   });
 });

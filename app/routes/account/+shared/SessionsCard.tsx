@@ -30,8 +30,9 @@ export function SessionsCard({
                 {s.id === currentSessionId ? <Badge tone="ok">this browser</Badge> : null}
               </p>
               <p className="text-night-600">
-                via {s.method === "sso" ? "single sign-on" : "e-mail link"} · started {s.started} · last used{" "}
-                {s.lastUsed} · expires {s.expires}
+                via {s.method === "sso" ? "single sign-on" : "e-mail link"}
+                {s.address ? ` from ${s.address}` : ""} · started {s.started} · last used {s.lastUsed} · expires{" "}
+                {s.expires}
               </p>
             </div>
             {s.id !== currentSessionId ? (

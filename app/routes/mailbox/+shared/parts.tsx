@@ -12,11 +12,25 @@ export function Recipient({ to, toViewer }: { to: string; toViewer: boolean }) {
   );
 }
 
-const statusTone: Record<MailStatus, BadgeTone> = { sent: "ok", pending: "info", retrying: "caution" };
+const statusTone: Record<MailStatus, BadgeTone> = {
+  delivered: "ok",
+  queued: "info",
+  retrying: "caution",
+  abandoned: "danger",
+};
+const statusWord: Record<MailStatus, string> = {
+  delivered: "delivered",
+  queued: "queued",
+  retrying: "queued · retrying",
+  abandoned: "not sent: too late",
+};
 
-/** A delivery state as a badge: sent, pending (no attempt yet) or retrying; `children` replace the word. */
+/**
+ * A delivery state as a badge: delivered, queued (no attempt yet), queued and retrying, or not sent
+ * because it could no longer arrive in time; `children` replace the words.
+ */
 export function StatusBadge({ status, children }: { status: MailStatus; children?: ReactNode }) {
-  return <Badge tone={statusTone[status]}>{children ?? status}</Badge>;
+  return <Badge tone={statusTone[status]}>{children ?? statusWord[status]}</Badge>;
 }
 
 /** "1 attempt", "3 attempts"; with a qualifier, "3 failed attempts". */
