@@ -79,9 +79,16 @@ export function CalibratorTable({
         </span>
       ),
     },
-    { key: "distance", header: "Distance", unit: "°", align: "right", value: (c) => c.distanceDeg },
-    { key: "v", header: "V", unit: "mag", align: "right", value: (c) => c.vMag },
-    { key: "bv", header: "B−V", unit: "mag", align: "right", value: (c) => c.bv },
+    {
+      key: "distance",
+      header: "Distance",
+      unit: "°",
+      align: "right",
+      value: (c) => c.distanceDeg,
+      render: (c) => c.distanceDeg.toFixed(2),
+    },
+    { key: "v", header: "V", unit: "mag", align: "right", value: (c) => c.vMag, render: (c) => c.vMag.toFixed(2) },
+    { key: "bv", header: "B−V", unit: "mag", align: "right", value: (c) => c.bv, render: (c) => c.bv.toFixed(3) },
     {
       key: "band",
       header: `${band} magnitude`,
@@ -114,20 +121,29 @@ export function CalibratorTable({
       render: (c) => c.observableHours.toFixed(2),
     },
     { key: "score", header: "Score", align: "right", value: (c) => c.score, render: (c) => c.score.toFixed(1) },
+    ...(action ? [{ key: "action", header: action.header, value: () => null, render: action.cell }] : []),
     {
       key: "why",
       header: "Why",
       value: (c) => c.reasons.join("; "),
-      render: (c) => (
-        <ul className="min-w-64 list-disc space-y-0.5 pl-4 text-xs text-night-700">
-          {c.reasons.map((r) => (
-            <li key={r}>{r}</li>
-          ))}
-        </ul>
-      ),
+      // The reasons in full on demand; a variable star's flag in sight.
+      render: (c) => {
+        const flags = c.reasons.filter((r) => /variable/.test(r));
+        return (
+          <details className="min-w-40 text-xs text-night-700">
+            <summary className="cursor-pointer">
+              {flags.length ? <span className="text-caution-700">{flags.join("; ")}</span> : "Reasons"}
+            </summary>
+            <ul className="mt-1 min-w-64 list-disc space-y-0.5 pl-4">
+              {c.reasons.map((r) => (
+                <li key={r}>{r}</li>
+              ))}
+            </ul>
+          </details>
+        );
+      },
     },
   ];
-  if (action) columns.push({ key: "action", header: action.header, value: () => null, render: action.cell });
   return (
     <div className="space-y-2">
       <div className="flex flex-wrap items-center justify-between gap-2">

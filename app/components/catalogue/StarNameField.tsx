@@ -253,7 +253,7 @@ export function StarNameField(props: StarNameFieldProps) {
             ) : null}
             {canUse && filled === star.hip ? <span className="text-sm text-ok-700">Coordinates filled in.</span> : null}
           </div>
-        ) : current?.message ? (
+        ) : current?.message && !error ? (
           <p className="text-sm text-night-700">
             Not in the star catalogue: {current.message}. The name is kept as typed; give its coordinates.
           </p>

@@ -21,26 +21,25 @@ import { SettingsForm } from "./+shared/SettingsForm";
 import { ShortlistResult } from "./+shared/ShortlistResult";
 import type { Route } from "./+types/proposal-shortlist";
 
-export async function loader({ request, params, context }: Route.LoaderArgs) {
+export async function loader({ request, url, params, context }: Route.LoaderArgs) {
   const viewer = await requirePermission(request, "proposals:own");
   const page = await proposalTargetShortlist(context.get(dbContext), {
     viewer,
     proposalId: params.proposalId,
     targetId: params.targetId,
-    params: new URL(request.url).searchParams,
+    params: url.searchParams,
   });
   return data(page, { status: Object.keys(page.run.errors).length ? 400 : 200 });
 }
 
 /** "Add as calibrator": the star's number; back to the same shortlist with a message. */
-export async function action({ request, params, context }: Route.ActionArgs) {
+export async function action({ request, url, params, context }: Route.ActionArgs) {
   const viewer = await requirePermission(request, "proposals:own");
   const db = context.get(dbContext);
   // Someone off the proposal's team gets the 404 before anything they sent is read.
   const opened = await openProposalTarget(db, { viewer, proposalId: params.proposalId, targetId: params.targetId });
   const picked = readAddCalibrator(await requireFormBody(request));
   if (!picked.ok) return data({ error: picked.message }, { status: 400 });
-  const url = new URL(request.url);
   const done = await addShortlistedCalibrator(db, { opened, hip: picked.hip, params: url.searchParams });
   if (!done.ok) return data({ error: done.message }, { status: done.status });
   return redirectWithFlash(`${url.pathname}${url.search}`, { kind: "success", text: done.text });
@@ -63,6 +62,7 @@ function AddButton({ entry, added, full }: { entry: CalibratorEntry; added: bool
         size="sm"
         variant="secondary"
         disabled={busy || full}
+        className="whitespace-nowrap"
         aria-label={`Add ${entry.name} as calibrator`}
       >
         {busy ? "Adding…" : "Add as calibrator"}
@@ -92,7 +92,7 @@ export default function ProposalShortlist({ loaderData, actionData }: Route.Comp
         lead={<>Target of “{page.proposal.title || "untitled proposal"}”. Defaults come from the proposal.</>}
         back={{ to: back, label: "Back to the target" }}
       />
-      <div className="grid gap-6">
+      <div className="grid grid-cols-1 gap-6">
         {actionData?.error ? <Alert>{actionData.error}</Alert> : null}
         {!page.editable ? (
           <Alert tone="info">{page.lockedBecause ?? "The proposal is read-only"}: calibrators cannot be added.</Alert>

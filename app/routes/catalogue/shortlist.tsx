@@ -1,5 +1,5 @@
 /** The Calibrator shortlist for any target: a star by name, or coordinates; settings in the address. */
-import { data, href } from "react-router";
+import { data } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import { EmptyState, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
@@ -11,11 +11,11 @@ import { SettingsForm } from "./+shared/SettingsForm";
 import { ShortlistResult } from "./+shared/ShortlistResult";
 import type { Route } from "./+types/shortlist";
 
-export async function loader({ request, context }: Route.LoaderArgs) {
+export async function loader({ request, url, context }: Route.LoaderArgs) {
   await requirePermission(request, "sketch:use");
   const choices = await shortlistChoices(context.get(dbContext));
   invariantResponse(choices, "The array registry has no site yet.");
-  const params = new URL(request.url).searchParams;
+  const params = url.searchParams;
   const values = shortlistValues(params, defaultShortlistValues(choices, new Date()));
   // Nothing is computed until a target is given.
   const asked = ["target", "ra", "dec"].some((k) => (params.get(k) ?? "").trim() !== "");
@@ -34,9 +34,8 @@ export default function Shortlist({ loaderData }: Route.ComponentProps) {
       <PageHeader
         title="Calibrator shortlist"
         lead="Catalogue stars near a target that would calibrate it: nearly unresolved on the longest baseline, up at the same time, of similar brightness in the band."
-        back={{ to: href("/sketchpad"), label: "Sketchpad", variant: "ghost" }}
       />
-      <div className="grid gap-6">
+      <div className="grid grid-cols-1 gap-6">
         <SettingsForm values={values} errors={run?.errors ?? {}} choices={choices} withTarget />
         {run?.result ? (
           <ShortlistResult run={run} exportName={`calibrators-${name.replace(/[^\p{L}\p{N}]+/gu, "-")}`} />

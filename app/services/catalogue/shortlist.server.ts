@@ -130,7 +130,14 @@ export type ShortlistRun = {
   errors: Record<string, string>;
   result: CalibratorsResponse | null;
   /** What was asked, in words, for the page's summary. */
-  asked: { band: BandChoice; baselineM: number; configuration: ConfigurationChoice | null } | null;
+  asked: {
+    /** The target's name as the page knows it (a proposal's target, or the typed name). */
+    targetName: string | null;
+    band: BandChoice;
+    /** The baseline the V² is computed on, metres, to 0.1 m. */
+    baselineM: number;
+    configuration: ConfigurationChoice | null;
+  } | null;
 };
 
 /** Reads the target fields: coordinates when typed, else the star the name names. */
@@ -177,10 +184,11 @@ export function runShortlist(values: ShortlistValues, choices: ShortlistChoices,
   }
   if (Object.keys(errors).length > 0 || !target || !band || !baselineM) return { errors, result: null, asked: null };
   const { latitudeDeg, longitudeDeg, altitudeM } = choices.site;
+  const longestM = Math.round(baselineM * 10) / 10;
   const out = shortlistForRequest({
     target,
     wavelengthM: band.centralWavelengthM,
-    longestBaselineM: Math.round(baselineM * 10) / 10,
+    longestBaselineM: longestM,
     site: { latitudeDeg, longitudeDeg, altitudeM },
     date: s.date,
     minElevationDeg: s.minElevation as number,
@@ -195,7 +203,8 @@ export function runShortlist(values: ShortlistValues, choices: ShortlistChoices,
     const field = out.field === "target.name" ? "target" : out.field;
     return { errors: { [field]: out.message }, result: null, asked: null };
   }
-  return { errors: {}, result: out.value, asked: { band, baselineM, configuration } };
+  const targetName = fixed?.name ?? out.value.target.name ?? (s.target || null);
+  return { errors: {}, result: out.value, asked: { targetName, band, baselineM: longestM, configuration } };
 }
 
 /**

@@ -112,3 +112,30 @@ describe("alreadyCalibrator", () => {
     expect(alreadyCalibrator([{ name: "Mine", raDeg: 88.6197, decDeg: 8.0543 + 90 / 3600 }], star)).toBe(false);
   });
 });
+
+describe("calibratorShortlistHref", () => {
+  it("writes an address the shortlist page reads back: the target, band, a typed baseline, the night", async () => {
+    const { calibratorShortlistHref } = await import("~/components/catalogue/CalibratorPeek");
+    const href = calibratorShortlistHref({
+      target: "Test field",
+      ra: "11:00:00",
+      dec: "-36:00:00",
+      band: 3,
+      baselineM: 158.027,
+      date: "2027-03-15",
+    });
+    const url = new URL(href, "http://localhost");
+    expect(url.pathname).toBe("/catalogue/calibrators");
+    const values = shortlistValues(url.searchParams, GOOD);
+    expect(values).toMatchObject({
+      target: "Test field",
+      ra: "11:00:00",
+      dec: "-36:00:00",
+      band: "3",
+      config: "",
+      baseline: "158",
+      date: "2027-03-15",
+    });
+    expect(readShortlistSettings(values).ok).toBe(true);
+  });
+});

@@ -27,10 +27,10 @@ function Summary({
 }) {
   const { result, asked } = run;
   const t = result.target;
-  const targetText = `${t.name ?? "Typed position"} — RA ${formatRightAscension(t.raDeg, 1)}, Dec ${formatDeclination(t.decDeg, 0)} (J2000)`;
+  const targetText = `${asked.targetName ?? "Typed position"} — RA ${formatRightAscension(t.raDeg, 1)}, Dec ${formatDeclination(t.decDeg, 0)} (J2000)`;
   const photometry =
     t.vMag === null
-      ? "not a catalogue star"
+      ? "no catalogue star at this position"
       : `V ${t.vMag.toFixed(2)}, B−V ${t.bv === null ? "not given" : t.bv.toFixed(2)}`;
   const bandMag =
     t.bandMag === null
