@@ -62,11 +62,11 @@ describe("star catalogue", () => {
     await page.getByRole("button", { name: "Add target" }).click();
     await page.getByText("Betelgeuse added to My targets.").waitFor();
 
-    // An invented name: said to be no catalogue star, kept as typed. (The form keeps what was typed
-    // after an add: the coordinates are cleared here by hand.)
-    await page.getByLabel("Right ascension").fill("");
-    await page.getByLabel("Declination").fill("");
+    // An invented name: said to be no catalogue star, kept as typed; the coordinates Betelgeuse filled
+    // in are taken back with its name.
     await name.fill("Lumbre Nova 99");
+    await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("");
+    await expect(page.getByLabel("Declination").inputValue()).resolves.toBe("");
     await page.getByText(/Not in the star catalogue: no star called "Lumbre Nova 99"/).waitFor();
     await expect(name.inputValue()).resolves.toBe("Lumbre Nova 99");
     // Saved without coordinates, the form names the field and keeps the name.
@@ -111,6 +111,19 @@ describe("star catalogue", () => {
       .locator('input[name="calName"]')
       .evaluateAll((els) => els.map((e) => (e as HTMLInputElement).value));
     expect(names).toContain(starName);
+
+    // The shortlist of any star, from the menu: its name picked from the suggestions.
+    await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "Calibrators" }).click();
+    await page.getByRole("heading", { level: 1, name: "Calibrator shortlist" }).waitFor();
+    const field = page.getByRole("combobox", { name: "Target" });
+    await field.pressSequentially("sirius", { delay: 30 });
+    await page.getByRole("option", { name: /^Sirius/ }).click();
+    await page.getByText("Coordinates filled in.").waitFor();
+    await page.getByLabel("Night of").fill("2027-01-10");
+    await page.getByRole("button", { name: "Show the shortlist" }).click();
+    await page.getByRole("table", { name: "Calibrator shortlist" }).waitFor();
+    await page.waitForURL(/target=Sirius/);
+    await screenshot(page, "catalogue-generic-1366");
     expect(seen.errors).toEqual([]);
     await context.close();
   });

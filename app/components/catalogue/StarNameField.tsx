@@ -6,7 +6,8 @@
  *
  * Picking a suggestion fills the coordinates (`fill`: the names of the form's RA and Dec inputs, for an
  * uncontrolled form; `onResolved`: for a page that holds its own state); a name typed in full offers a
- * "Use its coordinates" button instead, so typing never overwrites coordinates unasked.
+ * "Use its coordinates" button instead, so typing never overwrites coordinates unasked. Changing the name
+ * afterwards clears the coordinates it filled (unless they were edited since): they were that star's.
  *
  * Keyboard: ↓/↑ move through the suggestions, Enter picks, Escape closes (ARIA combobox pattern).
  */
@@ -105,6 +106,8 @@ export function StarNameField(props: StarNameFieldProps) {
   /** The star picked from the list (looked up by its number, so a shared name cannot mislead). */
   const [picked, setPicked] = useState<{ hip: number; fill: boolean } | null>(null);
   const [filled, setFilled] = useState<number | null>(null);
+  /** The coordinates this field wrote into the form, to take back when the name changes. */
+  const wrote = useRef<{ ra: string; dec: string } | null>(null);
 
   const debounced = useDebounced(text.trim(), DEBOUNCE_MS);
   const query = picked ? `HIP ${picked.hip}` : debounced;
@@ -129,6 +132,7 @@ export function StarNameField(props: StarNameFieldProps) {
       const { ra, dec } = starCoordinates(s);
       setFormField(inputRef.current?.form, fill.ra, ra);
       setFormField(inputRef.current?.form, fill.dec, dec);
+      wrote.current = { ra, dec };
     }
     onResolved?.(s, how);
     setFilled(s.hip);
@@ -181,6 +185,16 @@ export function StarNameField(props: StarNameFieldProps) {
           name={name}
           value={text}
           onChange={(e) => {
+            // Coordinates taken from the previous name belong to that star: cleared, unless edited since.
+            const form = inputRef.current?.form;
+            if (fill && wrote.current && form) {
+              const field = (n: string) => form.elements.namedItem(n) as HTMLInputElement | null;
+              if (field(fill.ra)?.value === wrote.current.ra && field(fill.dec)?.value === wrote.current.dec) {
+                setFormField(form, fill.ra, "");
+                setFormField(form, fill.dec, "");
+              }
+              wrote.current = null;
+            }
             setText(e.target.value);
             setPicked(null);
             setFilled(null);
