@@ -60,6 +60,12 @@ export default [
     route(":proposalId/versions/:version", "routes/proposals/version.tsx"),
   ]),
 
+  // Star catalogue: Calibrator shortlists
+  ...prefix("catalogue", [
+    route("calibrators", "routes/catalogue/shortlist.tsx"),
+    route("proposals/:proposalId/targets/:targetId/calibrators", "routes/catalogue/proposal-shortlist.tsx"),
+  ]),
+
   // Notices
   ...prefix("mailbox", [index("routes/mailbox/index.tsx"), route(":messageId", "routes/mailbox/message.tsx")]),
 
@@ -68,6 +74,9 @@ export default [
     route("coverage", "routes/api/coverage.ts"),
     route("ephemeris", "routes/api/ephemeris.ts"),
     route("triangles", "routes/api/triangles.ts"),
+    route("resolve", "routes/api/resolve.ts"),
+    route("calibrators", "routes/api/calibrators.ts"),
+    route("stars", "routes/api/stars.ts"),
   ]),
 
   route("*", "routes/not-found.tsx"),

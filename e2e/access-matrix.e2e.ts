@@ -131,6 +131,19 @@ const MATRIX: Row[] = [
   get("/proposals/:proposalId/feasibility", "/proposals/1/feasibility", { ...proposerOnly, proposer: 404 }),
   get("/proposals/:proposalId/science-case", "/proposals/4/science-case", { ...proposerOnly, proposer: 404 }),
   get("/proposals/:proposalId/versions/:version", "/proposals/4/versions/1", { ...proposerOnly, proposer: 404 }),
+  // Calibrator shortlists: any signed-in person for a typed target; a proposal's target for its team only.
+  get("/catalogue/calibrators", "/catalogue/calibrators?target=Betelgeuse&date=2027-01-10", signedIn("ok")),
+  get(
+    "/catalogue/proposals/:proposalId/targets/:targetId/calibrators",
+    "/catalogue/proposals/1/targets/1/calibrators",
+    { ...proposerOnly, proposer: 404 },
+  ),
+  post(
+    "/catalogue/proposals/:proposalId/targets/:targetId/calibrators",
+    "/catalogue/proposals/1/targets/1/calibrators",
+    {},
+    { ...proposerOnly, proposer: 404 },
+  ),
   get("/cycles/new", "/cycles/new", chairOnly),
   get("/cycles/:cycleId/edit", "/cycles/1/edit", chairOnly),
   // Every signed-in person reads their own mail there (administrators everyone's); demo mode or not.
@@ -144,6 +157,20 @@ const MATRIX: Row[] = [
     { ...all("ok"), anonymous: "unauthorized" },
   ),
   post("/api/triangles", "/api/triangles", {}, { ...all(400), anonymous: "unauthorized" }),
+  post("/api/resolve", "/api/resolve", { name: "HD 39801" }, { ...all("ok"), anonymous: "unauthorized" }),
+  post(
+    "/api/calibrators",
+    "/api/calibrators",
+    {
+      target: { name: "Betelgeuse" },
+      wavelengthM: 1.65e-6,
+      longestBaselineM: 160,
+      site: coverageBody.site,
+      date: "2027-01-10",
+    },
+    { ...all("ok"), anonymous: "unauthorized" },
+  ),
+  get("/api/stars", "/api/stars?q=betel", { ...all("ok"), anonymous: "unauthorized" }),
   get("/*", "/no/such/page", all(404)),
 ];
 

@@ -13,11 +13,19 @@ const browser = useBrowser();
 
 // The sections each demo role must see in the menu (app/lib/permissions.ts), demo mode on.
 const expectedMenus: Record<string, string[]> = {
-  "Inés Arroyo-Vidal": ["Sketchpad", "Triangle finder", "Array registry", "My targets", "Proposals", "Mailbox"],
-  "Kenji Morrow": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox"],
-  "Henrik Solberg": ["Sketchpad", "Triangle finder", "Array registry", "Cycles", "Mailbox"],
-  "Mei-Lin Chao": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox"],
-  "Rafael Quispe": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox", "People"],
+  "Inés Arroyo-Vidal": [
+    "Sketchpad",
+    "Triangle finder",
+    "Calibrators",
+    "Array registry",
+    "My targets",
+    "Proposals",
+    "Mailbox",
+  ],
+  "Kenji Morrow": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Mailbox"],
+  "Henrik Solberg": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Cycles", "Mailbox"],
+  "Mei-Lin Chao": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Mailbox"],
+  "Rafael Quispe": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Mailbox", "People"],
 };
 
 describe("sign-in through the local sign-on service", () => {

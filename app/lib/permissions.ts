@@ -95,6 +95,12 @@ export const SECTIONS: readonly Section[] = [
     summary: "Station triangles ranked by the closure-phase signal of your model, uv spread and hours.",
   },
   {
+    label: "Calibrators",
+    to: href("/catalogue/calibrators"),
+    permission: "sketch:use",
+    summary: "Catalogue stars near a target that would calibrate it, ranked, with estimated diameters and why.",
+  },
+  {
     label: "Array registry",
     to: href("/registry"),
     permission: "registry:read",

@@ -6,6 +6,7 @@ import type { TestProject } from "vitest/node";
 import { createDatabase } from "../../app/db/client.server";
 import { migrateDatabase } from "../../app/db/migrate.server";
 import { seedDemoScenario } from "../../app/db/seed/factories.server";
+import { loadCatalogueTable } from "../../app/services/catalogue/table.server";
 import { adminQuery, clusterUrl, dropDatabase, ensureCluster, uniqueName, withDatabase } from "../../test/setup/pg";
 
 declare module "vitest" {
@@ -61,6 +62,7 @@ export default async function setup(project: TestProject) {
   const url = withDatabase(clusterUrl(), name);
   await migrateDatabase(url);
   const { db, client } = createDatabase(url, { max: 2 });
+  await loadCatalogueTable(db);
   await seedDemoScenario(db);
   await client.end();
 

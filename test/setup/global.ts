@@ -1,5 +1,7 @@
 import type { TestProject } from "vitest/node";
+import { createDatabase } from "../../app/db/client.server";
 import { migrateDatabase } from "../../app/db/migrate.server";
+import { loadCatalogueTable } from "../../app/services/catalogue/table.server";
 import { adminQuery, clusterUrl, dropDatabase, ensureCluster, uniqueName, withDatabase } from "./pg";
 
 declare module "vitest" {
@@ -17,6 +19,9 @@ export default async function setup(project: TestProject) {
   const template = uniqueName("fd_template");
   await adminQuery((sql) => sql.unsafe(`create database "${template}"`));
   await migrateDatabase(withDatabase(clusterUrl(), template));
+  // The star catalogue's reference rows, as `npm run db:migrate` loads them.
+  const { db, client } = createDatabase(withDatabase(clusterUrl(), template), { max: 1 });
+  await loadCatalogueTable(db).finally(() => client.end());
   project.provide("templateDatabase", template);
 
   return async () => {

@@ -1,5 +1,6 @@
 import { useState } from "react";
 import { Form } from "react-router";
+import { StarNameField } from "~/components/catalogue/StarNameField";
 import { FormErrors, SelectField } from "~/components/ui";
 import { FieldList, type FieldSpec, SubmitButton } from "~/components/ui/FieldList";
 import type { TargetModel } from "~/engine";
@@ -18,7 +19,6 @@ const MODELS: { value: ModelType; label: string }[] = [
 ];
 
 const POSITION: FieldSpec[] = [
-  { name: "name", label: "Name", maxLength: 80, required: true },
   { name: "ra", label: "Right ascension", required: true, hint: "J2000; hours 05:36:12.8 or degrees 84.05" },
   { name: "dec", label: "Declination", required: true, hint: "J2000; −01:12:07 or −1.202" },
 ];
@@ -73,6 +73,16 @@ export function TargetFields({
   return (
     <>
       <div className="grid gap-4 md:grid-cols-3">
+        <StarNameField
+          label="Name"
+          name="name"
+          defaultValue={values.name}
+          error={errors.name}
+          maxLength={80}
+          required
+          fill={{ ra: "ra", dec: "dec" }}
+          hint="A star's name or designation fills its coordinates (HD 39801, α Ori, 58 Ori); any name may be kept."
+        />
         <FieldList fields={POSITION} values={values} errors={errors} />
       </div>
       <div className="grid gap-4 md:grid-cols-3">

@@ -32,7 +32,15 @@ export type TargetModelJson = { type: string; [key: string]: unknown };
 export type MagnitudesJson = Record<string, number>;
 /** A time-critical window, ISO-8601 UTC instants. */
 export type TimeWindowJson = { startUtc: string; endUtc: string; note?: string };
-export type CalibratorJson = { name: string; raDeg: number; decDeg: number; diameterMas?: number; magnitude?: number };
+export type CalibratorJson = {
+  name: string;
+  raDeg: number;
+  decDeg: number;
+  diameterMas?: number;
+  magnitude?: number;
+  /** Hipparcos number of the catalogue star the calibrator was taken from (catalogue_stars.hip). */
+  hip?: number;
+};
 
 /** An observing cycle: its period, the submission deadline, and the configurations on offer. */
 export const cycles = pgTable(

@@ -4,6 +4,7 @@ import { dbContext } from "~/context";
 import { redirectWithFlash } from "~/lib/flash.server";
 import { requirePermission } from "~/lib/guards.server";
 import { MAX_TARGET_CSV_BYTES, parseTargetCsv } from "~/services/targets/csv";
+import { starPosition } from "~/services/targets/star-names.server";
 import { importTargets, targetNames } from "~/services/targets/targets.server";
 import { ListCard, PreviewCard } from "./+shared/ImportCards";
 import { previewOf } from "./+shared/preview";
@@ -23,7 +24,11 @@ export async function action({ request, context }: Route.ActionArgs) {
   if (!upload.ok) return data({ preview: null, fileError: upload.message }, { status: 400 });
   const db = context.get(dbContext);
   const existing = await targetNames(db, { ownerId: viewer.user.id });
-  const result = parseTargetCsv(upload.csv, { existingNames: existing, replaceExisting: upload.replace });
+  const result = parseTargetCsv(upload.csv, {
+    existingNames: existing,
+    replaceExisting: upload.replace,
+    resolveName: starPosition,
+  });
   if (upload.intent !== "import" || result.errors.length > 0) {
     const preview = previewOf(upload, result, existing);
     return data({ preview, fileError: null }, { status: result.errors.length ? 400 : 200 });

@@ -12,7 +12,8 @@ import type { TargetFields } from "./targets.server";
 const L = PROPOSAL_LIMITS;
 
 export type WindowRow = { start: string; end: string; note: string };
-export type CalibratorRow = { name: string; ra: string; dec: string; diameter: string; magnitude: string };
+/** `hip`: the catalogue star a calibrator was added from (a hidden field), "" for one typed in. */
+export type CalibratorRow = { name: string; ra: string; dec: string; diameter: string; magnitude: string; hip: string };
 export type TargetValues = Record<string, string> & { minElevationDeg?: string };
 
 /** What the form shows: the values of the fields and the rows of windows and calibrators. */
@@ -39,6 +40,7 @@ export function targetFormOf(t: typeof proposalTargets.$inferSelect): TargetForm
       dec: formatDeclination(c.decDeg, 1),
       diameter: c.diameterMas === undefined ? "" : String(c.diameterMas),
       magnitude: c.magnitude === undefined ? "" : String(c.magnitude),
+      hip: c.hip === undefined ? "" : String(c.hip),
     })),
   };
 }
@@ -123,6 +125,7 @@ function readCalibrators(rows: CalibratorRow[], errors: Record<string, string>):
       const cal: CalibratorJson = { name: c.name.trim(), raDeg: ra.deg, decDeg: dec.deg };
       if (diameter !== undefined) cal.diameterMas = diameter;
       if (magnitude !== undefined) cal.magnitude = magnitude;
+      if (/^\d{1,7}$/.test(c.hip.trim())) cal.hip = Number(c.hip.trim());
       out.push(cal);
     }
   });
@@ -151,6 +154,7 @@ export function readProposalTargetForm(
     dec: "calDec",
     diameter: "calDiameter",
     magnitude: "calMagnitude",
+    hip: "calHip",
   });
   const timeWindows = readWindows(windows, errors);
   const calibratorList = readCalibrators(calibrators, errors);

@@ -5,7 +5,7 @@
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Database, Transaction } from "~/db/client.server";
 import { sites } from "~/db/schema/array";
-import { proposalTargets, targets } from "~/db/schema/proposals";
+import { type CalibratorJson, proposalTargets, targets } from "~/db/schema/proposals";
 import { bandNames } from "~/services/targets/targets.server";
 import { proposalNotFound } from "./access.server";
 import { editDraft, type ProposalRef, ProposalRefusal } from "./lock.server";
@@ -152,5 +152,36 @@ export async function moveTarget(
     for (let i = 0; i < list.length; i++) {
       await tx.update(proposalTargets).set({ position: i }).where(eq(proposalTargets.id, list[i].id));
     }
+  });
+}
+
+/**
+ * Appends a calibrator to one of the proposal's targets (the Calibrator shortlist's "Add as calibrator"):
+ * refused when the target has its most calibrators, or already has this one (same catalogue star or
+ * same name). Returns the target's name and its number of calibrators.
+ */
+export async function addCalibrator(
+  db: Database,
+  { targetId, calibrator, ...ref }: TargetRef & { calibrator: CalibratorJson },
+) {
+  return editDraft(db, ref, async ({ tx, proposalId }) => {
+    const [row] = await tx
+      .select({ name: proposalTargets.name, calibrators: proposalTargets.calibrators })
+      .from(proposalTargets)
+      .where(and(eq(proposalTargets.id, targetId), eq(proposalTargets.proposalId, proposalId)));
+    if (!row) throw new ProposalRefusal(400, "That target is not in the proposal (any more).");
+    const max = PROPOSAL_LIMITS.calibratorsMax;
+    if (row.calibrators.length >= max) {
+      throw new ProposalRefusal(400, `Calibrators: ${row.name} already has ${max}, the most a target may have.`);
+    }
+    const name = calibrator.name.toLowerCase();
+    if (
+      row.calibrators.some((c) => (c.hip !== undefined && c.hip === calibrator.hip) || c.name.toLowerCase() === name)
+    ) {
+      throw new ProposalRefusal(400, `${calibrator.name} is already a calibrator of ${row.name}.`);
+    }
+    const calibrators = [...row.calibrators, calibrator];
+    await tx.update(proposalTargets).set({ calibrators }).where(eq(proposalTargets.id, targetId));
+    return { target: row.name, calibrators: calibrators.length };
   });
 }

@@ -121,20 +121,47 @@ function modelOf(cells: Record<string, string | undefined>, row: number, errors:
 }
 
 /**
+ * A star's J2000 position from its name (the star catalogue), for a target given by name alone: the
+ * position and the designation it was found under, or why the name names no star.
+ */
+export type StarPositionResolver = (
+  name: string,
+) => { ok: true; raDeg: number; decDeg: number; star: string } | { ok: false; message: string };
+
+/** Where a target's coordinates came from when it was given by name alone. */
+export type ResolvedFrom = { star: string };
+
+/**
  * Reads one target from named cells (a CSV row or a form): name, ra, dec, the model columns, the
- * `mag_<band>` columns listed in `magColumns`, notes. Errors carry `row` (0 for a form).
+ * `mag_<band>` columns listed in `magColumns`, notes. Errors carry `row` (0 for a form). With
+ * `resolveName`, a target whose ra and dec are both empty takes the position of the catalogue star
+ * its name names (`resolved` says which); a name that names none is an error on `name`.
  */
 export function readTargetCells(
   cells: Record<string, string | undefined>,
   magColumns: string[],
   row = 0,
-): { target: TargetValues | null; errors: RowError[] } {
+  resolveName?: StarPositionResolver,
+): { target: TargetValues | null; errors: RowError[]; resolved?: ResolvedFrom } {
   const errors: RowError[] = [];
   const name = checked(TargetName, cells.name ?? "", { row, column: "name" }, errors);
-  const ra = parseRightAscension(cells.ra ?? "");
-  if (!ra.ok) errors.push({ row, column: "ra", message: ra.message });
-  const dec = parseDeclination(cells.dec ?? "");
-  if (!dec.ok) errors.push({ row, column: "dec", message: dec.message });
+  let ra = parseRightAscension(cells.ra ?? "");
+  let dec = parseDeclination(cells.dec ?? "");
+  let resolved: ResolvedFrom | undefined;
+  const noPosition = (cells.ra ?? "").trim() === "" && (cells.dec ?? "").trim() === "";
+  if (noPosition && resolveName && name !== undefined) {
+    const star = resolveName(name);
+    if (star.ok) {
+      ra = { ok: true, deg: star.raDeg };
+      dec = { ok: true, deg: star.decDeg };
+      resolved = { star: star.star };
+    } else {
+      errors.push({ row, column: "name", message: `no coordinates given, and ${star.message} to take them from` });
+    }
+  } else {
+    if (!ra.ok) errors.push({ row, column: "ra", message: ra.message });
+    if (!dec.ok) errors.push({ row, column: "dec", message: dec.message });
+  }
   const model = modelOf(cells, row, errors);
   const magnitudes: Record<string, number> = {};
   for (const column of magColumns) {
@@ -147,7 +174,7 @@ export function readTargetCells(
   if (errors.length || name === undefined || notes === undefined || !ra.ok || !dec.ok || !model) {
     return { target: null, errors };
   }
-  return { target: { name, raDeg: ra.deg, decDeg: dec.deg, model, magnitudes, notes }, errors };
+  return { target: { name, raDeg: ra.deg, decDeg: dec.deg, model, magnitudes, notes }, errors, resolved };
 }
 
 /** A stored model's parameters as the cells `readTargetCells` reads back; "" where the model has none. */

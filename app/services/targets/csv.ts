@@ -2,6 +2,8 @@
  * Reading a target list from CSV (pure: no I/O). One target per row; the header names the columns:
  *
  *   name, ra, dec                 required. RA in hours (05:36:12.8) or degrees (84.05); Dec in degrees.
+ *                                 With the star catalogue (`resolveName`), a row with a name but empty
+ *                                 ra and dec takes the named star's position, and ra, dec may be left out.
  *   model                         point (default), uniformDisk, gaussian, limbDarkenedDisk, ring, binary
  *   size_mas                      diameter (disks, ring) or FWHM (gaussian), milliarcseconds
  *   ld_coefficient                linear limb-darkening coefficient 0..1 (limbDarkenedDisk)
@@ -14,7 +16,7 @@
  */
 import Papa from "papaparse";
 import { toCsv } from "~/lib/csv";
-import { modelCells, readTargetCells } from "./cells";
+import { modelCells, readTargetCells, type StarPositionResolver } from "./cells";
 import { MAG_COLUMN, magColumn, type RowError, type StoredTarget, TARGET_COLUMNS, type TargetValues } from "./schemas";
 
 export type ImportedTarget = TargetValues & { row: number };
@@ -31,7 +33,7 @@ export const MAX_TARGET_ROWS = 500;
  */
 export function parseTargetCsv(
   text: string,
-  options: { existingNames?: Set<string>; replaceExisting?: boolean } = {},
+  options: { existingNames?: Set<string>; replaceExisting?: boolean; resolveName?: StarPositionResolver } = {},
 ): TargetCsvResult {
   const errors: RowError[] = [];
   const warnings: string[] = [];
@@ -50,7 +52,9 @@ export function parseTargetCsv(
     transformHeader: (h) => h.trim().toLowerCase(),
   });
   const header = parsed.meta.fields ?? [];
-  const missing = ["name", "ra", "dec"].filter((c) => !header.includes(c));
+  // With the star catalogue, a list may give names alone (no ra and dec columns at all).
+  const byNameOnly = options.resolveName && !header.includes("ra") && !header.includes("dec");
+  const missing = (byNameOnly ? ["name"] : ["name", "ra", "dec"]).filter((c) => !header.includes(c));
   if (missing.length) {
     return {
       targets: [],
@@ -83,8 +87,9 @@ export function parseTargetCsv(
   const magColumns = header.filter((h) => MAG_COLUMN.test(h));
   parsed.data.forEach((cells, i) => {
     const row = i + 2;
-    const read = readTargetCells(cells, magColumns, row);
+    const read = readTargetCells(cells, magColumns, row, options.resolveName);
     errors.push(...read.errors);
+    if (read.resolved) warnings.push(`row ${row}: coordinates of ${read.resolved.star} from the star catalogue`);
     const name = (cells.name ?? "").trim();
     const key = name.toLowerCase();
     let clash = false;

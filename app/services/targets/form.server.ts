@@ -2,6 +2,7 @@
 import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
 import { modelCells, readTargetCells } from "./cells";
 import { columnLabel, magColumn, type StoredTarget, TARGET_COLUMNS, type TargetValues } from "./schemas";
+import { starPosition } from "./star-names.server";
 
 /** The submitted target fields (and one magnitude field per band) as text, to check and to show again. */
 export function targetFormValues(form: FormData, bands: string[]): Record<string, string> {
@@ -18,7 +19,8 @@ export function readTargetForm(
   values: Record<string, string>,
   bands: string[],
 ): { target: TargetValues | null; errors: Record<string, string> } {
-  const read = readTargetCells(values, bands.map(magColumn));
+  // A name with no coordinates: the position of the catalogue star it names.
+  const read = readTargetCells(values, bands.map(magColumn), 0, starPosition);
   const errors: Record<string, string> = {};
   for (const e of read.errors) {
     const label = columnLabel(e.column);

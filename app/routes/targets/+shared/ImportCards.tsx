@@ -58,7 +58,9 @@ export function ListCard({
           Optional: <code>model</code> (point, uniformDisk, gaussian, limbDarkenedDisk, ring, binary),{" "}
           <code>size_mas</code> (diameter or FWHM), <code>ld_coefficient</code>, <code>separation_mas</code>,{" "}
           <code>position_angle_deg</code> (east of north), <code>flux_ratio</code> (secondary/primary),{" "}
-          <code>mag_H</code>, <code>mag_K</code>, … one per band, <code>notes</code>.
+          <code>mag_H</code>, <code>mag_K</code>, … one per band, <code>notes</code>. A row whose name is a catalogue
+          star (HD 39801, α Ori, Betelgeuse) may leave <code>ra</code> and <code>dec</code> empty, or the list may leave
+          those columns out: the star's J2000 position is taken from the catalogue.
         </p>
       </details>
     </Card>

@@ -16,7 +16,7 @@ export function TargetsPage({
   return (
     <>
       <PageHeader title={title} lead={lead} actions={actions} />
-      <div className="grid gap-6">{children}</div>
+      <div className="grid grid-cols-1 gap-6">{children}</div>
     </>
   );
 }

@@ -1,5 +1,5 @@
 /** The calibrators of a target: name, coordinates and, when known, diameter and magnitude. */
-import { Card, TextField } from "~/components/ui";
+import { ButtonLink, Card, TextField } from "~/components/ui";
 import type { CalibratorRow } from "~/services/proposals/target-form.server";
 import { RepeatedRows } from "./RepeatedRows";
 
@@ -7,15 +7,22 @@ export type CalibratorsCardProps = {
   calibrators: CalibratorRow[];
   calibratorsMax: number;
   errors: Record<string, string>;
+  /** The target's Calibrator shortlist (a saved target only). */
+  shortlistTo?: string;
 };
 
-export function CalibratorsCard({ calibrators, calibratorsMax, errors }: CalibratorsCardProps) {
+export function CalibratorsCard({ calibrators, calibratorsMax, errors, shortlistTo }: CalibratorsCardProps) {
+  const shortlist = shortlistTo ? (
+    <ButtonLink to={shortlistTo} variant="secondary" size="sm">
+      Find calibrators
+    </ButtonLink>
+  ) : null;
   return (
-    <Card title="Calibrators">
+    <Card title="Calibrators" actions={shortlist}>
       <div className="grid gap-3">
         <RepeatedRows
           initial={calibrators}
-          empty={{ name: "", ra: "", dec: "", diameter: "", magnitude: "" }}
+          empty={{ name: "", ra: "", dec: "", diameter: "", magnitude: "", hip: "" }}
           max={calibratorsMax}
           what="calibrator"
           addLabel="Add a calibrator"
@@ -29,6 +36,7 @@ export function CalibratorsCard({ calibrators, calibratorsMax, errors }: Calibra
           errorOf={(i) => errors[`calibrator-${i}`]}
           fields={(row, i) => (
             <>
+              <input type="hidden" name="calHip" value={row.hip} />
               <TextField label={`Calibrator ${i + 1} name`} name="calName" defaultValue={row.name} maxLength={80} />
               <TextField label="RA" name="calRa" defaultValue={row.ra} placeholder="hh:mm:ss" />
               <TextField label="Dec" name="calDec" defaultValue={row.dec} placeholder="±dd:mm:ss" />

@@ -64,6 +64,14 @@ export function TargetEditor({
             calibrators={answer?.calibrators ?? page.calibrators}
             calibratorsMax={page.limits.calibratorsMax}
             errors={errors}
+            shortlistTo={
+              page.targetId === null
+                ? undefined
+                : href("/catalogue/proposals/:proposalId/targets/:targetId/calibrators", {
+                    proposalId: String(page.proposalId),
+                    targetId: String(page.targetId),
+                  })
+            }
           />
           <Card title="Notes">
             <TextArea
