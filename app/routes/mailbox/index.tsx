@@ -13,7 +13,8 @@ import {
 } from "~/components/ui";
 import { dbContext } from "~/context";
 import { requireMailboxReader } from "~/lib/guards.server";
-import { MAILBOX_QUERY_MAX, mailboxOverview, parseMailboxQuery } from "~/services/mailbox/queries.server";
+import { MAILBOX_QUERY_MAX } from "~/services/mailbox/limits";
+import { mailboxOverview, parseMailboxQuery } from "~/services/mailbox/queries.server";
 import { Pager } from "./+shared/Pager";
 import { attemptsText, Recipient, StatusBadge } from "./+shared/parts";
 import type { Route } from "./+types/index";

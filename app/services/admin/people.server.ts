@@ -15,8 +15,9 @@ import { revokeAllSessions } from "~/services/auth/sessions.server";
 import { enqueueMail } from "~/services/mail/outbox.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 
-/** Longest search text on the People page, characters (stated beside the search box). */
-export const PEOPLE_QUERY_MAX = 100;
+import { PEOPLE_QUERY_MAX } from "./schemas";
+
+export { PEOPLE_QUERY_MAX };
 
 /** `%`, `_` and `\` match themselves in a search, not as LIKE wildcards. */
 function likePattern(term: string): string {

@@ -27,3 +27,6 @@ export const PeopleActionSchema = v.variant(
 );
 
 export type PeopleAction = v.InferOutput<typeof PeopleActionSchema>;
+
+/** Longest search text on the People page, characters (stated beside the search box). */
+export const PEOPLE_QUERY_MAX = 100;

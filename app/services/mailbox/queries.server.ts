@@ -33,8 +33,9 @@ function readable(reader: MailboxReader): SQL | undefined {
   return reader.readsAll ? undefined : sql`lower(${outboxMessages.toAddress}) = lower(${reader.email})`;
 }
 
-/** Longest search text, characters (stated beside the search box). */
-export const MAILBOX_QUERY_MAX = 200;
+import { MAILBOX_QUERY_MAX } from "./limits";
+
+export { MAILBOX_QUERY_MAX };
 
 /**
  * The list's query string: `q` searches address and subject (trimmed, blank means no search; a text

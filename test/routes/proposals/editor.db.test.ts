@@ -70,8 +70,9 @@ describe("editing a draft", () => {
 
   it("answers odd bodies with 4xx, never 500: JSON, a title over two lines, a broken multipart body", async () => {
     const id = await fx.newDraft("ines", "Odd bodies");
+    // A content type the form cannot read is 415 (docs/security.md, "Requests").
     const json = await fx.rawPost(id, "ines", { body: "{}", headers: { "Content-Type": "application/json" } });
-    expect(json.status).toBe(400);
+    expect(json.status).toBe(415);
     const twoLines = await fx.saveText(id, "ines", { title: "One\nTwo" });
     expect(twoLines.status).toBe(400);
     expect(twoLines.data.errors.title).toBe("Title: must be a single line.");
