@@ -35,23 +35,25 @@ async function station(name: string) {
   return row ?? null;
 }
 
-/** The traces Plotly drew in the first plot of the page, once it has drawn them. */
-async function plotTraces(page: Page, until: string) {
-  await page.waitForFunction(
-    (expr) => {
-      const el = document.querySelector(".js-plotly-plot") as (HTMLElement & { data?: unknown[] }) | null;
-      if (!el?.data) return false;
-      return new Function("data", `return ${expr}`)(el.data);
-    },
-    until,
-    { timeout: 20_000 },
-  );
-  return page.evaluate(() => {
-    const el = document.querySelector(".js-plotly-plot") as HTMLElement & {
-      data: { name: string; text?: string[]; x: (number | null)[]; y: (number | null)[] }[];
-    };
-    return el.data.map((t) => ({ name: t.name, text: t.text ?? [], x: t.x, y: t.y }));
-  });
+type Trace = { name: string; text: string[]; x: (number | null)[]; y: (number | null)[] };
+
+/**
+ * The traces Plotly drew in the first plot of the page, once `until` holds for them. The check runs
+ * here rather than in the page: the page's security policy forbids evaluating strings as code.
+ */
+async function plotTraces(page: Page, until: (data: Trace[]) => boolean) {
+  const deadline = Date.now() + 20_000;
+  for (;;) {
+    const data = await page.evaluate(() => {
+      const el = document.querySelector(".js-plotly-plot") as
+        | (HTMLElement & { data?: { name: string; text?: string[]; x: (number | null)[]; y: (number | null)[] }[] })
+        | null;
+      return el?.data?.map((t) => ({ name: t.name, text: t.text ?? [], x: t.x, y: t.y })) ?? null;
+    });
+    if (data && until(data)) return data;
+    if (Date.now() > deadline) throw new Error("the plot never drew what the test waits for");
+    await page.waitForTimeout(100);
+  }
 }
 
 /**
@@ -74,7 +76,7 @@ describe("array registry", () => {
   it("lets an administrator add a station, see it in the table and on the map, and draw a configuration", async () => {
     const { page, done } = await signedIn("Rafael Quispe");
     await page.goto(`${baseUrl}/registry`);
-    await plotTraces(page, "data[0].text.length === 24");
+    await plotTraces(page, (data) => data[0]?.text.length === 24);
     await screenshot(page, "registry-admin");
 
     await page.getByRole("link", { name: "Add station" }).click();
@@ -93,7 +95,7 @@ describe("array registry", () => {
 
     await form.getByLabel(/^East/).fill("-60");
     // The site plan shows the typed position among the other stations.
-    const preview = await plotTraces(page, "data.some((t) => t.name === 'W25 (as typed)' && t.x[0] === -60)");
+    const preview = await plotTraces(page, (data) => data.some((t) => t.name === "W25 (as typed)" && t.x[0] === -60));
     expect(preview.find((t) => t.name === "W25 (as typed)")).toMatchObject({ x: [-60], y: [75] });
     await screenshot(page, "registry-station-new");
     await form.getByRole("button", { name: "Add station" }).click();
@@ -103,7 +105,7 @@ describe("array registry", () => {
     const table = page.getByRole("table", { name: /Stations of the site/ });
     await expect(table.locator("tbody tr").count()).resolves.toBe(25);
     await table.getByRole("link", { name: "W25", exact: true }).waitFor();
-    const traces = await plotTraces(page, "data[0].text.includes('W25')");
+    const traces = await plotTraces(page, (data) => data[0]?.text.includes("W25") ?? false);
     const all = traces[0];
     const at = all.text.indexOf("W25");
     expect([all.x[at], all.y[at]]).toEqual([-60, 75]);
@@ -113,7 +115,7 @@ describe("array registry", () => {
       .getByRole("group", { name: "Configuration drawn on the map" })
       .getByRole("button", { name: "extended-6" })
       .click();
-    const drawn = await plotTraces(page, "data.length === 4");
+    const drawn = await plotTraces(page, (data) => data.length === 4);
     expect(drawn.map((t) => t.name)).toEqual([
       "Other stations",
       "Station names",
@@ -200,7 +202,7 @@ describe("array registry", () => {
   it("shows a proposer the registry, the map and the station pages without any edit control", async () => {
     const { page, done } = await signedIn("Inés Arroyo-Vidal");
     await page.goto(`${baseUrl}/registry`);
-    await plotTraces(page, "data[0].text.length === 26");
+    await plotTraces(page, (data) => data[0]?.text.length === 26);
     for (const name of ["Import", "Add a site", "Edit site", "Add station", "Add configuration", "Add instrument"]) {
       await expect(page.getByRole("link", { name }).count()).resolves.toBe(0);
     }
@@ -214,7 +216,10 @@ describe("array registry", () => {
       .click();
     await page.getByRole("heading", { level: 1, name: "Station C04" }).waitFor();
     // Framed on the station and its configuration, drawn to begin with; close neighbours are named.
-    const traces = await plotTraces(page, "data.some((t) => t.name === 'Station C04') && data[1].text.includes('C09')");
+    const traces = await plotTraces(
+      page,
+      (data) => data.some((t) => t.name === "Station C04") && (data[1]?.text.includes("C09") ?? false),
+    );
     expect(traces.map((t) => t.name)).toContain("compact-3: 3 baselines");
     await expect(page.getByRole("link", { name: "Edit station" }).count()).resolves.toBe(0);
     await screenshot(page, "registry-station-page");
