@@ -6,6 +6,8 @@
  * Radians inside; degrees, milliarcseconds and hours only in the request and response objects.
  */
 
+export type { ParamRange, RangedParam } from "./api/model-ranges";
+export { MODEL_RANGES, rangeFailure, rangeText } from "./api/model-ranges";
 // Wire schemas: JSON validated into the inputs, one-line errors naming the field
 export type { CoverageRequest, EphemerisRequest, ParseResult, TrianglesRequest } from "./api/requests";
 export {

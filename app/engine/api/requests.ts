@@ -21,6 +21,7 @@ import type {
   TrianglesInput,
 } from "../inputs";
 import { isPowerOfTwo } from "../math";
+import { withModelRanges } from "./model-ranges";
 
 // ---------------------------------------------------------------- limits
 
@@ -125,7 +126,7 @@ export const MODEL_TYPES = ["point", "uniformDisk", "gaussian", "limbDarkenedDis
 
 const modelTypeMessage = `must be one of ${MODEL_TYPES.join(", ")}`;
 
-export const TargetModelSchema: v.GenericSchema<unknown, TargetModel> = v.lazy(() =>
+const TargetModelShape: v.GenericSchema<unknown, TargetModel> = v.lazy(() =>
   v.variant(
     "type",
     [
@@ -167,6 +168,7 @@ export const TargetModelSchema: v.GenericSchema<unknown, TargetModel> = v.lazy((
     modelTypeMessage,
   ),
 );
+export const TargetModelSchema = withModelRanges(TargetModelShape);
 
 export const TargetSchema = v.object(
   {
