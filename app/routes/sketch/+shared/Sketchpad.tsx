@@ -73,8 +73,7 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
   const lastBeam = useRef<CoverageResponse["beam"] | undefined>(undefined);
   if (withBeam.data) lastBeam.current = withBeam.data.result.beam;
   const upToDate = shown !== null && built.ok && coverage.current && !coverage.error;
-  const complete =
-    upToDate && withBeam.current && !withBeam.error && (ephemerisBody === null || ephemeris.current);
+  const complete = upToDate && withBeam.current && !withBeam.error && (ephemerisBody === null || ephemeris.current);
   const drawnMs = useDrawnMs(complete, changedAt);
 
   const { errors, formError } = inputErrors(
@@ -84,6 +83,7 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
   );
 
   const waiting = !built.ok && built.waiting;
+  const refusal = coverage.error ?? withBeam.error;
   const stations = pickedStations(settled, registry);
   const status = sketchStatus({
     typing: pending,
@@ -174,17 +174,10 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
               {plural(stations.length, "station is", "stations are")} chosen; the panels appear as soon as the
               coordinates are complete.
             </EmptyState>
-          ) : !built.ok || coverage.error || withBeam.error ? (
+          ) : !built.ok || refusal ? (
             <EmptyState title="Nothing to draw yet">
               Fix the inputs marked in red on the left
-              {(coverage.error ?? withBeam.error) && !formError
-                ? `: ${apiErrorText(
-                    (coverage.error ?? withBeam.error)!.field,
-                    (coverage.error ?? withBeam.error)!.message,
-                    settled.sampling,
-                  )}`
-                : ""}
-              .
+              {refusal && !formError ? `: ${apiErrorText(refusal.field, refusal.message, settled.sampling)}` : ""}.
             </EmptyState>
           ) : (
             <EmptyState title="Computing the first sketch…">This takes about a second.</EmptyState>
