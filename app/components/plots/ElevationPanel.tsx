@@ -51,7 +51,7 @@ export function ElevationPanel({
       {figure ? (
         <>
           <Plot
-            label="Target elevation and air mass against UT and local sidereal time, with twilight and the observable window"
+            label="Target elevation and air mass against UTC and local sidereal time, with twilight and the observable window"
             height={400}
             data={figure.data}
             layout={figure.layout}

@@ -38,7 +38,7 @@ export function Panel({
   );
 }
 
-/** Plotly reads "YYYY-MM-DD HH:MM:SS" as a wall-clock time; the Sketchpad's times are UT. */
+/** Plotly reads "YYYY-MM-DD HH:MM:SS" as a wall-clock time; the Sketchpad's times are UTC. */
 export function plotTime(ms: number): string {
   return new Date(ms).toISOString().slice(0, 19).replace("T", " ");
 }

@@ -237,7 +237,7 @@ export function Plot({
     >
       {toolbar || caption ? (
         <figcaption className="flex h-7 items-center pr-28 text-sm font-semibold text-night-900">
-          {caption}
+          {caption ? <span>{caption}</span> : null}
           {toolbar ? <span className="sr-only">Plot tools: arrow keys once the figure has focus.</span> : null}
         </figcaption>
       ) : null}

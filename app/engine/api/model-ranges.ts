@@ -45,11 +45,10 @@ export type RangedParam = keyof typeof MODEL_RANGES;
 
 const withUnit = (x: number, unit: string) => (unit === "" ? String(x) : unit === "°" ? `${x}°` : `${x} ${unit}`);
 
-/** The range in words: "from -360° to 360°", "above 0 and at most 1000 mas". */
+/** The range in words: "from 0 to 1000 mas", "from -360° to 360°", "above 0 and at most 1000 mas". */
 export function rangeText(r: ParamRange): string {
-  return r.above
-    ? `above ${withUnit(r.min, "")} and at most ${withUnit(r.max, r.unit)}`
-    : `from ${withUnit(r.min, r.unit)} to ${withUnit(r.max, r.unit)}`;
+  const low = r.unit === "°" ? `${r.min}°` : String(r.min);
+  return r.above ? `above ${low} and at most ${withUnit(r.max, r.unit)}` : `from ${low} to ${withUnit(r.max, r.unit)}`;
 }
 
 /** Null when `x` lies in `r`, else what is wrong with it: "must be from 0 to 100 (got 250)". */

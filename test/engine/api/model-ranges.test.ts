@@ -33,7 +33,7 @@ describe("physical ranges of a target model", () => {
       [
         { type: "binary", separationMas: 2000, positionAngleDeg: 0, fluxRatio: 0.5 },
         "separationMas",
-        "from 0 mas to 1000 mas (got 2000 mas)",
+        "from 0 to 1000 mas (got 2000 mas)",
       ],
       [
         { type: "binary", separationMas: 2, positionAngleDeg: 720, fluxRatio: 0.5 },
@@ -65,7 +65,7 @@ describe("physical ranges of a target model", () => {
     expect(withModel(sum({ flux: 5000 }))).toMatchObject({ field: "target.model.components[1].flux" });
     expect(withModel(sum({ offsetNorthMas: -1500 }))).toMatchObject({
       field: "target.model.components[1].offsetNorthMas",
-      message: "target.model.components[1].offsetNorthMas: must be from -1000 mas to 1000 mas (got -1500 mas)",
+      message: "target.model.components[1].offsetNorthMas: must be from -1000 to 1000 mas (got -1500 mas)",
     });
     expect(withModel(sum({ model: { type: "uniformDisk", diameterMas: 1e4 } }))).toMatchObject({
       field: "target.model.components[1].model.diameterMas",

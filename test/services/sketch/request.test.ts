@@ -120,12 +120,12 @@ describe("coverage request of a sketch", () => {
     const second = buildCoverageRequest(sketch("ra=84&dec=-1&c2=point&c2flux=2000&c2east=5000"), registry);
     expect(!second.ok && second.errors).toMatchObject({
       "second.flux": "Relative flux: must be above 0 and at most 1000 (got 2000)",
-      "second.east": "Offset east: must be from -1000 mas to 1000 mas (got 5000 mas)",
+      "second.east": "Offset east: must be from -1000 to 1000 mas (got 5000 mas)",
     });
     const minEl = buildCoverageRequest(sketch("ra=84&dec=-1&minel=95"), registry);
     expect(!minEl.ok && minEl.errors.minElevation).toBe("Minimum elevation: must be from 0° to 90° (got 95°)");
     const step = buildCoverageRequest(sketch("ra=84&dec=-1&step=0.5"), registry);
-    expect(!step.ok && step.errors.step).toBe("Time step: must be from 1 min to 120 min (got 0.5 min)");
+    expect(!step.ok && step.errors.step).toBe("Time step: must be from 1 to 120 min (got 0.5 min)");
 
     // The edges of each range are accepted.
     expect(buildCoverageRequest(sketch("ra=84&dec=-1&model=uniformDisk&diam=1000&minel=90"), registry).ok).toBe(true);

@@ -33,7 +33,12 @@ export function CopyLinkButton() {
 
 export function Busy({ busy, text, problem = false }: { busy: boolean; text: string; problem?: boolean }) {
   return (
-    <span role="status" aria-live="polite" className="inline-flex items-center gap-2 text-sm text-night-700">
+    <span
+      role="status"
+      aria-live="polite"
+      data-sketch-status="true"
+      className="inline-flex items-center gap-2 text-sm text-night-700"
+    >
       <span
         aria-hidden="true"
         className={cx(
