@@ -4,6 +4,11 @@ import type { StateDefaults } from "~/services/sketch/state";
 
 /** Quiet time after the last keystroke before typed text is computed with, milliseconds. */
 export const TYPING_SETTLE_MS = 180;
+/**
+ * Wait before the settled state is written to the address, milliseconds: writing it is a navigation
+ * that renders the whole page again, which is better done once the answer has been drawn.
+ */
+export const ADDRESS_DELAY_MS = 400;
 
 /** How an input changed the state: a pick (select, checkbox, toggle, button) or typing. */
 export type ChangeKind = "pick" | "typing";
@@ -13,7 +18,7 @@ export type ChangeKind = "pick" | "typing";
  * once; typing settles it after `TYPING_SETTLE_MS` of quiet. `settled` is what the page computes
  * with, and `changedAt` (performance.now() of the last change it includes) is when the person made
  * it, so the page can tell how long the answer took. The settled state is written to the address
- * (replacing the history entry); back/forward or a pasted link replace the state.
+ * (replacing the history entry) a moment later; back/forward or a pasted link replace the state.
  *
  * The search parameters named in `keep` (e.g. the site) are carried over as they are.
  */
@@ -50,18 +55,26 @@ export function useUrlState<S>(
     [],
   );
 
-  // biome-ignore lint/correctness/useExhaustiveDependencies: runs only when the settled state changes; the address it compares with (and its setter) is read at that moment. Re-running on an address change from outside would write the old state back over it.
+  // The address as it is now, for the delayed write below.
+  const current = useRef({ searchParams, setSearchParams });
+  current.current = { searchParams, setSearchParams };
+
+  // biome-ignore lint/correctness/useExhaustiveDependencies: runs only when the settled state changes; the address it compares with (and its setter) is read when the write happens. Re-running on an address change from outside would write the old state back over it.
   useEffect(() => {
-    const next = write(settled.state);
-    for (const k of keep) {
-      const v = searchParams.get(k);
-      if (v !== null) next.set(k, v);
-    }
-    const text = next.toString();
-    if (text !== searchParams.toString()) {
-      written.current = text;
-      setSearchParams(next, { replace: true, preventScrollReset: true });
-    }
+    const timer = setTimeout(() => {
+      const { searchParams: now, setSearchParams: setNow } = current.current;
+      const next = write(settled.state);
+      for (const k of keep) {
+        const v = now.get(k);
+        if (v !== null) next.set(k, v);
+      }
+      const text = next.toString();
+      if (text !== now.toString()) {
+        written.current = text;
+        setNow(next, { replace: true, preventScrollReset: true });
+      }
+    }, ADDRESS_DELAY_MS);
+    return () => clearTimeout(timer);
   }, [settled.state]);
 
   const change = useCallback(
