@@ -4,10 +4,7 @@ import type { StateDefaults } from "~/services/sketch/state";
 
 /** Quiet time after the last keystroke before typed text is computed with, milliseconds. */
 export const TYPING_SETTLE_MS = 180;
-/**
- * Wait before the settled state is written to the address, milliseconds: writing it is a navigation
- * that renders the whole page again, which is better done once the answer has been drawn.
- */
+/** Wait before the settled state is written to the address, milliseconds (once the answer is drawn). */
 export const ADDRESS_DELAY_MS = 400;
 
 /** How an input changed the state: a pick (select, checkbox, toggle, button) or typing. */
@@ -17,8 +14,11 @@ export type ChangeKind = "pick" | "typing";
  * Form state that lives in the URL. Every change updates `state` at once. A pick also settles it at
  * once; typing settles it after `TYPING_SETTLE_MS` of quiet. `settled` is what the page computes
  * with, and `changedAt` (performance.now() of the last change it includes) is when the person made
- * it, so the page can tell how long the answer took. The settled state is written to the address
- * (replacing the history entry) a moment later; back/forward or a pasted link replace the state.
+ * it, so the page can tell how long the answer took. The settled state is written to the address a
+ * moment later, replacing the history entry in place (history.replaceState with the router's own
+ * entry state): a router navigation would render the whole page again and ask the server for the
+ * root's data on every change, for an address that only records the inputs. Back/forward or a pasted
+ * link replace the state (the router sees those).
  *
  * The search parameters named in `keep` (e.g. the site) are carried over as they are.
  */
@@ -28,7 +28,7 @@ export function useUrlState<S>(
   keep: readonly string[] = [],
   delayMs = TYPING_SETTLE_MS,
 ) {
-  const [searchParams, setSearchParams] = useSearchParams();
+  const [searchParams] = useSearchParams();
   // biome-ignore lint/correctness/useExhaustiveDependencies: `read` is a pure function of its argument (a new closure every render); only the address matters here.
   const fromUrl = useMemo(() => read(searchParams), [searchParams]);
   const [state, setState] = useState<S>(fromUrl);
@@ -55,14 +55,10 @@ export function useUrlState<S>(
     [],
   );
 
-  // The address as it is now, for the delayed write below.
-  const current = useRef({ searchParams, setSearchParams });
-  current.current = { searchParams, setSearchParams };
-
-  // biome-ignore lint/correctness/useExhaustiveDependencies: runs only when the settled state changes; the address it compares with (and its setter) is read when the write happens. Re-running on an address change from outside would write the old state back over it.
+  // biome-ignore lint/correctness/useExhaustiveDependencies: runs only when the settled state changes; the address is read when the write happens. Re-running on an address change from outside would write the old state back over it.
   useEffect(() => {
     const timer = setTimeout(() => {
-      const { searchParams: now, setSearchParams: setNow } = current.current;
+      const now = new URLSearchParams(window.location.search);
       const next = write(settled.state);
       for (const k of keep) {
         const v = now.get(k);
@@ -71,7 +67,11 @@ export function useUrlState<S>(
       const text = next.toString();
       if (text !== now.toString()) {
         written.current = text;
-        setNow(next, { replace: true, preventScrollReset: true });
+        window.history.replaceState(
+          window.history.state,
+          "",
+          `${window.location.pathname}?${text}${window.location.hash}`,
+        );
       }
     }, ADDRESS_DELAY_MS);
     return () => clearTimeout(timer);
