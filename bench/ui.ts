@@ -11,7 +11,7 @@
  * is read as well and reported beside it. Writes docs/benchmarks-ui.md.
  */
 import { execFileSync } from "node:child_process";
-import { writeFileSync } from "node:fs";
+import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import { cpus, loadavg } from "node:os";
 import { fileURLToPath } from "node:url";
 import type { Page } from "playwright-core";
@@ -246,9 +246,40 @@ async function main() {
   writeReport(results, load);
 }
 
+const RUNS_MARK = "<!-- every run (bench:ui adds a row at the top) -->";
+const NOTES_MARK = "<!-- notes (kept as they are by bench:ui) -->";
+
+/** The measured commit: short hash, with "+" when the work tree has changes. */
+function commitOf(): string {
+  try {
+    const hash = execFileSync("git", ["rev-parse", "--short", "HEAD"], { cwd: root, encoding: "utf8" }).trim();
+    const dirty = execFileSync("git", ["status", "--porcelain", "--untracked-files=no"], {
+      cwd: root,
+      encoding: "utf8",
+    });
+    return dirty.trim() === "" ? hash : `${hash}+`;
+  } catch {
+    return "?";
+  }
+}
+
 function writeReport(results: { kind: Kind; samples: Sample[] }[], load: number[][]) {
   const fmt = (x: number | null) => (x === null || Number.isNaN(x) ? "—" : x.toFixed(0));
   const one = load.map((l) => l[0]);
+  const when = `${new Date().toISOString().slice(0, 16).replace("T", " ")} UTC`;
+  const loadText = `${Math.min(...one).toFixed(1)}–${Math.max(...one).toFixed(1)}`;
+  const target = fileURLToPath(new URL("../docs/benchmarks-ui.md", import.meta.url));
+  const before = existsSync(target) ? readFileSync(target, "utf8") : "";
+  const runsAt = before.indexOf(RUNS_MARK);
+  const notesAt = before.indexOf(NOTES_MARK);
+  const oldRows =
+    runsAt < 0
+      ? []
+      : before
+          .slice(runsAt + RUNS_MARK.length, notesAt < 0 ? undefined : notesAt)
+          .split("\n")
+          .filter((l) => /^\| \d{4}-/.test(l));
+  const notes = notesAt < 0 ? "" : before.slice(notesAt + NOTES_MARK.length).trim();
   const lines = [
     "# Sketchpad responsiveness (`npm run bench:ui`)",
     "",
@@ -257,12 +288,14 @@ function writeReport(results: { kind: Kind; samples: Sample[] }[], load: number[
     `\`/sketchpad?config=compact-3&${SKETCH}\`.`,
     "Each change is timed inside the page from its input event (typing: the last keystroke) to the",
     'frame painted after the status line says "Up to date" (every panel drawn). "Page says" is the',
-    'status line\'s own figure; "round trip" the last coverage request after the change.',
+    'status line\'s own figure; "round trip" the last coverage request after the change. The machine is',
+    "shared: the load average says how busy it was, and the figures move with it.",
     "",
-    `- Run: ${new Date().toISOString().slice(0, 16).replace("T", " ")} UTC, ${RUNS} changes of each kind after one of warm-up`,
+    "## Latest run",
+    "",
+    `- Run: ${when}, commit ${commitOf()}, ${RUNS} changes of each kind after one of warm-up`,
     `- Machine: ${cpus()[0]?.model ?? "unknown"}, ${cpus().length} cores, shared with other users`,
-    `- Load average (1 min) during the run: ${Math.min(...one).toFixed(1)}–${Math.max(...one).toFixed(1)} ` +
-      `(readings ${one.map((x) => x.toFixed(1)).join(", ")})`,
+    `- Load average (1 min) during the run: ${loadText} (readings ${one.map((x) => x.toFixed(1)).join(", ")})`,
     "",
     "| change | goal | median | p90 | min | max | page says (median) | round trip (median) |",
     "| --- | --- | --- | --- | --- | --- | --- | --- |",
@@ -279,9 +312,23 @@ function writeReport(results: { kind: Kind; samples: Sample[] }[], load: number[
         `${trips.length ? `${fmt(median(trips))} ms` : "—"} |`,
     );
   }
-  lines.push("");
-  const target = fileURLToPath(new URL("../docs/benchmarks-ui.md", import.meta.url));
-  writeFileSync(target, `${lines.join("\n")}\n`);
+  const row = `| ${when} | ${commitOf()} | ${loadText} | ${results.map((r) => `${fmt(median(r.samples.map((s) => s.ms)))} ms`).join(" | ")} |`;
+  lines.push(
+    "",
+    "## Every run (medians)",
+    "",
+    RUNS_MARK,
+    "",
+    "| run | commit | load (1 min) | configuration | weighting | band | delay lines | typing |",
+    "| --- | --- | --- | --- | --- | --- | --- | --- |",
+    row,
+    ...oldRows.slice(0, 19),
+    "",
+    NOTES_MARK,
+    "",
+    notes,
+  );
+  writeFileSync(target, `${lines.join("\n").trimEnd()}\n`);
   console.log(`\n${lines.join("\n")}\nWritten to docs/benchmarks-ui.md`);
 }
 
