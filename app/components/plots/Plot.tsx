@@ -205,7 +205,10 @@ export function Plot({
       width = gd.clientWidth;
       const job = async () => {
         const api = await loadPlotly();
-        if (gd.isConnected && gd.data) await api.Plots.resize(gd);
+        if (!gd.isConnected || !gd.data) return;
+        await api.Plots.resize(gd);
+        untab(gd);
+        callbacks.current.onUpdate?.({ data: gd.data ?? [], layout: gd.layout }, gd);
       };
       scheduleDraw(gd, priority, job);
     });
