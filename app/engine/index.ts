@@ -6,9 +6,10 @@
  * Radians inside; degrees, milliarcseconds and hours only in the request and response objects.
  */
 
+// Wire schemas: JSON validated into the inputs, one-line errors naming the field; the physical
+// ranges of the model parameters, shared by the schema and the pages' hints
 export type { ParamRange, RangedParam } from "./api/model-ranges";
 export { MODEL_RANGES, rangeFailure, rangeText } from "./api/model-ranges";
-// Wire schemas: JSON validated into the inputs, one-line errors naming the field
 export type { CoverageRequest, EphemerisRequest, ParseResult, TrianglesRequest } from "./api/requests";
 export {
   DEFAULT_MIN_ELEVATION_DEG,
