@@ -6,7 +6,8 @@
  * Radians inside; degrees, milliarcseconds and hours only in the request and response objects.
  */
 
-// Wire schemas: JSON validated into the inputs, one-line errors naming the field
+// Wire schemas: JSON validated into the inputs, one-line errors naming the field; the physical
+// ranges of the model parameters, shared by the schema and the pages' hints
 export type { BudgetFailure, CostEstimate } from "./api/budget";
 export {
   coverageBudgetFailure,
@@ -33,6 +34,8 @@ export {
   MAX_UV_POINTS,
   maxNightSamples,
 } from "./api/limits";
+export type { ParamRange, RangedParam } from "./api/model-ranges";
+export { MODEL_RANGES, rangeFailure, rangeText } from "./api/model-ranges";
 export { MAX_MODEL_COMPONENTS, MAX_SUM_DEPTH, modelShape } from "./api/model-shape";
 // Imaging preview: simulated data, OIFITS 2 export, image reconstruction, fidelity and verdict
 export type { ReconstructRequest } from "./api/reconstruct";

@@ -1,6 +1,7 @@
 import { useMemo } from "react";
-import type { CoverageResponse } from "~/engine";
-import { beamEllipse, imageWindow } from "~/services/sketch/figures";
+import type { CoverageResponse, TargetModel } from "~/engine";
+import { beamEllipse, dirtyImageHalfWidthMas, imageWindow } from "~/services/sketch/figures";
+import { plural } from "~/services/sketch/words";
 import { Panel } from "./Panel";
 import { Plot, plotLayout } from "./Plot";
 
@@ -33,7 +34,7 @@ function skyAxes(): Record<string, unknown> {
  * The dirty beam (point-spread function of the coverage) with its fitted half-power ellipse, and the
  * dirty image of the model (the model seen through that beam), both with east to the left.
  */
-export function BeamPanel({ beam }: { beam: Beam | null }) {
+export function BeamPanel({ beam, model }: { beam: Beam | null | undefined; model: TargetModel }) {
   const figures = useMemo(() => {
     if (!beam?.image) return null;
     // Zoom the beam on its main lobe and first sidelobes: ±6 FWHM (whole image when undefined).
@@ -69,7 +70,12 @@ export function BeamPanel({ beam }: { beam: Beam | null }) {
     }
     let dirty: { data: Record<string, unknown>[] } | null = null;
     if (beam.dirtyImage) {
-      const d = imageWindow(beam.dirtyImage, beam.gridSize, beam.pixelMas);
+      const d = imageWindow(
+        beam.dirtyImage,
+        beam.gridSize,
+        beam.pixelMas,
+        dirtyImageHalfWidthMas(model, beam.fwhmMajorMas),
+      );
       let lo = Infinity;
       let hi = -Infinity;
       for (const row of d.z)
@@ -94,7 +100,15 @@ export function BeamPanel({ beam }: { beam: Beam | null }) {
       };
     }
     return { beamData, dirty };
-  }, [beam]);
+  }, [beam, model]);
+  const layout = useMemo(
+    () => plotLayout({ ...skyAxes(), margin: { l: 52, r: 8, t: 8, b: 44 }, uirevision: "beam" }),
+    [],
+  );
+  const dirtyLayout = useMemo(
+    () => plotLayout({ ...skyAxes(), margin: { l: 52, r: 8, t: 8, b: 44 }, uirevision: "dirty" }),
+    [],
+  );
 
   const fmt = (x: number | null, d = 2) => (x === null ? "—" : x.toFixed(d));
   return (
@@ -105,13 +119,16 @@ export function BeamPanel({ beam }: { beam: Beam | null }) {
         beam ? (
           <>
             {beam.gridSize}² grid, {beam.weighting} weighting, {beam.pixelMas.toFixed(3)} mas pixels (field{" "}
-            {beam.fieldOfViewMas.toFixed(1)} mas), {beam.uvPointCount} uv points. The beam is shown within ±6 FWHM of
-            its centre; the outline is the fitted half-power ellipse.
+            {beam.fieldOfViewMas.toFixed(1)} mas), {plural(beam.uvPointCount, "uv point")}. The beam is shown within ±6
+            FWHM of its centre; the outline is the fitted half-power ellipse. The dirty image is shown out to three
+            times the model's extent and at least eight beam widths.
           </>
         ) : null
       }
     >
-      {!beam ? (
+      {beam === undefined ? (
+        <p className="py-16 text-center text-sm text-night-600">Computing the dirty beam…</p>
+      ) : !beam ? (
         <p className="py-16 text-center text-sm text-night-600">
           No beam: no observable uv point with a non-zero length.
         </p>
@@ -139,26 +156,20 @@ export function BeamPanel({ beam }: { beam: Beam | null }) {
             <div className="grid gap-3 md:grid-cols-2">
               <Plot
                 label="Dirty beam in milliarcseconds, east to the left, with the fitted half-power ellipse"
-                height={330}
+                caption="Dirty beam"
+                priority="heavy"
+                height={310}
                 data={figures.beamData}
-                layout={plotLayout({
-                  ...skyAxes(),
-                  margin: { l: 52, r: 8, t: 28, b: 44 },
-                  title: { text: "Dirty beam", font: { size: 13 } },
-                  uirevision: "beam",
-                })}
+                layout={layout}
               />
               {figures.dirty ? (
                 <Plot
                   label="Dirty image of the model in milliarcseconds, east to the left"
-                  height={330}
+                  caption="Dirty image of the model"
+                  priority="heavy"
+                  height={310}
                   data={figures.dirty.data}
-                  layout={plotLayout({
-                    ...skyAxes(),
-                    margin: { l: 52, r: 8, t: 28, b: 44 },
-                    title: { text: "Dirty image of the model", font: { size: 13 } },
-                    uirevision: "dirty",
-                  })}
+                  layout={dirtyLayout}
                 />
               ) : null}
             </div>

@@ -1,6 +1,6 @@
 import { useMemo } from "react";
 import type { CoverageResponse, EphemerisResponse } from "~/engine";
-import { HOUR_ANGLE_LEGEND, hourAngleFigure, nightFigure } from "./elevation-figure";
+import { hourAngleFigure, nightFigure } from "./elevation-figure";
 import { Panel, SeriesLegend } from "./Panel";
 import { Plot } from "./Plot";
 
@@ -51,7 +51,7 @@ export function ElevationPanel({
       {figure ? (
         <>
           <Plot
-            label="Target elevation and air mass against UT and local sidereal time, with twilight and the observable window"
+            label="Target elevation and air mass against UTC and local sidereal time, with twilight and the observable window"
             height={400}
             data={figure.data}
             layout={figure.layout}
@@ -66,7 +66,7 @@ export function ElevationPanel({
             data={byHourAngle.data}
             layout={byHourAngle.layout}
           />
-          <SeriesLegend label="Elevation plot legend" items={HOUR_ANGLE_LEGEND} />
+          <SeriesLegend label="Elevation plot legend" items={byHourAngle.legend} />
         </>
       ) : (
         <p className="py-16 text-center text-sm text-night-600">Waiting for the night's ephemeris…</p>

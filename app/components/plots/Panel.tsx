@@ -38,7 +38,7 @@ export function Panel({
   );
 }
 
-/** Plotly reads "YYYY-MM-DD HH:MM:SS" as a wall-clock time; the Sketchpad's times are UT. */
+/** Plotly reads "YYYY-MM-DD HH:MM:SS" as a wall-clock time; the Sketchpad's times are UTC. */
 export function plotTime(ms: number): string {
   return new Date(ms).toISOString().slice(0, 19).replace("T", " ");
 }
@@ -80,7 +80,12 @@ export function Toggle<T extends string>({
   );
 }
 
-export type LegendItem = { name: string; colour: string; kind?: "dot" | "ring" | "square" | "line"; dash?: string };
+export type LegendItem = {
+  name: string;
+  colour: string;
+  kind?: "dot" | "ring" | "square" | "open-square" | "diamond" | "cross" | "line";
+  dash?: string;
+};
 
 const DASH_ARRAY: Record<string, string> = { solid: "", dash: "6 3", dot: "1.5 3", dashdot: "6 3 1.5 3" };
 
@@ -112,6 +117,12 @@ export function SeriesLegend({ items, label }: { items: LegendItem[]; label: str
               />
             ) : it.kind === "square" ? (
               <rect x="0.5" y="0.5" width="9" height="9" fill={it.colour} stroke="#a5b0c8" strokeWidth="0.5" />
+            ) : it.kind === "open-square" ? (
+              <rect x="1.5" y="1.5" width="7" height="7" fill="#ffffff" stroke={it.colour} strokeWidth="1.5" />
+            ) : it.kind === "diamond" ? (
+              <path d="M5 0.8 L9.2 5 L5 9.2 L0.8 5 Z" fill="#ffffff" stroke={it.colour} strokeWidth="1.5" />
+            ) : it.kind === "cross" ? (
+              <path d="M1.5 1.5 L8.5 8.5 M8.5 1.5 L1.5 8.5" stroke={it.colour} strokeWidth="1.8" />
             ) : it.kind === "ring" ? (
               <circle cx="5" cy="5" r="3.6" fill="#ffffff" stroke={it.colour} strokeWidth="1.5" />
             ) : (

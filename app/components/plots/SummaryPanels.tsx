@@ -1,6 +1,7 @@
 import type { ReactNode } from "react";
 import type { CoverageResponse } from "~/engine";
 import { airmassRange, summariseReasons } from "~/services/sketch/figures";
+import { plural } from "~/services/sketch/words";
 import { Panel } from "./Panel";
 
 function Figure({ label, value, unit, hint }: { label: string; value: ReactNode; unit?: string; hint?: string }) {
@@ -20,15 +21,7 @@ function Figure({ label, value, unit, hint }: { label: string; value: ReactNode;
 const fix = (x: number | null | undefined, d: number) => (x === null || x === undefined ? "—" : x.toFixed(d));
 
 /** The sketch in numbers, each with its unit. */
-export function FiguresPanel({
-  coverage,
-  stations,
-  elapsedMs,
-}: {
-  coverage: CoverageResponse;
-  stations: number;
-  elapsedMs: number | null;
-}) {
+export function FiguresPanel({ coverage, stations }: { coverage: CoverageResponse; stations: number }) {
   const f = coverage.figures;
   const am = airmassRange(coverage.samples);
   return (
@@ -40,7 +33,6 @@ export function FiguresPanel({
         <>
           Resolution λ<sub>min</sub>/(2 B<sub>max</sub>) and largest scale λ<sub>max</sub>/(2 B<sub>min</sub>) over the
           projected baselines. Independent closure phases: (N − 1)(N − 2)/2 for N stations.
-          {elapsedMs !== null ? ` Computed by the server in a ${(elapsedMs / 1000).toFixed(2)} s round trip.` : ""}
         </>
       }
     >
@@ -53,7 +45,7 @@ export function FiguresPanel({
           label="Observable time"
           value={fix(f.observableHours, 2)}
           unit="h"
-          hint={`${f.observableSamples} observable samples`}
+          hint={`${plural(f.observableSamples, "observable sample")}`}
         />
         <Figure
           label="Closure triangles"
@@ -74,10 +66,13 @@ export function NotesPanel({
   coverage,
   cautions,
   moonLine,
+  windows = [],
 }: {
   coverage: CoverageResponse;
   cautions: string[];
   moonLine: string | null;
+  /** The observable windows of the night in UTC, e.g. "2027-03-16 01:20–06:40 UTC (5.3 h)". */
+  windows?: string[];
 }) {
   const reasons = summariseReasons(coverage.samples);
   const total = coverage.samples.length;
@@ -87,9 +82,14 @@ export function NotesPanel({
       <div className="space-y-3 text-sm">
         <p>
           <span className="num font-semibold">{observable}</span> of <span className="num font-semibold">{total}</span>{" "}
-          samples are observable.
+          {total === 1 ? "sample is" : "samples are"} observable.
           {reasons.length > 0 ? ` Not observable: ${reasons.join("; ")}.` : ""}
         </p>
+        {windows.length > 0 ? (
+          <p>
+            Observable {windows.length === 1 ? "window" : "windows"}: {windows.join("; ")}.
+          </p>
+        ) : null}
         {coverage.notes.length > 0 ? (
           <ul className="list-disc space-y-1 pl-5">
             {coverage.notes.map((n) => (

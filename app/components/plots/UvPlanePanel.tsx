@@ -1,8 +1,10 @@
 import { useMemo } from "react";
 import type { CoverageResponse } from "~/engine";
-import { uvPoints } from "~/services/sketch/figures";
+import { mirrored, uvTrack } from "~/services/sketch/tracks";
+import { plural } from "~/services/sketch/words";
 import { Panel, SeriesLegend, Toggle } from "./Panel";
 import { Plot, plotLayout, SERIES_COLOURS } from "./Plot";
+import { trackTraces } from "./track-traces";
 
 export type UvUnit = "mlambda" | "m";
 
@@ -10,9 +12,10 @@ export type UvUnit = "mlambda" | "m";
 export const baselineColour = (b: number) => SERIES_COLOURS[b % SERIES_COLOURS.length];
 
 /**
- * Earth-rotation synthesis tracks: one trace per baseline (named by its stations) and one hollow trace
- * of its Hermitian points (−u, −v) in the same colour. u grows toward east, plotted to the LEFT as on
- * the sky; equal scales on both axes.
+ * Earth-rotation synthesis tracks: one line per baseline and channel through its samples in time order
+ * (named by its stations), and a dotted one through its Hermitian points (−u, −v) in the same colour;
+ * samples without a neighbour are drawn as dots. u grows toward east, plotted to the LEFT as on the
+ * sky; equal scales on both axes.
  */
 export function UvPlanePanel({
   coverage,
@@ -27,45 +30,47 @@ export function UvPlanePanel({
     const traces: Record<string, unknown>[] = [];
     let r = 0;
     coverage.baselines.forEach((b, k) => {
-      const p = uvPoints(b, unit, coverage.wavelengthsM);
+      const track = uvTrack(b.points, unit, coverage.wavelengthsM);
       const colour = baselineColour(k);
       const name = `${b.stations[0]}–${b.stations[1]}`;
-      for (let i = 0; i < p.u.length; i++) r = Math.max(r, Math.hypot(p.u[i], p.v[i]));
-      const hover =
+      for (const [i, x] of track.x.entries()) if (x !== null) r = Math.max(r, Math.hypot(x, track.y[i] as number));
+      for (const [i, x] of track.lone.x.entries()) r = Math.max(r, Math.hypot(x, track.lone.y[i]));
+      const hover = (what: string) =>
         unit === "m"
-          ? `${name}<br>u %{x:.1f} m, v %{y:.1f} m<br>hour angle %{customdata:.2f} h<extra></extra>`
-          : `${name}<br>u %{x:.2f} Mλ, v %{y:.2f} Mλ<br>hour angle %{customdata[0]:.2f} h, λ %{customdata[1]:.3f} µm<extra></extra>`;
-      const custom = unit === "m" ? p.hourAngleH : p.hourAngleH.map((h, i) => [h, p.wavelengthM[i] * 1e6]);
-      traces.push({
-        type: "scatter",
-        mode: "markers",
-        name,
-        legendgroup: name,
-        showlegend: false,
-        x: p.u,
-        y: p.v,
-        customdata: custom,
-        marker: { size: 5, color: colour },
-        hovertemplate: hover,
-      });
-      traces.push({
-        type: "scatter",
-        mode: "markers",
-        name: `${name} (−u, −v)`,
-        legendgroup: name,
-        showlegend: false,
-        x: p.uTwin,
-        y: p.vTwin,
-        customdata: custom,
-        marker: { size: 5, color: colour, symbol: "circle-open", line: { width: 1.2 } },
-        hovertemplate: hover.replace(`${name}<br>`, `${name} (Hermitian)<br>`),
-      });
+          ? `${what}<br>u %{x:.1f} m, v %{y:.1f} m<br>hour angle %{customdata[0]:.2f} h<extra></extra>`
+          : `${what}<br>u %{x:.2f} Mλ, v %{y:.2f} Mλ<br>hour angle %{customdata[0]:.2f} h, λ %{customdata[1]:.3f} µm<extra></extra>`;
+      traces.push(...trackTraces(track, { name, colour, width: 2.5, hovertemplate: hover(name) }));
+      traces.push(
+        ...trackTraces(mirrored(track), {
+          name: `${name} (−u, −v)`,
+          colour,
+          width: 1.5,
+          dash: "dot",
+          hovertemplate: hover(`${name} (Hermitian)`),
+        }),
+      );
     });
     return { data: traces, radius: r };
   }, [coverage, unit]);
 
   const u = unit === "m" ? "m" : "Mλ";
-  const R = (radius || 1) * 1.08;
+  const layout = useMemo(() => {
+    const R = (radius || 1) * 1.08;
+    return plotLayout({
+      margin: { l: 60, r: 16, t: 16, b: 48 },
+      xaxis: { title: { text: `u (${u}), east ←` }, range: [R, -R], zeroline: true },
+      yaxis: {
+        title: { text: `v (${u}), north ↑` },
+        range: [-R, R],
+        scaleanchor: "x",
+        scaleratio: 1,
+        zeroline: true,
+      },
+      showlegend: false,
+      uirevision: `uv-${unit}`,
+      hovermode: "closest",
+    });
+  }, [radius, u, unit]);
   return (
     <Panel
       id="uv-plane"
@@ -83,9 +88,10 @@ export function UvPlanePanel({
       }
       note={
         <>
-          Filled: measured (u, v); hollow: the Hermitian points (−u, −v), which every baseline gives as well.
+          Solid: the measured (u, v) of each sample, joined in time order; dotted: the Hermitian points (−u, −v), which
+          every baseline gives as well.
           {unit === "mlambda"
-            ? ` One point per sample and channel (${coverage.wavelengthsM.length} channels).`
+            ? ` One track per channel (${plural(coverage.wavelengthsM.length, "channel")}).`
             : " Metres do not depend on the wavelength."}
         </>
       }
@@ -97,20 +103,7 @@ export function UvPlanePanel({
           label={`uv plane: projected baselines in ${u}, u toward east plotted to the left, v toward north`}
           height={440}
           data={data}
-          layout={plotLayout({
-            margin: { l: 60, r: 16, t: 16, b: 48 },
-            xaxis: { title: { text: `u (${u}), east ←` }, range: [R, -R], zeroline: true },
-            yaxis: {
-              title: { text: `v (${u}), north ↑` },
-              range: [-R, R],
-              scaleanchor: "x",
-              scaleratio: 1,
-              zeroline: true,
-            },
-            showlegend: false,
-            uirevision: `uv-${unit}`,
-            hovermode: "closest",
-          })}
+          layout={layout}
         />
       )}
       <SeriesLegend

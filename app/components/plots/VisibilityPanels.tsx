@@ -1,8 +1,10 @@
 import { useMemo } from "react";
 import type { CoverageResponse, TargetModel } from "~/engine";
-import { modelVis2Curves, spatialFrequencyPoints } from "~/services/sketch/figures";
+import { modelVis2Curves } from "~/services/sketch/figures";
+import { closureTrack, vis2Track } from "~/services/sketch/tracks";
 import { Panel, SeriesLegend } from "./Panel";
 import { Plot, plotLayout, SERIES_COLOURS } from "./Plot";
+import { trackTraces } from "./track-traces";
 import { baselineColour } from "./UvPlanePanel";
 
 const CURVE_DASH = ["solid", "dash", "dot", "dashdot"];
@@ -10,9 +12,9 @@ const CURVE_DASH = ["solid", "dash", "dot", "dashdot"];
 /** Model V² against spatial frequency: the dense model curve(s) and the sampled points by baseline. */
 export function VisibilityPanel({ coverage, model }: { coverage: CoverageResponse; model: TargetModel }) {
   const figure = useMemo(() => {
-    const points = coverage.baselines.map((b, k) => ({ b, k, p: spatialFrequencyPoints(b, coverage.wavelengthsM) }));
+    const points = coverage.baselines.map((b, k) => ({ b, k, t: vis2Track(b.points, coverage.wavelengthsM) }));
     let maxF = 0;
-    for (const { p } of points) for (const f of p.freqMl) maxF = Math.max(maxF, f);
+    for (const { t } of points) for (const f of [...t.x, ...t.lone.x]) if (f !== null) maxF = Math.max(maxF, f);
     if (maxF === 0) {
       // Nothing observable: still draw the model out to the longest baseline's frequency.
       const longest = Math.max(0, ...coverage.baselines.map((b) => b.lengthM));
@@ -30,20 +32,16 @@ export function VisibilityPanel({ coverage, model }: { coverage: CoverageRespons
       showlegend: false,
       hovertemplate: "%{x:.1f} Mλ<br>V² %{y:.3f}<extra>model</extra>",
     }));
-    for (const { b, k, p } of points) {
-      if (p.freqMl.length === 0) continue;
+    for (const { b, k, t } of points) {
       const name = `${b.stations[0]}–${b.stations[1]}`;
-      data.push({
-        type: "scatter",
-        mode: "markers",
-        name,
-        x: p.freqMl,
-        y: p.vis2,
-        customdata: p.hourAngleH,
-        marker: { size: 5, color: baselineColour(k) },
-        showlegend: false,
-        hovertemplate: `${name}<br>%{x:.1f} Mλ, V² %{y:.3f}<br>hour angle %{customdata:.2f} h<extra></extra>`,
-      });
+      data.push(
+        ...trackTraces(t, {
+          name,
+          colour: baselineColour(k),
+          width: 3,
+          hovertemplate: `${name}<br>%{x:.1f} Mλ, V² %{y:.3f}<br>hour angle %{customdata[0]:.2f} h, λ %{customdata[1]:.3f} µm<extra></extra>`,
+        }),
+      );
     }
     const legend = [
       ...curves.map((c, i) => ({
@@ -53,69 +51,69 @@ export function VisibilityPanel({ coverage, model }: { coverage: CoverageRespons
         dash: CURVE_DASH[i % CURVE_DASH.length],
       })),
       ...points
-        .filter(({ p }) => p.freqMl.length > 0)
+        .filter(({ t }) => t.x.length + t.lone.x.length > 0)
         .map(({ b, k }) => ({ name: `${b.stations[0]}–${b.stations[1]}`, colour: baselineColour(k) })),
     ];
     return { data, xMax, legend };
   }, [coverage, model]);
+  const layout = useMemo(
+    () =>
+      plotLayout({
+        margin: { l: 56, r: 16, t: 16, b: 48 },
+        xaxis: { title: { text: "Spatial frequency (Mλ)" }, range: [0, figure.xMax] },
+        yaxis: { title: { text: "V²" }, range: [0, 1.05] },
+        showlegend: false,
+        uirevision: "vis2",
+        hovermode: "closest",
+      }),
+    [figure.xMax],
+  );
   return (
     <Panel
       id="visibility"
       title="Squared visibility of the model"
-      note="Points: the model's V² at each sampled baseline and channel. Lines: the model along baselines of fixed position angle (east of north)."
+      note="Coloured: the model's V² at each sample of each baseline, one short line across the band's channels (a dot for a one-channel band). Dark: the model along baselines of fixed position angle (east of north)."
     >
       <Plot
-        label="Model squared visibility against spatial frequency in mega-wavelengths, with the sampled points by baseline"
+        label="Model squared visibility against spatial frequency in mega-wavelengths, with the samples by baseline"
         height={380}
         data={figure.data}
-        layout={plotLayout({
-          margin: { l: 56, r: 16, t: 16, b: 48 },
-          xaxis: { title: { text: "Spatial frequency (Mλ)" }, range: [0, figure.xMax] },
-          yaxis: { title: { text: "V²" }, range: [0, 1.05] },
-          showlegend: false,
-          uirevision: "vis2",
-          hovermode: "closest",
-        })}
+        layout={layout}
       />
       <SeriesLegend label="Model curves and baselines" items={figure.legend} />
     </Panel>
   );
 }
 
-/** Breaks a phase line at a jump of more than 150° between samples (a wrap across ±180° or a sign flip of the visibility): a gap instead of a vertical stroke. */
-function brokenAtWraps(x: number[], y: number[]) {
-  const xs: (number | null)[] = [];
-  const ys: (number | null)[] = [];
-  for (let i = 0; i < x.length; i++) {
-    if (i > 0 && Math.abs(y[i] - y[i - 1]) > 150) {
-      xs.push(null);
-      ys.push(null);
-    }
-    xs.push(x[i]);
-    ys.push(y[i]);
-  }
-  return { x: xs, y: ys };
-}
+/** The closure-phase figure's layout (a fresh object per figure: Plotly writes into it). */
+const closureLayout = () =>
+  plotLayout({
+    margin: { l: 56, r: 16, t: 16, b: 48 },
+    xaxis: { title: { text: "Hour angle (h)" } },
+    yaxis: { title: { text: "Closure phase (°)" }, range: [-185, 185], dtick: 45 },
+    showlegend: false,
+    uirevision: "closure",
+    hovermode: "closest",
+  });
 
-/** Closure phase against hour angle, one trace per station triangle, at the band's middle channel. */
+/**
+ * Closure phase against hour angle, one line per station triangle at the band's middle channel,
+ * broken at wraps across ±180° and where samples are missing.
+ */
 export function ClosurePanel({ coverage }: { coverage: CoverageResponse }) {
   const mid = Math.floor((coverage.wavelengthsM.length - 1) / 2);
+  const layout = useMemo(closureLayout, []);
   const lambdaUm = coverage.wavelengthsM[mid] * 1e6;
   const data = useMemo(
     () =>
-      coverage.closurePhases.map((t, k) => ({
-        type: "scatter",
-        mode: "lines+markers",
-        name: t.stations.join("–"),
-        ...brokenAtWraps(
-          t.points.map((p) => p.hourAngleH),
-          t.points.map((p) => p.closurePhaseDeg[mid]),
-        ),
-        line: { color: SERIES_COLOURS[k % SERIES_COLOURS.length], width: 1.5 },
-        marker: { size: 4, color: SERIES_COLOURS[k % SERIES_COLOURS.length] },
-        showlegend: false,
-        hovertemplate: `${t.stations.join("–")}<br>hour angle %{x:.2f} h<br>closure phase %{y:.1f}°<extra></extra>`,
-      })),
+      coverage.closurePhases.flatMap((t, k) =>
+        trackTraces(closureTrack(t.points, mid, coverage.wavelengthsM[mid]), {
+          name: t.stations.join("–"),
+          colour: SERIES_COLOURS[k % SERIES_COLOURS.length],
+          width: 1.8,
+          hovertemplate: `${t.stations.join("–")}<br>hour angle %{x:.2f} h<br>closure phase %{y:.1f}°<extra></extra>`,
+        }),
+      ),
     [coverage, mid],
   );
   return (
@@ -131,14 +129,7 @@ export function ClosurePanel({ coverage }: { coverage: CoverageResponse }) {
           label="Closure phase in degrees against hour angle, one line per station triangle"
           height={380}
           data={data}
-          layout={plotLayout({
-            margin: { l: 56, r: 16, t: 16, b: 48 },
-            xaxis: { title: { text: "Hour angle (h)" } },
-            yaxis: { title: { text: "Closure phase (°)" }, range: [-185, 185], dtick: 45 },
-            showlegend: false,
-            uirevision: "closure",
-            hovermode: "closest",
-          })}
+          layout={layout}
         />
       )}
       <SeriesLegend

@@ -1,5 +1,5 @@
 /**
- * The figures of the elevation panel as Plotly data and layout: the whole night against UT and local
+ * The figures of the elevation panel as Plotly data and layout: the whole night against UTC and local
  * sidereal time (twilight bands, observable windows, the Moon), or the samples against hour angle
  * when the sketch has no clock time. Pure: no React.
  */
@@ -13,6 +13,7 @@ import {
   targetAltitudeCurve,
   twilightBands,
 } from "~/services/sketch/night";
+import { BLOCK_KINDS, BLOCK_LABELS, type BlockKind, primaryBlock, reasonLines } from "~/services/sketch/reasons";
 import { type LegendItem, plotTime } from "./Panel";
 import { plotLayout } from "./Plot";
 
@@ -33,7 +34,20 @@ const AIRMASS_TICK_ELEVATIONS = AIRMASS_TICKS.map(elevationForAirmass);
 // Plotly writes into the objects it is given (ranges, autorange), so each figure gets fresh ones.
 const targetLine = () => ({ color: TARGET_COLOUR, width: 2.5 });
 const observableMarker = () => ({ size: 6, color: OBSERVABLE_COLOUR });
-const blockedMarker = () => ({ size: 6, color: "#ffffff", line: { color: LIMIT_COLOUR, width: 1.5 } });
+
+/** How a sample that is not observable is marked, by the rule it fails (legend kind alike). */
+const BLOCK_STYLE: Record<BlockKind, { symbol: string; colour: string; legend: LegendItem["kind"] }> = {
+  elevation: { symbol: "circle-open", colour: LIMIT_COLOUR, legend: "ring" },
+  sun: { symbol: "diamond-open", colour: "#8a5a00", legend: "diamond" },
+  delayLine: { symbol: "x-thin-open", colour: "#6b2f8f", legend: "cross" },
+  other: { symbol: "square-open", colour: "#56637f", legend: "open-square" },
+};
+const blockedMarker = (kind: BlockKind) => ({
+  size: kind === "delayLine" ? 8 : 7,
+  symbol: BLOCK_STYLE[kind].symbol,
+  color: BLOCK_STYLE[kind].colour,
+  line: { color: BLOCK_STYLE[kind].colour, width: 1.6 },
+});
 const elevationAxis = () => ({ title: { text: "Elevation (°)" }, range: [0, 90], dtick: 15 });
 
 /** The air-mass scale on the right, at the elevations where the air mass takes round values. */
@@ -67,12 +81,17 @@ function minimumLine(minElevationDeg: number) {
 const SAMPLE_LEGEND: LegendItem[] = [
   { name: "Target elevation", colour: TARGET_COLOUR, kind: "line" },
   { name: "Observable sample", colour: OBSERVABLE_COLOUR },
-  { name: "Not observable", colour: LIMIT_COLOUR, kind: "ring" },
 ];
 const MINIMUM_LEGEND: LegendItem = { name: "Minimum elevation", colour: LIMIT_COLOUR, kind: "line", dash: "dash" };
 
-/** The legend of the hour-angle figure. */
-export const HOUR_ANGLE_LEGEND: LegendItem[] = [...SAMPLE_LEGEND, MINIMUM_LEGEND];
+/** The legend entries of the rules that some drawn sample fails. */
+function blockLegend(groups: BlockedGroup[]): LegendItem[] {
+  return groups.map((g) => ({
+    name: `Not observable: ${BLOCK_LABELS[g.kind].toLowerCase()}`,
+    colour: BLOCK_STYLE[g.kind].colour,
+    kind: BLOCK_STYLE[g.kind].legend,
+  }));
+}
 
 export interface Figure {
   data: Record<string, unknown>[];
@@ -100,7 +119,27 @@ function sampleMarkers(
   };
 }
 
-const blockedReasons = (samples: readonly Sample[]) => samples.map((s) => s.reason ?? "");
+type BlockedGroup = { kind: BlockKind; samples: Sample[] };
+
+/** The samples that are not observable, grouped by the rule each is marked by (rules in BLOCK_KINDS order). */
+function blockedGroups(samples: readonly Sample[]): BlockedGroup[] {
+  const by = new Map<BlockKind, Sample[]>();
+  for (const s of samples) {
+    const kind = primaryBlock(s.reason) ?? "other";
+    by.set(kind, [...(by.get(kind) ?? []), s]);
+  }
+  return BLOCK_KINDS.filter((k) => by.has(k)).map((kind) => ({ kind, samples: by.get(kind)! }));
+}
+
+/** One marker trace per rule, the sample's whole reason in its hover. */
+function blockedTraces(groups: BlockedGroup[], x: (s: Sample) => number | string, where: string) {
+  return groups.map((g) =>
+    sampleMarkers(BLOCK_LABELS[g.kind], g.samples, x, blockedMarker(g.kind), {
+      text: g.samples.map((s) => reasonLines(s.reason)),
+      hovertemplate: `${where}<br>%{text}<extra>not observable</extra>`,
+    }),
+  );
+}
 
 /** A filled rectangle behind the curves, from `startMs` to `endMs`. */
 function band(startMs: number, endMs: number, yref: "paper" | "y", y0: number, y1: number, fill: string) {
@@ -149,7 +188,7 @@ export function nightFigure(opts: {
     minimumLine(minElevationDeg),
   ];
   const observable = coverage.samples.filter((s) => s.observable && s.utc);
-  const blocked = coverage.samples.filter((s) => !s.observable && s.utc && s.elevationDeg > 0);
+  const blocked = blockedGroups(coverage.samples.filter((s) => !s.observable && s.utc && s.elevationDeg > 0));
   const kinds = [...new Set(bands.map((b) => b.kind))];
   const atUtc = (s: Sample) => plotTime(Date.parse(s.utc!));
   const data: Record<string, unknown>[] = [
@@ -161,17 +200,14 @@ export function nightFigure(opts: {
       y: curve.elevationDeg,
       customdata: curve.airmass.map((a) => (a === null ? "—" : a.toFixed(2))),
       line: targetLine(),
-      hovertemplate: "%{x|%H:%M} UT<br>elevation %{y:.1f}°<br>air mass %{customdata}<extra></extra>",
+      hovertemplate: "%{x|%H:%M} UTC<br>elevation %{y:.1f}°<br>air mass %{customdata}<extra></extra>",
     },
     sampleMarkers("Observable sample", observable, atUtc, observableMarker(), {
       customdata: observable.map((s) => [s.hourAngleH, s.lstH ?? null, s.airmass ?? null]),
       hovertemplate:
-        "%{x|%H:%M} UT, LST %{customdata[1]:.2f} h<br>hour angle %{customdata[0]:.2f} h<br>elevation %{y:.1f}°, air mass %{customdata[2]:.2f}<extra>observable</extra>",
+        "%{x|%H:%M} UTC, LST %{customdata[1]:.2f} h<br>hour angle %{customdata[0]:.2f} h<br>elevation %{y:.1f}°, air mass %{customdata[2]:.2f}<extra>observable</extra>",
     }),
-    sampleMarkers("Not observable", blocked, atUtc, blockedMarker(), {
-      text: blockedReasons(blocked),
-      hovertemplate: "%{x|%H:%M} UT, elevation %{y:.1f}°<br>%{text}<extra>not observable</extra>",
-    }),
+    ...blockedTraces(blocked, atUtc, "%{x|%H:%M} UTC, elevation %{y:.1f}°"),
     {
       type: "scatter",
       mode: "lines",
@@ -179,7 +215,7 @@ export function nightFigure(opts: {
       x: moon.timesMs.map(plotTime),
       y: moon.altitudeDeg,
       line: { color: "#56637f", width: 1.5, dash: "dot" },
-      hovertemplate: "%{x|%H:%M} UT<br>Moon altitude %{y:.0f}°<extra></extra>",
+      hovertemplate: "%{x|%H:%M} UTC<br>Moon altitude %{y:.0f}°<extra></extra>",
     },
     // Carriers of the LST and air-mass axes (no visible data).
     {
@@ -197,7 +233,7 @@ export function nightFigure(opts: {
     shapes,
     xaxis: {
       type: "date",
-      title: { text: "UT (hours)" },
+      title: { text: "Time (UTC)" },
       range: [plotTime(start), plotTime(end)],
       tickformat: "%H:%M",
       showgrid: false,
@@ -234,6 +270,7 @@ export function nightFigure(opts: {
   });
   const legend: LegendItem[] = [
     ...SAMPLE_LEGEND,
+    ...blockLegend(blocked),
     { name: moonName, colour: "#56637f", kind: "line", dash: "dot" },
     MINIMUM_LEGEND,
     ...(windows.length > 0 ? [{ name: "Observable window", colour: WINDOW_FILL, kind: "square" as const }] : []),
@@ -245,10 +282,14 @@ export function nightFigure(opts: {
 const atHourAngle = (s: Sample) => s.hourAngleH;
 
 /** The samples of an hour-angle sketch against hour angle (no clock time, so no twilight or Moon). */
-export function hourAngleFigure(coverage: CoverageResponse, minElevationDeg: number): Figure {
+export function hourAngleFigure(
+  coverage: CoverageResponse,
+  minElevationDeg: number,
+): Figure & { legend: LegendItem[] } {
   const obs = coverage.samples.filter((s) => s.observable);
-  const off = coverage.samples.filter((s) => !s.observable);
+  const off = blockedGroups(coverage.samples.filter((s) => !s.observable));
   return {
+    legend: [...SAMPLE_LEGEND, ...blockLegend(off), MINIMUM_LEGEND],
     data: [
       {
         type: "scatter",
@@ -261,10 +302,7 @@ export function hourAngleFigure(coverage: CoverageResponse, minElevationDeg: num
         hovertemplate: "hour angle %{x:.2f} h<br>elevation %{y:.1f}°<br>air mass %{customdata}<extra></extra>",
       },
       sampleMarkers("Observable sample", obs, atHourAngle, observableMarker(), { hoverinfo: "skip" }),
-      sampleMarkers("Not observable", off, atHourAngle, blockedMarker(), {
-        text: blockedReasons(off),
-        hovertemplate: "hour angle %{x:.2f} h<br>%{text}<extra></extra>",
-      }),
+      ...blockedTraces(off, atHourAngle, "hour angle %{x:.2f} h, elevation %{y:.1f}°"),
       { type: "scatter", x: [0], y: [null], yaxis: "y2", showlegend: false, hoverinfo: "skip" },
     ],
     layout: plotLayout({

@@ -33,6 +33,7 @@ import {
   maxNightSamples,
   samplingRuleFailure,
 } from "./limits";
+import { withModelRanges } from "./model-ranges";
 import { modelShapeFailure } from "./model-shape";
 
 // ---------------------------------------------------------------- building blocks
@@ -127,7 +128,7 @@ export const TargetModelSchema: v.GenericSchema<unknown, TargetModel> = v.pipe(
     (model) => modelShapeFailure(model) === null,
     (issue) => modelShapeFailure(issue.input) ?? "has an unacceptable shape",
   ),
-  v.lazy(() => ModelVariantSchema),
+  v.lazy(() => RangedModelSchema),
 );
 
 const ModelVariantSchema: v.GenericSchema<unknown, TargetModel> = v.lazy(() =>
@@ -172,6 +173,8 @@ const ModelVariantSchema: v.GenericSchema<unknown, TargetModel> = v.lazy(() =>
     modelTypeMessage,
   ),
 );
+/** The variants with the physical ranges of their parameters (./model-ranges.ts). */
+const RangedModelSchema = withModelRanges(ModelVariantSchema);
 
 export const TargetSchema = v.object(
   {

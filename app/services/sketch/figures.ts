@@ -1,7 +1,7 @@
 /**
- * What the Sketchpad's panels show, computed from an API answer: uv points in metres or Mλ with
- * their Hermitian twins, spatial frequencies, dense model curves, the beam's fitted ellipse and image
- * axes, a summary of why samples are unobservable, and cautions. Pure (no React, no Plotly).
+ * What the Sketchpad's panels show, computed from an API answer: dense model curves, the beam's
+ * fitted ellipse and image windows, a summary of why samples are unobservable, the notes and
+ * cautions (the sampled tracks are in ./tracks.ts). Pure (no React, no Plotly).
  */
 import {
   type CoverageSample,
@@ -12,57 +12,7 @@ import {
   type TargetModel,
 } from "~/engine";
 import { angularSeparationDeg, observableWindows, sunSeparationDeg } from "./night";
-
-// ---------------------------------------------------------------- uv plane
-
-export interface BaselinePoints {
-  stations: [string, string];
-  points: { hourAngleH: number; uM: number; vM: number; vis2: number[] }[];
-}
-
-/**
- * The uv points of one baseline: in metres one point per sample (the projected baseline does not
- * depend on the wavelength); in Mλ one point per sample and channel, u/λ and v/λ in millions.
- * The Hermitian twin of (u, v) is (−u, −v): V(−u, −v) = V*(u, v) for a real sky, so both are measured.
- */
-export function uvPoints(b: BaselinePoints, unit: "m" | "mlambda", wavelengthsM: readonly number[]) {
-  const u: number[] = [];
-  const v: number[] = [];
-  const ha: number[] = [];
-  const lam: number[] = [];
-  for (const p of b.points) {
-    if (unit === "m") {
-      u.push(p.uM);
-      v.push(p.vM);
-      ha.push(p.hourAngleH);
-      lam.push(NaN);
-    } else {
-      for (const w of wavelengthsM) {
-        u.push(p.uM / w / 1e6);
-        v.push(p.vM / w / 1e6);
-        ha.push(p.hourAngleH);
-        lam.push(w);
-      }
-    }
-  }
-  return { u, v, uTwin: u.map((x) => -x), vTwin: v.map((x) => -x), hourAngleH: ha, wavelengthM: lam };
-}
-
-/** Spatial frequency √(u² + v²)/λ in Mλ and V² of every point and channel of a baseline. */
-export function spatialFrequencyPoints(b: BaselinePoints, wavelengthsM: readonly number[]) {
-  const freqMl: number[] = [];
-  const vis2: number[] = [];
-  const hourAngleH: number[] = [];
-  for (const p of b.points) {
-    const r = Math.hypot(p.uM, p.vM);
-    wavelengthsM.forEach((w, c) => {
-      freqMl.push(r / w / 1e6);
-      vis2.push(p.vis2[c]);
-      hourAngleH.push(p.hourAngleH);
-    });
-  }
-  return { freqMl, vis2, hourAngleH };
-}
+import { plural, utcSpan } from "./words";
 
 /** True when the model's visibility depends on the baseline length only (centred, circular). */
 export function isCircular(model: TargetModel): boolean {
@@ -107,6 +57,41 @@ export function modelVis2Curves(
 // ---------------------------------------------------------------- beam
 
 /**
+ * How far from the phase centre a model's light reaches, mas: the radius of a disk or ring, the FWHM
+ * of a Gaussian (its light is negligible beyond), a binary's separation, and for a sum the farthest
+ * component (its offset plus its own reach).
+ */
+export function modelExtentMas(model: TargetModel): number {
+  switch (model.type) {
+    case "point":
+      return 0;
+    case "uniformDisk":
+    case "limbDarkenedDisk":
+    case "ring":
+      return model.diameterMas / 2;
+    case "gaussian":
+      return model.fwhmMas;
+    case "binary":
+      return model.separationMas;
+    case "sum":
+      return Math.max(
+        0,
+        ...model.components.map((c) => Math.hypot(c.offsetEastMas, c.offsetNorthMas) + modelExtentMas(c.model)),
+      );
+  }
+}
+
+/**
+ * Half width of the dirty image shown, mas: the model's reach three times over, and at least eight
+ * beam widths (the main lobe and its first sidelobes around every part of the source). Infinity
+ * (the whole image) when the beam has no fitted width.
+ */
+export function dirtyImageHalfWidthMas(model: TargetModel, fwhmMajorMas: number | null): number {
+  if (!fwhmMajorMas) return Infinity;
+  return Math.max(8 * fwhmMajorMas, 3 * modelExtentMas(model));
+}
+
+/**
  * Outline of the fitted beam at half power: an ellipse of full widths `majorMas` × `minorMas` whose
  * major axis lies at `positionAngleDeg` east of north. Returns east and north offsets in mas
  * (closed: the last point repeats the first).
@@ -149,8 +134,6 @@ export function imageWindow(image: readonly number[], gridSize: number, pixelMas
 
 /** A sample of the coverage answer, as far as the summaries read it. */
 export type SampleLike = Omit<CoverageSample, "lstH">;
-
-const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 /**
  * Why samples are unobservable, counted by rule, e.g. ["12 samples below 30.0° elevation",
@@ -250,7 +233,7 @@ export function sketchNotes(
   body: { night?: NightSampling; target: { raDeg: number; decDeg: number } },
   samples: readonly SampleLike[],
   ephemeris: EphemerisResponse | undefined,
-): { cautions: string[]; moon: string | null } {
+): { cautions: string[]; moon: string | null; windows: string[] } {
   const stepMin = body.night?.stepMin ?? null;
   let sunSep: number | null = null;
   let moon: string | null = null;
@@ -266,7 +249,7 @@ export function sketchNotes(
       ephemeris.moonDecDeg,
     );
     moon =
-      `Moon at local midnight: ${Math.round(ephemeris.moonIlluminatedFraction * 100)} % illuminated, ` +
+      `Moon at local midnight (${new Date(midnight).toISOString().slice(11, 16)} UTC): ${Math.round(ephemeris.moonIlluminatedFraction * 100)} % illuminated, ` +
       `about ${moonSep.toFixed(0)}° from the target, altitude ${ephemeris.moonAltitudeDeg.toFixed(0)}°.`;
     duskMs = ephemeris.astronomicalDuskUtc ? Date.parse(ephemeris.astronomicalDuskUtc) : null;
     dawnMs = ephemeris.astronomicalDawnUtc ? Date.parse(ephemeris.astronomicalDawnUtc) : null;
@@ -282,5 +265,6 @@ export function sketchNotes(
       stepMin: stepMin ?? 0,
     }),
     moon,
+    windows: windows.map((w) => utcSpan(w.startMs, w.endMs)),
   };
 }

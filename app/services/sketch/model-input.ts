@@ -2,10 +2,23 @@
  * From the typed model inputs to the target model the API expects: one component, or with a second
  * component a two-component sum. Text that is not a number is reported beside its input. Pure.
  */
-import type { TargetModel } from "~/engine";
+import { MODEL_RANGES, type RangedParam, rangeFailure, type TargetModel } from "~/engine";
 import { type FieldErrors, INPUT_LABELS, readNumber } from "./inputs";
-import { MODEL_PARAMS, type ModelParam, type ModelState, PARAM_INFO } from "./models";
+import { MODEL_PARAMS, type ModelParam, type ModelState, PARAM_INFO, SECOND_INFO } from "./models";
 import type { CommonState } from "./state";
+
+/** A typed number checked against the range of the model parameter `param` (the API's own, ~/engine). */
+export function readInRange(
+  text: string,
+  label: string,
+  param: RangedParam,
+  unit?: string,
+): { ok: true; value: number } | { ok: false; message: string } {
+  const read = readNumber(text, label, unit);
+  if (!read.ok) return read;
+  const failure = rangeFailure(read.value, MODEL_RANGES[param]);
+  return failure ? { ok: false, message: `${label}: ${failure}` } : read;
+}
 
 /** The single model (no second component) as the API expects it, or the failing inputs. */
 function simpleModel(m: ModelState, prefix: "model" | "second", errors: FieldErrors): TargetModel | null {
@@ -13,7 +26,7 @@ function simpleModel(m: ModelState, prefix: "model" | "second", errors: FieldErr
   let ok = true;
   for (const p of MODEL_PARAMS[m.type]) {
     const info = PARAM_INFO[p];
-    const read = readNumber(m.params[p], info.label, info.unit);
+    const read = readInRange(m.params[p], info.label, p, info.unit);
     if (read.ok) values[p] = read.value;
     else {
       errors[`${prefix}.${p}`] = read.message;
@@ -50,9 +63,12 @@ export function modelFromState(s: Pick<CommonState, "model" | "second">, errors:
   const first = simpleModel(s.model, "model", errors);
   if (!s.second) return first;
   const second = simpleModel(s.second, "second", errors);
-  const flux = readNumber(s.second.flux, INPUT_LABELS["second.flux"]);
-  const east = readNumber(s.second.east, INPUT_LABELS["second.east"], "mas");
-  const north = readNumber(s.second.north, INPUT_LABELS["second.north"], "mas");
+  const sec = s.second;
+  const own = (k: keyof typeof SECOND_INFO, unit?: string) =>
+    readInRange(sec[k], INPUT_LABELS[`second.${k}`], SECOND_INFO[k].range, unit);
+  const flux = own("flux");
+  const east = own("east", "mas");
+  const north = own("north", "mas");
   if (!flux.ok) errors["second.flux"] = flux.message;
   if (!east.ok) errors["second.east"] = east.message;
   if (!north.ok) errors["second.north"] = north.message;

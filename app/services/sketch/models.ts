@@ -3,6 +3,7 @@
  * parameters kept as strings, an optional second component, their defaults, and the inputs filled
  * from a saved target's stored model. Pure.
  */
+import { MODEL_RANGES, type RangedParam, rangeText } from "~/engine";
 
 export const SIMPLE_MODEL_TYPES = ["point", "uniformDisk", "gaussian", "limbDarkenedDisk", "ring", "binary"] as const;
 export type SimpleModelType = (typeof SIMPLE_MODEL_TYPES)[number];
@@ -36,22 +37,56 @@ export const MODEL_PARAMS: Record<SimpleModelType, readonly ModelParam[]> = {
   binary: ["separationMas", "positionAngleDeg", "fluxRatio"],
 };
 
+const range = (p: RangedParam) => rangeText(MODEL_RANGES[p]);
+const capital = (t: string) => t[0].toUpperCase() + t.slice(1);
+
 export const PARAM_INFO: Record<
   ModelParam,
-  { label: string; unit?: string; urlKey: string; fallback: string; hint?: string }
+  { label: string; unit?: string; urlKey: string; fallback: string; hint: string }
 > = {
-  diameterMas: { label: "Diameter", unit: "mas", urlKey: "diam", fallback: "2" },
-  fwhmMas: { label: "FWHM", unit: "mas", urlKey: "fwhm", fallback: "2" },
+  diameterMas: {
+    label: "Diameter",
+    unit: "mas",
+    urlKey: "diam",
+    fallback: "2",
+    hint: `${capital(range("diameterMas"))}.`,
+  },
+  fwhmMas: { label: "FWHM", unit: "mas", urlKey: "fwhm", fallback: "2", hint: `${capital(range("fwhmMas"))}.` },
   coefficient: {
     label: "Limb-darkening coefficient",
     urlKey: "ld",
     fallback: "0.3",
-    hint: "Linear law I(μ) = 1 − a(1 − μ), a from 0 (uniform) to 1.",
+    hint: `Linear law I(μ) = 1 − a(1 − μ); a ${range("coefficient")} (0: uniform disk).`,
   },
-  separationMas: { label: "Separation", unit: "mas", urlKey: "sep", fallback: "4" },
-  positionAngleDeg: { label: "Position angle", unit: "° east of north", urlKey: "pa", fallback: "60" },
-  fluxRatio: { label: "Flux ratio", unit: "secondary / primary", urlKey: "ratio", fallback: "0.5" },
+  separationMas: {
+    label: "Separation",
+    unit: "mas",
+    urlKey: "sep",
+    fallback: "4",
+    hint: `${capital(range("separationMas"))}.`,
+  },
+  positionAngleDeg: {
+    label: "Position angle",
+    unit: "° east of north",
+    urlKey: "pa",
+    fallback: "60",
+    hint: `${capital(range("positionAngleDeg"))}.`,
+  },
+  fluxRatio: {
+    label: "Flux ratio",
+    unit: "secondary / primary",
+    urlKey: "ratio",
+    fallback: "0.5",
+    hint: `${capital(range("fluxRatio"))}; above 1 the secondary is the brighter.`,
+  },
 };
+
+/** The second component's own inputs, the range each is checked against and its hint. */
+export const SECOND_INFO = {
+  flux: { label: "Relative flux", unit: "first component = 1", range: "flux", hint: `${capital(range("flux"))}.` },
+  east: { label: "Offset east", unit: "mas", range: "offsetEastMas", hint: `${capital(range("offsetEastMas"))}.` },
+  north: { label: "Offset north", unit: "mas", range: "offsetNorthMas", hint: `${capital(range("offsetNorthMas"))}.` },
+} as const satisfies Record<string, { label: string; unit: string; range: RangedParam; hint: string }>;
 
 export interface ModelState {
   type: SimpleModelType;

@@ -2,10 +2,10 @@
  * From the typed inputs of the Sketchpad and the Triangle finder to the JSON bodies of
  * POST /api/coverage, /api/ephemeris and /api/triangles. Pure: shared by the pages and their tests.
  *
- * The builder checks what only the page can know (text that is not a number or an angle, a station
- * pick that is too small or larger than the instrument combines, the request size limits); ranges the
- * API already checks (a negative diameter, a minimum elevation above 90°) are left to it, and its
- * message is shown beside the input it names (./api-errors.ts).
+ * The builder checks what the page can before asking: text that is not a number or an angle, the
+ * physical ranges of the model parameters (the API's own, from ~/engine), the time step and minimum
+ * elevation, a station pick that is too small or larger than the instrument combines, the request
+ * size limits. Anything else the API refuses is shown beside the input it names (./api-errors.ts).
  */
 import {
   type BeamOptions,
@@ -14,15 +14,24 @@ import {
   MAX_SAMPLES,
   maxNightSamples,
   type ObservationInput,
+  rangeFailure,
   type TargetModel,
   type TrianglesInput,
 } from "~/engine";
 import { parseDeclination, parseRightAscension } from "~/lib/coordinates";
 import { type Built, type FieldErrors, INPUT_LABELS, readNumber } from "./inputs";
-import { MAX_SKETCH_HOUR_ANGLES, SKETCH_GRID_SIZE, sizeFailure, TRIANGLE_ROWS } from "./limits";
+import {
+  MAX_SKETCH_HOUR_ANGLES,
+  MIN_ELEVATION_RANGE,
+  NIGHT_STEP_RANGE,
+  SKETCH_GRID_SIZE,
+  sizeFailure,
+  TRIANGLE_ROWS,
+} from "./limits";
 import { modelFromState } from "./model-input";
 import { findBand, pickedStations, poolStations, type RegistryLike, siteBody, stationBodies } from "./registry";
 import type { CommonState, SketchState, TriangleState } from "./state";
+import { plural } from "./words";
 
 /** The POST /api/coverage body of a Sketchpad state: the observation and the beam with its images. */
 export type CoverageBody = ObservationInput & { beam?: Omit<BeamOptions, "robust"> | null };
@@ -79,6 +88,11 @@ function sampling(s: CommonState, errors: FieldErrors): { body: Sampling; bound:
     errors.step = step.message;
     return null;
   }
+  const outside = rangeFailure(step.value, NIGHT_STEP_RANGE);
+  if (outside) {
+    errors.step = `${INPUT_LABELS.step}: ${outside}`;
+    return null;
+  }
   return {
     body: { night: { date: s.date.trim(), stepMin: step.value } },
     bound: step.value > 0 ? Math.min(MAX_SAMPLES, maxNightSamples(step.value)) : 0,
@@ -100,6 +114,11 @@ function minElevation(s: CommonState, r: RegistryLike, errors: FieldErrors): num
   const read = readNumber(s.minElevation, INPUT_LABELS.minElevation, "degrees");
   if (!read.ok) {
     errors.minElevation = read.message;
+    return null;
+  }
+  const outside = rangeFailure(read.value, MIN_ELEVATION_RANGE);
+  if (outside) {
+    errors.minElevation = `${INPUT_LABELS.minElevation}: ${outside}`;
     return null;
   }
   return read.value;
@@ -172,7 +191,7 @@ function stationPickFailure(
   if (names.length < 2) return `${label}: pick at least 2 stations (${names.length} picked)`;
   if (found && names.length > found.instrument.maxTelescopes) {
     return (
-      `${label}: ${found.instrument.name} combines at most ${found.instrument.maxTelescopes} telescopes ` +
+      `${label}: ${found.instrument.name} combines at most ${plural(found.instrument.maxTelescopes, "telescope")} ` +
       `(${names.length} ${s.config !== "" ? `in ${s.config}` : "picked"}); pick fewer stations or another instrument`
     );
   }

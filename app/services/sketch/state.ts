@@ -208,6 +208,15 @@ export function sketchpadHref(s: CommonState, stations: readonly string[]): stri
 }
 
 /**
+ * The Triangle finder's address for the target, model, date, band and sampling of a Sketchpad state,
+ * with the sketch's configuration as the pool (every station for a free pick).
+ */
+export function trianglesHref(s: SketchState): string {
+  const state: TriangleState = { ...s, pool: s.config !== "" ? s.config : ALL_STATIONS };
+  return `${href("/triangles")}?${writeTriangleState(state).toString()}`;
+}
+
+/**
  * Coordinates of a target that is up tonight: on the meridian at local midnight of the night of
  * `date`, 5° north of the zenith's declination rounded to the degree.
  */

@@ -3,44 +3,12 @@ import {
   airmassRange,
   beamEllipse,
   cautions,
+  dirtyImageHalfWidthMas,
   imageWindow,
+  modelExtentMas,
   modelVis2Curves,
-  spatialFrequencyPoints,
   summariseReasons,
-  uvPoints,
 } from "~/services/sketch/figures";
-
-const baseline = {
-  stations: ["C01", "C02"] as [string, string],
-  points: [
-    { hourAngleH: -1, uM: 16, vM: 0, vis2: [0.9, 0.95] },
-    { hourAngleH: 0, uM: 12, vM: -5, vis2: [0.8, 0.85] },
-  ],
-};
-
-describe("uv plane", () => {
-  it("converts metres to Mλ per channel and adds the Hermitian twins", () => {
-    // u/λ: 16 m at 1.6 µm = 10⁷ wavelengths = 10 Mλ. V(−u,−v) = V*(u,v) for a real sky
-    // (Thompson, Moran & Swenson 2017, §3.1), so (−u, −v) is sampled as well.
-    const p = uvPoints(baseline, "mlambda", [1.6e-6, 2e-6]);
-    expect(p.u).toHaveLength(4);
-    expect(p.u[0]).toBeCloseTo(10, 12);
-    expect(p.u[1]).toBeCloseTo(8, 12);
-    expect(p.v[3]).toBeCloseTo(-2.5, 12);
-    expect(p.uTwin[0]).toBeCloseTo(-10, 12);
-    expect(p.vTwin[3]).toBeCloseTo(2.5, 12);
-    const m = uvPoints(baseline, "m", [1.6e-6, 2e-6]);
-    expect(m.u).toEqual([16, 12]);
-    expect(m.vTwin).toEqual([-0, 5]);
-  });
-
-  it("gives the spatial frequency √(u²+v²)/λ of every channel", () => {
-    // |(12, −5)| = 13 m; 13 m / 2 µm = 6.5 Mλ (common practice).
-    const f = spatialFrequencyPoints(baseline, [1.6e-6, 2e-6]);
-    expect(f.freqMl[3]).toBeCloseTo(6.5, 12);
-    expect(f.vis2).toEqual([0.9, 0.95, 0.8, 0.85]);
-  });
-});
 
 describe("model curves", () => {
   it("puts the first null of a uniform disk at 1.2197 λ/θ", () => {
@@ -189,5 +157,27 @@ describe("samples", () => {
         stepMin: 10,
       }),
     ).toEqual([]);
+  });
+});
+
+describe("dirty image window", () => {
+  it("reaches three times the model's extent and at least eight beam widths", () => {
+    // Extents by definition: a disk's radius, a Gaussian's FWHM, a binary's separation; a sum's
+    // farthest component is its offset √(3² + 4²) = 5 mas plus its own radius 1 mas (common practice).
+    expect(modelExtentMas({ type: "point" })).toBe(0);
+    expect(modelExtentMas({ type: "uniformDisk", diameterMas: 3 })).toBe(1.5);
+    expect(modelExtentMas({ type: "gaussian", fwhmMas: 2 })).toBe(2);
+    expect(modelExtentMas({ type: "binary", separationMas: 4, positionAngleDeg: 60, fluxRatio: 0.4 })).toBe(4);
+    const sum = {
+      type: "sum" as const,
+      components: [
+        { model: { type: "point" as const }, flux: 1, offsetEastMas: 0, offsetNorthMas: 0 },
+        { model: { type: "ring" as const, diameterMas: 2 }, flux: 0.5, offsetEastMas: 3, offsetNorthMas: 4 },
+      ],
+    };
+    expect(modelExtentMas(sum)).toBeCloseTo(6, 12);
+    expect(dirtyImageHalfWidthMas(sum, 0.5)).toBeCloseTo(18, 12);
+    expect(dirtyImageHalfWidthMas({ type: "point" }, 0.5)).toBe(4);
+    expect(dirtyImageHalfWidthMas(sum, null)).toBe(Infinity);
   });
 });

@@ -94,18 +94,44 @@ describe("coverage request of a sketch", () => {
     expect(hourAngleList(0, 1, 0.1)).toHaveLength(11);
   });
 
-  it("leaves range checks to the API and shows its message beside the right input", () => {
-    // A declination beyond the pole typed in decimal degrees is refused by the parser already; a
-    // negative diameter and a minimum elevation above 90° reach the API, whose 400 names the field.
-    const refused = sent(builtBody("ra=84&dec=-1&model=uniformDisk&diam=-2"));
+  it("checks the physical ranges before asking, with the API's own ranges and words", () => {
+    // The page refuses what the API would refuse (~/engine MODEL_RANGES), beside the input, with the range.
+    const tooBig = buildCoverageRequest(sketch("ra=84&dec=-1&model=uniformDisk&diam=1e9"), registry);
+    expect(!tooBig.ok && tooBig.errors["model.diameterMas"]).toBe(
+      "Diameter: must be above 0 and at most 1000 mas (got 1000000000 mas)",
+    );
+    const negative = buildCoverageRequest(sketch("ra=84&dec=-1&model=uniformDisk&diam=-2"), registry);
+    expect(!negative.ok && negative.errors["model.diameterMas"]).toBe(
+      "Diameter: must be above 0 and at most 1000 mas (got -2 mas)",
+    );
+    // The API says the same of the same value, and the page puts it beside the same input.
+    const body = builtBody("ra=84&dec=-1&model=uniformDisk&diam=2");
+    const refused = sent({ ...body, target: { ...body.target, model: { type: "uniformDisk", diameterMas: 1e9 } } });
     expect(refused.ok).toBe(false);
     if (refused.ok) return;
     expect(inputForApiField(refused.field)).toBe("model.diameterMas");
-    expect(apiErrorText(refused.field, refused.message)).toBe("Diameter: must be positive");
+    expect(apiErrorText(refused.field, refused.message)).toBe(!tooBig.ok && tooBig.errors["model.diameterMas"]);
 
-    const r2 = sent(builtBody("ra=84&dec=-1&minel=95"));
-    expect(!r2.ok && apiErrorText(r2.field, r2.message)).toBe("Minimum elevation: must be between 0 and 90");
+    const ratio = buildCoverageRequest(sketch("ra=84&dec=-1&model=binary&sep=4&pa=400&ratio=250"), registry);
+    expect(!ratio.ok && ratio.errors).toMatchObject({
+      "model.positionAngleDeg": "Position angle: must be from -360° to 360° (got 400°)",
+      "model.fluxRatio": "Flux ratio: must be from 0 to 100 (got 250)",
+    });
+    const second = buildCoverageRequest(sketch("ra=84&dec=-1&c2=point&c2flux=2000&c2east=5000"), registry);
+    expect(!second.ok && second.errors).toMatchObject({
+      "second.flux": "Relative flux: must be above 0 and at most 1000 (got 2000)",
+      "second.east": "Offset east: must be from -1000 to 1000 mas (got 5000 mas)",
+    });
+    const minEl = buildCoverageRequest(sketch("ra=84&dec=-1&minel=95"), registry);
+    expect(!minEl.ok && minEl.errors.minElevation).toBe("Minimum elevation: must be from 0° to 90° (got 95°)");
+    const step = buildCoverageRequest(sketch("ra=84&dec=-1&step=0.5"), registry);
+    expect(!step.ok && step.errors.step).toBe("Time step: must be from 1 to 120 min (got 0.5 min)");
 
+    // The edges of each range are accepted.
+    expect(buildCoverageRequest(sketch("ra=84&dec=-1&model=uniformDisk&diam=1000&minel=90"), registry).ok).toBe(true);
+    expect(buildCoverageRequest(sketch("ra=84&dec=-1&model=binary&sep=0&pa=-360&ratio=100"), registry).ok).toBe(true);
+
+    // What the page does not check itself still reaches the API, whose 400 names the field.
     const r3 = sent(builtBody("ra=84&dec=-1&ha=-13,0,1"));
     expect(!r3.ok && inputForApiField(r3.field, "hourAngle")).toBe("ha");
   });

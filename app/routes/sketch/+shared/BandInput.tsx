@@ -2,6 +2,7 @@
 import { SelectField } from "~/components/ui";
 import { describeChannels } from "~/engine";
 import type { RegistryLike } from "~/services/sketch/registry";
+import { plural } from "~/services/sketch/words";
 import type { GroupProps } from "./InputGroup";
 
 /** Instrument and band names joined in one option value (a character no name contains). */
@@ -18,7 +19,7 @@ export function BandInput({ state, set, errors, registry }: GroupProps & { regis
       error={errors.band}
       hint={
         band && inst
-          ? `${describeChannels(band)}. ${inst.name} combines up to ${inst.maxTelescopes} telescopes.`
+          ? `${describeChannels(band)}. ${inst.name} combines up to ${plural(inst.maxTelescopes, "telescope")}.`
           : "Channels spread evenly across the band."
       }
       onChange={(e) => {
@@ -31,7 +32,7 @@ export function BandInput({ state, set, errors, registry }: GroupProps & { regis
         <optgroup key={i.name} label={i.name}>
           {i.bands.map((b) => (
             <option key={b.name} value={`${i.name}${SEP}${b.name}`}>
-              {i.name} {b.name} — {(b.centralWavelengthM * 1e6).toFixed(2)} µm, {b.channels} channels
+              {i.name} {b.name} — {(b.centralWavelengthM * 1e6).toFixed(2)} µm, {plural(b.channels, "channel")}
             </option>
           ))}
         </optgroup>

@@ -11,11 +11,25 @@ import type { CommonState } from "~/services/sketch/state";
 /** How an input group changes the page's state: a patch of the inputs it owns. */
 export type Patch = (patch: Partial<CommonState>) => void;
 
-/** The props of every input group: the state as typed, its patcher and the errors to show. */
+/**
+ * The props of every input group: the state as typed, its patchers and the errors to show. `set` is
+ * for picks (selects, checkboxes, buttons: computed at once), `type` for typing (computed once the
+ * typing pauses).
+ */
 export interface GroupProps {
   state: CommonState;
   set: Patch;
+  type: Patch;
   errors: FieldErrors;
+}
+
+/** True for an input a person types into (text, number, date), false for selects, checkboxes and radios. */
+export function isTyped(target: EventTarget | null): boolean {
+  return (
+    typeof HTMLInputElement !== "undefined" &&
+    target instanceof HTMLInputElement &&
+    !["checkbox", "radio", "button", "submit", "reset", "range", "color", "file"].includes(target.type)
+  );
 }
 
 /** The keys of `S` whose values are strings (the inputs kept as typed). */
@@ -23,13 +37,15 @@ type TextKey<S> = { [K in keyof S]: S[K] extends string ? K : never }[keyof S] &
 
 /**
  * Binds text fields and selects to the strings of a state: `field("date")` gives the form name
- * (the key unless told), the value as typed and the change handler that patches it.
+ * (the key unless told), the value as typed and the change handler that patches it — through `type`
+ * when the change comes from typing, through `set` for a pick.
  */
-export function binder<S>(state: S, set: (patch: Partial<S>) => void) {
+export function binder<S>(state: S, set: (patch: Partial<S>) => void, type: (patch: Partial<S>) => void = set) {
   return (key: TextKey<S>, name: string = key) => ({
     name,
     value: state[key] as string,
-    onChange: (e: { target: { value: string } }) => set({ [key]: e.target.value } as Partial<S>),
+    onChange: (e: { target: EventTarget & { value: string } }) =>
+      (isTyped(e.target) ? type : set)({ [key]: e.target.value } as Partial<S>),
   });
 }
 

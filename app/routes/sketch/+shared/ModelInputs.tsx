@@ -11,6 +11,7 @@ import {
   type ModelParam,
   type ModelState,
   PARAM_INFO,
+  SECOND_INFO,
   type SecondComponentState,
   SIMPLE_MODEL_TYPES,
   type SimpleModelType,
@@ -21,12 +22,16 @@ function ModelParams({
   model,
   prefix,
   errors,
-  onChange,
+  onPick,
+  onType,
 }: {
   model: ModelState;
   prefix: "model" | "second";
   errors: FieldErrors;
-  onChange: (m: ModelState) => void;
+  /** A new model type (computed at once). */
+  onPick: (m: ModelState) => void;
+  /** A parameter typed (computed once the typing pauses). */
+  onType: (m: ModelState) => void;
 }) {
   return (
     <>
@@ -35,7 +40,7 @@ function ModelParams({
         name={prefix === "model" ? "model" : "c2"}
         value={model.type}
         error={errors[prefix]}
-        onChange={(e) => onChange({ ...model, type: e.target.value as SimpleModelType })}
+        onChange={(e) => onPick({ ...model, type: e.target.value as SimpleModelType })}
       >
         {SIMPLE_MODEL_TYPES.map((t) => (
           <option key={t} value={t}>
@@ -56,7 +61,7 @@ function ModelParams({
             value={model.params[p]}
             hint={info.hint}
             error={errors[`${prefix}.${p}`]}
-            onChange={(e) => onChange({ ...model, params: { ...model.params, [p]: e.target.value } })}
+            onChange={(e) => onType({ ...model, params: { ...model.params, [p]: e.target.value } })}
           />
         );
       })}
@@ -64,48 +69,52 @@ function ModelParams({
   );
 }
 
-/** The second component's own inputs: relative flux, offset east and offset north. */
-const SECOND_FIELDS = {
-  flux: { label: "Relative flux", unit: "first component = 1" },
-  east: { label: "Offset east", unit: "mas" },
-  north: { label: "Offset north", unit: "mas" },
-} as const;
-
 function SecondField({
   field,
   second,
   errors,
-  set,
-}: Pick<GroupProps, "errors" | "set"> & { field: keyof typeof SECOND_FIELDS; second: SecondComponentState }) {
+  type,
+}: Pick<GroupProps, "errors" | "type"> & { field: keyof typeof SECOND_INFO; second: SecondComponentState }) {
+  const info = SECOND_INFO[field];
   return (
     <TextField
-      {...SECOND_FIELDS[field]}
+      label={info.label}
+      unit={info.unit}
+      hint={info.hint}
       name={`c2${field}`}
       inputMode="decimal"
+      autoComplete="off"
       value={second[field]}
       error={errors[`second.${field}`]}
-      onChange={(e) => set({ second: { ...second, [field]: e.target.value } })}
+      onChange={(e) => type({ second: { ...second, [field]: e.target.value } })}
     />
   );
 }
 
-export function ModelInputs({ state, set, errors }: GroupProps) {
+export function ModelInputs({ state, set, type, errors }: GroupProps) {
   const second = state.second;
   return (
     <InputGroup title="Source model">
-      <ModelParams model={state.model} prefix="model" errors={errors} onChange={(model) => set({ model })} />
+      <ModelParams
+        model={state.model}
+        prefix="model"
+        errors={errors}
+        onPick={(model) => set({ model })}
+        onType={(model) => type({ model })}
+      />
       {second ? (
         <div className="space-y-3 border-t border-night-100 pt-3">
           <ModelParams
             model={second}
             prefix="second"
             errors={errors}
-            onChange={(m) => set({ second: { ...second, ...m } })}
+            onPick={(m) => set({ second: { ...second, ...m } })}
+            onType={(m) => type({ second: { ...second, ...m } })}
           />
-          <SecondField field="flux" second={second} errors={errors} set={set} />
-          <div className="grid grid-cols-2 gap-3">
-            <SecondField field="east" second={second} errors={errors} set={set} />
-            <SecondField field="north" second={second} errors={errors} set={set} />
+          <SecondField field="flux" second={second} errors={errors} type={type} />
+          <div className="grid gap-3 sm:grid-cols-2">
+            <SecondField field="east" second={second} errors={errors} type={type} />
+            <SecondField field="north" second={second} errors={errors} type={type} />
           </div>
           <Button variant="ghost" size="sm" onClick={() => set({ second: null })}>
             Remove the second component

@@ -2,6 +2,7 @@
 import { useMemo } from "react";
 import { DataTable } from "~/components/ui";
 import type { TrianglesResponse } from "~/engine";
+import { plural } from "~/services/sketch/words";
 import { type TriangleRow, triangleColumns } from "./triangle-columns";
 
 export function RankingTable({ result, rows }: { result: TrianglesResponse; rows: TriangleRow[] }) {
@@ -15,10 +16,10 @@ export function RankingTable({ result, rows }: { result: TrianglesResponse; rows
         Ranked triangles
       </h2>
       <p className="text-sm text-night-700">
-        {result.triangleCount} triangles of {result.stationCount} stations over {result.sampleCount} samples of{" "}
-        {(result.sampleDurationH * 60).toFixed(0)} min
+        {plural(result.triangleCount, "triangle")} of {plural(result.stationCount, "station")} over{" "}
+        {plural(result.sampleCount, "sample")} of {(result.sampleDurationH * 60).toFixed(0)} min
         {result.triangles.length < result.triangleCount ? `; the best ${result.triangles.length} are listed` : ""}. The
-        pool has {result.independentClosurePhases} independent closure phases. {result.scoring}.
+        pool has {plural(result.independentClosurePhases, "independent closure phase")}. {result.scoring}.
       </p>
       <DataTable
         caption="Station triangles ranked for the target"

@@ -3,6 +3,8 @@
  * observing limits (minimum elevation, the delay-line check).
  */
 import { SelectField, TextField } from "~/components/ui";
+import { rangeText } from "~/engine";
+import { MIN_ELEVATION_RANGE, NIGHT_STEP_RANGE } from "~/services/sketch/limits";
 import type { RegistryLike } from "~/services/sketch/registry";
 import { type CommonState, STEP_CHOICES_MIN } from "~/services/sketch/state";
 import { binder, type GroupProps, InputError, InputGroup } from "./InputGroup";
@@ -18,8 +20,8 @@ const HOUR_ANGLE_FIELDS = [
   ["haStep", "Step"],
 ] as const satisfies readonly (readonly [keyof CommonState, string])[];
 
-function HourAngleRange({ state, set, errors }: GroupProps) {
-  const field = binder(state, set);
+function HourAngleRange({ state, set, type, errors }: GroupProps) {
+  const field = binder(state, set, type);
   return (
     <div className="space-y-1">
       <div className="grid grid-cols-3 gap-2">
@@ -43,11 +45,17 @@ function HourAngleRange({ state, set, errors }: GroupProps) {
   );
 }
 
-function TimeStep({ state, set, errors, hint }: GroupProps & { hint?: string }) {
+function TimeStep({ state, set, errors, hint }: Omit<GroupProps, "type"> & { hint?: string }) {
   const known = (STEP_CHOICES_MIN as readonly string[]).includes(state.stepMin);
   const field = binder(state, set);
   return (
-    <SelectField label="Time step" unit="minutes" {...field("stepMin", "step")} error={errors.step} hint={hint}>
+    <SelectField
+      label="Time step"
+      unit="minutes"
+      {...field("stepMin", "step")}
+      error={errors.step}
+      hint={hint ?? `A shared link may carry any step ${rangeText(NIGHT_STEP_RANGE)}.`}
+    >
       {!known ? <option value={state.stepMin}>{state.stepMin}</option> : null}
       {STEP_CHOICES_MIN.map((m) => (
         <option key={m} value={m}>
@@ -61,11 +69,12 @@ function TimeStep({ state, set, errors, hint }: GroupProps & { hint?: string }) 
 export function SamplingInputs({
   state,
   set,
+  type,
   errors,
   site,
   stepHint,
 }: GroupProps & { site: RegistryLike["site"]; stepHint?: string }) {
-  const field = binder(state, set);
+  const field = binder(state, set, type);
   return (
     <InputGroup title="When">
       <TextField
@@ -93,7 +102,7 @@ export function SamplingInputs({
       {state.sampling === "night" ? (
         <TimeStep state={state} set={set} errors={errors} hint={stepHint} />
       ) : (
-        <HourAngleRange state={state} set={set} errors={errors} />
+        <HourAngleRange state={state} set={set} type={type} errors={errors} />
       )}
       <TextField
         label="Minimum elevation"
@@ -101,6 +110,7 @@ export function SamplingInputs({
         inputMode="decimal"
         {...field("minElevation", "minel")}
         placeholder={`${site.minElevationDeg} (the site's)`}
+        hint={`Allowed ${rangeText(MIN_ELEVATION_RANGE)}; empty: the site's ${site.minElevationDeg}°.`}
         error={errors.minElevation}
       />
       <div>

@@ -2,7 +2,7 @@
  * The Sketchpad's live panels, drawn from the last answer that could be computed and the request it
  * answers (not from the form, which may have changed since).
  */
-import { useMemo } from "react";
+import { memo, useMemo } from "react";
 import { BeamPanel } from "~/components/plots/BeamPanel";
 import { ElevationPanel } from "~/components/plots/ElevationPanel";
 import { FiguresPanel, NotesPanel } from "~/components/plots/SummaryPanels";
@@ -13,14 +13,27 @@ import { sketchNotes } from "~/services/sketch/figures";
 import type { RegistryLike } from "~/services/sketch/registry";
 import type { CoverageBody } from "~/services/sketch/request";
 
-export function SketchPanels({
+/** An answer of the coverage API and the request it answers. */
+export interface Shown {
+  result: CoverageResponse;
+  body: CoverageBody;
+}
+
+/**
+ * Memoized: typing in a field re-renders the page, not the panels; they draw again only when the
+ * answer, the ephemeris or the uv unit changes.
+ */
+export const SketchPanels = memo(function SketchPanels({
   shown,
+  beam,
   ephemeris,
   site,
   uvUnit,
   onUvUnit,
 }: {
-  shown: { result: CoverageResponse; body: CoverageBody; elapsedMs: number };
+  shown: Shown;
+  /** The dirty beam of the sketch (from its own, slower request); undefined until it first comes. */
+  beam: CoverageResponse["beam"] | undefined;
   ephemeris: EphemerisResponse | undefined;
   site: RegistryLike["site"];
   uvUnit: UvUnit;
@@ -30,7 +43,7 @@ export function SketchPanels({
   const notes = useMemo(() => sketchNotes(body, result.samples, ephemeris), [body, result, ephemeris]);
   return (
     <div className="grid gap-4 xl:grid-cols-2">
-      <FiguresPanel coverage={result} stations={body.stations.length} elapsedMs={shown.elapsedMs} />
+      <FiguresPanel coverage={result} stations={body.stations.length} />
       <UvPlanePanel coverage={result} unit={uvUnit} onUnit={onUvUnit} />
       <ElevationPanel
         coverage={result}
@@ -42,11 +55,11 @@ export function SketchPanels({
         minElevationDeg={body.minElevationDeg}
       />
       <div className="xl:col-span-2">
-        <BeamPanel beam={result.beam} />
+        <BeamPanel beam={beam} model={body.target.model} />
       </div>
       <VisibilityPanel coverage={result} model={body.target.model} />
       <ClosurePanel coverage={result} />
-      <NotesPanel coverage={result} cautions={notes.cautions} moonLine={notes.moon} />
+      <NotesPanel coverage={result} cautions={notes.cautions} moonLine={notes.moon} windows={notes.windows} />
     </div>
   );
-}
+});

@@ -1,34 +1,57 @@
 /**
  * The Sketchpad: inputs on the left (on top on narrow screens), live panels on the right. Inputs live
- * in the URL; the settled inputs are turned into API requests (coverage with beam images, and the
- * night's ephemeris) fetched with SWR. The last good answer stays on screen while a new one is being
- * computed or while an input is invalid.
+ * in the URL; the settled inputs (a pick at once, typing once it pauses) are turned into API requests
+ * fetched with SWR, a superseded request cancelled: the coverage without the beam (quick: uv tracks,
+ * visibilities, closure phases, elevation), the same coverage with the dirty beam and its images (the
+ * slow part, drawn last), and the night's ephemeris. The last good answer stays on screen while a new one is being computed or while an input
+ * is invalid. The status line tells how long a change took until its plots were drawn.
  */
-import { useMemo, useRef } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { href } from "react-router";
-import { Button, EmptyState, PageHeader, SelectField } from "~/components/ui";
+import { whenDrawn } from "~/components/plots/draw-queue";
+import type { UvUnit } from "~/components/plots/UvPlanePanel";
+import { Button, ButtonLink, EmptyState, PageHeader, SelectField } from "~/components/ui";
 import type { CoverageResponse, EphemerisResponse } from "~/engine";
-import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
 import { apiErrorText, inputErrors } from "~/services/sketch/api-errors";
 import { pickedStations } from "~/services/sketch/registry";
 import { buildCoverageRequest, buildEphemerisRequest, type CoverageBody } from "~/services/sketch/request";
-import { exampleTarget, readSketchState, writeSketchState } from "~/services/sketch/state";
+import { exampleTarget, readSketchState, trianglesHref, writeSketchState } from "~/services/sketch/state";
+import { plural, sketchStatus } from "~/services/sketch/words";
 import { useApi } from "./api";
 import { BandInput } from "./BandInput";
 import { binder, InputError, InputGroup } from "./InputGroup";
 import { ModelInputs } from "./ModelInputs";
 import { SamplingInputs } from "./SamplingInputs";
 import type { SketchPageProps } from "./SketchPage";
-import { SketchPanels } from "./SketchPanels";
+import { type Shown, SketchPanels } from "./SketchPanels";
 import { StationPicker } from "./StationPicker";
-import { CopyLinkButton, StatusBar } from "./StatusBar";
+import { CopyLinkButton, ShownTarget, StatusBar } from "./StatusBar";
 import { TargetInputs } from "./TargetInputs";
 import { useSketchState } from "./useUrlState";
 
 const CODEC = { read: readSketchState, write: writeSketchState };
 
+/**
+ * How long the last change took until its plots were drawn: once the answers for the current inputs
+ * are at hand (`complete`), waits for the page's draw queue to empty. Null until then.
+ */
+function useDrawnMs(complete: boolean, changedAt: number): number | null {
+  const [drawn, setDrawn] = useState<{ changedAt: number; ms: number } | null>(null);
+  useEffect(() => {
+    if (!complete) return;
+    let live = true;
+    void whenDrawn().then(() => {
+      if (live) setDrawn({ changedAt, ms: performance.now() - changedAt });
+    });
+    return () => {
+      live = false;
+    };
+  }, [complete, changedAt]);
+  return drawn && drawn.changedAt === changedAt ? drawn.ms : null;
+}
+
 export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: SketchPageProps) {
-  const { state, settled, pending, set } = useSketchState(CODEC, { defaults, multiSite });
+  const { state, settled, changedAt, pending, set, type } = useSketchState(CODEC, { defaults, multiSite });
   const field = binder(state, set);
 
   const built = useMemo(() => buildCoverageRequest(settled, registry), [settled, registry]);
@@ -36,58 +59,64 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
     () => (settled.sampling === "night" ? buildEphemerisRequest(settled, registry) : null),
     [settled, registry],
   );
-  const coverage = useApi<CoverageResponse>(href("/api/coverage"), built.ok ? built.body : null);
+  const bodies = useMemo(() => (built.ok ? { light: { ...built.body, beam: null }, beam: built.body } : null), [built]);
+  const coverage = useApi<CoverageResponse>(href("/api/coverage"), bodies?.light ?? null);
+  const withBeam = useApi<CoverageResponse>(href("/api/coverage"), bodies?.beam ?? null);
   const ephemeris = useApi<EphemerisResponse>(href("/api/ephemeris"), ephemerisBody);
 
-  // The last good answer and the request it answers (panels read their inputs from that request).
-  const lastGood = useRef<{ result: CoverageResponse; body: CoverageBody; elapsedMs: number } | null>(null);
+  // The last good answers and the request they answer (panels read their inputs from that request).
+  const lastGood = useRef<Shown | null>(null);
   if (coverage.data && lastGood.current?.result !== coverage.data.result) {
-    lastGood.current = {
-      result: coverage.data.result,
-      body: JSON.parse(coverage.data.request) as CoverageBody,
-      elapsedMs: coverage.data.elapsedMs,
-    };
+    lastGood.current = { result: coverage.data.result, body: JSON.parse(coverage.data.request) as CoverageBody };
   }
   const shown = lastGood.current;
-  const currentKey = built.ok ? JSON.stringify(built.body) : null;
-  const upToDate = shown !== null && currentKey !== null && coverage.data?.request === currentKey && !coverage.error;
+  const lastBeam = useRef<CoverageResponse["beam"] | undefined>(undefined);
+  if (withBeam.data) lastBeam.current = withBeam.data.result.beam;
+  const upToDate = shown !== null && built.ok && coverage.current && !coverage.error;
+  const complete = upToDate && withBeam.current && !withBeam.error && (ephemerisBody === null || ephemeris.current);
+  const drawnMs = useDrawnMs(complete, changedAt);
 
   const { errors, formError } = inputErrors(
     built,
-    [coverage.error, ephemerisBody ? ephemeris.error : undefined],
+    [coverage.error, withBeam.error, ephemerisBody ? ephemeris.error : undefined],
     settled.sampling,
   );
 
-  const busy = pending || coverage.isValidating || ephemeris.isValidating;
   const waiting = !built.ok && built.waiting;
+  const refusal = coverage.error ?? withBeam.error;
   const stations = pickedStations(settled, registry);
+  const status = sketchStatus({
+    typing: pending,
+    computing: built.ok && !(coverage.current && withBeam.current),
+    refused: !!(coverage.error || withBeam.error),
+    busyRetryS: refusal?.retryAfterS ?? null,
+    ready: built.ok,
+    waitingForTarget: waiting,
+    answered: complete,
+    drawnMs,
+    opened: changedAt === 0,
+  });
 
-  function fillExample() {
+  const fillExample = () =>
     set({ name: state.name || "Example field", ...exampleTarget(state.date || defaults.date, registry.site) });
-  }
-
-  const statusText = pending
-    ? "Waiting for you to finish typing…"
-    : coverage.isValidating
-      ? "Computing the sketch…"
-      : built.ok && coverage.error
-        ? coverage.error.retryAfterS !== null
-          ? `The server is busy: asking again in ${coverage.error.retryAfterS} s`
-          : "Not computed: fix the marked input"
-        : built.ok && upToDate
-          ? `Up to date (${((coverage.data?.elapsedMs ?? 0) / 1000).toFixed(2)} s round trip)`
-          : built.ok
-            ? "Ready"
-            : waiting
-              ? "Waiting for a target"
-              : "Fix the marked inputs to update";
+  const onUvUnit = useCallback((uvUnit: UvUnit) => set({ uvUnit }), [set]);
+  const groups = { state, set, type, errors };
 
   return (
     <>
       <PageHeader
         title="Sketchpad"
         lead={`Try a target on the ${registry.site.name}: uv coverage, elevation through the night, dirty beam, visibilities and closure phases update as you type. The address keeps every input, so a sketch can be shared.`}
-        actions={<CopyLinkButton />}
+        actions={
+          <>
+            {built.ok ? (
+              <ButtonLink to={trianglesHref(settled)} variant="secondary">
+                Rank triangles for this target
+              </ButtonLink>
+            ) : null}
+            <CopyLinkButton />
+          </>
+        }
       />
       <div className="grid gap-6 lg:grid-cols-[20rem_minmax(0,1fr)]">
         <form
@@ -95,10 +124,10 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
           onSubmit={(e) => e.preventDefault()}
           className="space-y-4 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:self-start lg:overflow-y-auto lg:pb-4 lg:pr-1"
         >
-          <TargetInputs state={state} set={set} errors={errors} onExample={fillExample} savedTargets={savedTargets} />
+          <TargetInputs {...groups} onExample={fillExample} savedTargets={savedTargets} />
           <StationPicker state={state} set={set} errors={errors} registry={registry} />
           <InputGroup title="Instrument">
-            <BandInput state={state} set={set} errors={errors} registry={registry} />
+            <BandInput {...groups} registry={registry} />
             <SelectField
               label="Beam weighting"
               {...field("weighting", "wt")}
@@ -110,23 +139,16 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
               <option value="robust">Robust (R = 0)</option>
             </SelectField>
           </InputGroup>
-          <ModelInputs state={state} set={set} errors={errors} />
-          <SamplingInputs state={state} set={set} errors={errors} site={registry.site} />
+          <ModelInputs {...groups} />
+          <SamplingInputs {...groups} site={registry.site} />
         </form>
 
-        <div className="min-w-0 space-y-4" aria-busy={busy}>
-          <StatusBar busy={busy} text={statusText} problem={!waiting && (!built.ok || !!coverage.error)}>
-            {shown ? (
-              <span className="text-sm text-night-600">
-                {shown.body.target.name ? `${shown.body.target.name}: ` : ""}
-                {formatRightAscension(shown.body.target.raDeg, 1)} {formatDeclination(shown.body.target.decDeg, 0)} ·{" "}
-                {shown.body.stations.map((s) => s.name).join(" ")} ·{" "}
-                {shown.body.night ? `night of ${shown.body.night.date}` : "hour angles"}
-              </span>
-            ) : null}
+        <div className="min-w-0 space-y-4" aria-busy={status.busy}>
+          <StatusBar busy={status.busy} text={status.text} problem={status.problem}>
+            {shown ? <ShownTarget body={shown.body} /> : null}
           </StatusBar>
           <InputError message={formError} boxed />
-          {shown && !upToDate && !busy && !waiting ? (
+          {shown && !upToDate && !status.busy && !waiting ? (
             <p
               role="status"
               className="rounded-lg border border-caution-700/30 bg-caution-50 p-3 text-sm text-caution-700"
@@ -135,29 +157,28 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
             </p>
           ) : null}
 
-          {shown && !(waiting && !busy) ? (
+          {shown && !(waiting && !status.busy) ? (
             <SketchPanels
               shown={shown}
+              beam={lastBeam.current}
               ephemeris={ephemeris.data?.result}
               site={registry.site}
               uvUnit={state.uvUnit}
-              onUvUnit={(uvUnit) => set({ uvUnit })}
+              onUvUnit={onUvUnit}
             />
           ) : waiting ? (
             <EmptyState
               title="Type a target to start"
               action={<Button onClick={fillExample}>Try a target that is up tonight</Button>}
             >
-              Give the right ascension and declination (J2000) on the left. {stations.length} stations are chosen; the
-              panels appear as soon as the coordinates are complete.
+              Give the right ascension and declination (J2000) on the left.{" "}
+              {plural(stations.length, "station is", "stations are")} chosen; the panels appear as soon as the
+              coordinates are complete.
             </EmptyState>
-          ) : !built.ok || coverage.error ? (
+          ) : !built.ok || refusal ? (
             <EmptyState title="Nothing to draw yet">
               Fix the inputs marked in red on the left
-              {coverage.error && !formError
-                ? `: ${apiErrorText(coverage.error.field, coverage.error.message, settled.sampling)}`
-                : ""}
-              .
+              {refusal && !formError ? `: ${apiErrorText(refusal.field, refusal.message, settled.sampling)}` : ""}.
             </EmptyState>
           ) : (
             <EmptyState title="Computing the first sketch…">This takes about a second.</EmptyState>

@@ -3,14 +3,36 @@
  * station) or with the checkboxes below it (keyboard). Picking on the map while a configuration is
  * chosen starts a free pick from that configuration's stations.
  */
+import { useMemo } from "react";
 import { Plot, plotLayout, stationPoints } from "~/components/plots/Plot";
 import { SelectField } from "~/components/ui";
 import type { FieldErrors } from "~/services/sketch/inputs";
 import { pickedStations, type RegistryLike } from "~/services/sketch/registry";
 import type { SketchState } from "~/services/sketch/state";
+import { plural } from "~/services/sketch/words";
 import { binder, InputGroup } from "./InputGroup";
 
 const FREE = "";
+const MAP_CONFIG = { displayModeBar: false, scrollZoom: false };
+type Station = RegistryLike["stations"][number];
+
+/** The map's markers of some stations: filled when in the sketch, hollow when not. */
+function stationTrace(list: readonly Station[], chosen: boolean) {
+  return {
+    type: "scatter",
+    mode: "markers+text",
+    name: chosen ? "In the sketch" : "Not used",
+    ...stationPoints(list),
+    customdata: list.map((s) => s.name),
+    textposition: "top center",
+    textfont: { size: 10, color: chosen ? "#7f2e14" : "#56637f" },
+    marker: chosen
+      ? { size: 12, color: "#a03611", line: { color: "#672813", width: 1 } }
+      : { size: 9, color: "#ffffff", line: { color: "#7583a3", width: 1.5 } },
+    hovertemplate: `%{customdata}<br>east %{x:.1f} m, north %{y:.1f} m<br>${chosen ? "click to remove" : "click to add"}<extra></extra>`,
+    cliponaxis: false,
+  };
+}
 
 export function StationPicker({
   state,
@@ -37,22 +59,27 @@ export function StationPicker({
     set({ config: FREE, stations: registry.stations.filter((s) => next.has(s.name)).map((s) => s.name) });
   }
 
-  const on = registry.stations.filter((s) => pickedSet.has(s.name));
-  const off = registry.stations.filter((s) => !pickedSet.has(s.name));
-  const trace = (list: typeof registry.stations, chosen: boolean) => ({
-    type: "scatter",
-    mode: "markers+text",
-    name: chosen ? "In the sketch" : "Not used",
-    ...stationPoints(list),
-    customdata: list.map((s) => s.name),
-    textposition: "top center",
-    textfont: { size: 10, color: chosen ? "#7f2e14" : "#56637f" },
-    marker: chosen
-      ? { size: 12, color: "#a03611", line: { color: "#672813", width: 1 } }
-      : { size: 9, color: "#ffffff", line: { color: "#7583a3", width: 1.5 } },
-    hovertemplate: `%{customdata}<br>east %{x:.1f} m, north %{y:.1f} m<br>${chosen ? "click to remove" : "click to add"}<extra></extra>`,
-    cliponaxis: false,
-  });
+  const pickedKey = picked.join(",");
+  // Drawn again only when the pick changes (not while a field elsewhere is being typed in).
+  // biome-ignore lint/correctness/useExhaustiveDependencies: the pick is read through its key.
+  const data = useMemo(() => {
+    const on = registry.stations.filter((s) => pickedSet.has(s.name));
+    const off = registry.stations.filter((s) => !pickedSet.has(s.name));
+    return [stationTrace(off, false), stationTrace(on, true)];
+  }, [pickedKey, registry.stations]);
+  const layout = useMemo(
+    () =>
+      plotLayout({
+        margin: { l: 44, r: 8, t: 8, b: 40 },
+        showlegend: false,
+        xaxis: { title: { text: "East (m) →", standoff: 4 }, zeroline: false },
+        yaxis: { title: { text: "North (m)", standoff: 4 }, scaleanchor: "x", scaleratio: 1, zeroline: false },
+        dragmode: "pan",
+        uirevision: "stations",
+        font: { size: 11 },
+      }),
+    [],
+  );
 
   return (
     <InputGroup title="Stations">
@@ -60,11 +87,15 @@ export function StationPicker({
         label="Configuration"
         {...binder(state, pickConfig)("config")}
         error={errors.stations}
-        hint={state.config === FREE ? `${picked.length} stations picked on the map or below.` : `${picked.join(" · ")}`}
+        hint={
+          state.config === FREE
+            ? `${plural(picked.length, "station")} picked on the map or below.`
+            : `${picked.join(" · ")}`
+        }
       >
         {registry.configurations.map((c) => (
           <option key={c.name} value={c.name}>
-            {c.name} ({c.stationNames.length} stations)
+            {c.name} ({plural(c.stationNames.length, "station")})
           </option>
         ))}
         <option value={FREE}>Free pick of stations</option>
@@ -72,17 +103,9 @@ export function StationPicker({
       <Plot
         label="Station map: east and north of each station in metres; picked stations are filled"
         height={260}
-        data={[trace(off, false), trace(on, true)]}
-        layout={plotLayout({
-          margin: { l: 44, r: 8, t: 8, b: 40 },
-          showlegend: false,
-          xaxis: { title: { text: "East (m) →", standoff: 4 }, zeroline: false },
-          yaxis: { title: { text: "North (m)", standoff: 4 }, scaleanchor: "x", scaleratio: 1, zeroline: false },
-          dragmode: "pan",
-          uirevision: "stations",
-          font: { size: 11 },
-        })}
-        config={{ displayModeBar: false, scrollZoom: false }}
+        data={data}
+        layout={layout}
+        config={MAP_CONFIG}
         onClick={(event: { points?: { customdata?: unknown }[] }) => {
           const name = event.points?.[0]?.customdata;
           if (typeof name === "string") toggle(name);

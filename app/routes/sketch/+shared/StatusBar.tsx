@@ -4,6 +4,8 @@
  */
 import { type ReactNode, useState } from "react";
 import { Button, cx } from "~/components/ui";
+import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
+import type { CoverageBody } from "~/services/sketch/request";
 
 export function CopyLinkButton() {
   const [status, setStatus] = useState<string>("");
@@ -31,7 +33,12 @@ export function CopyLinkButton() {
 
 export function Busy({ busy, text, problem = false }: { busy: boolean; text: string; problem?: boolean }) {
   return (
-    <span role="status" aria-live="polite" className="inline-flex items-center gap-2 text-sm text-night-700">
+    <span
+      role="status"
+      aria-live="polite"
+      data-sketch-status="true"
+      className="inline-flex items-center gap-2 text-sm text-night-700"
+    >
       <span
         aria-hidden="true"
         className={cx(
@@ -59,5 +66,22 @@ export function StatusBar({
       <Busy {...busy} />
       {children}
     </div>
+  );
+}
+
+/** What the panels show: the target, its coordinates (degrees in the tooltip), the stations and the night. */
+export function ShownTarget({ body }: { body: CoverageBody }) {
+  const { target } = body;
+  return (
+    <span className="text-sm text-night-600">
+      {target.name ? `${target.name}: ` : ""}
+      <abbr
+        className="num no-underline"
+        title={`RA ${target.raDeg.toFixed(4)}°, Dec ${target.decDeg >= 0 ? "+" : ""}${target.decDeg.toFixed(4)}° (J2000)`}
+      >
+        {formatRightAscension(target.raDeg, 1)} {formatDeclination(target.decDeg, 0)}
+      </abbr>{" "}
+      · {body.stations.map((s) => s.name).join(" ")} · {body.night ? `night of ${body.night.date}` : "hour angles"}
+    </span>
   );
 }

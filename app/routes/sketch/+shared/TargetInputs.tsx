@@ -56,6 +56,7 @@ function SavedTargetPicker({ savedTargets, set }: Pick<GroupProps, "set"> & { sa
 export function TargetInputs({
   state,
   set,
+  type,
   errors,
   onExample,
   savedTargets = [],
@@ -65,7 +66,7 @@ export function TargetInputs({
   /** The person's own targets ("My targets"); picking one fills name, coordinates and model. */
   savedTargets?: SavedTarget[];
 }) {
-  const field = binder(state, set);
+  const field = binder(state, set, type);
   return (
     <InputGroup title="Target">
       {savedTargets.length > 0 ? <SavedTargetPicker savedTargets={savedTargets} set={set} /> : null}
@@ -88,7 +89,19 @@ export function TargetInputs({
             spellCheck={false}
             placeholder={c.placeholder}
             error={errors[c.key]}
-            hint={read.ok ? `${c.format(read.deg)} = ${read.deg.toFixed(4)}° (J2000)` : c.hint}
+            hint={
+              read.ok ? (
+                <>
+                  Reads as{" "}
+                  <abbr className="num no-underline" title={`${read.deg.toFixed(4)}°`}>
+                    {c.format(read.deg)}
+                  </abbr>{" "}
+                  (J2000)
+                </>
+              ) : (
+                c.hint
+              )
+            }
           />
         );
       })}

@@ -2,8 +2,10 @@
  * The Triangle finder: a target, model, night, band and a station pool (a configuration or every
  * station) are ranked by POST /api/triangles; the table lists the best triangles with the reasons,
  * and each row opens the Sketchpad on that triangle with the same target, model, night and band.
+ * A link that carries a target (shared, or from the Sketchpad) is ranked as soon as it opens; after
+ * that a change of the inputs is ranked on "Rank triangles" (ranking every station takes a while).
  */
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useRef, useState } from "react";
 import { href } from "react-router";
 import { Button, EmptyState, PageHeader, SelectField } from "~/components/ui";
 import { type TrianglesResponse, triangleCount } from "~/engine";
@@ -18,6 +20,7 @@ import {
   type TriangleState,
   writeTriangleState,
 } from "~/services/sketch/state";
+import { plural, seconds } from "~/services/sketch/words";
 import { useApi } from "./api";
 import { BandInput } from "./BandInput";
 import { binder, InputError, InputGroup } from "./InputGroup";
@@ -32,12 +35,30 @@ import { useSketchState } from "./useUrlState";
 
 const CODEC = { read: readTriangleState, write: writeTriangleState };
 
+/** Milliseconds from asking for a ranking to its table on screen (null while none is shown). */
+function useRankedMs(shownFor: { at: number } | null): number | null {
+  const [ms, setMs] = useState<{ at: number; ms: number } | null>(null);
+  useEffect(() => {
+    if (shownFor) setMs({ at: shownFor.at, ms: performance.now() - shownFor.at });
+  }, [shownFor]);
+  return ms && shownFor && ms.at === shownFor.at ? ms.ms : null;
+}
+
 export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [] }: SketchPageProps) {
-  const { state, settled, pending, set } = useSketchState(CODEC, { defaults, multiSite });
+  const { state, settled, pending, set, type } = useSketchState(CODEC, { defaults, multiSite });
   const field = binder(state, set);
   const built = useMemo(() => buildTrianglesRequest(settled, registry), [settled, registry]);
-  const [asked, setAsked] = useState<{ body: TrianglesBody; state: TriangleState } | null>(null);
+  const [asked, setAsked] = useState<{ body: TrianglesBody; state: TriangleState; at: number } | null>(null);
   const ranking = useApi<TrianglesResponse>(href("/api/triangles"), asked?.body ?? null);
+  const rankedMs = useRankedMs(ranking.current && !ranking.error ? asked : null);
+
+  // A link with a target ranks as it opens (once; later changes wait for the button).
+  const openedWith = useRef(built.ok ? built : null);
+  useEffect(() => {
+    const first = openedWith.current;
+    openedWith.current = null;
+    if (first?.ok) setAsked({ body: first.body, state: settled, at: performance.now() });
+  }, [settled]);
 
   const stale = asked !== null && (!built.ok || JSON.stringify(built.body) !== JSON.stringify(asked.body));
   // The API's refusal belongs to the inputs that were ranked; once they change it no longer applies.
@@ -53,8 +74,9 @@ export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [
   const triples = triangleCount(poolSize);
 
   function rank() {
-    if (built.ok) setAsked({ body: built.body, state: settled });
+    if (built.ok) setAsked({ body: built.body, state: settled, at: performance.now() });
   }
+  const groups = { state, set, type, errors };
 
   return (
     <>
@@ -73,9 +95,7 @@ export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [
           }}
         >
           <TargetInputs
-            state={state}
-            set={set}
-            errors={errors}
+            {...groups}
             savedTargets={savedTargets}
             onExample={() => set(exampleTarget(state.date || defaults.date, registry.site))}
           />
@@ -84,22 +104,20 @@ export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [
               label="Pool"
               {...field("pool")}
               error={errors.stations}
-              hint={`${poolSize} stations: ${triples} triangles to rank.`}
+              hint={`${plural(poolSize, "station")}: ${plural(triples, "triangle")} to rank.`}
             >
               {registry.configurations.map((c) => (
                 <option key={c.name} value={c.name}>
                   {c.name} ({c.stationNames.join(", ")})
                 </option>
               ))}
-              <option value={ALL_STATIONS}>All {registry.stations.length} stations</option>
+              <option value={ALL_STATIONS}>All {plural(registry.stations.length, "station")}</option>
             </SelectField>
-            <BandInput state={state} set={set} errors={errors} registry={registry} />
+            <BandInput {...groups} registry={registry} />
           </InputGroup>
-          <ModelInputs state={state} set={set} errors={errors} />
+          <ModelInputs {...groups} />
           <SamplingInputs
-            state={state}
-            set={set}
-            errors={errors}
+            {...groups}
             site={registry.site}
             stepHint={
               state.pool === ALL_STATIONS
@@ -112,7 +130,8 @@ export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [
               Rank triangles
             </Button>
             <span className="text-sm text-night-600">
-              {poolSize} stations, {triples} triangles; each is scored over the samples of the night.
+              {plural(poolSize, "station")}, {plural(triples, "triangle")}; each is scored over the samples of the
+              night.
             </span>
           </div>
         </form>
@@ -123,13 +142,15 @@ export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [
             problem={!!ranking.error}
             text={
               ranking.isValidating
-                ? `Ranking ${asked?.body.stations.length ?? 0} stations…`
+                ? `Ranking the triangles of ${plural(asked?.body.stations.length ?? 0, "station")}…`
                 : ranking.error
                   ? ranking.error.retryAfterS !== null
                     ? `The server is busy: asking again in ${ranking.error.retryAfterS} s`
                     : "Not ranked: fix the marked input"
                   : ranking.data
-                    ? `Ranked in a ${(ranking.data.elapsedMs / 1000).toFixed(2)} s round trip`
+                    ? rankedMs !== null
+                      ? `Ranked in ${seconds(rankedMs)}`
+                      : "Ranked"
                     : "Not ranked yet"
             }
           >
