@@ -60,6 +60,13 @@ export default [
     route(":proposalId/versions/:version", "routes/proposals/version.tsx"),
   ]),
 
+  // Night builder
+  ...prefix("nights", [
+    index("routes/nights/calendar.tsx"),
+    route(":date", "routes/nights/night.tsx"),
+    route(":date/export/:file", "routes/nights/export.ts"),
+  ]),
+
   // Notices
   ...prefix("mailbox", [index("routes/mailbox/index.tsx"), route(":messageId", "routes/mailbox/message.tsx")]),
 
@@ -68,6 +75,8 @@ export default [
     route("coverage", "routes/api/coverage.ts"),
     route("ephemeris", "routes/api/ephemeris.ts"),
     route("triangles", "routes/api/triangles.ts"),
+    route("plan", "routes/api/plan.ts"),
+    route("nights/:date/plan", "routes/api/night-plan.ts"),
   ]),
 
   route("*", "routes/not-found.tsx"),
