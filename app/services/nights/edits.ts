@@ -6,7 +6,8 @@
  *   earlier start, the gap between them is kept, and the pair still ends where it ended.
  * - Lengthening or inserting pushes the following blocks later, just enough to clear the overlap;
  *   shortening pulls the blocks that touched the block's end (and those touching them) earlier with it,
- *   so that a sequence stays end to end and a change undone restores the plan.
+ *   so that a sequence stays end to end (a change undone restores the plan, unless the push had closed a
+ *   gap exactly: the blocks then touching come back too).
  * - Blocks already marked (executed, lost) are locked: an edit that would move one is refused.
  * Whether the result is a good plan is the validator's business (validatePlan), not this module's.
  */

@@ -78,7 +78,7 @@ export function moonRiseSet(date: string, site: SiteInput): { riseUtc: string | 
   return { riseUtc, setUtc };
 }
 
-/** "21:14 GMT-3": the wall-clock time of an instant in an IANA zone. */
+/** "21:14 UTC-3": the wall-clock time of an instant in an IANA zone, with the zone's offset from UTC. */
 export function localTime(iso: string, timeZone: string): string {
   const parts = new Intl.DateTimeFormat("en-GB", {
     timeZone,
@@ -87,7 +87,7 @@ export function localTime(iso: string, timeZone: string): string {
     hourCycle: "h23",
     timeZoneName: "shortOffset",
   }).format(new Date(iso));
-  return parts.replace(",", "");
+  return parts.replace(",", "").replace(/GMT\+0$|GMT$/, "UTC").replace("GMT", "UTC");
 }
 
 /** "00:14:40 UTC" */
