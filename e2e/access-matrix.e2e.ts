@@ -46,6 +46,14 @@ const chairOnly: Record<Who, Outcome> = {
   scheduler: "forbidden",
   admin: "forbidden",
 };
+const schedulerOnly: Record<Who, Outcome> = {
+  anonymous: "sign-in",
+  proposer: "forbidden",
+  reviewer: "forbidden",
+  chair: "forbidden",
+  scheduler: "ok",
+  admin: "forbidden",
+};
 const adminOnly: Record<Who, Outcome> = {
   anonymous: "sign-in",
   proposer: "forbidden",
@@ -133,6 +141,13 @@ const MATRIX: Row[] = [
   get("/proposals/:proposalId/versions/:version", "/proposals/4/versions/1", { ...proposerOnly, proposer: 404 }),
   get("/cycles/new", "/cycles/new", chairOnly),
   get("/cycles/:cycleId/edit", "/cycles/1/edit", chairOnly),
+  // Night builder: the scheduler's. A night's files go to the scheduler and to the teams of its programs once
+  // published; a night without a plan is a 404 for everyone. Posts that are not forms are refused with 400.
+  get("/nights", "/nights", schedulerOnly),
+  post("/nights", "/nights", {}, { ...schedulerOnly, scheduler: 400 }),
+  get("/nights/:date", "/nights/2027-03-15", schedulerOnly),
+  post("/nights/:date", "/nights/2027-03-15", {}, { ...schedulerOnly, scheduler: 400 }),
+  get("/nights/:date/export/:file", "/nights/2027-03-15/export/plan.csv", signedIn(404)),
   // Demo mode (as the test server runs): every signed-in person may read the mailbox.
   get("/mailbox", "/mailbox", signedIn("ok")),
   get("/mailbox/:messageId", "/mailbox/999999", signedIn(404)),
@@ -144,6 +159,8 @@ const MATRIX: Row[] = [
     { ...all("ok"), anonymous: "unauthorized" },
   ),
   post("/api/triangles", "/api/triangles", {}, { ...all(400), anonymous: "unauthorized" }),
+  post("/api/plan", "/api/plan", {}, { ...all(400), anonymous: "unauthorized" }),
+  get("/api/nights/:date/plan", "/api/nights/2027-03-15/plan?format=csv", { ...all(404), anonymous: "unauthorized" }),
   get("/*", "/no/such/page", all(404)),
 ];
 

@@ -10,7 +10,7 @@ const expectedMenus: Record<string, string[]> = {
   "Inés Arroyo-Vidal": ["Sketchpad", "Triangle finder", "Array registry", "My targets", "Proposals", "Mailbox"],
   "Kenji Morrow": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox"],
   "Henrik Solberg": ["Sketchpad", "Triangle finder", "Array registry", "Cycles", "Mailbox"],
-  "Mei-Lin Chao": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox"],
+  "Mei-Lin Chao": ["Sketchpad", "Triangle finder", "Array registry", "Night builder", "Mailbox"],
   "Rafael Quispe": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox", "People"],
 };
 

@@ -25,8 +25,6 @@ export type NightPlanPublishedEmailProps = {
   caution: string;
 };
 
-const cell = { padding: "4px 8px 4px 0", fontSize: "14px", lineHeight: "20px", verticalAlign: "top" } as const;
-
 /** The notice at publication of a night plan, to the PI and co-investigators of each program in it. */
 export function NightPlanPublishedEmail(p: NightPlanPublishedEmailProps) {
   return (
@@ -37,28 +35,15 @@ export function NightPlanPublishedEmail(p: NightPlanPublishedEmailProps) {
         {p.blocks.length} block{p.blocks.length === 1 ? "" : "s"} for <strong>“{p.programTitle}”</strong>, with{" "}
         {p.scienceHours.toFixed(2)} h of science time. Times are UTC; LST is the local mean sidereal time at the start.
       </Text>
-      <table style={{ borderCollapse: "collapse", margin: "0 0 16px", color: "#313a52" }}>
-        <thead>
-          <tr>
-            <th style={{ ...cell, textAlign: "left" }}>Start – end (UTC)</th>
-            <th style={{ ...cell, textAlign: "left" }}>Block</th>
-            <th style={{ ...cell, textAlign: "left" }}>LST at start</th>
-          </tr>
-        </thead>
-        <tbody>
-          {p.blocks.map((b) => (
-            <tr key={`${b.startUt}-${b.object}`}>
-              <td style={cell}>
-                {b.startUt} – {b.endUt}
-              </td>
-              <td style={cell}>
-                {b.kind === "science" ? `Science: ${b.target}` : `Calibrator ${b.object} for ${b.target}`}
-              </td>
-              <td style={cell}>{b.startLst}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <ul style={emailStyles.list}>
+        {p.blocks.map((b) => (
+          <li key={`${b.startUt}-${b.object}`}>
+            {b.startUt.replace(" UTC", "")} – {b.endUt} ·{" "}
+            {b.kind === "science" ? `Science: ${b.target}` : `Calibrator ${b.object} for ${b.target}`} · LST{" "}
+            {b.startLst}
+          </li>
+        ))}
+      </ul>
       <Text style={emailStyles.paragraph}>
         Add the blocks to your calendar:{" "}
         <Link href={p.icsUrl} style={emailStyles.link}>

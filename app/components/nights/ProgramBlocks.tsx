@@ -52,8 +52,18 @@ const hourColumns: Column<ProgramHoursRow>[] = [
 
 const blockColumns: Column<ProgramBlockRow>[] = [
   { key: "night", header: "Night", value: (b) => b.night },
-  { key: "start", header: "Start (UTC)", value: (b) => b.startUtc, render: (b) => <span className="num">{time(b.startUtc)} UTC</span> },
-  { key: "end", header: "End (UTC)", value: (b) => b.endUtc, render: (b) => <span className="num">{time(b.endUtc)} UTC</span> },
+  {
+    key: "start",
+    header: "Start (UTC)",
+    value: (b) => b.startUtc,
+    render: (b) => <span className="num">{time(b.startUtc)} UTC</span>,
+  },
+  {
+    key: "end",
+    header: "End (UTC)",
+    value: (b) => b.endUtc,
+    render: (b) => <span className="num">{time(b.endUtc)} UTC</span>,
+  },
   {
     key: "block",
     header: "Block",
@@ -81,7 +91,12 @@ export function ProgramBlocks({ blocks, hours }: { blocks: ProgramBlockRow[]; ho
         Science hours per configuration: granted to the program, in published night plans not yet observed, executed,
         and still owed (granted less executed). Times are UTC.
       </p>
-      <DataTable columns={hourColumns} rows={hours} rowKey={(r) => r.configuration} caption="Hours of the program per configuration" />
+      <DataTable
+        columns={hourColumns}
+        rows={hours}
+        rowKey={(r) => r.configuration}
+        caption="Hours of the program per configuration"
+      />
       <div className="mt-4">
         <DataTable
           columns={blockColumns}

@@ -59,9 +59,8 @@ export async function seedDemoNights(db: Database, { today }: { today: string })
     let k = 0;
     while (runStart(k) > cycle.observingStart) k--;
     for (; runStart(k) <= cycle.observingEnd; k++) {
-      const first = runStart(k) < cycle.observingStart ? cycle.observingStart : runStart(k);
-      const lastOfRun = addDays(runStart(k), DEMO_RUN_NIGHTS - 1);
-      const last = lastOfRun > cycle.observingEnd ? cycle.observingEnd : lastOfRun;
+      const [first] = [runStart(k), cycle.observingStart].sort().reverse();
+      const [last] = [addDays(runStart(k), DEMO_RUN_NIGHTS - 1), cycle.observingEnd].sort();
       const configurationId = order[((k % order.length) + order.length) % order.length];
       const result = await installRun(db, {
         input: { cycleId: cycle.id, firstNight: first, lastNight: last, configurationId },

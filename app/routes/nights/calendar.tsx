@@ -137,7 +137,7 @@ export default function NightsCalendarPage({ loaderData, actionData }: Route.Com
       {!calendar ? (
         <Alert tone="info">No cycle exists yet: the chair opens one with its observing period.</Alert>
       ) : (
-        <div className="grid gap-6">
+        <div className="grid grid-cols-1 gap-6">
           <Card title={`Configurations of ${calendar.cycle.name}: nights offered and installed`}>
             <OffersTable offers={calendar.offers} />
           </Card>

@@ -70,7 +70,7 @@ export default function NightPage({ loaderData: page }: Route.ComponentProps) {
           </>
         }
       />
-      <div className="grid gap-6">
+      <div className="grid grid-cols-1 gap-6">
         {page.sky && page.site ? (
           <SkyCard
             sky={page.sky}

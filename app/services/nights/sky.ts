@@ -87,7 +87,10 @@ export function localTime(iso: string, timeZone: string): string {
     hourCycle: "h23",
     timeZoneName: "shortOffset",
   }).format(new Date(iso));
-  return parts.replace(",", "").replace(/GMT\+0$|GMT$/, "UTC").replace("GMT", "UTC");
+  return parts
+    .replace(",", "")
+    .replace(/GMT\+0$|GMT$/, "UTC")
+    .replace("GMT", "UTC");
 }
 
 /** "00:14:40 UTC" */

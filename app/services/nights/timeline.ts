@@ -142,8 +142,8 @@ export function timelineFigure(
     }));
   const layout = {
     barmode: "overlay",
-    height: Math.max(260, 140 + 44 * rows.length),
-    margin: { l: 12, r: 56, t: 28, b: 56 },
+    height: Math.max(300, 180 + 44 * rows.length),
+    margin: { l: 12, r: 56, t: 28, b: 110 },
     xaxis: { type: "date", title: { text: "Time (UTC)" }, range, tickformat: "%H:%M" },
     yaxis: {
       type: "category",
@@ -163,7 +163,8 @@ export function timelineFigure(
     },
     shapes,
     annotations,
-    legend: { orientation: "h", y: -0.25 },
+    // The legend at the foot of the figure, below the axis title, however many lines it wraps to.
+    legend: { orientation: "h", yref: "container", y: 0, yanchor: "bottom", x: 0 },
     hovermode: "closest",
   };
   return { data: traces, layout, rows };

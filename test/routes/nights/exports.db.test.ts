@@ -35,11 +35,18 @@ beforeAll(async () => {
 
 const file = (name: string, cookie?: string, date = NIGHT) =>
   settle(() =>
-    exportLoader(routeArgs(`/nights/${date}/export/${name}`, { headers: cookie ? { Cookie: cookie } : {}, params: { date, file: name } })),
+    exportLoader(
+      routeArgs(`/nights/${date}/export/${name}`, {
+        headers: cookie ? { Cookie: cookie } : {},
+        params: { date, file: name },
+      }),
+    ),
   );
 const api = (query: string, auth?: string, date = NIGHT) =>
   settle(() =>
-    apiNightLoader(routeArgs(`/api/nights/${date}/plan${query}`, { headers: auth ? { Authorization: auth } : {}, params: { date } })),
+    apiNightLoader(
+      routeArgs(`/api/nights/${date}/plan${query}`, { headers: auth ? { Authorization: auth } : {}, params: { date } }),
+    ),
   );
 
 describe("plan files by resource route", () => {
@@ -50,7 +57,9 @@ describe("plan files by resource route", () => {
     expect(csv.headers.get("Content-Disposition")).toBe('attachment; filename="night-plan-2025-05-20.csv"');
     const rows = Papa.parse<Record<string, string>>(await csv.text(), { header: true, skipEmptyLines: true });
     expect(rows.errors).toEqual([]);
-    expect(new Set(rows.data.map((r) => r.target))).toEqual(new Set(["Ardilla 1", "Ardilla 2", "Ardilla 3", "Zorzal 7"]));
+    expect(new Set(rows.data.map((r) => r.target))).toEqual(
+      new Set(["Ardilla 1", "Ardilla 2", "Ardilla 3", "Zorzal 7"]),
+    );
     const ics = await file("plan.ics", fx.cookies.scheduler);
     const events = new ICAL.Component(ICAL.parse(await ics.text())).getAllSubcomponents("vevent");
     expect(events).toHaveLength(rows.data.length);
@@ -72,7 +81,9 @@ describe("plan files by resource route", () => {
     expect(summaries.every((s) => s.includes("Ardilla"))).toBe(true);
     const coi = await (await file("plan.json", fx.cookies.coi)).json();
     expect(coi.filtered).toBe(true);
-    expect(coi.blocks.every((b: { program: { proposalId: number } }) => b.program.proposalId === fx.programs.first.id)).toBe(true);
+    expect(
+      coi.blocks.every((b: { program: { proposalId: number } }) => b.program.proposalId === fx.programs.first.id),
+    ).toBe(true);
   });
 
   it("answers a bad file, a bad date or a night without plan with 404, a stranger with the sign-in page", async () => {
@@ -141,8 +152,13 @@ describe("POST /api/plan", () => {
     b.targets[1].decDeg = -100;
     const res = await post(b, tokens.pi);
     expect(res.status).toBe(400);
-    expect(await res.json()).toEqual({ error: "targets[1].decDeg: must be between -90 and 90", field: "targets[1].decDeg" });
+    expect(await res.json()).toEqual({
+      error: "targets[1].decDeg: must be between -90 and 90",
+      field: "targets[1].decDeg",
+    });
     expect((await post(body())).status).toBe(401);
-    expect((await settle(() => apiPlanLoader(routeArgs("/api/plan", { headers: { Authorization: tokens.pi } })))).status).toBe(405);
+    expect(
+      (await settle(() => apiPlanLoader(routeArgs("/api/plan", { headers: { Authorization: tokens.pi } })))).status,
+    ).toBe(405);
   });
 });

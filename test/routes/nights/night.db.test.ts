@@ -19,7 +19,9 @@ beforeAll(async () => {
 const calendarPost = (fields: Record<string, string>, cookie: string) =>
   settle(() => calendarAction(routeArgs("/nights", formPost(fields, { Cookie: cookie }))));
 const nightPost = (fields: Record<string, string>, cookie = fx.cookies.scheduler, date = NIGHT) =>
-  settle(() => nightAction(routeArgs(`/nights/${date}`, { ...formPost(fields, { Cookie: cookie }), params: { date } })));
+  settle(() =>
+    nightAction(routeArgs(`/nights/${date}`, { ...formPost(fields, { Cookie: cookie }), params: { date } })),
+  );
 const nightGet = (cookie: string, date = NIGHT) =>
   nightLoader(routeArgs(`/nights/${date}`, { headers: { Cookie: cookie }, params: { date } }));
 const runFields = (over: Record<string, string> = {}) => ({
@@ -32,7 +34,9 @@ const runFields = (over: Record<string, string> = {}) => ({
 
 describe("the nights calendar", () => {
   it("opens for the scheduler on the cycle asked for, and refuses others", async () => {
-    const page = await calendarLoader(routeArgs(`/nights?cycle=${fx.cycle.id}`, { headers: { Cookie: fx.cookies.scheduler } }));
+    const page = await calendarLoader(
+      routeArgs(`/nights?cycle=${fx.cycle.id}`, { headers: { Cookie: fx.cookies.scheduler } }),
+    );
     expect(page.calendar?.cycle.name).toBe("Nights test");
     expect(page.calendar?.nights).toHaveLength(21);
     expect(page.calendar?.offers.map((o) => [o.name, o.nightsOffered, o.nightsInstalled])).toEqual([
@@ -43,9 +47,17 @@ describe("the nights calendar", () => {
     const night = page.calendar!.nights.find((n) => n.date === NIGHT)!;
     expect(night.darkHours).toBeGreaterThan(9);
     expect(night.planState).toBe("none");
-    expect((await settle(() => calendarLoader(routeArgs("/nights", { headers: { Cookie: fx.cookies.pi } })))).status).toBe(403);
+    expect(
+      (await settle(() => calendarLoader(routeArgs("/nights", { headers: { Cookie: fx.cookies.pi } })))).status,
+    ).toBe(403);
     expect((await settle(() => calendarLoader(routeArgs("/nights")))).status).toBe(302);
-    expect((await settle(() => calendarLoader(routeArgs("/nights?cycle=abc", { headers: { Cookie: fx.cookies.scheduler } })))).status).toBe(404);
+    expect(
+      (
+        await settle(() =>
+          calendarLoader(routeArgs("/nights?cycle=abc", { headers: { Cookie: fx.cookies.scheduler } })),
+        )
+      ).status,
+    ).toBe(404);
   });
 
   it("installs a run of nights, and names the bad field otherwise", async () => {
@@ -83,8 +95,28 @@ describe("a night's page and its actions", () => {
   it("refuses bad input with 400 and the field's name, writing nothing", async () => {
     const cases: [Record<string, string>, string][] = [
       [{ intent: "nonsense" }, "intent"],
-      [{ intent: "settings", minElevationDeg: "high", moonMinSeparationDeg: "10", sunMinSeparationDeg: "45", scienceBlockMin: "40", calibratorBlockMin: "15" }, "minElevationDeg"],
-      [{ intent: "settings", minElevationDeg: "30", moonMinSeparationDeg: "10", sunMinSeparationDeg: "200", scienceBlockMin: "40", calibratorBlockMin: "15" }, "sunMinSeparationDeg"],
+      [
+        {
+          intent: "settings",
+          minElevationDeg: "high",
+          moonMinSeparationDeg: "10",
+          sunMinSeparationDeg: "45",
+          scienceBlockMin: "40",
+          calibratorBlockMin: "15",
+        },
+        "minElevationDeg",
+      ],
+      [
+        {
+          intent: "settings",
+          minElevationDeg: "30",
+          moonMinSeparationDeg: "10",
+          sunMinSeparationDeg: "200",
+          scienceBlockMin: "40",
+          calibratorBlockMin: "15",
+        },
+        "sunMinSeparationDeg",
+      ],
       [{ intent: "move", blockId: "1", to: "sideways" }, "to"],
       [{ intent: "insert", object: "science", after: "start", lengthMin: "40" }, "object"],
       [{ intent: "resize", blockId: "1", lengthMin: "0" }, "lengthMin"],
@@ -110,9 +142,22 @@ describe("a night's page and its actions", () => {
   });
 
   it("saves settings, plans automatically, edits and publishes; a published plan is not edited", async () => {
-    const settings = await nightPost({ intent: "settings", minElevationDeg: "32", moonMinSeparationDeg: "12", sunMinSeparationDeg: "50", scienceBlockMin: "40", calibratorBlockMin: "15" });
+    const settings = await nightPost({
+      intent: "settings",
+      minElevationDeg: "32",
+      moonMinSeparationDeg: "12",
+      sunMinSeparationDeg: "50",
+      scienceBlockMin: "40",
+      calibratorBlockMin: "15",
+    });
     expect(settings.status).toBe(200);
-    expect((await nightGet(fx.cookies.scheduler)).settings).toEqual({ minElevationDeg: 32, moonMinSeparationDeg: 12, sunMinSeparationDeg: 50, scienceBlockMin: 40, calibratorBlockMin: 15 });
+    expect((await nightGet(fx.cookies.scheduler)).settings).toEqual({
+      minElevationDeg: 32,
+      moonMinSeparationDeg: 12,
+      sunMinSeparationDeg: 50,
+      scienceBlockMin: 40,
+      calibratorBlockMin: 15,
+    });
     const auto = await nightPost({ intent: "auto" });
     expect(auto.status).toBe(200);
     expect((await auto.json()).message).toMatch(/blocks planned for 4 targets/);
@@ -130,7 +175,18 @@ describe("a night's page and its actions", () => {
     const published = await nightPost({ intent: "publish" });
     expect(published.status).toBe(200);
     expect((await published.json()).message).toMatch(/published; 3 e-mails/);
-    expect((await nightPost({ intent: "settings", minElevationDeg: "30", moonMinSeparationDeg: "10", sunMinSeparationDeg: "45", scienceBlockMin: "40", calibratorBlockMin: "15" })).status).toBe(409);
+    expect(
+      (
+        await nightPost({
+          intent: "settings",
+          minElevationDeg: "30",
+          moonMinSeparationDeg: "10",
+          sunMinSeparationDeg: "45",
+          scienceBlockMin: "40",
+          calibratorBlockMin: "15",
+        })
+      ).status,
+    ).toBe(409);
     expect((await nightPost({ intent: "remove", blockId: String(science.id) })).status).toBe(409);
     expect((await nightPost({ intent: "auto" })).status).toBe(409);
     expect((await nightPost({ intent: "discard" })).status).toBe(409);
@@ -142,10 +198,19 @@ describe("a night's page and its actions", () => {
   it("marks a block with a note and re-plans the rest of the night", async () => {
     const page = await nightGet(fx.cookies.scheduler);
     const science = page.blocks.find((b) => b.kind === "science")!;
-    const marked = await nightPost({ intent: "mark", blockId: String(science.id), outcome: "executed", note: "fringes stable" });
+    const marked = await nightPost({
+      intent: "mark",
+      blockId: String(science.id),
+      outcome: "executed",
+      note: "fringes stable",
+    });
     expect(marked.status).toBe(200);
     const after = await nightGet(fx.cookies.scheduler);
-    expect(after.blocks.find((b) => b.id === science.id)).toMatchObject({ outcome: "executed", note: "fringes stable", locked: true });
+    expect(after.blocks.find((b) => b.id === science.id)).toMatchObject({
+      outcome: "executed",
+      note: "fringes stable",
+      locked: true,
+    });
     const owed = after.candidates.find((c) => c.key === science.target)!;
     expect(owed.owedHours).toBe(1); // hours owed at the start of this night; the next night owes less
     const tomorrow = await nightGet(fx.cookies.scheduler, addDays(NIGHT, 1));

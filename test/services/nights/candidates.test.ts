@@ -1,6 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { validatePlan } from "~/engine";
-import { candidateWindows, makeCandidates, type ProgramTarget, planContext, planRequest } from "~/services/nights/candidates";
+import {
+  candidateWindows,
+  makeCandidates,
+  type ProgramTarget,
+  planContext,
+  planRequest,
+} from "~/services/nights/candidates";
 import { KIND_COLOURS, timelineFigure } from "~/services/nights/timeline";
 import { fixtureTargets } from "./fixture";
 
@@ -30,7 +36,13 @@ const setting = {
     { name: "X01", eastM: 32.161, northM: 105.193, upM: 1.2, pathOffsetM: 14.5 },
   ],
   delayLineStrokeM: 90,
-  settings: { minElevationDeg: 30, moonMinSeparationDeg: 10, sunMinSeparationDeg: 45, scienceBlockMin: 40, calibratorBlockMin: 15 },
+  settings: {
+    minElevationDeg: 30,
+    moonMinSeparationDeg: 10,
+    sunMinSeparationDeg: 45,
+    scienceBlockMin: 40,
+    calibratorBlockMin: 15,
+  },
 };
 
 describe("candidates", () => {
@@ -57,7 +69,9 @@ describe("candidates", () => {
 
   it("gives windows the validator agrees with: a science block inside a window breaks no sky rule", () => {
     const candidates = makeCandidates(
-      [...t.first, ...t.second].map((x, i) => row({ ...x, proposalTargetId: i + 1, name: x.name, calibrators: x.calibrators })),
+      [...t.first, ...t.second].map((x, i) =>
+        row({ ...x, proposalTargetId: i + 1, name: x.name, calibrators: x.calibrators }),
+      ),
     );
     const input = planRequest(setting, candidates);
     const ctx = planContext(input);
@@ -69,7 +83,13 @@ describe("candidates", () => {
       for (const r of w.runs) {
         const start = Date.parse(r.startUtc);
         const end = Math.min(Date.parse(r.endUtc), start + 40 * 60_000);
-        const block = { kind: "science" as const, target: w.key, object: w.key, startUtc: r.startUtc, endUtc: new Date(end).toISOString().replace(".000Z", "Z") };
+        const block = {
+          kind: "science" as const,
+          target: w.key,
+          object: w.key,
+          startUtc: r.startUtc,
+          endUtc: new Date(end).toISOString().replace(".000Z", "Z"),
+        };
         const check = validatePlan(input, [block], { context: ctx });
         expect(check.blocks[0].violations.filter((v) => sky.has(v.rule))).toEqual([]);
         // Ten minutes before a window that opens after dusk, some sky rule fails.
@@ -92,9 +112,39 @@ describe("candidates", () => {
 
 describe("the timeline figure", () => {
   const blocks = [
-    { id: 1, position: 1, kind: "calibrator" as const, target: "A", object: "K", startUtc: "2025-05-21T00:00:00Z", endUtc: "2025-05-21T00:15:00Z", outcome: "executed" as const, violations: [] },
-    { id: 2, position: 2, kind: "science" as const, target: "A", object: "A", startUtc: "2025-05-21T00:15:00Z", endUtc: "2025-05-21T00:55:00Z", outcome: "planned" as const, violations: [{ reason: "below" }] },
-    { id: 3, position: 3, kind: "calibrator" as const, target: "B", object: "L", startUtc: "2025-05-21T01:00:00Z", endUtc: "2025-05-21T01:15:00Z", outcome: "weather" as const, violations: [] },
+    {
+      id: 1,
+      position: 1,
+      kind: "calibrator" as const,
+      target: "A",
+      object: "K",
+      startUtc: "2025-05-21T00:00:00Z",
+      endUtc: "2025-05-21T00:15:00Z",
+      outcome: "executed" as const,
+      violations: [],
+    },
+    {
+      id: 2,
+      position: 2,
+      kind: "science" as const,
+      target: "A",
+      object: "A",
+      startUtc: "2025-05-21T00:15:00Z",
+      endUtc: "2025-05-21T00:55:00Z",
+      outcome: "planned" as const,
+      violations: [{ reason: "below" }],
+    },
+    {
+      id: 3,
+      position: 3,
+      kind: "calibrator" as const,
+      target: "B",
+      object: "L",
+      startUtc: "2025-05-21T01:00:00Z",
+      endUtc: "2025-05-21T01:15:00Z",
+      outcome: "weather" as const,
+      violations: [],
+    },
   ];
   const sky = {
     sunsetUtc: "2025-05-20T22:00:00Z",

@@ -16,7 +16,13 @@ const block = (id: number, startSec: number, lengthSec: number, over: Partial<Ed
 });
 
 // A calibrator–science–calibrator sequence, a 10-minute gap, and a second sequence.
-const plan = () => [block(1, 0, 900), block(2, 900, 2400), block(3, 3300, 900), block(4, 4800, 900), block(5, 5700, 2400)];
+const plan = () => [
+  block(1, 0, 900),
+  block(2, 900, 2400),
+  block(3, 3300, 900),
+  block(4, 4800, 900),
+  block(5, 5700, 2400),
+];
 const ok = (r: ReturnType<typeof moveBlock>) => {
   if (!r.ok) throw new Error(r.error);
   return r.blocks;
@@ -63,7 +69,13 @@ describe("lengths, insertion and removal", () => {
   it("refuses lengths outside 1–720 minutes and marked blocks", () => {
     expect(resizeBlock(plan(), 0, 30).ok).toBe(false);
     expect(resizeBlock(plan(), 0, 721 * 60).ok).toBe(false);
-    expect(resizeBlock(plan().map((b) => ({ ...b, locked: true })), 0, 600).ok).toBe(false);
+    expect(
+      resizeBlock(
+        plan().map((b) => ({ ...b, locked: true })),
+        0,
+        600,
+      ).ok,
+    ).toBe(false);
   });
 
   it("inserts after a block or at the start of the night, pushing later blocks on", () => {
@@ -107,7 +119,11 @@ describe("edits never break the order of a plan", () => {
   const opArb = fc.oneof(
     fc.record({ op: fc.constant("move" as const), a: fc.nat(20), b: fc.nat(20) }),
     fc.record({ op: fc.constant("resize" as const), a: fc.nat(20), len: fc.integer({ min: 60, max: 7200 }) }),
-    fc.record({ op: fc.constant("insert" as const), a: fc.integer({ min: -1, max: 20 }), len: fc.integer({ min: 60, max: 3600 }) }),
+    fc.record({
+      op: fc.constant("insert" as const),
+      a: fc.integer({ min: -1, max: 20 }),
+      len: fc.integer({ min: 60, max: 3600 }),
+    }),
     fc.record({ op: fc.constant("remove" as const), a: fc.nat(20) }),
   );
   it("keeps time order and positive lengths", () => {
@@ -122,7 +138,13 @@ describe("edits never break the order of a plan", () => {
               : o.op === "resize"
                 ? resizeBlock(bs, o.a % Math.max(n, 1), o.len)
                 : o.op === "insert"
-                  ? insertBlock(bs, Math.min(o.a, n - 1), { kind: "calibrator", target: "X", object: "K", proposalId: null, proposalTargetId: null }, o.len, -7200)
+                  ? insertBlock(
+                      bs,
+                      Math.min(o.a, n - 1),
+                      { kind: "calibrator", target: "X", object: "K", proposalId: null, proposalTargetId: null },
+                      o.len,
+                      -7200,
+                    )
                   : removeBlock(bs, o.a % Math.max(n, 1));
           if (r.ok) {
             const lengths = (x: EditBlock[]) => x.map((b) => b.endSec - b.startSec).sort((p, q) => p - q);

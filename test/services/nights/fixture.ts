@@ -86,15 +86,13 @@ export async function createNightsFixture(
       submissionDeadline: new Date(`${addDays(night, -60)}T12:00:00Z`),
     })
     .returning();
-  await db
-    .insert(cycleConfigurations)
-    .values(
-      ["compact-3", "medium-4", "extended-6"].map((n) => ({
-        cycleId: cycle.id,
-        configurationId: id(n),
-        nightsAvailable: 7,
-      })),
-    );
+  await db.insert(cycleConfigurations).values(
+    ["compact-3", "medium-4", "extended-6"].map((n) => ({
+      cycleId: cycle.id,
+      configurationId: id(n),
+      nightsAvailable: 7,
+    })),
+  );
   const tag = name.toLowerCase().replace(/[^a-z0-9]+/g, "-");
   const pi = await ensureUser(db, {
     email: `pi-${tag}@nights.example`,

@@ -16,7 +16,12 @@ beforeAll(async () => {
 
 describe("the demo's nights", () => {
   it("writes nothing when no cycle observes on the given day", async () => {
-    expect(await seedDemoNights(testDb(), { today: TODAY })).toEqual({ cycleId: null, runs: 0, tonight: null, planned: false });
+    expect(await seedDemoNights(testDb(), { today: TODAY })).toEqual({
+      cycleId: null,
+      runs: 0,
+      tonight: null,
+      planned: false,
+    });
     expect(await countRows(testDb(), nightConfigurations)).toBe(0);
     expect(await countRows(testDb(), nightPlans)).toBe(0);
   });
@@ -27,7 +32,10 @@ describe("the demo's nights", () => {
     expect(out).toMatchObject({ cycleId: fx.cycle.id, tonight: TODAY, planned: true });
     // 21 nights, runs of 7 centred on today: [−10 … −4], [−3 … +3], [+4 … +10].
     expect(out.runs).toBe(3);
-    const nights = await testDb().select().from(nightConfigurations).where(eq(nightConfigurations.cycleId, fx.cycle.id));
+    const nights = await testDb()
+      .select()
+      .from(nightConfigurations)
+      .where(eq(nightConfigurations.cycleId, fx.cycle.id));
     expect(nights).toHaveLength(21);
     const on = (d: number) => nights.find((n) => n.nightDate === addDays(TODAY, d))?.configurationId;
     // Tonight's run has the configuration the accepted programs asked hours for.

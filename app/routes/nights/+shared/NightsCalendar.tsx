@@ -82,7 +82,7 @@ export function NightsCalendar({
   const south = (calendar.site?.latitudeDeg ?? 0) < 0;
   const colourOf = new Map(calendar.offers.map((o, i) => [o.configurationId, configurationColour(i)]));
   return (
-    <section aria-labelledby="calendar-heading" className="grid gap-6">
+    <section aria-labelledby="calendar-heading" className="grid grid-cols-1 gap-6">
       <h2 id="calendar-heading" className="text-xl font-semibold">
         Nights of {calendar.cycle.name}
       </h2>

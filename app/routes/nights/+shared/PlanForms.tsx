@@ -82,7 +82,7 @@ export function ReplanForm({ defaultFrom }: { defaultFrom: string }) {
         type="datetime-local"
         defaultValue={defaultFrom}
         error={errors.fromUtc}
-        hint="Blocks that end by then and blocks marked executed stay; the rest of the night is planned again."
+        hint="Blocks begun by then (with the calibrator closing a sequence under way) and blocks marked executed stay; the rest of the night is planned again."
         required
       />
       <Button type="submit" variant="secondary" disabled={fetcher.state !== "idle"}>

@@ -35,7 +35,7 @@ function EditControls({
 }) {
   const [length, setLength] = useState(String(minutes(b)));
   return (
-    <div className="flex flex-wrap items-center gap-1">
+    <div className="flex items-center gap-1 whitespace-nowrap">
       <Button
         id={`move-up-${b.id}`}
         size="sm"
@@ -69,6 +69,9 @@ function EditControls({
         onChange={(e) => setLength(e.target.value)}
         className="h-8 w-16 rounded-md border border-night-300 px-1 text-right text-sm"
       />
+      <span aria-hidden="true" className="text-xs text-night-600">
+        min
+      </span>
       <Button
         size="sm"
         variant="ghost"
@@ -76,7 +79,7 @@ function EditControls({
         aria-label={`Set the length of ${describe(b)}`}
         onClick={() => submit({ intent: "resize", blockId: String(b.id), lengthMin: length })}
       >
-        min
+        Set
       </Button>
       <Button
         size="sm"
@@ -94,38 +97,42 @@ function EditControls({
 function MarkControls({ b }: { b: BlockView }) {
   const fetcher = useFetcher<NightActionData>();
   return (
-    <fetcher.Form method="post" className="flex flex-wrap items-center gap-1" aria-label={`Mark ${describe(b)}`}>
-      <input type="hidden" name="intent" value="mark" />
-      <input type="hidden" name="blockId" value={b.id} />
-      <label className="sr-only" htmlFor={`outcome-${b.id}`}>
-        Outcome of {describe(b)}
-      </label>
-      <select
-        id={`outcome-${b.id}`}
-        name="outcome"
-        defaultValue={b.outcome === "planned" ? "executed" : b.outcome}
-        className="h-8 rounded-md border border-night-300 px-1 text-sm"
-      >
-        <option value="executed">executed</option>
-        <option value="weather">lost to weather</option>
-        <option value="technical">technical fault</option>
-        <option value="planned">back to planned</option>
-      </select>
-      <label className="sr-only" htmlFor={`note-${b.id}`}>
-        Note on {describe(b)}
-      </label>
-      <input
-        id={`note-${b.id}`}
-        name="note"
-        defaultValue={b.note}
-        maxLength={500}
-        placeholder="note"
-        className="h-8 w-28 rounded-md border border-night-300 px-2 text-sm"
-      />
-      <Button type="submit" size="sm" variant="secondary" disabled={fetcher.state !== "idle"}>
-        Mark
-      </Button>
-      {fetcher.data && !fetcher.data.ok ? <FetcherResult data={fetcher.data} className="w-full" /> : null}
+    <fetcher.Form method="post" className="space-y-1" aria-label={`Mark ${describe(b)}`}>
+      <div className="flex items-center gap-1 whitespace-nowrap">
+        <input type="hidden" name="intent" value="mark" />
+        <input type="hidden" name="blockId" value={b.id} />
+        <label className="sr-only" htmlFor={`outcome-${b.id}`}>
+          Outcome of {describe(b)}
+        </label>
+        <select
+          id={`outcome-${b.id}`}
+          name="outcome"
+          defaultValue={b.outcome === "planned" ? "executed" : b.outcome}
+          className="h-8 rounded-md border border-night-300 px-1 text-sm"
+        >
+          <option value="executed">executed</option>
+          <option value="weather">lost to weather</option>
+          <option value="technical">technical fault</option>
+          <option value="planned">back to planned</option>
+        </select>
+        <label className="sr-only" htmlFor={`note-${b.id}`}>
+          Note on {describe(b)}
+        </label>
+        <input
+          id={`note-${b.id}`}
+          name="note"
+          defaultValue={b.note}
+          maxLength={500}
+          placeholder="note"
+          className="h-8 w-28 rounded-md border border-night-300 px-2 text-sm"
+        />
+        <Button type="submit" size="sm" variant="secondary" disabled={fetcher.state !== "idle"}>
+          Mark
+        </Button>
+      </div>
+      {fetcher.data && !fetcher.data.ok ? (
+        <FetcherResult data={fetcher.data} className="max-w-xs whitespace-normal" />
+      ) : null}
     </fetcher.Form>
   );
 }
@@ -167,7 +174,7 @@ export function PlanTable({ blocks, mode }: { blocks: BlockView[]; mode: "edit" 
         </p>
       ) : null}
       <FetcherResult data={fetcher.data} />
-      <div className="overflow-x-auto rounded-lg ring-1 ring-night-200">
+      <div className="relative overflow-x-auto rounded-lg ring-1 ring-night-200">
         <table className="min-w-full divide-y divide-night-200 bg-white text-sm">
           <caption className="sr-only">Blocks of the plan in time order</caption>
           <thead className="bg-night-100/70 text-left">

@@ -38,7 +38,7 @@ export function SkyCard({
           },
         ]}
       />
-      <div className="overflow-x-auto rounded-lg ring-1 ring-night-200">
+      <div className="relative overflow-x-auto rounded-lg ring-1 ring-night-200">
         <table className="min-w-full divide-y divide-night-200 bg-white text-sm">
           <caption className="sr-only">Sun events of the night in UT, local time and local sidereal time</caption>
           <thead className="bg-night-100/70">
@@ -60,14 +60,16 @@ export function SkyCard({
           <tbody className="divide-y divide-night-100">
             {sky.events.map((e) => (
               <tr key={e.key}>
-                <th scope="row" className="px-3 py-1.5 text-left font-normal">
+                <th scope="row" className="whitespace-nowrap px-3 py-1.5 text-left font-normal">
                   {e.label}
                 </th>
-                <td className="num px-3 py-1.5 text-right">
+                <td className="num whitespace-nowrap px-3 py-1.5 text-right">
                   {e.utc ? `${e.utc.slice(0, 10)} ${utcTime(e.utc)}` : "—"}
                 </td>
-                <td className="num px-3 py-1.5 text-right">{e.local ?? "—"}</td>
-                <td className="num px-3 py-1.5 text-right">{e.lstH === null ? "—" : lstText(e.lstH)}</td>
+                <td className="num whitespace-nowrap px-3 py-1.5 text-right">{e.local ?? "—"}</td>
+                <td className="num whitespace-nowrap px-3 py-1.5 text-right">
+                  {e.lstH === null ? "—" : lstText(e.lstH)}
+                </td>
               </tr>
             ))}
           </tbody>
