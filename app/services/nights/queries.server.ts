@@ -7,13 +7,13 @@ import { inArray } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
 import { proposalMembers, proposals } from "~/db/schema/proposals";
 import type { Role } from "~/db/schema/users";
-import { PLAN_SAFETY_WARNING } from "~/engine";
+import { PLAN_SAFETY_WARNING, roundTo } from "~/engine";
 import { relationTo } from "~/services/proposals/access.server";
 import { type Candidate, type CandidateWindow, candidateWindows, planContext, planRequest } from "./candidates";
 import { loadNight } from "./night.server";
 import type { ExportBlock, NightPlanExport } from "./schemas";
 import { moonAltitudeCurve, type NightSkySummary, nightSkySummary } from "./sky";
-import { type BlockView, viewBlocks } from "./view";
+import { type BlockView, type StoredBlock, viewBlocks } from "./view";
 
 /** The date before or after `date` (YYYY-MM-DD). */
 export function shiftDate(date: string, days: number): string {
@@ -22,7 +22,24 @@ export function shiftDate(date: string, days: number): string {
   return d.toISOString().slice(0, 10);
 }
 
-export type CandidateRow = Candidate & { window: CandidateWindow | null };
+export type CandidateRow = Candidate & {
+  window: CandidateWindow | null;
+  /** Science executed this night, hours. */
+  executedTonightHours: number;
+  /** Owed at the start of the night less what this night executed, hours (never below 0). */
+  owedNowHours: number;
+};
+
+/** Executed science of this night per proposal target, hours. */
+function executedTonight(blocks: readonly StoredBlock[]): Map<number, number> {
+  const out = new Map<number, number>();
+  for (const b of blocks) {
+    if (b.kind !== "science" || b.outcome !== "executed" || b.proposalTargetId === null) continue;
+    const h = (b.endUtc.getTime() - b.startUtc.getTime()) / 3_600_000;
+    out.set(b.proposalTargetId, (out.get(b.proposalTargetId) ?? 0) + h);
+  }
+  return out;
+}
 
 /** Everything the night page shows. */
 export async function nightPage(db: DbOrTx, { date }: { date: string }) {
@@ -37,13 +54,23 @@ export async function nightPage(db: DbOrTx, { date }: { date: string }) {
     : null;
   let blocks: BlockView[] = [];
   let valid = true;
-  let candidates: CandidateRow[] = night.candidates.map((c) => ({ ...c, window: null }));
+  const tonight = executedTonight(night.blocks);
+  const row = (c: Candidate, window: CandidateWindow | null): CandidateRow => {
+    const executedTonightHours = roundTo(tonight.get(c.proposalTargetId) ?? 0, 4);
+    return {
+      ...c,
+      window,
+      executedTonightHours,
+      owedNowHours: roundTo(Math.max(0, c.owedHours - executedTonightHours), 4),
+    };
+  };
+  let candidates: CandidateRow[] = night.candidates.map((c) => row(c, null));
   let planStartUtc: string | null = null;
   if (night.setting) {
     const input = planRequest(night.setting, night.candidates);
     const ctx = planContext(input);
     const windows = new Map(candidateWindows(ctx).map((w) => [w.key, w]));
-    candidates = night.candidates.map((c) => ({ ...c, window: windows.get(c.key) ?? null }));
+    candidates = night.candidates.map((c) => row(c, windows.get(c.key) ?? null));
     const viewed = viewBlocks(input, ctx, night.blocks, night.candidates);
     blocks = viewed.blocks;
     valid = viewed.ok;

@@ -3,6 +3,7 @@ import type { CandidateRow } from "~/services/nights/queries.server";
 import { utcTime } from "~/services/nights/sky";
 
 const hm = (iso: string) => utcTime(iso).slice(0, 5);
+const round2 = (x: number) => Math.round(x * 100) / 100;
 
 const columns: Column<CandidateRow>[] = [
   { key: "rank", header: "Rank", align: "right", value: (c) => c.rank },
@@ -18,14 +19,16 @@ const columns: Column<CandidateRow>[] = [
       </span>
     ),
   },
-  { key: "owed", header: "Hours owed", unit: "h", align: "right", value: (c) => Math.round(c.owedHours * 100) / 100 },
+  { key: "granted", header: "Granted", unit: "h", align: "right", value: (c) => round2(c.grantedHours) },
+  { key: "owed", header: "Owed at dusk", unit: "h", align: "right", value: (c) => round2(c.owedHours) },
   {
-    key: "granted",
-    header: "Granted",
+    key: "tonight",
+    header: "Executed tonight",
     unit: "h",
     align: "right",
-    value: (c) => Math.round(c.grantedHours * 100) / 100,
+    value: (c) => round2(c.executedTonightHours),
   },
+  { key: "owedNow", header: "Still owed", unit: "h", align: "right", value: (c) => round2(c.owedNowHours) },
   {
     key: "window",
     header: "Window tonight (UTC)",
@@ -66,11 +69,12 @@ export function CandidatesCard({ candidates, date }: { candidates: CandidateRow[
   return (
     <Card title="Candidates">
       <p className="mb-3 text-sm text-night-600">
-        Targets of accepted programs with hours on this configuration. Hours owed are the program's granted hours (its
-        requested hours until the committee's allocation is stored) shared among its targets, less the science executed
-        on other nights. Rank is the committee's order (the order of submission until the ranking is stored). The window
-        is when the target is above its limit, in darkness, within the delay lines and away from the Moon; the Moon
-        distance is the least during darkness. Calibrators are the proposal's own.
+        Targets of accepted programs with hours on this configuration. A target is granted its share of the program's
+        hours (the requested hours until the committee's allocation is stored); it is owed at dusk what other nights
+        have not executed, and still owed that less what this night executed. Rank is the committee's order (the order
+        of submission until the ranking is stored). The window is when the target is above its limit, in darkness,
+        within the delay lines and away from the Moon; the Moon distance is the least during darkness. Calibrators are
+        the proposal's own.
       </p>
       <DataTable
         columns={columns}
