@@ -115,14 +115,19 @@ describe("Night builder", () => {
     const index = (await rows.allTextContents()).findIndex((t) => t.includes("science"));
     await rows.nth(index).dragTo(rows.nth(index - 1));
     await problem.waitFor();
-    await page.getByRole("button", { name: /^Move block \d+ \(science .*\) later$/ }).first().click();
+    await page
+      .getByRole("button", { name: /^Move block \d+ \(science .*\) later$/ })
+      .first()
+      .click();
     await problem.waitFor({ state: "detached" });
     expect(seen.errors).toEqual([]);
     await context.close();
   });
 
   it("exports tonight's plan as CSV and iCalendar and publishes it; the PI's e-mail is in the mailbox", async () => {
-    const { context, page, seen } = await signedInPage(browser, "Mei-Lin Chao", { viewport: { width: 1366, height: 900 } });
+    const { context, page, seen } = await signedInPage(browser, "Mei-Lin Chao", {
+      viewport: { width: 1366, height: 900 },
+    });
     await page.goto(`${baseUrl}/nights/${today}`);
     await planRows(page).first().waitFor();
     const csv = Papa.parse<Record<string, string>>(await download(page, "CSV"), { header: true, skipEmptyLines: true });

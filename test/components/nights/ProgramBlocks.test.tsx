@@ -7,7 +7,9 @@ describe("ProgramBlocks", () => {
     // React separates adjacent text nodes with empty comments; they are not part of the text.
     const html = renderToString(
       <ProgramBlocks
-        hours={[{ configuration: "medium-4", grantedHours: 3, plannedHours: 1.33, executedHours: 0.67, owedHours: 2.33 }]}
+        hours={[
+          { configuration: "medium-4", grantedHours: 3, plannedHours: 1.33, executedHours: 0.67, owedHours: 2.33 },
+        ]}
         blocks={[
           {
             id: 1,
