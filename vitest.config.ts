@@ -20,7 +20,7 @@ export default defineConfig({
           name: "unit",
           // test/ mirrors app/: pure code in *.test.ts; *.db.test.ts needs PostgreSQL.
           include: ["test/**/*.test.{ts,tsx}"],
-          exclude: ["test/**/*.db.test.{ts,tsx}", "test/integration/**"],
+          exclude: ["test/**/*.db.test.{ts,tsx}"],
           environment: "node",
           setupFiles: ["test/setup/fail-on-console-error.ts"],
         },
@@ -29,7 +29,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: "integration",
-          include: ["test/**/*.db.test.{ts,tsx}", "test/integration/**/*.test.{ts,tsx}"],
+          include: ["test/**/*.db.test.{ts,tsx}"],
           environment: "node",
           globalSetup: ["test/setup/global.ts"],
           setupFiles: ["test/setup/fail-on-console-error.ts", "test/setup/database.ts"],

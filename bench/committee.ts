@@ -7,7 +7,7 @@
  *
  * `benchCommittee()` returns the markdown section; run alone with `npx tsx bench/committee.ts`.
  */
-import { cpus, loadavg } from "node:os";
+
 import { fileURLToPath } from "node:url";
 import { DEMO_CONFIGURATIONS, DEMO_SITE, DEMO_STATIONS } from "../app/db/seed/scenario";
 import {
@@ -22,47 +22,8 @@ import {
   rankReviews,
   suggestAllocation,
 } from "../app/engine";
-
-interface Timing {
-  medianMs: number;
-  minMs: number;
-  /** Median CPU time of this process (user + system): less sensitive than wall time to a busy machine. */
-  cpuMedianMs: number;
-  runs: number;
-}
-
-const medianOf = (t: number[]) => {
-  const s = [...t].sort((a, b) => a - b);
-  const mid = s.length >> 1;
-  return s.length % 2 ? s[mid] : 0.5 * (s[mid - 1] + s[mid]);
-};
-
-function time(fn: () => unknown, runs: number, warmup = 2): Timing {
-  for (let i = 0; i < warmup; i++) fn();
-  const wall: number[] = [];
-  const cpu: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const c0 = process.cpuUsage();
-    const t0 = performance.now();
-    fn();
-    wall.push(performance.now() - t0);
-    const c = process.cpuUsage(c0);
-    cpu.push((c.user + c.system) / 1000);
-  }
-  return { medianMs: medianOf(wall), minMs: Math.min(...wall), cpuMedianMs: medianOf(cpu), runs };
-}
-
-/** Small fixed-seed generator (mulberry32), so the case is the same on every run. */
-function generator(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { rng as generator } from "../test/support/random";
+import { machine, type Timing, time } from "./timing";
 
 const N_PROPOSALS = 300;
 const N_REVIEWERS = 25;
@@ -184,9 +145,7 @@ export async function benchCommittee(): Promise<string> {
       `(60 nights each), cycle ${FIRST_NIGHT} – ${LAST_NIGHT} (180 nights), 24 LST bins of 1 h. ` +
       `Oversubscription ${over.join(", ")}; ${accepted} proposals suggested for acceptance, ${unplaceable} requests unplaceable.`,
   );
-  log(
-    `Machine: ${cpus()[0]?.model ?? "unknown"}, ${cpus().length} cores, load average ${loadavg()[0].toFixed(1)} when run; Node ${process.version}.`,
-  );
+  log(`Machine: ${machine()} when run.`);
   log("");
   log("| step | wall median (min) | CPU median |");
   log("|---|---|---|");

@@ -4,30 +4,10 @@
  * 200 m delay-line stroke; also the validation of the resulting plan. In-process, after warm-up,
  * median and minimum of several runs. Run alone with `npx tsx bench/planning.ts`.
  */
-import { readFileSync } from "node:fs";
-import { cpus } from "node:os";
 import { fileURLToPath } from "node:url";
 import { DEMO_CONFIGURATIONS, DEMO_SITE, DEMO_STATIONS } from "../app/db/seed/scenario";
 import { computePlan, type PlanInput, parsePlanRequest, validatePlan } from "../app/engine";
-
-interface Timing {
-  medianMs: number;
-  minMs: number;
-  runs: number;
-}
-
-function time(fn: () => unknown, runs: number, warmup = 2): Timing {
-  for (let i = 0; i < warmup; i++) fn();
-  const t: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const t0 = performance.now();
-    fn();
-    t.push(performance.now() - t0);
-  }
-  t.sort((a, b) => a - b);
-  const mid = t.length >> 1;
-  return { medianMs: t.length % 2 ? t[mid] : 0.5 * (t[mid - 1] + t[mid]), minMs: t[0], runs };
-}
+import { machine, type Timing, time } from "./timing";
 
 /** A small deterministic generator (Park & Miller 1988 minimal standard, multiplier 16807). */
 function lehmer(seed: number) {
@@ -77,17 +57,6 @@ export function planningBenchRequest(): PlanInput {
   });
   if (!parsed.ok) throw new Error(parsed.message);
   return parsed.value;
-}
-
-function machine(): string {
-  let cpuModel = cpus()[0]?.model ?? "unknown";
-  try {
-    const m = /model name\s*:\s*(.+)/.exec(readFileSync("/proc/cpuinfo", "utf8"));
-    if (m) cpuModel = m[1].trim();
-  } catch {
-    // keep the os module's name
-  }
-  return `${cpuModel}, ${cpus().length} cores, Node ${process.version}`;
 }
 
 /** Runs the planning benchmark and returns its markdown section. */

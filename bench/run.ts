@@ -1,6 +1,8 @@
 /**
  * Engine benchmark: `npm run bench`. Runs in-process, reports the median of
- * several runs after warm-up, and writes docs/benchmarks.md.
+ * several runs after warm-up, and writes its section of docs/benchmarks.md, followed by
+ * the planner, committee, catalogue and imaging benchmarks (bench/planning.ts, committee.ts,
+ * catalogue.ts, imaging.ts).
  *
  * (a) coverage of 6 stations × 600 hour-angle samples × 100 channels
  *     (15 baselines → 900 000 uv points) with model squared visibilities and all
@@ -10,9 +12,7 @@
  * (c) the same kind of beam by direct Fourier summation, on fewer points (the
  *     direct sum costs N² × points), next to the FFT beam of those points.
  */
-import { readFileSync, writeFileSync } from "node:fs";
-import { cpus } from "node:os";
-import { fileURLToPath } from "node:url";
+
 import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "~/db/seed/scenario";
 import {
   type CoverageRequest,
@@ -24,35 +24,12 @@ import {
   parseCoverageRequest,
 } from "~/engine";
 import { computeFeasibility, type FeasibilityInput } from "~/services/proposals/feasibility";
-
-interface Timing {
-  medianMs: number;
-  minMs: number;
-  runs: number;
-}
-
-function time(fn: () => unknown, runs: number, warmup = 2): Timing {
-  for (let i = 0; i < warmup; i++) fn();
-  const t: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const t0 = performance.now();
-    fn();
-    t.push(performance.now() - t0);
-  }
-  t.sort((a, b) => a - b);
-  const mid = t.length >> 1;
-  return { medianMs: t.length % 2 ? t[mid] : 0.5 * (t[mid - 1] + t[mid]), minMs: t[0], runs };
-}
-
-/** Six stations of the demo array (invented Sierra Lumbre Array): three core, three outriggers. */
-const STATIONS = [
-  { name: "C01", eastM: 0, northM: 0, upM: 0, pathOffsetM: 0 },
-  { name: "C02", eastM: 16, northM: 0, upM: 0, pathOffsetM: 2 },
-  { name: "C05", eastM: 8, northM: 13.86, upM: 0, pathOffsetM: 4 },
-  { name: "W1", eastM: -182, northM: 64, upM: 1.2, pathOffsetM: 40 },
-  { name: "N2", eastM: 35, northM: 228, upM: 2.1, pathOffsetM: 55 },
-  { name: "E3", eastM: 301, northM: -117, upM: -0.9, pathOffsetM: 70 },
-];
+import { SIX_STATIONS as STATIONS } from "../test/support/six-stations";
+import { benchCatalogue } from "./catalogue";
+import { benchCommittee } from "./committee";
+import { benchImaging } from "./imaging";
+import { benchPlanning } from "./planning";
+import { machine, type Timing, time, writeBenchmarkSection } from "./timing";
 
 function request(nSamples: number, nChannels: number, model: unknown): CoverageRequest {
   const hourAnglesH = Array.from({ length: nSamples }, (_, i) => -4 + (8 * i) / (nSamples - 1));
@@ -114,7 +91,7 @@ function benchFeasibility() {
   return { cells: report.cells.length, verdict: report.verdict, timing: time(() => computeFeasibility(input), 7) };
 }
 
-function main() {
+async function main() {
   const lines: string[] = [];
   const log = (s: string) => {
     console.log(s);
@@ -189,24 +166,16 @@ function main() {
     c.push({ n, dft, fft: fftT, maxDiff, centreDiff });
   }
 
-  // ---- machine
-  let cpuModel = "unknown";
-  try {
-    const m = /model name\s*:\s*(.+)/.exec(readFileSync("/proc/cpuinfo", "utf8"));
-    if (m) cpuModel = m[1].trim();
-  } catch {
-    cpuModel = cpus()[0]?.model ?? "unknown";
-  }
   const ms = (t: Timing) => `${t.medianMs.toFixed(1)} ms`;
   const date = new Date().toISOString().slice(0, 10);
 
-  log("# Benchmarks");
+  log("## Engine (`npm run bench`)");
   log("");
   log("Produced by `npm run bench` (bench/run.ts): in-process, after warm-up, median of several runs");
   log("(the minimum in brackets). Re-run to refresh; figures vary by a few per cent between runs.");
   log("");
-  log(`- Machine: ${cpuModel}, ${cpus().length} cores`);
-  log(`- Node ${process.version}, ${date}`);
+  log(`- Machine: ${machine()}`);
+  log(`- ${date}`);
   log("");
   log("## (a) Coverage: 6 stations × 600 hour angles × 100 channels");
   log("");
@@ -282,9 +251,15 @@ function main() {
   log("|---|---|---|");
   log(`| ${d.cells} | ${ms(d.timing)} (${d.timing.minMs.toFixed(1)}) | ${d.verdict} |`);
 
-  const target = fileURLToPath(new URL("../docs/benchmarks.md", import.meta.url));
-  writeFileSync(target, `${lines.join("\n")}\n`);
-  console.log(`\nwrote ${target}`);
+  // ---- the other parts of the engine, each with a section of its own
+  for (const section of [benchPlanning, benchCommittee, benchCatalogue, benchImaging]) {
+    log("");
+    log((await section()).trimEnd());
+  }
+
+  // Headings one level down: the file holds the engine, load and browser sections side by side.
+  const section = lines.map((l) => (l.startsWith("#") && !l.startsWith("## Engine") ? `#${l}` : l)).join("\n");
+  console.log(`\nwrote ${writeBenchmarkSection("engine", section)}`);
 }
 
-main();
+void main();

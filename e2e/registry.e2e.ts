@@ -54,12 +54,25 @@ async function plotTraces(page: Page, until: string) {
   });
 }
 
+/**
+ * A fresh window signed in as `name` and watched for console errors; `done` checks that none was
+ * seen and closes the window.
+ */
+async function signedIn(name: string) {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const page = await context.newPage();
+  const seen = watchPage(page);
+  await signInAs(page, name);
+  const done = async () => {
+    expect(seen.errors).toEqual([]);
+    await context.close();
+  };
+  return { page, done };
+}
+
 describe("array registry", () => {
   it("lets an administrator add a station, see it in the table and on the map, and draw a configuration", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    const seen = watchPage(page);
-    await signInAs(page, "Rafael Quispe");
+    const { page, done } = await signedIn("Rafael Quispe");
     await page.goto(`${baseUrl}/registry`);
     await plotTraces(page, "data[0].text.length === 24");
     await screenshot(page, "registry-admin");
@@ -118,15 +131,11 @@ describe("array registry", () => {
       .locator("section")
       .filter({ has: page.getByRole("heading", { name: "Station map" }) })
       .screenshot({ path: join(ARTIFACTS, "registry-map-card.png") });
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await done();
   });
 
   it("imports a CSV with a bad row without changing anything, then a good one after the preview", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    const seen = watchPage(page);
-    await signInAs(page, "Rafael Quispe");
+    const { page, done } = await signedIn("Rafael Quispe");
     await page.goto(`${baseUrl}/registry`);
     await page.getByRole("link", { name: "Import" }).click();
     await page.getByRole("heading", { level: 1, name: "Import into the registry" }).waitFor();
@@ -167,8 +176,7 @@ describe("array registry", () => {
     await page.getByText(/Stations imported into Sierra Lumbre Array: 1 new, 1 updated, 1 unchanged\./).waitFor();
     expect(await station("W25")).toMatchObject({ eastM: -61 });
     expect(await station("W26")).toMatchObject({ eastM: 5, northM: -90, upM: 0.1, pathOffsetM: 1 });
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await done();
   });
 
   it("exports the stations as CSV with units in the header", async () => {
@@ -190,10 +198,7 @@ describe("array registry", () => {
   });
 
   it("shows a proposer the registry, the map and the station pages without any edit control", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    const seen = watchPage(page);
-    await signInAs(page, "Inés Arroyo-Vidal");
+    const { page, done } = await signedIn("Inés Arroyo-Vidal");
     await page.goto(`${baseUrl}/registry`);
     await plotTraces(page, "data[0].text.length === 26");
     for (const name of ["Import", "Add a site", "Edit site", "Add station", "Add configuration", "Add instrument"]) {
@@ -216,15 +221,11 @@ describe("array registry", () => {
 
     const refused = await page.goto(`${baseUrl}/registry/import`);
     expect(refused?.status()).toBe(403);
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await done();
   });
 
   it("refuses to delete a station in use, naming the configuration, and deletes the added ones", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    const seen = watchPage(page);
-    await signInAs(page, "Rafael Quispe");
+    const { page, done } = await signedIn("Rafael Quispe");
     const c04 = (await station("C04"))!;
     await page.goto(`${baseUrl}/registry/stations/${c04.id}/edit`);
     await page.getByRole("button", { name: "Delete C04" }).click();
@@ -247,7 +248,6 @@ describe("array registry", () => {
         .locator("tbody tr")
         .count(),
     ).resolves.toBe(24);
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await done();
   });
 });

@@ -1,7 +1,7 @@
 /**
  * Fringe Docket command line: `npm run -s cli -- <command> [--input FILE] [--pretty]`.
  *
- * Commands: coverage, ephemeris, triangles, plan, rank. The request is a JSON object read
+ * Commands: coverage, ephemeris, triangles, plan, rank, resolve, calibrators, simulate, reconstruct. The request is a JSON object read
  * from FILE, or from standard input when --input is absent. On success exactly
  * one JSON object is written to standard output (exit 0). On a bad request —
  * unknown command or option, missing or unreadable file, invalid JSON, a
@@ -12,14 +12,25 @@
  * The engine is loaded only once the arguments are read (astronomia through
  * its subpaths), to keep start-up short.
  */
-import { readFile } from "node:fs/promises";
+import { readFile, writeFile } from "node:fs/promises";
 import type { ParseResult } from "~/engine";
 
 /** Every command, in the order the usage lists them. */
-const COMMANDS = ["coverage", "ephemeris", "triangles", "plan", "rank"] as const;
+const COMMANDS = [
+  "coverage",
+  "ephemeris",
+  "triangles",
+  "plan",
+  "rank",
+  "resolve",
+  "calibrators",
+  "simulate",
+  "reconstruct",
+] as const;
 const commandList = `${COMMANDS.slice(0, -1).join(", ")} or ${COMMANDS[COMMANDS.length - 1]}`;
 
 const USAGE = `usage: npm run -s cli -- <${COMMANDS.join("|")}> [--input FILE] [--pretty]
+       npm run -s cli -- simulate [--input FILE] --oifits OUT.fits   (also writes the data as OIFITS 2)
   Reads a JSON request from FILE (or standard input) and prints one JSON object.
   See docs/cli.md for the request and response fields.`;
 
@@ -29,29 +40,36 @@ interface Options {
   command: string;
   input: string | null;
   pretty: boolean;
+  /** simulate only: also write the data as an OIFITS 2 file here. */
+  oifits: string | null;
 }
 
 function parseArgs(argv: string[]): Options | "help" {
   if (argv.length === 0) throw new UsageError(`no command given (${commandList}; --help for usage)`);
   let command: string | null = null;
-  let input: string | null = null;
+  const files: Record<"input" | "oifits", string | null> = { input: null, oifits: null };
   let pretty = false;
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     if (a === "-h" || a === "--help" || a === "help") return "help";
+    const option = /^--(input|oifits)(?:=(.*))?$/.exec(a === "-i" ? "--input" : a);
     if (a === "--pretty") pretty = true;
-    else if (a === "--input" || a === "-i") {
-      const next = argv[i + 1];
-      if (next === undefined || next.startsWith("--")) throw new UsageError("--input needs a file name");
-      input = next;
-      i++;
-    } else if (a.startsWith("--input=")) input = a.slice("--input=".length);
-    else if (a.startsWith("-")) throw new UsageError(`unknown option ${a}`);
+    else if (option) {
+      const name = option[1] as "input" | "oifits";
+      let value = option[2];
+      if (value === undefined) {
+        value = argv[i + 1];
+        if (value === undefined || value.startsWith("--")) throw new UsageError(`--${name} needs a file name`);
+        i++;
+      }
+      files[name] = value;
+    } else if (a.startsWith("-")) throw new UsageError(`unknown option ${a}`);
     else if (command === null) command = a;
     else throw new UsageError(`unexpected argument ${a}`);
   }
   if (command === null) throw new UsageError(`no command given (${commandList})`);
-  return { command, input, pretty };
+  if (files.oifits !== null && command !== "simulate") throw new UsageError("--oifits applies to simulate only");
+  return { command, input: files.input, pretty, oifits: files.oifits };
 }
 
 async function readStdin(): Promise<string> {
@@ -91,19 +109,48 @@ function command<T, R>(parse: (json: unknown) => ParseResult<T>, compute: (value
   };
 }
 
+/** A computation's own refusal (`{ok: false, message, field?}`) as a usage error naming the field. */
+function settled<T>(
+  result: { ok: true; value: T } | { ok: false; message: string; field?: string },
+  field?: string,
+): T {
+  if (result.ok) return result.value;
+  const name = result.field ?? field;
+  throw new UsageError(name ? `${name}: ${result.message}` : result.message);
+}
+
+/** Writes the OIFITS file of `simulate`; a path that cannot be written is the request's fault. */
+async function writeOifits(path: string, bytes: Uint8Array): Promise<void> {
+  try {
+    await writeFile(path, bytes);
+  } catch (e) {
+    throw new UsageError(`--oifits: cannot write ${path} (${(e as NodeJS.ErrnoException).code ?? "error"})`);
+  }
+}
+
 async function run(opts: Options): Promise<unknown> {
   const engine = await import("~/engine");
+  const { loadCatalogue: catalogue } = await import("~/services/catalogue/data.server");
   const commands: Record<(typeof COMMANDS)[number], (json: unknown) => unknown> = {
     coverage: command(engine.parseCoverageRequest, engine.computeCoverage),
     triangles: command(engine.parseTrianglesRequest, engine.rankTriangles),
     ephemeris: command(engine.parseEphemerisRequest, engine.computeEphemeris),
     plan: command(engine.parsePlanRequest, engine.computePlan),
     rank: command(engine.parseRankRequest, engine.rankReviews),
+    resolve: command(engine.parseResolveRequest, (v) => settled(engine.resolveStar(catalogue(), v.name), "name")),
+    calibrators: command(engine.parseCalibratorsRequest, (v) => settled(engine.shortlistCalibrators(catalogue(), v))),
+    simulate: command(engine.parseSimulateRequest, async (v) => {
+      const data = engine.simulateData(v);
+      if (opts.oifits)
+        await writeOifits(opts.oifits, engine.oifitsBytes(data, v, new Date().toISOString().slice(0, 19)));
+      return engine.simulateResponse(data);
+    }),
+    reconstruct: command(engine.parseReconstructRequest, engine.computeReconstruction),
   };
   if (!(COMMANDS as readonly string[]).includes(opts.command)) {
     throw new UsageError(`unknown command "${opts.command}" (expected ${commandList})`);
   }
-  return commands[opts.command as (typeof COMMANDS)[number]](await readRequest(opts.input));
+  return await commands[opts.command as (typeof COMMANDS)[number]](await readRequest(opts.input));
 }
 
 function fail(message: string, status: number): void {

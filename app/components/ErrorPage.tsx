@@ -1,7 +1,8 @@
 import { href, isRouteErrorResponse, Link } from "react-router";
 import { buttonClass } from "./ui/Button";
 
-const copy: Record<number, { title: string; text: string }> = {
+/** Title and text of each status; `advice` follows a route's own explanation when it gives one. */
+const copy: Record<number, { title: string; text: string; advice?: string }> = {
   400: {
     title: "That request did not make sense",
     text: "Something in the address or the form was not what this page expects.",
@@ -9,7 +10,8 @@ const copy: Record<number, { title: string; text: string }> = {
   401: { title: "Please sign in", text: "This page belongs to a signed-in account." },
   403: {
     title: "This page is not yours to open",
-    text: "Your account does not have the role this page needs. If you think it should, ask the array's administrator.",
+    text: "Your account does not have the role this page needs.",
+    advice: "If you think it should, ask the array's administrator.",
   },
   404: { title: "Nothing here", text: "The page you asked for does not exist, or it has moved." },
   500: {
@@ -33,8 +35,9 @@ export function ErrorPage({ error }: { error: unknown }) {
     <div className="mx-auto max-w-xl py-12 text-center">
       <p className="num text-sm font-semibold tracking-widest text-ember-700">ERROR {status}</p>
       <h1 className="mt-2 text-3xl font-semibold">{text.title}</h1>
-      <p className="mt-3 text-night-700">{text.text}</p>
-      {detail ? <p className="mt-3 text-sm text-night-600">{detail}</p> : null}
+      {/* The route's own explanation replaces the generic text, so nothing is said twice. */}
+      <p className="mt-3 text-night-700">{detail ?? text.text}</p>
+      {text.advice ? <p className="mt-3 text-sm text-night-600">{text.advice}</p> : null}
       <div className="mt-6 flex justify-center gap-3">
         <Link to={href("/")} className={buttonClass("primary")}>
           Go to the home page

@@ -1,5 +1,6 @@
-import { Button, Link, Section, Text } from "@react-email/components";
+import { Link, Text } from "@react-email/components";
 import { EmailLayout, emailStyles } from "./EmailLayout";
+import { ProposalButton } from "./ProposalButton";
 
 export type CoInvestigatorAddedEmailProps = {
   /** The co-investigator's name when they have an account; null otherwise. */
@@ -33,11 +34,7 @@ export function CoInvestigatorAddedEmail({
         {piName} added you as a co-investigator on {shown}, a proposal for the {cycleName} cycle. As a co-investigator
         you can read and edit the draft, and submit it, until the deadline: <strong>{deadline}</strong>.
       </Text>
-      <Section style={{ margin: "8px 0 24px" }}>
-        <Button href={url} style={emailStyles.button}>
-          Open the proposal
-        </Button>
-      </Section>
+      <ProposalButton url={url} label="Open the proposal" />
       {hasAccount ? null : (
         <Text style={emailStyles.paragraph}>
           You do not have a Fringe Docket account with this address yet. Sign in with this e-mail address (single

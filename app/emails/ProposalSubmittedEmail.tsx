@@ -1,5 +1,7 @@
-import { Button, Section, Text } from "@react-email/components";
+import { Text } from "@react-email/components";
+import type { Verdict } from "~/services/proposals/feasibility";
 import { EmailLayout, emailStyles } from "./EmailLayout";
+import { ProposalButton } from "./ProposalButton";
 
 export type ProposalSubmittedEmailProps = {
   name: string | null;
@@ -12,16 +14,16 @@ export type ProposalSubmittedEmailProps = {
   deadline: string;
   targets: number;
   hours: number;
-  verdict: "pass" | "caution" | "fail";
+  verdict: Verdict;
   documentSha256: string;
   url: string;
 };
 
-const VERDICT_WORDS = {
+const VERDICT_WORDS: Record<Verdict, string> = {
   pass: "every check passed",
   caution: "some lines ask for care",
   fail: "some lines failed — the committee will see why",
-} as const;
+};
 
 /** The notice at submission, to the PI and every co-investigator. */
 export function ProposalSubmittedEmail(p: ProposalSubmittedEmailProps) {
@@ -43,11 +45,7 @@ export function ProposalSubmittedEmail(p: ProposalSubmittedEmailProps) {
         To change anything, the PI can withdraw the proposal and reopen it as a draft before the deadline ({p.deadline}
         ), then submit it again.
       </Text>
-      <Section style={{ margin: "8px 0 24px" }}>
-        <Button href={p.url} style={emailStyles.button}>
-          See the proposal
-        </Button>
-      </Section>
+      <ProposalButton url={p.url} />
       <Text style={emailStyles.small}>You receive this because you are on the proposal's team.</Text>
     </EmailLayout>
   );

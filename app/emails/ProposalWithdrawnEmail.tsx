@@ -1,5 +1,6 @@
-import { Button, Section, Text } from "@react-email/components";
+import { Text } from "@react-email/components";
 import { EmailLayout, emailStyles } from "./EmailLayout";
+import { ProposalButton } from "./ProposalButton";
 
 export type ProposalWithdrawnEmailProps = {
   name: string | null;
@@ -32,11 +33,7 @@ export function ProposalWithdrawnEmail({
           ? `The PI can reopen it as a draft and submit it again until the deadline, ${reopenUntil}.`
           : "The submission deadline has passed, so it cannot be submitted again this cycle."}
       </Text>
-      <Section style={{ margin: "8px 0 24px" }}>
-        <Button href={url} style={emailStyles.button}>
-          See the proposal
-        </Button>
-      </Section>
+      <ProposalButton url={url} />
       <Text style={emailStyles.small}>You receive this because you are on the proposal's team.</Text>
     </EmailLayout>
   );

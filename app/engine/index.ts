@@ -6,6 +6,24 @@
  * Radians inside; degrees, milliarcseconds and hours only in the request and response objects.
  */
 
+// Star catalogue: name lookup, estimates from V and B−V, calibrator shortlist (cli resolve, cli calibrators)
+export {
+  DEFAULT_CALIBRATOR_LIMIT,
+  DEFAULT_MAX_DISTANCE_DEG,
+  DEFAULT_MIN_VIS2,
+  MAX_CALIBRATOR_LIMIT,
+  parseCalibratorsRequest,
+} from "./api/calibrators";
+// Imaging preview: simulated data, OIFITS 2 export, image reconstruction, fidelity and verdict
+export type { ReconstructRequest } from "./api/reconstruct";
+export {
+  DEFAULT_IMAGE_GRID,
+  DEFAULT_MAX_ITERATIONS,
+  DEFAULT_TOLERANCE,
+  MAX_RECONSTRUCT_CLOSURE_PHASES,
+  MAX_RECONSTRUCT_VIS2,
+  parseReconstructRequest,
+} from "./api/reconstruct";
 // Wire schemas: JSON validated into the inputs, one-line errors naming the field
 export type { CoverageRequest, EphemerisRequest, ParseResult, TrianglesRequest } from "./api/requests";
 export {
@@ -20,7 +38,15 @@ export {
   parseTrianglesRequest,
   TargetModelSchema,
 } from "./api/requests";
-
+export { MAX_NAME_LENGTH, parseResolveRequest } from "./api/resolve";
+export type { SimulateRequest } from "./api/simulate";
+export {
+  DEFAULT_NOISE,
+  DEFAULT_OIFITS,
+  MAX_SIMULATED_CLOSURE_PHASES,
+  MAX_SIMULATED_VIS2,
+  parseSimulateRequest,
+} from "./api/simulate";
 // Time and sky
 export { airmassKastenYoung, airmassSecZ } from "./astro/airmass";
 export type { EphemerisResponse, TwilightTimesUtc } from "./astro/ephemeris";
@@ -46,7 +72,109 @@ export {
 } from "./astro/time";
 export type { NightEvents } from "./astro/twilight";
 export { nightEvents } from "./astro/twilight";
-
+export type { StarCatalogue, StarNames } from "./catalogue/build";
+export { buildCatalogue, designationsOf, displayName, VARIABILITY } from "./catalogue/build";
+export type { CalibratorsResult } from "./catalogue/calibrators";
+export {
+  NIGHT_STEP_MIN,
+  shortlistCalibrators,
+  TARGET_MATCH_ARCSEC,
+  uniformDiskVis2,
+} from "./catalogue/calibrators";
+export type { ColourTable } from "./catalogue/colour-table";
+export { DWARF_COLOURS, interpolateColumn } from "./catalogue/colour-table";
+export type { Constellation } from "./catalogue/constellations";
+export { CONSTELLATIONS, constellationByAbbr } from "./catalogue/constellations";
+export { foldText, GREEK_LETTERS, parseDesignation } from "./catalogue/designations";
+export type { Band, BandName, Estimate } from "./catalogue/estimates";
+export {
+  ASSUMED_BV_ERROR_MAG,
+  BAND_MAG_ALLOWANCE,
+  BANDS,
+  BOLOMETRIC_ZERO_POINT_W_M2,
+  bandForWavelength,
+  DIAMETER_ALLOWANCE,
+  ESTIMATE_BV_RANGE,
+  estimateBandMagnitude,
+  estimateDiameterMas,
+  STEFAN_BOLTZMANN,
+} from "./catalogue/estimates";
+export type { LookupResult } from "./catalogue/lookup";
+export { lookupStar, nearNames, suggestStars } from "./catalogue/lookup";
+export { describeStar, resolveStar, unknownNameMessage } from "./catalogue/resolve";
+export type { ScoreTerms } from "./catalogue/score";
+export { calibratorScore, DEFAULT_MAG_SCALE, SCORE_WEIGHTS, SCORING_TEXT } from "./catalogue/score";
+export { editDistance, TrigramIndex, trigramSimilarity, trigramsOf } from "./catalogue/trigram";
+export type {
+  CalibratorEntry,
+  CalibratorsInput,
+  CalibratorsResponse,
+  CalibratorTarget,
+  ResolveInput,
+  ResolveResponse,
+} from "./catalogue/types";
+export type { ReconstructionAssessment } from "./imaging/assessment";
+export { assessReconstruction } from "./imaging/assessment";
+export type { WeightSearch, WeightTrial } from "./imaging/auto-weight";
+export { MAX_WEIGHT, MIN_WEIGHT, searchWeight } from "./imaging/auto-weight";
+export { DataTerms } from "./imaging/chi2";
+export type { PreparedData } from "./imaging/data";
+export { prepareData } from "./imaging/data";
+export type { GaussianBeam } from "./imaging/fidelity";
+export {
+  beamTransform,
+  cleanBeamAndDirtyImage,
+  convolvedModelImage,
+  convolveWithBeam,
+  fidelity,
+  normalizedCrossCorrelation,
+} from "./imaging/fidelity";
+export type { BinaryColumn, ColumnCode, FitsCard, FitsValue } from "./imaging/fits";
+export { binaryTableHdu, concatBytes, formatCard, formatReal, headerBytes, primaryHdu } from "./imaging/fits";
+export { enuToEcefOffset, geodeticToEcef, WGS84_A_M, WGS84_INV_F } from "./imaging/geocentric";
+export { GridDft } from "./imaging/grid-dft";
+export type {
+  ClosurePhaseDatum,
+  ClosurePhaseTriangles,
+  ImageOptions,
+  ImagingData,
+  NoiseInput,
+  OifitsOptions,
+  PriorInput,
+  ReconstructInput,
+  Regularizer,
+  SimulateInput,
+  StartInput,
+  Vis2Datum,
+} from "./imaging/inputs";
+export { besselI0, KaiserBessel, kaiserBesselBeta } from "./imaging/kaiser-bessel";
+export { DEFAULT_KERNEL_WIDTH, ImageTransform } from "./imaging/nufft";
+export { ImagingObjective } from "./imaging/objective";
+export { oifitsBytes } from "./imaging/oifits";
+export type { BoundedOptions, BoundedResult, Objective, StopReason } from "./imaging/projected-lbfgs";
+export { minimizeBounded } from "./imaging/projected-lbfgs";
+export { Mt19937 } from "./imaging/random";
+export type { ProgressCallback, ReconstructionResult } from "./imaging/reconstruct";
+export { recentre, reconstructImage } from "./imaging/reconstruct";
+export type { FidelityResponse, ReconstructResponse } from "./imaging/reconstruct-response";
+export { computeReconstruction, reconstructResponse } from "./imaging/reconstruct-response";
+export { RegularizationTerm } from "./imaging/regularizers";
+export type {
+  SimulatedClosurePhase,
+  SimulatedData,
+  SimulatedVis2,
+  SimulateResponse,
+} from "./imaging/simulate";
+export { simulateData, simulateResponse } from "./imaging/simulate";
+export {
+  dirtyAmplitudeImage,
+  fitGaussianFwhmRad,
+  flatImage,
+  gaussianImage,
+  perturb,
+} from "./imaging/start-image";
+export type { BinaryMeasurement, Verdict } from "./imaging/verdict";
+export { fitDiskDiameterRad, measureBinary, verdictFor } from "./imaging/verdict";
 // Inputs of the computations (degrees, mas, hours, metres on this edge)
 export type {
   BeamOptions,
@@ -61,7 +189,6 @@ export type {
   TargetModel,
   TrianglesInput,
 } from "./inputs";
-
 // Interferometry
 export { baselineCount, baselineIndex, buildBaselines } from "./interferometry/baselines";
 export { besselJ0, besselJ1, sphericalJ1OverX } from "./interferometry/bessel";
@@ -107,7 +234,6 @@ export {
   squaredVisibilities,
   visibilityPhases,
 } from "./interferometry/visibilities";
-
 // Constants and angle helpers
 export {
   clampedAcos,

@@ -13,3 +13,11 @@ export function toCsv(fields: readonly string[], rows: readonly (readonly CsvCel
     data: rows.map((r) => r.map((c) => (c === null || c === undefined ? "" : c))),
   });
 }
+
+/**
+ * `toCsv` for a file a spreadsheet opens: a text cell that starts like a formula (=, +, -, @, tab)
+ * gets a leading apostrophe, so it is shown and never run; lines end in "\n".
+ */
+export function toSpreadsheetCsv(fields: readonly string[], rows: readonly (readonly CsvCell[])[]): string {
+  return Papa.unparse({ fields: [...fields], data: rows.map((r) => [...r]) }, { escapeFormulae: true, newline: "\n" });
+}

@@ -17,3 +17,10 @@ export function utcText(at: Date | null): string | null {
 export function toUtcInput(d: Date): string {
   return d.toISOString().slice(0, 16);
 }
+
+/** "812 B", "14.2 KB", "3.4 MB" (1 KB = 1024 B). */
+export function formatBytes(n: number): string {
+  if (n < 1024) return `${n} B`;
+  if (n < 1024 * 1024) return `${(n / 1024).toFixed(1)} KB`;
+  return `${(n / (1024 * 1024)).toFixed(1)} MB`;
+}

@@ -1,29 +1,7 @@
-/** `cli plan` end to end: one JSON object on standard output, or exit 2 with `error: <field>: <reason>`. */
-import { spawnSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import { fileURLToPath } from "node:url";
+import { cli, requestFiles } from "@test/cli";
 import { describe, expect, it } from "vitest";
 
-const ROOT = fileURLToPath(new URL("../..", import.meta.url));
-const dir = mkdtempSync(join(tmpdir(), "fd-cli-plan-"));
-
-function cli(args: string[], stdin = "") {
-  const r = spawnSync("npx", ["tsx", "scripts/cli.ts", ...args], {
-    cwd: ROOT,
-    input: stdin,
-    encoding: "utf8",
-    timeout: 60_000,
-  });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
-
-function file(name: string, content: unknown): string {
-  const p = join(dir, name);
-  writeFileSync(p, JSON.stringify(content));
-  return p;
-}
+const { file } = requestFiles("cli-plan");
 
 /** The contract's example request, with a second station and target so that there is work to do. */
 const request = {

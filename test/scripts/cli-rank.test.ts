@@ -1,28 +1,7 @@
-import { spawnSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import { fileURLToPath } from "node:url";
+import { cli, requestFiles } from "@test/cli";
 import { describe, expect, it } from "vitest";
 
-const ROOT = fileURLToPath(new URL("../..", import.meta.url));
-const dir = mkdtempSync(join(tmpdir(), "fd-cli-rank-"));
-
-function cli(args: string[], stdin?: string) {
-  const r = spawnSync("npx", ["tsx", "scripts/cli.ts", ...args], {
-    cwd: ROOT,
-    input: stdin ?? "",
-    encoding: "utf8",
-    timeout: 60_000,
-  });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
-
-function file(name: string, content: unknown): string {
-  const p = join(dir, name);
-  writeFileSync(p, typeof content === "string" ? content : JSON.stringify(content));
-  return p;
-}
+const { file } = requestFiles("cli-rank");
 
 // r1: P1 = 2, P2 = 4 → μ = 3, σ = 1 → z = −1, +1.  r2: P1 = 3, P2 = 3.5 → μ = 3.25, σ = 0.25 → z = −1, +1.
 // P1: z̄ = −1, mean 2.5, spread 0.5 → rank 1.  P2: z̄ = +1, mean 3.75, spread 0.25 → rank 2.

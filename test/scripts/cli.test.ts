@@ -1,29 +1,8 @@
-import { spawnSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import { fileURLToPath } from "node:url";
+import { cli, requestFiles } from "@test/cli";
 import { demoSite, demoStations } from "@test/demo-array";
 import { describe, expect, it } from "vitest";
 
-const ROOT = fileURLToPath(new URL("../..", import.meta.url));
-const dir = mkdtempSync(join(tmpdir(), "fd-cli-"));
-
-function cli(args: string[], stdin?: string) {
-  const r = spawnSync("npx", ["tsx", "scripts/cli.ts", ...args], {
-    cwd: ROOT,
-    input: stdin ?? "",
-    encoding: "utf8",
-    timeout: 60_000,
-  });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
-
-function file(name: string, content: unknown): string {
-  const p = join(dir, name);
-  writeFileSync(p, typeof content === "string" ? content : JSON.stringify(content));
-  return p;
-}
+const { file } = requestFiles("cli");
 
 const coverageRequest = {
   site: demoSite(),

@@ -5,7 +5,7 @@ import { cx } from "./cx";
 
 const control =
   "block w-full rounded-lg border bg-white px-3 py-2 text-night-900 placeholder:text-night-400 " +
-  "focus:outline-none focus-visible:outline-3 focus-visible:outline-ember-500 focus-visible:outline-offset-1";
+  "outline-offset-1 focus-visible:outline-3 focus-visible:outline-solid focus-visible:outline-ember-500";
 
 function controlClass(error?: string) {
   return cx(control, error ? "border-danger-700" : "border-night-300");

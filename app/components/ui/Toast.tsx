@@ -9,13 +9,16 @@ const styles: Record<FlashMessage["kind"], string> = {
   info: "border-info-700/30 bg-info-50 text-info-700",
 };
 
-/** The flash message of the last action, announced politely and dismissible. */
+/**
+ * The flash message of the last action, announced politely and dismissible. It sits at the bottom of the
+ * window, clear of the navigation and of the page's heading and first actions.
+ */
 export function Toast({ flash }: { flash: FlashMessage | null }) {
   const [visible, setVisible] = useState<FlashMessage | null>(flash);
   useEffect(() => setVisible(flash), [flash]);
   if (!visible) return null;
   return (
-    <div className="pointer-events-none fixed inset-x-0 top-3 z-50 flex justify-center px-3">
+    <div className="pointer-events-none fixed inset-x-0 bottom-4 z-50 flex justify-center px-3 sm:justify-end sm:px-6">
       <div
         role={visible.kind === "error" ? "alert" : "status"}
         className={cx(

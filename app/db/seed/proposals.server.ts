@@ -17,7 +17,9 @@ import {
 } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { makeTinyPdf } from "~/services/proposals/pdf";
-import { freezeVersion, sha256Hex } from "~/services/proposals/proposals.server";
+import { sha256Hex } from "~/services/proposals/science-case.server";
+import { targetFieldsOf } from "~/services/proposals/targets.server";
+import { freezeVersion } from "~/services/proposals/versions.server";
 import type { DemoProposal } from "./scenario";
 
 /** Writes the demo proposals that are missing; returns how many the cycle now holds from the list. */
@@ -81,19 +83,8 @@ async function ensureDemoProposal(db: Database, cycleId: number, demo: DemoPropo
       await tx.insert(proposalHours).values({ proposalId: proposal.id, configurationId: config.id, hours });
     }
     for (const [position, t] of demo.targets.entries()) {
-      await tx.insert(proposalTargets).values({
-        proposalId: proposal.id,
-        position,
-        name: t.name,
-        raDeg: t.raDeg,
-        decDeg: t.decDeg,
-        model: t.model,
-        magnitudes: t.magnitudes,
-        minElevationDeg: t.minElevationDeg ?? null,
-        timeWindows: t.timeWindows ?? [],
-        calibrators: t.calibrators ?? [],
-        notes: t.notes ?? "",
-      });
+      const fields = targetFieldsOf({ ...t, notes: t.notes ?? "" });
+      await tx.insert(proposalTargets).values({ proposalId: proposal.id, position, ...fields });
     }
     if (demo.pdf) {
       const bytes = makeTinyPdf([
@@ -120,7 +111,7 @@ async function ensureDemoProposal(db: Database, cycleId: number, demo: DemoPropo
     if (demo.status !== "draft") {
       const submittedAt = new Date(demo.submittedAt ?? "2026-11-20T12:00:00Z");
       const [locked] = await tx.select().from(proposals).where(eq(proposals.id, proposal.id)).for("update");
-      await freezeVersion(tx, locked, cycle, pi.id, submittedAt);
+      await freezeVersion(tx, { proposal: locked, cycle, submittedById: pi.id, now: submittedAt });
       if (demo.status !== "submitted") {
         await tx
           .update(proposals)

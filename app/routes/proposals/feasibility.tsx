@@ -1,31 +1,35 @@
 import { Suspense } from "react";
-import { Await, Link } from "react-router";
+import { Await, href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
-import { ButtonLink, Card, PageHeader } from "~/components/ui";
-import { database } from "~/db/client.server";
+import { Card, PageHeader } from "~/components/ui";
+import { dbContext } from "~/context";
 import { requirePermission } from "~/lib/guards.server";
 import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/access.server";
 import type { FeasibilityReport } from "~/services/proposals/feasibility";
 import { computeProposalFeasibility, frozenFeasibility } from "~/services/proposals/feasibility.server";
-import { STATUS_WORDS } from "~/services/proposals/proposals.server";
+import { STATUS_WORDS } from "~/services/proposals/words";
+import { BackToProposal } from "./+shared/BackToProposal";
+import { StatusBadge } from "./+shared/Badges";
+import { FeasibilityView } from "./+shared/FeasibilityView";
 import type { Route } from "./+types/feasibility";
-import { FeasibilityView, StatusBadge, type StatusKey } from "./parts";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   const viewer = await requirePermission(request, "proposals:own");
-  const id = proposalIdFrom(params.proposalId);
-  const db = database();
-  const { proposal, cycle } = await loadProposalForViewer(db, viewer, id);
+  const proposalId = proposalIdFrom(params.proposalId);
+  const db = context.get(dbContext);
+  const { proposal, cycle } = await loadProposalForViewer(db, { viewer, proposalId });
   const frozen = proposal.status !== "draft" && proposal.currentVersion > 0;
   // A draft's report is computed now and streamed: the page shows "Computing…" until it arrives.
   const report: Promise<FeasibilityReport | null> = frozen
-    ? frozenFeasibility(db, id, proposal.currentVersion)
-    : new Promise((resolve, reject) => setImmediate(() => computeProposalFeasibility(db, id).then(resolve, reject)));
+    ? frozenFeasibility(db, { proposalId, version: proposal.currentVersion })
+    : new Promise((resolve, reject) =>
+        setImmediate(() => computeProposalFeasibility(db, { proposalId }).then(resolve, reject)),
+      );
   return {
     proposal: {
-      id,
+      id: proposalId,
       title: proposal.title,
-      status: proposal.status as StatusKey,
+      status: proposal.status,
       statusLabel: STATUS_WORDS[proposal.status],
       version: proposal.currentVersion,
     },
@@ -41,24 +45,21 @@ export const meta: Route.MetaFunction = ({ data }) => [
 
 export default function Feasibility({ loaderData }: Route.ComponentProps) {
   const { proposal, cycle, frozen, report } = loaderData;
+  const back = href("/proposals/:proposalId", { proposalId: String(proposal.id) });
   return (
     <>
       <PageHeader
         title="Feasibility report"
         lead={
           <>
-            <Link to={`/proposals/${proposal.id}`} className="font-medium text-ember-800 underline">
+            <Link to={back} className="font-medium text-ember-800 underline">
               {proposal.title || "(untitled proposal)"}
             </Link>{" "}
             <StatusBadge status={proposal.status} label={proposal.statusLabel} /> · cycle {cycle.name}, nights of{" "}
             {cycle.observingStart} to {cycle.observingEnd}
           </>
         }
-        actions={
-          <ButtonLink to={`/proposals/${proposal.id}`} variant="ghost">
-            Back to the proposal
-          </ButtonLink>
-        }
+        actions={<BackToProposal proposalId={proposal.id} />}
       />
       <p className="mb-4 text-sm text-night-700">
         {frozen

@@ -1,23 +1,24 @@
-import { Link } from "react-router";
+import { href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import { ButtonLink, Card, type Column, DataTable, EmptyState, PageHeader } from "~/components/ui";
-import { database } from "~/db/client.server";
+import { dbContext } from "~/context";
 import { requirePermission } from "~/lib/guards.server";
-import { openCycles } from "~/services/cycles/cycles.server";
-import { deadlineCountdown, listMyProposals, STATUS_WORDS } from "~/services/proposals/proposals.server";
+import { listMyProposals, listOpenCycles } from "~/services/proposals/queries.server";
+import { deadlineCountdown, STATUS_WORDS } from "~/services/proposals/words";
+import { StatusBadge } from "./+shared/Badges";
+import { shownUtc } from "./+shared/utc";
 import type { Route } from "./+types/list";
-import { fmtUtc, StatusBadge, type StatusKey } from "./parts";
 
-export async function loader({ request }: Route.LoaderArgs) {
+export async function loader({ request, context }: Route.LoaderArgs) {
   const viewer = await requirePermission(request, "proposals:own");
-  const db = database();
+  const db = context.get(dbContext);
   const now = new Date();
-  const [rows, open] = await Promise.all([listMyProposals(db, viewer), openCycles(db, now)]);
+  const [rows, open] = await Promise.all([listMyProposals(db, { viewer }), listOpenCycles(db, { now })]);
   return {
     proposals: rows.map((r) => ({
       id: r.id,
       title: r.title,
-      status: r.status as StatusKey,
+      status: r.status,
       statusLabel: STATUS_WORDS[r.status],
       role: r.role,
       piName: r.piName,
@@ -51,7 +52,10 @@ const columns: Column<Row>[] = [
     header: "Title",
     value: (r) => r.title || "(untitled)",
     render: (r) => (
-      <Link to={`/proposals/${r.id}`} className="font-medium text-ember-800 underline-offset-2 hover:underline">
+      <Link
+        to={href("/proposals/:proposalId", { proposalId: String(r.id) })}
+        className="font-medium text-ember-800 underline-offset-2 hover:underline"
+      >
         {r.title || "(untitled)"}
       </Link>
     ),
@@ -71,7 +75,7 @@ const columns: Column<Row>[] = [
     render: (r) =>
       r.countdown ? (
         <span
-          title={fmtUtc(r.deadline)}
+          title={shownUtc(r.deadline)}
           className={r.hoursLeft !== null && r.hoursLeft < 72 ? "font-semibold text-caution-700" : undefined}
         >
           {r.countdown}
@@ -94,7 +98,7 @@ export default function MyProposals({ loaderData }: Route.ComponentProps) {
       <PageHeader
         title="My proposals"
         lead="The proposals you lead or work on as a co-investigator. Drafts can be changed until the cycle's deadline; a submitted proposal is frozen."
-        actions={canStart ? <ButtonLink to="/proposals/new">New proposal</ButtonLink> : null}
+        actions={canStart ? <ButtonLink to={href("/proposals/new")}>New proposal</ButtonLink> : null}
       />
       {canStart ? (
         <p className="mb-4 text-sm text-night-700">
@@ -102,7 +106,7 @@ export default function MyProposals({ loaderData }: Route.ComponentProps) {
           {openCycles.map((c, i) => (
             <span key={c.id}>
               {i > 0 ? ", " : ""}
-              <span className="font-medium">{c.name}</span> (deadline {fmtUtc(c.deadline)}, {c.countdown})
+              <span className="font-medium">{c.name}</span> (deadline {shownUtc(c.deadline)}, {c.countdown})
             </span>
           ))}
           .
@@ -113,7 +117,7 @@ export default function MyProposals({ loaderData }: Route.ComponentProps) {
       {proposals.length === 0 ? (
         <EmptyState
           title="No proposals yet"
-          action={canStart ? <ButtonLink to="/proposals/new">Start a proposal</ButtonLink> : undefined}
+          action={canStart ? <ButtonLink to={href("/proposals/new")}>Start a proposal</ButtonLink> : undefined}
         >
           A proposal you start, or one a PI adds you to, appears here.
         </EmptyState>

@@ -1,39 +1,24 @@
-import { data, Form, useNavigation } from "react-router";
+import { data, Form, href, useNavigation } from "react-router";
 import * as v from "valibot";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Button, ButtonLink, Card, EmptyState, FormErrors, PageHeader, SelectField, TextField } from "~/components/ui";
-import { database } from "~/db/client.server";
+import { dbContext } from "~/context";
+import { requireFormBody } from "~/lib/body.server";
 import { redirectWithFlash } from "~/lib/flash.server";
+import { fieldErrors } from "~/lib/form-errors";
+import { formatUtc } from "~/lib/format";
 import { requirePermission } from "~/lib/guards.server";
-import { openCycles } from "~/services/cycles/cycles.server";
-import {
-  createProposal,
-  deadlineCountdown,
-  formatUtc,
-  PROPOSAL_LIMITS,
-  ProposalRefusal,
-} from "~/services/proposals/proposals.server";
+import { createProposal } from "~/services/proposals/commands.server";
+import { ProposalRefusal } from "~/services/proposals/lock.server";
+import { listOpenCycles } from "~/services/proposals/queries.server";
+import { NewProposalSchema, PROPOSAL_LIMITS } from "~/services/proposals/schemas";
+import { deadlineCountdown } from "~/services/proposals/words";
 import type { Route } from "./+types/new";
 
-const NewProposalSchema = v.object({
-  cycleId: v.pipe(
-    v.string("Cycle: choose one of the open cycles."),
-    v.regex(/^\d{1,9}$/, "Cycle: choose one of the open cycles."),
-    v.transform(Number),
-  ),
-  title: v.pipe(
-    v.string("Title: write a title."),
-    v.trim(),
-    v.nonEmpty("Title: write a title (it can change later)."),
-    v.regex(/^[^\r\n\t]*$/, "Title: must be a single line."),
-    v.maxLength(PROPOSAL_LIMITS.titleMaxChars, `Title: at most ${PROPOSAL_LIMITS.titleMaxChars} characters.`),
-  ),
-});
-
-export async function loader({ request }: Route.LoaderArgs) {
+export async function loader({ request, context }: Route.LoaderArgs) {
   await requirePermission(request, "proposals:own");
   const now = new Date();
-  const cycles = await openCycles(database(), now);
+  const cycles = await listOpenCycles(context.get(dbContext), { now });
   return {
     titleMax: PROPOSAL_LIMITS.titleMaxChars,
     cycles: cycles.map((c) => ({
@@ -46,22 +31,15 @@ export async function loader({ request }: Route.LoaderArgs) {
   };
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   const viewer = await requirePermission(request, "proposals:own");
-  const form = await request.formData();
+  const form = await requireFormBody(request);
   const values = { cycleId: String(form.get("cycleId") ?? ""), title: String(form.get("title") ?? "") };
   const parsed = v.safeParse(NewProposalSchema, values);
-  if (!parsed.success) {
-    const errors: Record<string, string> = {};
-    for (const issue of parsed.issues) {
-      const key = String(issue.path?.[0]?.key ?? "form");
-      errors[key] ??= issue.message;
-    }
-    return data({ values, errors }, { status: 400 });
-  }
+  if (!parsed.success) return data({ values, errors: fieldErrors(parsed.issues, { depth: 1 }) }, { status: 400 });
   try {
-    const row = await createProposal(database(), viewer, parsed.output);
-    return redirectWithFlash(`/proposals/${row.id}`, {
+    const row = await createProposal(context.get(dbContext), { viewer, input: parsed.output });
+    return redirectWithFlash(href("/proposals/:proposalId", { proposalId: String(row.id) }), {
       kind: "success",
       text: "Draft created. It saves as you type; submit it before the deadline.",
     });
@@ -85,7 +63,7 @@ export default function NewProposal({ loaderData, actionData }: Route.ComponentP
         <EmptyState
           title="No cycle is open for proposals"
           action={
-            <ButtonLink to="/proposals" variant="secondary">
+            <ButtonLink to={href("/proposals")} variant="secondary">
               Back to my proposals
             </ButtonLink>
           }
@@ -129,7 +107,7 @@ export default function NewProposal({ loaderData, actionData }: Route.ComponentP
             <Button type="submit" disabled={navigation.state === "submitting"}>
               Create the draft
             </Button>
-            <ButtonLink to="/proposals" variant="ghost">
+            <ButtonLink to={href("/proposals")} variant="ghost">
               Cancel
             </ButtonLink>
           </div>

@@ -1,25 +1,21 @@
-import { database } from "~/db/client.server";
+import { dbContext } from "~/context";
 import { requirePermission } from "~/lib/guards.server";
-import { loadProposalForViewer, proposalIdFrom, proposalNotFound } from "~/services/proposals/access.server";
-import { readScienceCase } from "~/services/proposals/proposals.server";
+import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/access.server";
+import { readScienceCase } from "~/services/proposals/science-case.server";
 import type { Route } from "./+types/science-case";
 
 /**
  * The science case as a download, for those who may see the proposal (everyone else: 404).
  * `?version=N` gives the PDF frozen with version N; without it, the current one.
  */
-export async function loader({ request, params, url }: Route.LoaderArgs) {
+export async function loader({ request, params, url, context }: Route.LoaderArgs) {
   const viewer = await requirePermission(request, "proposals:own");
-  const id = proposalIdFrom(params.proposalId);
-  const db = database();
-  await loadProposalForViewer(db, viewer, id);
+  const proposalId = proposalIdFrom(params.proposalId);
+  const db = context.get(dbContext);
+  await loadProposalForViewer(db, { viewer, proposalId });
   const raw = url.searchParams.get("version");
-  let version: number | null = null;
-  if (raw !== null) {
-    if (!/^\d{1,6}$/.test(raw) || Number(raw) < 1) proposalNotFound();
-    version = Number(raw);
-  }
-  const doc = await readScienceCase(db, id, version);
+  const version = raw === null ? null : proposalIdFrom(raw);
+  const doc = await readScienceCase(db, { proposalId, version });
   if (!doc)
     throw new Response("This proposal has no science case here.", {
       status: 404,

@@ -1,25 +1,30 @@
-import { data, Link } from "react-router";
+import { href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Badge, ButtonLink, Card, PageHeader } from "~/components/ui";
-import { database } from "~/db/client.server";
+import { Badge, Card, PageHeader } from "~/components/ui";
+import { dbContext } from "~/context";
+import { formatBytes } from "~/lib/format";
 import { requirePermission } from "~/lib/guards.server";
+import { invariantResponse, toId } from "~/lib/not-found";
 import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/access.server";
-import { formatBytes, readVersion } from "~/services/proposals/proposals.server";
-import { describeModel } from "~/components/targets/describe-model";
+import { readVersion } from "~/services/proposals/versions.server";
+import { BackToProposal } from "./+shared/BackToProposal";
+import { FeasibilityView } from "./+shared/FeasibilityView";
+import { ProposalFacts } from "./+shared/ProposalFacts";
+import { targetSummary } from "./+shared/target-summary";
+import { shownUtc } from "./+shared/utc";
 import type { Route } from "./+types/version";
-import { describeMagnitudes, FeasibilityView, fmtUtc } from "./parts";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+export async function loader({ request, params, context }: Route.LoaderArgs) {
   const viewer = await requirePermission(request, "proposals:own");
-  const id = proposalIdFrom(params.proposalId);
-  const db = database();
-  await loadProposalForViewer(db, viewer, id);
-  const raw = params.version ?? "";
-  const row = /^\d{1,6}$/.test(raw) ? await readVersion(db, id, Number(raw)) : null;
-  if (!row) throw data("This proposal has no version with that number.", { status: 404 });
+  const proposalId = proposalIdFrom(params.proposalId);
+  const db = context.get(dbContext);
+  await loadProposalForViewer(db, { viewer, proposalId });
+  const version = toId(params.version);
+  const row = version === null ? null : await readVersion(db, { proposalId, version });
+  invariantResponse(row, "This proposal has no version with that number.");
   const s = row.snapshot;
   return {
-    proposalId: id,
+    proposalId,
     version: row.version,
     submittedAt: row.submittedAt.toISOString(),
     submittedBy: row.submittedBy,
@@ -33,17 +38,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       coInvestigators: s.coInvestigators,
       instrument: s.instrument,
       hours: s.hours,
-      targets: s.targets.map((t) => ({
-        name: t.name,
-        raDeg: t.raDeg,
-        decDeg: t.decDeg,
-        model: describeModel(t.model),
-        magnitudes: describeMagnitudes(t.magnitudes),
-        minElevationDeg: t.minElevationDeg,
-        timeWindows: t.timeWindows,
-        calibrators: t.calibrators.map((c) => c.name),
-        notes: t.notes,
-      })),
+      targets: s.targets.map((t) => ({ ...targetSummary(t), timeWindows: t.timeWindows, notes: t.notes })),
       document: s.document ? { ...s.document, size: formatBytes(s.document.sizeBytes) } : null,
       feasibility: s.feasibility,
     },
@@ -57,39 +52,25 @@ export const meta: Route.MetaFunction = ({ data: d }) => [
 export default function ProposalVersion({ loaderData }: Route.ComponentProps) {
   const d = loaderData;
   const s = d.snapshot;
+  const proposalId = String(d.proposalId);
   return (
     <>
       <PageHeader
         title={s.title}
         lead={
           <>
-            <Badge tone="info">Version {d.version}</Badge> submitted {fmtUtc(d.submittedAt)}
+            <Badge tone="info">Version {d.version}</Badge> submitted {shownUtc(d.submittedAt)}
             {d.submittedBy ? ` by ${d.submittedBy}` : ""} to cycle {s.cycle.name}. Frozen: later changes never alter it.
           </>
         }
-        actions={
-          <ButtonLink to={`/proposals/${d.proposalId}`} variant="ghost">
-            Back to the proposal
-          </ButtonLink>
-        }
+        actions={<BackToProposal proposalId={d.proposalId} />}
       />
       <div className="grid gap-6 lg:grid-cols-2">
-        <Card title="Proposal">
-          <dl className="grid gap-3 text-sm">
-            <div>
-              <dt className="text-night-600">Science category</dt>
-              <dd className="font-medium">{s.scienceCategory}</dd>
-            </div>
-            <div>
-              <dt className="text-night-600">Instrument and band</dt>
-              <dd className="font-medium">{s.instrument ? `${s.instrument.name} ${s.instrument.band}` : "—"}</dd>
-            </div>
-            <div>
-              <dt className="text-night-600">Abstract</dt>
-              <dd className="whitespace-pre-wrap">{s.abstract}</dd>
-            </div>
-          </dl>
-        </Card>
+        <ProposalFacts
+          category={s.scienceCategory}
+          band={s.instrument ? `${s.instrument.name} ${s.instrument.band}` : null}
+          abstract={s.abstract}
+        />
         <div className="grid content-start gap-6">
           <Card title="Team">
             <ul className="grid gap-1 text-sm">
@@ -119,7 +100,7 @@ export default function ProposalVersion({ loaderData }: Route.ComponentProps) {
               <p className="text-sm">
                 <a
                   className="font-medium text-ember-800 underline"
-                  href={`/proposals/${d.proposalId}/science-case?version=${d.version}`}
+                  href={`${href("/proposals/:proposalId/science-case", { proposalId })}?version=${d.version}`}
                   download
                 >
                   {s.document.filename}
@@ -146,7 +127,7 @@ export default function ProposalVersion({ loaderData }: Route.ComponentProps) {
               <span className="block text-night-600">
                 {t.minElevationDeg === null ? "array elevation limit" : `elevation ≥ ${t.minElevationDeg}°`}
                 {t.timeWindows.length
-                  ? ` · windows ${t.timeWindows.map((w) => `${fmtUtc(w.startUtc)} – ${fmtUtc(w.endUtc)}`).join("; ")}`
+                  ? ` · windows ${t.timeWindows.map((w) => `${shownUtc(w.startUtc)} – ${shownUtc(w.endUtc)}`).join("; ")}`
                   : ""}
                 {t.calibrators.length ? ` · calibrators ${t.calibrators.join(", ")}` : ""}
                 {t.notes ? ` · ${t.notes}` : ""}
@@ -160,7 +141,7 @@ export default function ProposalVersion({ loaderData }: Route.ComponentProps) {
         <FeasibilityView report={s.feasibility} />
       </section>
       <p className="mt-6 text-sm">
-        <Link to={`/proposals/${d.proposalId}/feasibility`} className="text-ember-800 underline">
+        <Link to={href("/proposals/:proposalId/feasibility", { proposalId })} className="text-ember-800 underline">
           Open the latest report
         </Link>
       </p>

@@ -16,11 +16,11 @@
  *  - Reopening a withdrawn proposal as a draft: the PI, before the deadline. A later submission
  *    freezes a new version; the earlier versions stay.
  */
-import { and, eq, isNull, sql } from "drizzle-orm";
-import { data } from "react-router";
+import { and, asc, eq, isNull, sql } from "drizzle-orm";
 import type { Database, DbOrTx } from "~/db/client.server";
 import { cycles, type ProposalStatus, proposalMembers, proposals } from "~/db/schema/proposals";
 import type { Role } from "~/db/schema/users";
+import { invariantResponse, notFound, toId } from "~/lib/not-found";
 
 /** What the rules need to know about the person asking. */
 export type ProposalViewer = { user: { id: number; email: string }; roles: readonly Role[] };
@@ -110,15 +110,17 @@ export function abilitiesFor(
   };
 }
 
+const NOT_YOURS = "No proposal of yours has this number.";
+
 /** Thrown for a proposal the viewer may not see (or that does not exist): the same 404 either way. */
 export function proposalNotFound(): never {
-  throw data("No proposal of yours has this number.", { status: 404 });
+  notFound(NOT_YOURS);
 }
 
-/** Parses a route's proposal id; anything else is the same 404. */
-export function proposalIdFrom(param: string | undefined): number {
-  const id = Number(param);
-  if (!param || !/^\d{1,9}$/.test(param) || !Number.isSafeInteger(id) || id < 1) proposalNotFound();
+/** Parses a route's proposal id (or another id of its pages); anything else is the same 404. */
+export function proposalIdFrom(param: string | null | undefined): number {
+  const id = toId(param);
+  invariantResponse(id, NOT_YOURS);
   return id;
 }
 
@@ -128,9 +130,7 @@ export function proposalIdFrom(param: string | undefined): number {
  */
 export async function loadProposalForViewer(
   db: Database,
-  viewer: ProposalViewer,
-  proposalId: number,
-  now: Date = new Date(),
+  { viewer, proposalId, now = new Date() }: { viewer: ProposalViewer; proposalId: number; now?: Date },
 ) {
   const [row] = await db
     .select({ proposal: proposals, cycle: cycles })
@@ -138,11 +138,7 @@ export async function loadProposalForViewer(
     .innerJoin(cycles, eq(cycles.id, proposals.cycleId))
     .where(eq(proposals.id, proposalId));
   if (!row) proposalNotFound();
-  const members = await db
-    .select()
-    .from(proposalMembers)
-    .where(eq(proposalMembers.proposalId, proposalId))
-    .orderBy(proposalMembers.id);
+  const members = await teamMembers(db, { proposalId });
   const subject: ProposalAccessSubject = { piId: row.proposal.piId, status: row.proposal.status, members };
   if (!canViewProposal(viewer, subject)) proposalNotFound();
   const mine = membershipOf(viewer, { members });
@@ -151,6 +147,15 @@ export async function loadProposalForViewer(
     mine.userId = viewer.user.id;
   }
   return { ...row, members, abilities: abilitiesFor(viewer, subject, row.cycle, now) };
+}
+
+/** The co-investigators of a proposal in the order they were added, with the name and institute of their account. */
+export function teamMembers(db: DbOrTx, { proposalId }: { proposalId: number }) {
+  return db.query.proposalMembers.findMany({
+    where: eq(proposalMembers.proposalId, proposalId),
+    orderBy: asc(proposalMembers.id),
+    with: { user: { columns: { name: true, institute: true } } },
+  });
 }
 
 export type LoadedProposal = Awaited<ReturnType<typeof loadProposalForViewer>>;

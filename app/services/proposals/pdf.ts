@@ -5,6 +5,7 @@
  * bytes after the marker (a line end, padding added by mail or upload tools), so the marker is
  * looked for in the last 1024 bytes. Pure: no Node or browser imports, usable on both sides.
  */
+import { formatBytes } from "~/lib/format";
 
 /** Largest science case accepted, bytes (10 MiB). */
 export const MAX_PDF_BYTES = 10 * 1024 * 1024;
@@ -60,13 +61,6 @@ export function checkPdf(bytes: Uint8Array): PdfCheck {
     };
   }
   return { ok: true, version: String.fromCharCode(bytes[5], bytes[6], bytes[7]) };
-}
-
-/** "812 B", "14.2 KB", "3.4 MB" (1 KB = 1024 B). */
-export function formatBytes(n: number): string {
-  if (n < 1024) return `${n} B`;
-  if (n < 1024 * 1024) return `${(n / 1024).toFixed(1)} KB`;
-  return `${(n / (1024 * 1024)).toFixed(1)} MB`;
 }
 
 function escapePdfText(s: string): string {

@@ -1,12 +1,11 @@
 /**
- * Reading a form or a multipart upload without ever holding more than a fixed number of bytes: a declared
- * Content-Length over the cap is refused before reading anything; otherwise the body stream is read
- * chunk by chunk and abandoned as soon as the total passes the cap. Only then is the (small enough)
- * body handed to the platform's form-data parser.
+ * Reading the proposal pages' posts through the capped body reader (app/lib/body.server.ts): the
+ * science case upload (multipart, at most the PDF limit plus room for the form around it) and the
+ * ordinary forms.
  */
-
-import { parseForm, readBodyCapped } from "~/lib/body.server";
-import { formatBytes, MAX_PDF_BYTES } from "~/services/proposals/pdf";
+import { type FormBody, readFormBody } from "~/lib/body.server";
+import { formatBytes } from "~/lib/format";
+import { MAX_PDF_BYTES } from "./pdf";
 
 /** Room for the multipart boundaries, part headers and the small text fields beside the file. */
 export const MULTIPART_OVERHEAD_BYTES = 64 * 1024;
@@ -17,56 +16,40 @@ export const MAX_UPLOAD_BODY_BYTES = MAX_PDF_BYTES + MULTIPART_OVERHEAD_BYTES;
 /** Largest body of an ordinary (URL-encoded) form of the proposal pages. */
 export const MAX_FORM_BODY_BYTES = 256 * 1024;
 
-export type CappedForm = { ok: true; form: FormData } | { ok: false; status: 400 | 413 | 415; message: string };
-
 export function isMultipart(request: Request): boolean {
   return /^multipart\/form-data\b/i.test(request.headers.get("Content-Type") ?? "");
 }
 
-const tooLarge = (): CappedForm => ({
-  ok: false,
-  status: 413,
-  message: `Science case: the file is larger than the ${formatBytes(MAX_PDF_BYTES)} limit. Please upload a smaller PDF (compress the figures).`,
-});
+const FORM_LIMIT = {
+  maxBytes: MAX_FORM_BODY_BYTES,
+  tooLargeMessage: `The form is larger than ${formatBytes(MAX_FORM_BODY_BYTES)}; shorten the longest text and try again.`,
+};
 
-/**
- * Reads a multipart/form-data body of at most `maxBytes` and parses it. Never reads past
- * `maxBytes` + one chunk; answers 413 beyond it, 415 for another content type, 400 for a body
- * the parser cannot read.
- */
-export async function readMultipartCapped(
-  request: Request,
-  maxBytes: number = MAX_UPLOAD_BODY_BYTES,
-): Promise<CappedForm> {
-  if (!isMultipart(request))
-    return { ok: false, status: 415, message: "Science case: send the file as a form upload (multipart/form-data)." };
-  const read = await readCapped(request, maxBytes, tooLarge);
-  if (read.ok || read.status === 413) return read;
-  return { ...read, message: `Science case: ${read.message[0].toLowerCase()}${read.message.slice(1)}` };
+const UPLOAD_LIMIT = {
+  maxBytes: MAX_UPLOAD_BODY_BYTES,
+  tooLargeMessage: `Science case: the file is larger than the ${formatBytes(MAX_PDF_BYTES)} limit. Please upload a smaller PDF (compress the figures).`,
+};
+
+/** An ordinary form of the proposal pages, of at most `MAX_FORM_BODY_BYTES`. */
+export function readProposalForm(request: Request): Promise<FormBody> {
+  return readFormBody(request, FORM_LIMIT);
 }
 
-/**
- * Reads an ordinary form (URL-encoded or multipart) of at most `maxBytes`: 413 beyond it, 400 for a
- * body that cannot be read as a form.
- */
-export async function readFormCapped(request: Request, maxBytes: number = MAX_FORM_BODY_BYTES): Promise<CappedForm> {
-  return readCapped(request, maxBytes, () => ({
-    ok: false,
-    status: 413,
-    message: `The form is larger than ${formatBytes(maxBytes)}; shorten the longest text and try again.`,
-  }));
-}
+/** A post that may be an upload, and the field its refusal is about ("document" for an upload). */
+export type ProposalPost =
+  | { ok: true; form: FormData; multipart: boolean }
+  | { ok: false; status: 400 | 413; error: string; field: "form" | "document" };
 
-async function readCapped(request: Request, maxBytes: number, tooBig: () => CappedForm): Promise<CappedForm> {
-  const read = await readBodyCapped(request, maxBytes);
-  if (!read.ok)
-    return read.reason === "too-large"
-      ? tooBig()
-      : { ok: false, status: 400, message: "The upload was interrupted; please try again." };
-  if (read.bytes.byteLength === 0)
-    return { ok: false, status: 400, message: "The form arrived empty; please try again." };
-  const form = await parseForm(request, read.bytes);
-  return form
-    ? { ok: true, form }
-    : { ok: false, status: 400, message: "The form could not be read; please try again." };
+/**
+ * Reads a post of the editor: an upload (multipart) of at most `MAX_UPLOAD_BODY_BYTES`, whose
+ * refusals speak of the science case, or an ordinary form. Never reads more than the cap and one
+ * chunk: 413 beyond it, 400 for a body that is not a form.
+ */
+export async function readProposalPost(request: Request): Promise<ProposalPost> {
+  const multipart = isMultipart(request);
+  const body = await readFormBody(request, multipart ? UPLOAD_LIMIT : FORM_LIMIT);
+  if (body.ok) return { ok: true, form: body.form, multipart };
+  if (!multipart) return { ...body, field: "form" };
+  const error = body.status === 413 ? body.error : `Science case: ${body.error[0].toLowerCase()}${body.error.slice(1)}`;
+  return { ...body, error, field: "document" };
 }
