@@ -66,6 +66,13 @@ export default [
     route("proposals/:proposalId/targets/:targetId/calibrators", "routes/catalogue/proposal-shortlist.tsx"),
   ]),
 
+  // Night builder
+  ...prefix("nights", [
+    index("routes/nights/calendar.tsx"),
+    route(":date", "routes/nights/night.tsx"),
+    route(":date/export/:file", "routes/nights/export.ts"),
+  ]),
+
   // Notices
   ...prefix("mailbox", [index("routes/mailbox/index.tsx"), route(":messageId", "routes/mailbox/message.tsx")]),
 
@@ -77,6 +84,8 @@ export default [
     route("resolve", "routes/api/resolve.ts"),
     route("calibrators", "routes/api/calibrators.ts"),
     route("stars", "routes/api/stars.ts"),
+    route("plan", "routes/api/plan.ts"),
+    route("nights/:date/plan", "routes/api/night-plan.ts"),
   ]),
 
   route("*", "routes/not-found.tsx"),

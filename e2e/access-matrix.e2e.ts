@@ -46,6 +46,14 @@ const chairOnly: Record<Who, Outcome> = {
   scheduler: "forbidden",
   admin: "forbidden",
 };
+const schedulerOnly: Record<Who, Outcome> = {
+  anonymous: "sign-in",
+  proposer: "forbidden",
+  reviewer: "forbidden",
+  chair: "forbidden",
+  scheduler: "ok",
+  admin: "forbidden",
+};
 const adminOnly: Record<Who, Outcome> = {
   anonymous: "sign-in",
   proposer: "forbidden",
@@ -146,6 +154,13 @@ const MATRIX: Row[] = [
   ),
   get("/cycles/new", "/cycles/new", chairOnly),
   get("/cycles/:cycleId/edit", "/cycles/1/edit", chairOnly),
+  // Night builder: the scheduler's. A night's files go to the scheduler and to the teams of its programs once
+  // published; a night without a plan is a 404 for everyone. Posts that are not forms are refused with 400.
+  get("/nights", "/nights", schedulerOnly),
+  post("/nights", "/nights", {}, { ...schedulerOnly, scheduler: 400 }),
+  get("/nights/:date", "/nights/2027-03-15", schedulerOnly),
+  post("/nights/:date", "/nights/2027-03-15", {}, { ...schedulerOnly, scheduler: 400 }),
+  get("/nights/:date/export/:file", "/nights/2027-03-15/export/plan.csv", signedIn(404)),
   // Every signed-in person reads their own mail there (administrators everyone's); demo mode or not.
   get("/mailbox", "/mailbox", signedIn("ok")),
   get("/mailbox/:messageId", "/mailbox/999999", signedIn(404)),
@@ -171,6 +186,8 @@ const MATRIX: Row[] = [
     { ...all("ok"), anonymous: "unauthorized" },
   ),
   get("/api/stars", "/api/stars?q=betel", { ...all("ok"), anonymous: "unauthorized" }),
+  post("/api/plan", "/api/plan", {}, { ...all(400), anonymous: "unauthorized" }),
+  get("/api/nights/:date/plan", "/api/nights/2027-03-15/plan?format=csv", { ...all(404), anonymous: "unauthorized" }),
   get("/*", "/no/such/page", all(404)),
 ];
 

@@ -24,7 +24,7 @@ const expectedMenus: Record<string, string[]> = {
   ],
   "Kenji Morrow": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Mailbox"],
   "Henrik Solberg": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Cycles", "Mailbox"],
-  "Mei-Lin Chao": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Mailbox"],
+  "Mei-Lin Chao": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Night builder", "Mailbox"],
   "Rafael Quispe": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Mailbox", "People"],
 };
 

@@ -1,5 +1,6 @@
 import { relations } from "drizzle-orm";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "./schema/array";
+import { nightConfigurations, nightPlanBlocks, nightPlans } from "./schema/nights";
 import {
   cycleConfigurations,
   cycles,
@@ -97,4 +98,27 @@ export const proposalTargetsRelations = relations(proposalTargets, ({ one }) => 
 
 export const proposalVersionsRelations = relations(proposalVersions, ({ one }) => ({
   proposal: one(proposals, { fields: [proposalVersions.proposalId], references: [proposals.id] }),
+}));
+
+export const nightConfigurationsRelations = relations(nightConfigurations, ({ one }) => ({
+  cycle: one(cycles, { fields: [nightConfigurations.cycleId], references: [cycles.id] }),
+  configuration: one(configurations, {
+    fields: [nightConfigurations.configurationId],
+    references: [configurations.id],
+  }),
+}));
+
+export const nightPlansRelations = relations(nightPlans, ({ one, many }) => ({
+  cycle: one(cycles, { fields: [nightPlans.cycleId], references: [cycles.id] }),
+  configuration: one(configurations, { fields: [nightPlans.configurationId], references: [configurations.id] }),
+  blocks: many(nightPlanBlocks),
+}));
+
+export const nightPlanBlocksRelations = relations(nightPlanBlocks, ({ one }) => ({
+  plan: one(nightPlans, { fields: [nightPlanBlocks.planId], references: [nightPlans.id] }),
+  proposal: one(proposals, { fields: [nightPlanBlocks.proposalId], references: [proposals.id] }),
+  proposalTarget: one(proposalTargets, {
+    fields: [nightPlanBlocks.proposalTargetId],
+    references: [proposalTargets.id],
+  }),
 }));

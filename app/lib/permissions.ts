@@ -126,6 +126,12 @@ export const SECTIONS: readonly Section[] = [
     summary: "Observing cycles: dates, deadline and the configurations on offer with their nights.",
   },
   {
+    label: "Night builder",
+    to: href("/nights"),
+    permission: "nights:build",
+    summary: "The cycle's nights: configurations installed, night plans built, exported, published and marked.",
+  },
+  {
     label: "Mailbox",
     to: href("/mailbox"),
     permission: "mailbox:own",

@@ -4,5 +4,6 @@ export * from "./auth";
 export * from "./catalogue";
 export * from "./columns";
 export * from "./mail";
+export * from "./nights";
 export * from "./proposals";
 export * from "./users";

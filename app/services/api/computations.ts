@@ -8,10 +8,12 @@ import {
   type BudgetFailure,
   computeCoverage,
   computeEphemeris,
+  computePlan,
   coverageBudgetFailure,
   type ParseResult,
   parseCoverageRequest,
   parseEphemerisRequest,
+  parsePlanRequest,
   parseTrianglesRequest,
   rankTriangles,
   trianglesBudgetFailure,
@@ -29,6 +31,8 @@ export const COMPUTATIONS = {
   coverage: define({ parse: parseCoverageRequest, budget: coverageBudgetFailure, compute: computeCoverage }),
   triangles: define({ parse: parseTrianglesRequest, budget: trianglesBudgetFailure, compute: rankTriangles }),
   ephemeris: define({ parse: parseEphemerisRequest, budget: () => null, compute: computeEphemeris }),
+  // The plan's size is capped by its schema (targets, calibrators, blocks, delay-line work).
+  plan: define({ parse: parsePlanRequest, budget: () => null, compute: computePlan }),
 } as const;
 
 export type ComputationName = keyof typeof COMPUTATIONS;
