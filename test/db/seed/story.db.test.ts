@@ -1,7 +1,13 @@
 import { testDb } from "@test/routes";
 import { and, eq, sql } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
-import { committeeMembers, proposalDecisions, reviewAssignments, reviewConflicts, reviews } from "~/db/schema/committee";
+import {
+  committeeMembers,
+  proposalDecisions,
+  reviewAssignments,
+  reviewConflicts,
+  reviews,
+} from "~/db/schema/committee";
 import { cycles, proposals } from "~/db/schema/proposals";
 import { seedDemoScenario } from "~/db/seed/factories.server";
 import { DEMO_COMMITTEE, demoCycles } from "~/db/seed/scenario";
@@ -40,7 +46,8 @@ async function checkStory(today: Date) {
   expect(open.state).toBe("open");
   expect(open.submissionDeadline.getTime()).toBeGreaterThan(today.getTime());
   expect(open.observingStart > review.observingEnd).toBe(true);
-  for (const c of [current, review, open]) expect(c.submissionDeadline.getTime()).toBeLessThan(Date.parse(c.observingStart));
+  for (const c of [current, review, open])
+    expect(c.submissionDeadline.getTime()).toBeLessThan(Date.parse(c.observingStart));
 
   // Nothing was submitted after its cycle's deadline, nor in the future.
   const late = await db.execute(sql`select count(*)::int as n from proposals p join cycles c on c.id = p.cycle_id
@@ -76,7 +83,10 @@ async function checkStory(today: Date) {
     .from(reviewAssignments)
     .innerJoin(
       reviewConflicts,
-      and(eq(reviewConflicts.proposalId, reviewAssignments.proposalId), eq(reviewConflicts.reviewerId, reviewAssignments.reviewerId)),
+      and(
+        eq(reviewConflicts.proposalId, reviewAssignments.proposalId),
+        eq(reviewConflicts.reviewerId, reviewAssignments.reviewerId),
+      ),
     );
   expect(clash[0].n).toBe(0);
 
@@ -113,10 +123,20 @@ describe("the demo story, laid out around the load day", () => {
     await wipe();
     const today = new Date("2027-05-03T08:00:00Z");
     await seedDemoScenario(testDb(), { today });
-    const before = [await count("proposals"), await count("review_assignments"), await count("reviews"), await count("audit_log")];
+    const before = [
+      await count("proposals"),
+      await count("review_assignments"),
+      await count("reviews"),
+      await count("audit_log"),
+    ];
     await seedDemoScenario(testDb(), { today });
     await seedDemoScenario(testDb(), { today: new Date(today.getTime() + 0.2 * DAY) });
-    expect([await count("proposals"), await count("review_assignments"), await count("reviews"), await count("audit_log")]).toEqual(before);
+    expect([
+      await count("proposals"),
+      await count("review_assignments"),
+      await count("reviews"),
+      await count("audit_log"),
+    ]).toEqual(before);
   });
 });
 
