@@ -20,7 +20,7 @@ import type { Route } from "./+types/cycle";
 const TransitionForm = v.object({
   intent: v.picklist(TRANSITIONS, "Unknown action."),
   confirm: v.literal("yes", "Confirm the change in the dialog."),
-  reviewDeadline: v.optional(ReviewDeadline, ""),
+  reviewDeadline: ReviewDeadline,
 });
 
 export async function loader({ request, params, context }: Route.LoaderArgs) {
@@ -36,7 +36,12 @@ export async function action({ request, params, context }: Route.ActionArgs) {
   const db = context.get(dbContext);
   const cycle = await cycleOfParam(db, params.cycleId);
   const form = await requireFormBody(request);
-  const parsed = v.safeParse(TransitionForm, Object.fromEntries(form));
+  const text = (k: string) => String(form.get(k) ?? "");
+  const parsed = v.safeParse(TransitionForm, {
+    intent: text("intent"),
+    confirm: text("confirm"),
+    reviewDeadline: text("reviewDeadline"),
+  });
   if (!parsed.success) return data({ error: parsed.issues[0].message }, { status: 400 });
   const { intent, reviewDeadline } = parsed.output;
   if (intent === "reopen-scoring" && !reviewDeadline)

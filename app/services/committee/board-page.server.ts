@@ -2,7 +2,7 @@
  * The Ranking board page's data: the computed board (board.server.ts) with what the chair may do in
  * the cycle's state, and the list of cycles that have a board.
  */
-import { desc, eq, inArray, sql } from "drizzle-orm";
+import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
 import { cycles, proposals } from "~/db/schema/proposals";
 import { formatUtc } from "~/lib/format";
@@ -20,9 +20,11 @@ export async function boardCycles(db: DbOrTx) {
       observingEnd: cycles.observingEnd,
       reviewDeadline: cycles.reviewDeadline,
       decisionDate: cycles.decisionDate,
-      proposals: sql<number>`(select count(*)::int from ${proposals} where ${proposals.cycleId} = ${cycles.id} and ${inArray(proposals.status, BOARD_STATUSES)})`,
+      proposals: sql<number>`count(${proposals.id})::int`,
     })
     .from(cycles)
+    .leftJoin(proposals, and(eq(proposals.cycleId, cycles.id), inArray(proposals.status, BOARD_STATUSES)))
+    .groupBy(cycles.id)
     .orderBy(desc(cycles.observingStart));
   return rows.map((r) => ({ ...r, reviewDeadline: r.reviewDeadline ? formatUtc(r.reviewDeadline) : null }));
 }

@@ -1,3 +1,4 @@
+import { committeeCycle, registry } from "@test/committee-world";
 import { testDb } from "@test/routes";
 import { and, eq, sql } from "drizzle-orm";
 import fc from "fast-check";
@@ -12,7 +13,6 @@ import {
   removeAssignment,
   saveAssignments,
 } from "~/services/committee/assignments.server";
-import { committeeCycle, registry } from "./world";
 
 let configId = 0;
 let run = 0;
@@ -26,7 +26,7 @@ beforeAll(async () => {
 type Committee = {
   reviewers: { institute: string }[];
   proposals: { pi: number; coI: number | null; piInstitute: string; category: number }[];
-  declared: { reviewer: number; proposal: number }[];
+  declared: readonly { reviewer: number; proposal: number }[];
   perProposal: number;
 };
 
@@ -36,7 +36,14 @@ async function write(c: Committee) {
   const db = testDb();
   const reviewers = [];
   for (const [i, r] of c.reviewers.entries())
-    reviewers.push(await ensureUser(db, { email: `r${i}.${run}@prop.example`, name: `R${i} ${run}`, institute: r.institute, roles: ["reviewer"] }));
+    reviewers.push(
+      await ensureUser(db, {
+        email: `r${i}.${run}@prop.example`,
+        name: `R${i} ${run}`,
+        institute: r.institute,
+        roles: ["reviewer"],
+      }),
+    );
   const cycle = await committeeCycle(`prop-${run}`, { members: reviewers.map((r) => r.id), configIds: [configId] });
   const ids: number[] = [];
   for (const [j, p] of c.proposals.entries()) {
@@ -47,10 +54,19 @@ async function write(c: Committee) {
         : await ensureUser(db, { email: `pi${j}.${run}@prop.example`, name: `PI ${j}`, institute: p.piInstitute });
     const [row] = await db
       .insert(proposals)
-      .values({ cycleId: cycle.id, piId: pi.id, title: `P${j}`, scienceCategory: CATEGORIES[p.category], status: "under_review", currentVersion: 1 })
+      .values({
+        cycleId: cycle.id,
+        piId: pi.id,
+        title: `P${j}`,
+        scienceCategory: CATEGORIES[p.category],
+        status: "under_review",
+        currentVersion: 1,
+      })
       .returning();
     if (p.coI !== null && p.coI < reviewers.length)
-      await db.insert(proposalMembers).values({ proposalId: row.id, email: reviewers[p.coI].email, userId: reviewers[p.coI].id });
+      await db
+        .insert(proposalMembers)
+        .values({ proposalId: row.id, email: reviewers[p.coI].email, userId: reviewers[p.coI].id });
     ids.push(row.id);
   }
   for (const d of c.declared)
@@ -79,7 +95,9 @@ function conflicted(c: Committee, reviewer: number, proposal: number) {
 const committees = (withConflicts: boolean) =>
   fc.record({
     reviewers: fc.array(
-      fc.record({ institute: withConflicts ? fc.constantFrom("Inst A", " inst a ", "Inst B", "") : fc.constant("Committee Hall") }),
+      fc.record({
+        institute: withConflicts ? fc.constantFrom("Inst A", " inst a ", "Inst B", "") : fc.constant("Committee Hall"),
+      }),
       { minLength: 2, maxLength: 6 },
     ),
     proposals: fc.array(
@@ -92,8 +110,10 @@ const committees = (withConflicts: boolean) =>
       { minLength: 1, maxLength: 7 },
     ),
     declared: withConflicts
-      ? fc.array(fc.record({ reviewer: fc.integer({ min: 0, max: 5 }), proposal: fc.integer({ min: 0, max: 6 }) }), { maxLength: 4 })
-      : fc.constant([]),
+      ? fc.array(fc.record({ reviewer: fc.integer({ min: 0, max: 5 }), proposal: fc.integer({ min: 0, max: 6 }) }), {
+          maxLength: 4,
+        })
+      : fc.constant([] as { reviewer: number; proposal: number }[]),
     perProposal: fc.integer({ min: 1, max: 3 }),
   });
 
@@ -101,13 +121,21 @@ async function assignAndRead(c: Committee) {
   const w = await write(c);
   const preview = (await previewAutoAssign(testDb(), { cycleId: w.cycleId, perProposal: c.perProposal }))!;
   if (preview.added.length) {
-    const saved = await saveAssignments(testDb(), { cycleId: w.cycleId, pairs: preview.added, actorId: w.reviewers[0].id, mode: "auto" });
+    const saved = await saveAssignments(testDb(), {
+      cycleId: w.cycleId,
+      pairs: preview.added,
+      actorId: w.reviewers[0].id,
+      mode: "auto",
+    });
     expect(saved.ok).toBe(true);
   }
   const rows = await testDb().select().from(reviewAssignments).where(eq(reviewAssignments.cycleId, w.cycleId));
   const reviewerIndex = new Map(w.reviewers.map((r, i) => [r.id, i]));
   const proposalIndex = new Map(w.ids.map((id, j) => [id, j]));
-  return { w, rows: rows.map((r) => ({ reviewer: reviewerIndex.get(r.reviewerId)!, proposal: proposalIndex.get(r.proposalId)! })) };
+  return {
+    w,
+    rows: rows.map((r) => ({ reviewer: reviewerIndex.get(r.reviewerId)!, proposal: proposalIndex.get(r.proposalId)! })),
+  };
 }
 
 describe("auto-assign through the committee's service", () => {
@@ -158,7 +186,11 @@ describe("auto-assign through the committee's service", () => {
     const stored = await testDb().select().from(reviewAssignments).where(eq(reviewAssignments.cycleId, w.cycleId));
     // One is scored, one is declined with a reason.
     await testDb().insert(reviews).values({ assignmentId: stored[0].id, score: 2, commentToPi: "x" });
-    const decline = await declineAssignment(testDb(), { assignmentId: stored[1].id, reviewerId: stored[1].reviewerId, reason: "not my field" });
+    const decline = await declineAssignment(testDb(), {
+      assignmentId: stored[1].id,
+      reviewerId: stored[1].reviewerId,
+      reason: "not my field",
+    });
     expect(decline).toEqual({ ok: true });
     const again = (await previewAutoAssign(testDb(), { cycleId: w.cycleId, perProposal: 2 }))!;
     expect(again.added).toHaveLength(1);
@@ -166,8 +198,12 @@ describe("auto-assign through the committee's service", () => {
     expect(again.added[0].reviewerId).not.toBe(stored[1].reviewerId);
     expect(again.loads.reduce((s, l) => s + l.kept, 0)).toBe(5);
     // Taking back the scored one is refused; an unstarted one can be.
-    expect(await removeAssignment(testDb(), { cycleId: w.cycleId, assignmentId: stored[0].id, actorId: 1 })).toMatchObject({ ok: false });
-    expect(await removeAssignment(testDb(), { cycleId: w.cycleId, assignmentId: stored[2].id, actorId: 1 })).toEqual({ ok: true });
+    expect(
+      await removeAssignment(testDb(), { cycleId: w.cycleId, assignmentId: stored[0].id, actorId: 1 }),
+    ).toMatchObject({ ok: false });
+    expect(await removeAssignment(testDb(), { cycleId: w.cycleId, assignmentId: stored[2].id, actorId: 1 })).toEqual({
+      ok: true,
+    });
   });
 
   it("refuses a conflicted or repeated pair and writes nothing; assigns only while the cycle is with the reviewers", async () => {
@@ -188,7 +224,10 @@ describe("auto-assign through the committee's service", () => {
       actorId: w.reviewers[1].id,
       mode: "by hand",
     });
-    expect(mixed).toEqual({ ok: false, message: `${w.reviewers[0].name} has a conflict with “P0” (same institute as the team).` });
+    expect(mixed).toEqual({
+      ok: false,
+      message: `${w.reviewers[0].name} has a conflict with “P0” (same institute as the team).`,
+    });
     expect(await testDb().select().from(reviewAssignments).where(eq(reviewAssignments.cycleId, w.cycleId))).toEqual([]);
     const twice = await saveAssignments(testDb(), {
       cycleId: w.cycleId,

@@ -6,7 +6,11 @@ import { boardOrder, computeBoard } from "~/services/committee/board";
 import { boardCsv, boardJson } from "~/services/committee/board-export";
 import type { BoardRecords } from "~/services/committee/board-records";
 
-const site = { latitudeDeg: DEMO_SITE.latitudeDeg, longitudeDeg: DEMO_SITE.longitudeDeg, altitudeM: DEMO_SITE.altitudeM };
+const site = {
+  latitudeDeg: DEMO_SITE.latitudeDeg,
+  longitudeDeg: DEMO_SITE.longitudeDeg,
+  altitudeM: DEMO_SITE.altitudeM,
+};
 const byName = new Map(DEMO_STATIONS.map((s) => [s.name, s]));
 const configs: BoardRecords["configurations"] = DEMO_CONFIGURATIONS.map((c, i) => ({
   id: i + 1,
@@ -92,7 +96,11 @@ describe("the Ranking board", () => {
     const records = docsExample();
     const direct = rankReviews({
       scale: { best: 1, worst: 5 },
-      reviews: records.reviews.map((r) => ({ reviewer: `r${r.reviewerId}`, proposal: `P${r.proposalId}`, score: r.score })),
+      reviews: records.reviews.map((r) => ({
+        reviewer: `r${r.reviewerId}`,
+        proposal: `P${r.proposalId}`,
+        score: r.score,
+      })),
     });
     const board = computeBoard(records, darkBySite);
     for (const p of direct.proposals) {
@@ -134,7 +142,16 @@ describe("the Ranking board", () => {
       reason: "below the triage line: not discussed",
     });
     // The same order with the scale reversed (10 best … 1 poorest): higher grades first.
-    expect(boardOrder([{ id: 1, finalGrade: 3, rank: 1 }, { id: 2, finalGrade: 8, rank: 2 }, { id: 3, finalGrade: null, rank: 3 }], { best: 10, worst: 1 })).toEqual([2, 1, 3]);
+    expect(
+      boardOrder(
+        [
+          { id: 1, finalGrade: 3, rank: 1 },
+          { id: 2, finalGrade: 8, rank: 2 },
+          { id: 3, finalGrade: null, rank: 3 },
+        ],
+        { best: 10, worst: 1 },
+      ),
+    ).toEqual([2, 1, 3]);
   });
 
   it("suggests hours within the capacity of every LST bin", () => {
@@ -142,7 +159,11 @@ describe("the Ranking board", () => {
     for (const c of board.pressure.configurations)
       c.suggested.forEach((h, b) => expect(h).toBeLessThanOrEqual(c.capacity[b] + 1e-3));
     // P1 asks 6 h on compact-3 (4 nights ≈ 4 × 10 h in April): it all fits.
-    expect(board.rows[0].suggestion).toMatchObject({ decision: "accept", hoursByConfig: { 1: 6 }, reason: "all 6.0 h fit" });
+    expect(board.rows[0].suggestion).toMatchObject({
+      decision: "accept",
+      hoursByConfig: { 1: 6 },
+      reason: "all 6.0 h fit",
+    });
   });
 
   it("LST pressure: Σ bins + unplaceable = the hours requested, Σ capacity = nights × dark hours (random proposals)", () => {

@@ -1,3 +1,4 @@
+import { committeeCycle, person, registry, submitted } from "@test/committee-world";
 import { testDb } from "@test/routes";
 import { eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -8,7 +9,6 @@ import { cycles, proposals } from "~/db/schema/proposals";
 import { loadBoard } from "~/services/committee/board.server";
 import { releaseDecisions, saveBoardSettings, saveDecisions } from "~/services/committee/decisions.server";
 import { acceptedPrograms, decisionForTeam } from "~/services/committee/outcomes.server";
-import { committeeCycle, person, registry, submitted } from "./world";
 
 const w = { cycleId: 0, ids: [] as number[], chair: 0, compact: 0, medium: 0, coI: "", reviewerNames: [] as string[] };
 
@@ -27,30 +27,68 @@ beforeAll(async () => {
   const cycle = await committeeCycle("D-cycle", { members: [r1.id, r2.id], configIds: [w.compact, w.medium] });
   w.cycleId = cycle.id;
   const mk = (title: string, hours: Record<number, number>, raDeg: number) =>
-    submitted(cycle.id, { pi: pi.id, coIs: [{ id: coI.id, email: coI.email }], title, hours, bandId: r.bandH.id, raDeg });
+    submitted(cycle.id, {
+      pi: pi.id,
+      coIs: [{ id: coI.id, email: coI.email }],
+      title,
+      hours,
+      bandId: r.bandH.id,
+      raDeg,
+    });
   w.ids = [await mk("Alpha", { [w.compact]: 4, [w.medium]: 2 }, 150), await mk("Beta", { [w.medium]: 6 }, 200)];
   for (const [i, pid] of w.ids.entries()) {
     for (const [k, rev] of [r1, r2].entries()) {
-      const [a] = await testDb().insert(reviewAssignments).values({ cycleId: cycle.id, proposalId: pid, reviewerId: rev.id }).returning();
+      const [a] = await testDb()
+        .insert(reviewAssignments)
+        .values({ cycleId: cycle.id, proposalId: pid, reviewerId: rev.id })
+        .returning();
       await testDb()
         .insert(reviews)
-        .values({ assignmentId: a.id, score: 1 + i + k, commentToPi: `Comment ${i}${k} for the team.`, commentToCommittee: "internal", submittedAt: new Date() });
+        .values({
+          assignmentId: a.id,
+          score: 1 + i + k,
+          commentToPi: `Comment ${i}${k} for the team.`,
+          commentToCommittee: "internal",
+          submittedAt: new Date(),
+        });
     }
   }
 });
 
 describe("decisions", () => {
   it("records grades and decisions only while the cycle is deciding", async () => {
-    const entries = [{ proposalId: w.ids[0], finalGrade: 1.5, decision: "accept" as const, hours: { [w.compact]: 3 }, message: "Welcome" }];
+    const entries = [
+      {
+        proposalId: w.ids[0],
+        finalGrade: 1.5,
+        decision: "accept" as const,
+        hours: { [w.compact]: 3 },
+        message: "Welcome",
+      },
+    ];
     expect(await saveDecisions(testDb(), { cycleId: w.cycleId, entries, actorId: w.chair })).toMatchObject({
       ok: false,
       message: /only while the cycle is “Decisions in progress”/,
     });
     await testDb().update(cycles).set({ state: "deciding" }).where(eq(cycles.id, w.cycleId));
-    expect(await saveDecisions(testDb(), { cycleId: w.cycleId, entries, actorId: w.chair })).toEqual({ ok: true, saved: 1 });
+    expect(await saveDecisions(testDb(), { cycleId: w.cycleId, entries, actorId: w.chair })).toEqual({
+      ok: true,
+      saved: 1,
+    });
     const board = (await loadBoard(testDb(), { cycleId: w.cycleId }))!;
-    expect(board.rows[0]).toMatchObject({ title: "Alpha", finalGrade: 1.5, decision: { decision: "accept", hoursByConfig: { [w.compact]: 3 } } });
-    expect(await saveBoardSettings(testDb(), { cycleId: w.cycleId, triageAfter: 1, disagreementSpread: 0.2, actorId: w.chair })).toEqual({
+    expect(board.rows[0]).toMatchObject({
+      title: "Alpha",
+      finalGrade: 1.5,
+      decision: { decision: "accept", hoursByConfig: { [w.compact]: 3 } },
+    });
+    expect(
+      await saveBoardSettings(testDb(), {
+        cycleId: w.cycleId,
+        triageAfter: 1,
+        disagreementSpread: 0.2,
+        actorId: w.chair,
+      }),
+    ).toEqual({
       ok: true,
     });
     const after = (await loadBoard(testDb(), { cycleId: w.cycleId }))!;
@@ -64,7 +102,9 @@ describe("decisions", () => {
     const [stored] = await testDb().select().from(cycleDarkTime).where(eq(cycleDarkTime.cycleId, w.cycleId));
     const [cycle] = await testDb().select().from(cycles).where(eq(cycles.id, w.cycleId));
     expect(stored.fingerprint).toContain(`|${cycle.observingStart}|${cycle.observingEnd}|24|1`);
-    const shorter = new Date(Date.parse(`${cycle.observingEnd}T00:00:00Z`) - 10 * 86_400_000).toISOString().slice(0, 10);
+    const shorter = new Date(Date.parse(`${cycle.observingEnd}T00:00:00Z`) - 10 * 86_400_000)
+      .toISOString()
+      .slice(0, 10);
     await testDb().update(cycles).set({ observingEnd: shorter }).where(eq(cycles.id, w.cycleId));
     const board = (await loadBoard(testDb(), { cycleId: w.cycleId }))!;
     const [again] = await testDb().select().from(cycleDarkTime).where(eq(cycleDarkTime.cycleId, w.cycleId));
@@ -88,9 +128,15 @@ describe("decisions", () => {
       actorId: w.chair,
     });
     const mails0 = await testDb().select({ n: sql<number>`count(*)::int` }).from(outboxMessages);
-    expect(await releaseDecisions(testDb(), { cycleId: w.cycleId, actorId: w.chair })).toEqual({ ok: true, released: 2 });
+    expect(await releaseDecisions(testDb(), { cycleId: w.cycleId, actorId: w.chair })).toEqual({
+      ok: true,
+      released: 2,
+    });
     const statuses = await testDb().select({ id: proposals.id, status: proposals.status }).from(proposals);
-    expect(Object.fromEntries(statuses.map((s) => [s.id, s.status]))).toEqual({ [w.ids[0]]: "accepted", [w.ids[1]]: "waitlisted" });
+    expect(Object.fromEntries(statuses.map((s) => [s.id, s.status]))).toEqual({
+      [w.ids[0]]: "accepted",
+      [w.ids[1]]: "waitlisted",
+    });
     const [cycle] = await testDb().select().from(cycles).where(eq(cycles.id, w.cycleId));
     expect(cycle.state).toBe("closed");
 
@@ -109,7 +155,13 @@ describe("decisions", () => {
     expect(text).not.toContain("internal");
 
     const card = await decisionForTeam(testDb(), { proposalId: w.ids[0] });
-    expect(card).toMatchObject({ decision: "accept", words: "Accepted", totalHours: 3, message: "Welcome", hours: [{ configuration: "compact-3", hours: 3 }] });
+    expect(card).toMatchObject({
+      decision: "accept",
+      words: "Accepted",
+      totalHours: 3,
+      message: "Welcome",
+      hours: [{ configuration: "compact-3", hours: 3 }],
+    });
     expect(card?.comments.map((c) => c.label)).toEqual(["Reviewer 1", "Reviewer 2"]);
 
     const audit = await testDb().select().from(auditLog).where(eq(auditLog.action, "decision.released"));
@@ -118,7 +170,12 @@ describe("decisions", () => {
 
     // The night plans' input: the accepted programme with its target and the hours owed.
     expect(await acceptedPrograms(testDb(), { cycleId: w.cycleId })).toMatchObject([
-      { title: "Alpha", configuration: "compact-3", allocatedHours: 3, targets: [{ name: "Alpha target", hoursOwed: 3 }] },
+      {
+        title: "Alpha",
+        configuration: "compact-3",
+        allocatedHours: 3,
+        targets: [{ name: "Alpha target", hoursOwed: 3 }],
+      },
     ]);
     // A released cycle takes no more decisions.
     expect(await releaseDecisions(testDb(), { cycleId: w.cycleId, actorId: w.chair })).toMatchObject({ ok: false });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { parseDecisionsForm } from "~/services/committee/decisions-form";
+import { type DecisionSubject, parseDecisionsForm } from "~/services/committee/decisions-form";
 import { compareScores, onScale, scaleSteps, scaleText, stepLabel } from "~/services/committee/scale";
 import { parseReviewForm } from "~/services/committee/schemas";
 
@@ -36,7 +36,10 @@ describe("the review form", () => {
       ok: true,
       value: { score: null, commentToPi: "", commentToCommittee: "", confidence: null, version: 3 },
     });
-    expect(parseReviewForm(values(), scale, true)).toMatchObject({ ok: true, value: { score: 2, commentToPi: "Clear case." } });
+    expect(parseReviewForm(values(), scale, true)).toMatchObject({
+      ok: true,
+      value: { score: 2, commentToPi: "Clear case." },
+    });
   });
 
   it("needs a score, a confidence and a comment to the PI to submit", () => {
@@ -69,7 +72,7 @@ describe("the review form", () => {
 });
 
 describe("the decisions form", () => {
-  const subjects = [
+  const subjects: DecisionSubject[] = [
     { id: 7, title: "Seven", hours: { 1: 10, 2: 4 }, configNames: { 1: "compact-3", 2: "medium-4" } },
     { id: 8, title: "Eight", hours: { 2: 6 }, configNames: { 1: "compact-3", 2: "medium-4" } },
   ];

@@ -1,3 +1,4 @@
+import { committeeCycle, person, registry, submitted } from "@test/committee-world";
 import { createDatabase, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -5,7 +6,6 @@ import type { Database } from "~/db/client.server";
 import { reviewAssignments, reviews } from "~/db/schema/committee";
 import { cycles } from "~/db/schema/proposals";
 import { saveReview } from "~/services/committee/reviews.server";
-import { committeeCycle, person, registry, submitted } from "./world";
 
 // Two connection pools of their own, as two app processes (or two browser tabs hitting two servers) would be.
 let a: { db: Database; client: { end: () => Promise<void> } };
@@ -29,8 +29,16 @@ beforeAll(async () => {
   const r2 = await person("r2");
   const cycle = await committeeCycle("R-cycle", { members: [r1.id, r2.id], configIds: [w.configId["compact-3"]] });
   cycleId = cycle.id;
-  const proposalId = await submitted(cycleId, { pi: pi.id, title: "Review me", hours: { [w.configId["compact-3"]]: 4 }, bandId: w.bandH.id });
-  for (const [k, r] of [["r1", r1], ["r2", r2]] as const) {
+  const proposalId = await submitted(cycleId, {
+    pi: pi.id,
+    title: "Review me",
+    hours: { [w.configId["compact-3"]]: 4 },
+    bandId: w.bandH.id,
+  });
+  for (const [k, r] of [
+    ["r1", r1],
+    ["r2", r2],
+  ] as const) {
     const [row] = await testDb()
       .insert(reviewAssignments)
       .values({ cycleId, proposalId, reviewerId: r.id })
@@ -48,8 +56,20 @@ afterAll(async () => {
 describe("saving reviews", () => {
   it("two first saves of one review at the same moment from two connections: one kept, one refused with it", async () => {
     const [x, y] = await Promise.all([
-      saveReview(a.db, { assignmentId: ids.r1, reviewerId: ids.r1user, baseVersion: 0, fields: fields("from tab A"), submit: false }),
-      saveReview(b.db, { assignmentId: ids.r1, reviewerId: ids.r1user, baseVersion: 0, fields: fields("from tab B"), submit: false }),
+      saveReview(a.db, {
+        assignmentId: ids.r1,
+        reviewerId: ids.r1user,
+        baseVersion: 0,
+        fields: fields("from tab A"),
+        submit: false,
+      }),
+      saveReview(b.db, {
+        assignmentId: ids.r1,
+        reviewerId: ids.r1user,
+        baseVersion: 0,
+        fields: fields("from tab B"),
+        submit: false,
+      }),
     ]);
     const outcomes = [x, y];
     const kept = outcomes.filter((o) => o.ok);
@@ -67,8 +87,20 @@ describe("saving reviews", () => {
 
   it("two saves from the same version: the later one is refused with the newer text; saving from it succeeds", async () => {
     const [x, y] = await Promise.all([
-      saveReview(a.db, { assignmentId: ids.r1, reviewerId: ids.r1user, baseVersion: 1, fields: fields("second A"), submit: false }),
-      saveReview(b.db, { assignmentId: ids.r1, reviewerId: ids.r1user, baseVersion: 1, fields: fields("second B"), submit: false }),
+      saveReview(a.db, {
+        assignmentId: ids.r1,
+        reviewerId: ids.r1user,
+        baseVersion: 1,
+        fields: fields("second A"),
+        submit: false,
+      }),
+      saveReview(b.db, {
+        assignmentId: ids.r1,
+        reviewerId: ids.r1user,
+        baseVersion: 1,
+        fields: fields("second B"),
+        submit: false,
+      }),
     ]);
     const kept = [x, y].filter((o) => o.ok);
     expect(kept).toHaveLength(1);
@@ -90,8 +122,20 @@ describe("saving reviews", () => {
 
   it("two reviewers saving their own reviews at the same moment both keep what they wrote", async () => {
     const [x, y] = await Promise.all([
-      saveReview(a.db, { assignmentId: ids.r1, reviewerId: ids.r1user, baseVersion: 3, fields: fields("r1 text", 1), submit: false }),
-      saveReview(b.db, { assignmentId: ids.r2, reviewerId: ids.r2user, baseVersion: 0, fields: fields("r2 text", 4), submit: false }),
+      saveReview(a.db, {
+        assignmentId: ids.r1,
+        reviewerId: ids.r1user,
+        baseVersion: 3,
+        fields: fields("r1 text", 1),
+        submit: false,
+      }),
+      saveReview(b.db, {
+        assignmentId: ids.r2,
+        reviewerId: ids.r2user,
+        baseVersion: 0,
+        fields: fields("r2 text", 4),
+        submit: false,
+      }),
     ]);
     expect([x.ok, y.ok]).toEqual([true, true]);
     const rows = await testDb().select().from(reviews);
@@ -100,10 +144,22 @@ describe("saving reviews", () => {
 
   it("refuses another reviewer's assignment, a score off the scale, and any change after submission", async () => {
     expect(
-      await saveReview(testDb(), { assignmentId: ids.r1, reviewerId: ids.r2user, baseVersion: 4, fields: fields("x"), submit: false }),
+      await saveReview(testDb(), {
+        assignmentId: ids.r1,
+        reviewerId: ids.r2user,
+        baseVersion: 4,
+        fields: fields("x"),
+        submit: false,
+      }),
     ).toEqual({ ok: false, kind: "refused", message: "Not your assignment." });
     expect(
-      await saveReview(testDb(), { assignmentId: ids.r1, reviewerId: ids.r1user, baseVersion: 4, fields: fields("x", 9), submit: false }),
+      await saveReview(testDb(), {
+        assignmentId: ids.r1,
+        reviewerId: ids.r1user,
+        baseVersion: 4,
+        fields: fields("x", 9),
+        submit: false,
+      }),
     ).toMatchObject({ ok: false, kind: "refused", message: "Score: not on the cycle's scale." });
     const sent = await saveReview(testDb(), {
       assignmentId: ids.r1,
@@ -114,7 +170,13 @@ describe("saving reviews", () => {
     });
     expect(sent).toEqual({ ok: true, version: 5, submitted: true });
     expect(
-      await saveReview(testDb(), { assignmentId: ids.r1, reviewerId: ids.r1user, baseVersion: 5, fields: fields("later"), submit: false }),
+      await saveReview(testDb(), {
+        assignmentId: ids.r1,
+        reviewerId: ids.r1user,
+        baseVersion: 5,
+        fields: fields("later"),
+        submit: false,
+      }),
     ).toMatchObject({ ok: false, kind: "refused", message: /submitted/ });
   });
 
@@ -128,17 +190,33 @@ describe("saving reviews", () => {
       fields: fields("late"),
       submit: false,
     });
-    expect(late).toEqual({ ok: false, kind: "refused", message: "The review deadline has passed; the chair may reopen scoring." });
+    expect(late).toEqual({
+      ok: false,
+      kind: "refused",
+      message: "The review deadline has passed; the chair may reopen scoring.",
+    });
     await testDb()
       .update(cycles)
       .set({ reviewDeadline: new Date(Date.now() + 86_400_000), state: "deciding" })
       .where(eq(cycles.id, cycleId));
     expect(
-      await saveReview(testDb(), { assignmentId: ids.r2, reviewerId: ids.r2user, baseVersion: 1, fields: fields("x"), submit: false }),
+      await saveReview(testDb(), {
+        assignmentId: ids.r2,
+        reviewerId: ids.r2user,
+        baseVersion: 1,
+        fields: fields("x"),
+        submit: false,
+      }),
     ).toMatchObject({ ok: false, message: /review is closed/ });
     await testDb().update(cycles).set({ state: "reviewing" }).where(eq(cycles.id, cycleId));
     expect(
-      await saveReview(testDb(), { assignmentId: ids.r2, reviewerId: ids.r2user, baseVersion: 1, fields: fields("reopened"), submit: false }),
+      await saveReview(testDb(), {
+        assignmentId: ids.r2,
+        reviewerId: ids.r2user,
+        baseVersion: 1,
+        fields: fields("reopened"),
+        submit: false,
+      }),
     ).toEqual({ ok: true, version: 2, submitted: false });
   });
 });

@@ -3,12 +3,19 @@
  * proposals), people with institutes, a cycle in the state asked for with its committee, and submitted
  * proposals with frozen versions (as the app freezes them).
  */
-import { testDb } from "@test/routes";
+import { settle, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
 import { bands, configurations } from "~/db/schema/array";
 import type { CycleState } from "~/db/schema/proposals";
-import { cycles, proposalHours, proposalMembers, proposals, proposalTargets } from "~/db/schema/proposals";
+import {
+  cycles,
+  proposalDocuments,
+  proposalHours,
+  proposalMembers,
+  proposals,
+  proposalTargets,
+} from "~/db/schema/proposals";
 import {
   ensureConfiguration,
   ensureInstrument,
@@ -19,6 +26,8 @@ import {
 import { DEMO_CONFIGURATIONS, DEMO_INSTRUMENTS, DEMO_SITE, DEMO_STATIONS } from "~/db/seed/scenario";
 import { createSession } from "~/services/auth/sessions.server";
 import { createCycle } from "~/services/cycles/cycles.server";
+import { makeTinyPdf } from "~/services/proposals/pdf";
+import { sha256Hex } from "~/services/proposals/science-case.server";
 import { freezeVersion } from "~/services/proposals/versions.server";
 
 const DAY = 86_400_000;
@@ -35,9 +44,13 @@ export async function registry(db: Database = testDb()) {
 
 export async function person(
   key: string,
-  { institute = `${key} Institute`, roles = ["reviewer"] as ("reviewer" | "chair" | "proposer" | "scheduler" | "admin")[] } = {},
+  {
+    institute = `${key} Institute`,
+    roles = ["reviewer"] as ("reviewer" | "chair" | "proposer" | "scheduler" | "admin")[],
+  } = {},
 ) {
-  const user = await ensureUser(testDb(), { email: `${key}@world.example`, name: key, institute, roles });
+  const email = `${key.toLowerCase().replace(/[^a-z0-9]+/g, ".")}@world.example`;
+  const user = await ensureUser(testDb(), { email, name: key, institute, roles });
   const { token } = await createSession(testDb(), user.id, { method: "sso" });
   return { ...user, cookie: `fd_session=${token}` };
 }
@@ -84,6 +97,7 @@ export async function submitted(
     raDeg = 150,
     decDeg = -35,
     status = "under_review",
+    pdf = false,
   }: {
     pi: number;
     coIs?: { id: number; email: string }[];
@@ -94,6 +108,7 @@ export async function submitted(
     raDeg?: number;
     decDeg?: number;
     status?: "submitted" | "under_review" | "withdrawn";
+    pdf?: boolean;
   },
 ) {
   return testDb().transaction(async (tx) => {
@@ -112,6 +127,17 @@ export async function submitted(
       model: { type: "uniformDisk", diameterMas: 2 },
       magnitudes: { H: 3 },
     });
+    if (pdf) {
+      const bytes = makeTinyPdf([title, "Science case for the committee's tests."]);
+      await tx.insert(proposalDocuments).values({
+        proposalId: p.id,
+        filename: "case.pdf",
+        contentType: "application/pdf",
+        sizeBytes: bytes.length,
+        sha256: sha256Hex(bytes),
+        data: Buffer.from(bytes),
+      });
+    }
     const [cycle] = await tx.select().from(cycles).where(eq(cycles.id, cycleId));
     const [locked] = await tx.select().from(proposals).where(eq(proposals.id, p.id)).for("update");
     await freezeVersion(tx, { proposal: locked, cycle, submittedById: pi, now: new Date(Date.now() - 6 * DAY) });
@@ -119,3 +145,12 @@ export async function submitted(
     return p.id;
   });
 }
+
+/** A loader's or action's answer as a Response: plain data as 200 JSON (see `settle`). */
+export const answer = (fn: () => unknown) =>
+  settle(async () => {
+    const out = await fn();
+    return out instanceof Response || (out as { type?: string })?.type === "DataWithResponseInit"
+      ? out
+      : Response.json(out);
+  });
