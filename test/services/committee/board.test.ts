@@ -157,7 +157,9 @@ describe("the Ranking board", () => {
   it("suggests hours within the capacity of every LST bin", () => {
     const board = computeBoard(docsExample(), darkBySite);
     for (const c of board.pressure.configurations)
-      c.suggested.forEach((h, b) => expect(h).toBeLessThanOrEqual(c.capacity[b] + 1e-3));
+      c.suggested.forEach((h, b) => {
+        expect(h).toBeLessThanOrEqual(c.capacity[b] + 1e-3);
+      });
     // P1 asks 6 h on compact-3 (4 nights ≈ 4 × 10 h in April): it all fits.
     expect(board.rows[0].suggestion).toMatchObject({
       decision: "accept",
