@@ -46,6 +46,7 @@ const chairOnly: Record<Who, Outcome> = {
   scheduler: "forbidden",
   admin: "forbidden",
 };
+const committee: Record<Who, Outcome> = { ...chairOnly, reviewer: "ok" };
 const adminOnly: Record<Who, Outcome> = {
   anonymous: "sign-in",
   proposer: "forbidden",
@@ -133,6 +134,22 @@ const MATRIX: Row[] = [
   get("/proposals/:proposalId/versions/:version", "/proposals/4/versions/1", { ...proposerOnly, proposer: 404 }),
   get("/cycles/new", "/cycles/new", chairOnly),
   get("/cycles/:cycleId/edit", "/cycles/1/edit", chairOnly),
+  // The committee's season (demo: cycle 1 decided, 2 under review; proposal 1 submitted to cycle 1).
+  get("/cycles/:cycleId", "/cycles/2", chairOnly),
+  post("/cycles/:cycleId", "/cycles/2", {}, { ...chairOnly, chair: 400 }),
+  get("/cycles/:cycleId/assignments", "/cycles/2/assignments", chairOnly),
+  get("/review", "/review", committee),
+  // The matrix's reviewer and chair sit on no committee and are assigned nothing: the same 404 as for no cycle.
+  get("/review/cycles/:cycleId/conflicts", "/review/cycles/2/conflicts", { ...committee, reviewer: 404, chair: 404 }),
+  get("/review/proposals/:proposalId", "/review/proposals/1", { ...committee, reviewer: 404 }),
+  post("/review/proposals/:proposalId", "/review/proposals/1", {}, { ...committee, reviewer: 404, chair: "forbidden" }),
+  get("/review/proposals/:proposalId/science-case", "/review/proposals/1/science-case", {
+    ...committee,
+    reviewer: 404,
+  }),
+  get("/board", "/board", chairOnly),
+  get("/board/:cycleId", "/board/2", chairOnly),
+  post("/board/:cycleId", "/board/2", {}, { ...chairOnly, chair: 400 }),
   // Demo mode (as the test server runs): every signed-in person may read the mailbox.
   get("/mailbox", "/mailbox", signedIn("ok")),
   get("/mailbox/:messageId", "/mailbox/999999", signedIn(404)),
@@ -144,6 +161,17 @@ const MATRIX: Row[] = [
     { ...all("ok"), anonymous: "unauthorized" },
   ),
   post("/api/triangles", "/api/triangles", {}, { ...all(400), anonymous: "unauthorized" }),
+  post(
+    "/api/rank",
+    "/api/rank",
+    { scale: { best: 1, worst: 5 }, reviews: [{ reviewer: "r1", proposal: "P1", score: 2 }] },
+    { ...all("ok"), anonymous: "unauthorized" },
+  ),
+  get("/api/cycles/:cycleId/board", "/api/cycles/2/board?format=json", {
+    ...all("forbidden"),
+    anonymous: "unauthorized",
+    chair: "ok",
+  }),
   get("/*", "/no/such/page", all(404)),
 ];
 

@@ -8,8 +8,16 @@ const browser = useBrowser();
 // The sections each demo role must see in the menu (app/lib/permissions.ts), demo mode on.
 const expectedMenus: Record<string, string[]> = {
   "Inés Arroyo-Vidal": ["Sketchpad", "Triangle finder", "Array registry", "My targets", "Proposals", "Mailbox"],
-  "Kenji Morrow": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox"],
-  "Henrik Solberg": ["Sketchpad", "Triangle finder", "Array registry", "Cycles", "Mailbox"],
+  "Kenji Morrow": ["Sketchpad", "Triangle finder", "Array registry", "Review desk", "Mailbox"],
+  "Henrik Solberg": [
+    "Sketchpad",
+    "Triangle finder",
+    "Array registry",
+    "Review desk",
+    "Ranking board",
+    "Cycles",
+    "Mailbox",
+  ],
   "Mei-Lin Chao": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox"],
   "Rafael Quispe": ["Sketchpad", "Triangle finder", "Array registry", "Mailbox", "People"],
 };

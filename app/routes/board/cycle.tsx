@@ -131,7 +131,7 @@ export default function Board({ loaderData: d, actionData }: Route.ComponentProp
         }
       />
       {errors.form ? <Alert className="mb-4">{errors.form}</Alert> : null}
-      <div className="grid gap-6">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
         <RankingTable
           rows={d.rows}
           reviewers={d.calibration.reviewers}
@@ -146,11 +146,12 @@ export default function Board({ loaderData: d, actionData }: Route.ComponentProp
           editable={d.abilities.settings}
           errors={actionData?.intent === "settings" ? errors : {}}
         />
-        <div className="grid gap-6 xl:grid-cols-2">
+        <div className="grid grid-cols-[minmax(0,1fr)] gap-6 xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
           <DemandCard pressure={d.pressure} />
           <CalibrationCard calibration={d.calibration} scaleText={d.cycle.scaleText} />
         </div>
         <AllocationWorkbench
+          key={workbenchKey(d)}
           d={d}
           errors={actionData?.intent === "save-decisions" ? errors : {}}
           answered={actionData}
@@ -158,6 +159,16 @@ export default function Board({ loaderData: d, actionData }: Route.ComponentProp
       </div>
     </>
   );
+}
+
+/** Changes whenever the stored decisions or the suggestion change, so the chair's table starts again from them. */
+function workbenchKey(d: Route.ComponentProps["loaderData"]) {
+  return d.rows
+    .map(
+      (r) =>
+        `${r.proposalId}:${r.decision.decision}:${JSON.stringify(r.decision.hoursByConfig)}:${r.suggestion.decision}:${JSON.stringify(r.suggestion.hoursByConfig)}:${r.finalGrade}`,
+    )
+    .join("|");
 }
 
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {

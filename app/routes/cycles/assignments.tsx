@@ -131,7 +131,7 @@ export default function Assignments({ loaderData: d, actionData }: Route.Compone
           Reviewers are assigned while the cycle is with the reviewers: start the review on the cycle's page first.
         </Alert>
       ) : null}
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <AutoAssignCard
           perProposal={d.perProposal}
           preview={actionData?.intent === "preview" ? (actionData.preview ?? null) : null}

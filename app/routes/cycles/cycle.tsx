@@ -94,7 +94,7 @@ export default function CyclePage({ loaderData: d, actionData }: Route.Component
         }
       />
       {actionData?.error ? <Alert className="mb-4">{actionData.error}</Alert> : null}
-      <div className="grid gap-6 lg:grid-cols-2">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-2">
         <Card title="The season">
           <DetailList
             className="grid gap-3 sm:grid-cols-2"

@@ -155,7 +155,7 @@ export default function ReviewProposal({ loaderData: d, actionData }: Route.Comp
         }
       />
       {a?.error ? <Alert className="mb-4">{a.error}</Alert> : null}
-      <div className="grid gap-6 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <FrozenProposal p={d.frozen} scienceCaseHref={scienceCase} />
         <div className="grid content-start gap-6">
           {d.mode === "chair" ? <ChairReviews reviews={d.all ?? []} /> : null}

@@ -80,6 +80,8 @@ export async function frozenProposal(db: Database, { proposalId, version }: { pr
       name: t.name,
       raDeg: t.raDeg,
       decDeg: t.decDeg,
+      ra: formatRightAscension(t.raDeg, 1),
+      dec: formatDeclination(t.decDeg, 0),
       model: describeModel(t.model),
       magnitudes: describeMagnitudes(t.magnitudes),
       minElevationDeg: t.minElevationDeg,

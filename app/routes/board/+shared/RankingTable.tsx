@@ -65,7 +65,7 @@ export function RankingTable({
       value: (r) => r.title,
       render: (r) => (
         <Link
-          className="font-medium text-ember-800 underline"
+          className="block min-w-52 font-medium text-ember-800 underline"
           to={href("/review/proposals/:proposalId", { proposalId: String(r.proposalId) })}
         >
           {r.title}

@@ -21,6 +21,9 @@ export type FrozenProposalView = {
     name: string;
     raDeg: number;
     decDeg: number;
+    /** Sexagesimal, as typed elsewhere in the app (degrees in the tooltip). */
+    ra: string;
+    dec: string;
     model: string;
     magnitudes: string;
     minElevationDeg: number | null;
@@ -33,7 +36,7 @@ export type FrozenProposalView = {
 
 export function FrozenProposal({ p, scienceCaseHref }: { p: FrozenProposalView; scienceCaseHref: string }) {
   return (
-    <div className="grid content-start gap-6">
+    <div className="grid min-w-0 content-start gap-6">
       <ProposalFacts category={p.scienceCategory} band={p.band} abstract={p.abstract} />
       <div className="grid gap-6 md:grid-cols-2">
         <Card title="Team">
@@ -77,7 +80,10 @@ export function FrozenProposal({ p, scienceCaseHref }: { p: FrozenProposalView; 
                 {i + 1}. {t.name}
               </span>{" "}
               <span className="num text-night-700">
-                RA {t.raDeg.toFixed(4)}°, Dec {t.decDeg.toFixed(4)}° · {t.model} · {t.magnitudes}
+                <span title={`RA ${t.raDeg.toFixed(4)}°, Dec ${t.decDeg.toFixed(4)}° (J2000)`}>
+                  RA {t.ra}, Dec {t.dec}
+                </span>{" "}
+                · {t.model} · {t.magnitudes}
               </span>
               <span className="block text-night-600">
                 {t.minElevationDeg === null ? "array elevation limit" : `elevation ≥ ${t.minElevationDeg}°`}
