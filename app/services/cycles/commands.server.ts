@@ -78,6 +78,13 @@ export async function createCycle(
 async function committeeRefusals(tx: Transaction, cycleId: number, input: CycleInput): Promise<FieldErrors> {
   const errors: FieldErrors = {};
   const [current] = await tx.select().from(cycles).where(eq(cycles.id, cycleId));
+  // No submission after the deadline: once the review has started, the deadline cannot move ahead again.
+  if (
+    current.state !== "draft" &&
+    current.state !== "open" &&
+    input.submissionDeadline.getTime() > Math.max(Date.now(), current.submissionDeadline.getTime())
+  )
+    errors.submissionDeadline = "Deadline: the review has started; the submission deadline can no longer move ahead";
   const scaleChanged =
     (input.scoreBest !== undefined && input.scoreBest !== current.scoreBest) ||
     (input.scoreWorst !== undefined && input.scoreWorst !== current.scoreWorst);

@@ -59,7 +59,7 @@ describe("cycles", () => {
   it("lets the chair create a cycle with its offers and nights", async () => {
     const res = await settle(() => newAction(routeArgs("/cycles/new", formPost(cycleForm(), { Cookie: chair }))));
     expect(res.status).toBe(302);
-    expect(res.headers.get("Location")).toMatch(/^\/cycles\/\d+$/);
+    expect(res.headers.get("Location")).toBe("/cycles");
     const [row] = await testDb().select().from(cycles).where(eq(cycles.name, "T2031B"));
     expect(row.submissionDeadline.toISOString()).toBe("2027-06-15T12:00:00.000Z");
     // A new cycle is being prepared until the chair opens it; the scale is the default 1 … 5.

@@ -199,6 +199,14 @@ describe("the cycle's page", () => {
       data: { errors: Record<string, string> };
     };
     expect(leave.data.errors.committee).toMatch(/^Committee: r1, r2 still have assignments/);
+    // The review has started: the submission deadline cannot reopen submissions.
+    const later = new Date(Date.now() + 5 * DAY).toISOString().slice(0, 16);
+    const reopen = (await editAction(at(`${path()}/edit`, w.chair, fields({ submissionDeadline: later })))) as {
+      data: { errors: Record<string, string> };
+    };
+    expect(reopen.data.errors.submissionDeadline).toBe(
+      "Deadline: the review has started; the submission deadline can no longer move ahead",
+    );
   });
 
   it("closes the review and reopens scoring with a new deadline ahead", async () => {

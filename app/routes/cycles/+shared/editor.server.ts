@@ -61,9 +61,9 @@ export async function saveCycle(
   if (!cycle) {
     // A new cycle is prepared first; the chair opens it for proposals on its page.
     const created = await createCycle(db, { ...input, state: "draft" }, createdById);
-    return redirectWithFlash(href("/cycles/:cycleId", { cycleId: String(created.id) }), {
+    return redirectWithFlash(href("/cycles"), {
       kind: "success",
-      text: `Cycle ${created.name} created. Open it for proposals when it is ready.`,
+      text: `Cycle ${created.name} created. Open it for proposals on its page when it is ready.`,
     });
   }
   const result = await updateCycle(db, { cycleId: cycle.id, input });
@@ -74,8 +74,5 @@ export async function saveCycle(
     }
     return refuse(result.errors);
   }
-  return redirectWithFlash(href("/cycles/:cycleId", { cycleId: String(cycle.id) }), {
-    kind: "success",
-    text: `Cycle ${input.name} saved.`,
-  });
+  return redirectWithFlash(href("/cycles"), { kind: "success", text: `Cycle ${input.name} saved.` });
 }
