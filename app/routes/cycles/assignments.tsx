@@ -145,10 +145,10 @@ export default function Assignments({ loaderData: d, actionData }: Route.Compone
                 <th scope="col" className="py-1 font-semibold">
                   Reviewer
                 </th>
-                <th scope="col" className="py-1 text-right font-semibold">
+                <th scope="col" className="py-1 pl-3 text-right font-semibold">
                   Assigned
                 </th>
-                <th scope="col" className="py-1 text-right font-semibold">
+                <th scope="col" className="py-1 pl-3 text-right font-semibold">
                   Submitted
                 </th>
               </tr>
