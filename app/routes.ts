@@ -38,8 +38,21 @@ export default [
   ...prefix("cycles", [
     index("routes/cycles/index.tsx"),
     route("new", "routes/cycles/new.tsx"),
+    route(":cycleId", "routes/cycles/cycle.tsx"),
     route(":cycleId/edit", "routes/cycles/edit.tsx"),
+    route(":cycleId/assignments", "routes/cycles/assignments.tsx"),
   ]),
+
+  // Review desk
+  ...prefix("review", [
+    index("routes/review/index.tsx"),
+    route("cycles/:cycleId/conflicts", "routes/review/conflicts.tsx"),
+    route("proposals/:proposalId", "routes/review/proposal.tsx"),
+    route("proposals/:proposalId/science-case", "routes/review/science-case.ts"),
+  ]),
+
+  // Ranking board
+  ...prefix("board", [index("routes/board/index.tsx"), route(":cycleId", "routes/board/cycle.tsx")]),
 
   // My targets
   ...prefix("targets", [
@@ -86,6 +99,8 @@ export default [
     route("stars", "routes/api/stars.ts"),
     route("plan", "routes/api/plan.ts"),
     route("nights/:date/plan", "routes/api/night-plan.ts"),
+    route("rank", "routes/api/rank.ts"),
+    route("cycles/:cycleId/board", "routes/api/cycle-board.ts"),
   ]),
 
   route("*", "routes/not-found.tsx"),

@@ -54,6 +54,7 @@ const schedulerOnly: Record<Who, Outcome> = {
   scheduler: "ok",
   admin: "forbidden",
 };
+const committee: Record<Who, Outcome> = { ...chairOnly, reviewer: "ok" };
 const adminOnly: Record<Who, Outcome> = {
   anonymous: "sign-in",
   proposer: "forbidden",
@@ -161,6 +162,22 @@ const MATRIX: Row[] = [
   get("/nights/:date", "/nights/2027-03-15", schedulerOnly),
   post("/nights/:date", "/nights/2027-03-15", {}, { ...schedulerOnly, scheduler: 400 }),
   get("/nights/:date/export/:file", "/nights/2027-03-15/export/plan.csv", signedIn(404)),
+  // The committee's season (demo: cycle 1 decided, 2 under review; proposal 1 submitted to cycle 1).
+  get("/cycles/:cycleId", "/cycles/2", chairOnly),
+  post("/cycles/:cycleId", "/cycles/2", {}, { ...chairOnly, chair: 400 }),
+  get("/cycles/:cycleId/assignments", "/cycles/2/assignments", chairOnly),
+  get("/review", "/review", committee),
+  // The matrix's reviewer and chair sit on no committee and are assigned nothing: the same 404 as for no cycle.
+  get("/review/cycles/:cycleId/conflicts", "/review/cycles/2/conflicts", { ...committee, reviewer: 404, chair: 404 }),
+  get("/review/proposals/:proposalId", "/review/proposals/1", { ...committee, reviewer: 404 }),
+  post("/review/proposals/:proposalId", "/review/proposals/1", {}, { ...committee, reviewer: 404, chair: "forbidden" }),
+  get("/review/proposals/:proposalId/science-case", "/review/proposals/1/science-case", {
+    ...committee,
+    reviewer: 404,
+  }),
+  get("/board", "/board", chairOnly),
+  get("/board/:cycleId", "/board/2", chairOnly),
+  post("/board/:cycleId", "/board/2", {}, { ...chairOnly, chair: 400 }),
   // Every signed-in person reads their own mail there (administrators everyone's); demo mode or not.
   get("/mailbox", "/mailbox", signedIn("ok")),
   get("/mailbox/:messageId", "/mailbox/999999", signedIn(404)),
@@ -188,6 +205,17 @@ const MATRIX: Row[] = [
   get("/api/stars", "/api/stars?q=betel", { ...all("ok"), anonymous: "unauthorized" }),
   post("/api/plan", "/api/plan", {}, { ...all(400), anonymous: "unauthorized" }),
   get("/api/nights/:date/plan", "/api/nights/2027-03-15/plan?format=csv", { ...all(404), anonymous: "unauthorized" }),
+  post(
+    "/api/rank",
+    "/api/rank",
+    { scale: { best: 1, worst: 5 }, reviews: [{ reviewer: "r1", proposal: "P1", score: 2 }] },
+    { ...all("ok"), anonymous: "unauthorized" },
+  ),
+  get("/api/cycles/:cycleId/board", "/api/cycles/2/board?format=json", {
+    ...all("forbidden"),
+    anonymous: "unauthorized",
+    chair: "ok",
+  }),
   get("/*", "/no/such/page", all(404)),
 ];
 

@@ -2,6 +2,7 @@ import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, inject, it } from "vitest";
+import { demoCycles } from "~/db/seed/scenario";
 import { makeTinyPdf } from "~/services/proposals/pdf";
 import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
 
@@ -101,7 +102,11 @@ describe("proposals", () => {
 
     // The notice is in the mailbox.
     await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "Mailbox" }).click();
-    await page.getByText(`Proposal submitted: "${title}" (2027A)`).first().waitFor();
+    // The demo's open cycle is named after the day the demo was loaded (app/db/seed/demo-cycles.ts).
+    await page
+      .getByText(`Proposal submitted: "${title}" (${demoCycles(new Date()).open.name})`)
+      .first()
+      .waitFor();
     await screenshot(page, "proposal-mailbox");
     expect(seen.errors).toEqual([]);
     await context.close();

@@ -97,13 +97,14 @@ describe("My targets and cycles", () => {
     await signInAs(page, "Henrik Solberg");
     await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "Cycles" }).click();
     await page.getByRole("link", { name: "New cycle" }).click();
-    await page.getByLabel("Name").fill("2027B");
+    // A name no demo cycle takes (theirs follow the load date: app/db/seed/demo-cycles.ts).
+    await page.getByLabel("Name").fill("Test 2027B");
     await page.getByLabel(/Submission deadline/).fill("2027-06-15T12:00");
     await page.getByLabel("First night").fill("2027-09-01");
     await page.getByLabel("Last night").fill("2028-02-28");
     await page.getByLabel(/Nights for compact-3/).fill("30");
     await page.getByRole("button", { name: "Create cycle" }).click();
-    await page.getByText("Cycle 2027B created.").waitFor();
+    await page.getByText("Cycle Test 2027B created.").waitFor();
     await expect(page.getByText("compact-3 (30 nights)").first().isVisible()).resolves.toBe(true);
     expect(seen.errors).toEqual([]);
     await screenshot(page, "cycles");

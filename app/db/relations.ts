@@ -1,5 +1,13 @@
 import { relations } from "drizzle-orm";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "./schema/array";
+import {
+  allocatedHours,
+  committeeMembers,
+  proposalDecisions,
+  reviewAssignments,
+  reviewConflicts,
+  reviews,
+} from "./schema/committee";
 import { nightConfigurations, nightPlanBlocks, nightPlans } from "./schema/nights";
 import {
   cycleConfigurations,
@@ -121,4 +129,35 @@ export const nightPlanBlocksRelations = relations(nightPlanBlocks, ({ one }) => 
     fields: [nightPlanBlocks.proposalTargetId],
     references: [proposalTargets.id],
   }),
+}));
+
+// ---------------------------------------------------------------- committee
+
+export const committeeMembersRelations = relations(committeeMembers, ({ one }) => ({
+  cycle: one(cycles, { fields: [committeeMembers.cycleId], references: [cycles.id] }),
+  user: one(users, { fields: [committeeMembers.userId], references: [users.id] }),
+}));
+
+export const reviewConflictsRelations = relations(reviewConflicts, ({ one }) => ({
+  proposal: one(proposals, { fields: [reviewConflicts.proposalId], references: [proposals.id] }),
+  reviewer: one(users, { fields: [reviewConflicts.reviewerId], references: [users.id] }),
+}));
+
+export const reviewAssignmentsRelations = relations(reviewAssignments, ({ one }) => ({
+  proposal: one(proposals, { fields: [reviewAssignments.proposalId], references: [proposals.id] }),
+  reviewer: one(users, { fields: [reviewAssignments.reviewerId], references: [users.id] }),
+  review: one(reviews, { fields: [reviewAssignments.id], references: [reviews.assignmentId] }),
+}));
+
+export const reviewsRelations = relations(reviews, ({ one }) => ({
+  assignment: one(reviewAssignments, { fields: [reviews.assignmentId], references: [reviewAssignments.id] }),
+}));
+
+export const proposalDecisionsRelations = relations(proposalDecisions, ({ one }) => ({
+  proposal: one(proposals, { fields: [proposalDecisions.proposalId], references: [proposals.id] }),
+}));
+
+export const allocatedHoursRelations = relations(allocatedHours, ({ one }) => ({
+  proposal: one(proposals, { fields: [allocatedHours.proposalId], references: [proposals.id] }),
+  configuration: one(configurations, { fields: [allocatedHours.configurationId], references: [configurations.id] }),
 }));

@@ -120,6 +120,18 @@ export const SECTIONS: readonly Section[] = [
       "Your proposals: text, team, targets with constraints, the PDF science case, a feasibility report, and submission.",
   },
   {
+    label: "Review desk",
+    to: href("/review"),
+    permission: "review:desk",
+    summary: "Your assignments with their due dates, conflicts to declare, and each proposal to read and score.",
+  },
+  {
+    label: "Ranking board",
+    to: href("/board"),
+    permission: "ranking:board",
+    summary: "Scores, normalized ranking, demand and LST pressure, suggested allocation, decisions sent to the teams.",
+  },
+  {
     label: "Cycles",
     to: href("/cycles"),
     permission: "cycles:manage",

@@ -3,6 +3,7 @@ export * from "./array";
 export * from "./auth";
 export * from "./catalogue";
 export * from "./columns";
+export * from "./committee";
 export * from "./mail";
 export * from "./nights";
 export * from "./proposals";

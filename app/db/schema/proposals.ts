@@ -42,6 +42,14 @@ export type CalibratorJson = {
   hip?: number;
 };
 
+/**
+ * Where a cycle stands in the committee's season: being prepared (draft), taking proposals (open), with
+ * the reviewers (reviewing), with the chair for decisions (deciding), decisions sent (closed).
+ */
+export const CYCLE_STATES = ["draft", "open", "reviewing", "deciding", "closed"] as const;
+export type CycleState = (typeof CYCLE_STATES)[number];
+export const cycleStateEnum = pgEnum("cycle_state", CYCLE_STATES);
+
 /** An observing cycle: its period, the submission deadline, and the configurations on offer. */
 export const cycles = pgTable(
   "cycles",
@@ -53,12 +61,22 @@ export const cycles = pgTable(
     observingStart: date("observing_start").notNull(),
     observingEnd: date("observing_end").notNull(),
     submissionDeadline: timestamp("submission_deadline", { withTimezone: true }).notNull(),
+    /** The committee's season; cycles that existed before it default to taking proposals. */
+    state: cycleStateEnum("state").notNull().default("open"),
+    /** Reviews must be submitted before this instant (the chair may reopen scoring by moving it). */
+    reviewDeadline: timestamp("review_deadline", { withTimezone: true }),
+    /** The day the committee's decisions are due to be sent. */
+    decisionDate: date("decision_date"),
+    /** The score scale's two ends: `scoreBest` the best score, `scoreWorst` the poorest (default 1 … 5). */
+    scoreBest: integer("score_best").notNull().default(1),
+    scoreWorst: integer("score_worst").notNull().default(5),
     createdById: optionalRefTo(() => users.id),
     ...timestamps,
   },
   (t) => [
     uniqueIndex("cycles_name_key").on(t.name),
     check("cycles_period_check", sql`${t.observingEnd} >= ${t.observingStart}`),
+    check("cycles_score_scale_check", sql`${t.scoreBest} <> ${t.scoreWorst}`),
   ],
 );
 

@@ -6,18 +6,21 @@ import { and, eq, sql } from "drizzle-orm";
 import type { Database } from "../client.server";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "../schema/array";
 import { type Role, userRoles, users } from "../schema/users";
+import { ensureDemoCommittee } from "./committee.server";
 import { ensureCycle } from "./cycles.server";
 import { ensureDemoProposals } from "./proposals.server";
 import {
+  DEMO_COMMITTEE,
   DEMO_CONFIGURATIONS,
-  DEMO_CYCLE,
   DEMO_INSTRUMENTS,
   DEMO_PEOPLE,
   DEMO_PROPOSALS,
   DEMO_SITE,
   DEMO_STATIONS,
   type DemoBand,
+  type DemoCycleKey,
   type DemoStation,
+  demoCycles,
 } from "./scenario";
 
 type SiteInput = typeof sites.$inferInsert;
@@ -105,16 +108,31 @@ export async function ensureUser(
   return user;
 }
 
-/** Loads the whole demo scenario; returns counts of what is now in the database. */
-export async function seedDemoScenario(db: Database) {
+/**
+ * Loads the whole demo scenario, its cycles laid out around `today` (the day it is loaded, by default
+ * now); returns what is now in the database. Safe to run again.
+ */
+export async function seedDemoScenario(db: Database, { today = new Date() }: { today?: Date } = {}) {
   const site = await ensureSite(db, { ...DEMO_SITE });
   const siteStations = await ensureStations(db, site.id, DEMO_STATIONS);
   for (const config of DEMO_CONFIGURATIONS) await ensureConfiguration(db, site.id, config);
   for (const instrument of DEMO_INSTRUMENTS) await ensureInstrument(db, site.id, instrument);
   for (const person of DEMO_PEOPLE) await ensureUser(db, person);
-  const cycle = await ensureCycle(db, { ...DEMO_CYCLE, siteId: site.id });
-  const proposals = await ensureDemoProposals(db, cycle.id, DEMO_PROPOSALS);
-  return { site, stations: siteStations.length, cycle, proposals };
+  const layout = demoCycles(today);
+  const cycles = {} as Record<DemoCycleKey, Awaited<ReturnType<typeof ensureCycle>>>;
+  let proposals = 0;
+  for (const key of ["current", "review", "open"] as const) {
+    const { key: _key, ...demo } = layout[key];
+    cycles[key] = await ensureCycle(db, { ...demo, siteId: site.id, committee: key === "open" ? [] : DEMO_COMMITTEE });
+    proposals += await ensureDemoProposals(db, {
+      cycleId: cycles[key].id,
+      list: DEMO_PROPOSALS.filter((p) => p.cycle === key),
+      longitudeDeg: site.longitudeDeg,
+      today,
+    });
+  }
+  await ensureDemoCommittee(db, { cycles, demos: DEMO_PROPOSALS, today });
+  return { site, stations: siteStations.length, cycles, cycle: cycles.open, proposals };
 }
 
 /** True when the database holds no site yet (a fresh install): `npm start` then seeds. */

@@ -1,8 +1,9 @@
 /**
- * The demo proposals of app/db/seed/scenario.ts written into a cycle: idempotent by (cycle, PI,
- * title), so the seed can run again. Everything past draft gets version 1 frozen exactly as a
- * real submission would (snapshot, feasibility report computed by the engine, PDF bytes); the
- * seed writes no notices.
+ * The demo proposals of app/db/seed/demo-proposals.ts written into their cycles: idempotent by (cycle,
+ * PI, title), so the seed can run again. Positions, windows and submission instants follow the cycle
+ * (and so the day the demo is loaded). Everything past draft gets version 1 frozen exactly as a real
+ * submission would (snapshot, feasibility report computed by the engine, PDF bytes); the seed writes no
+ * notices.
  */
 import { and, eq, sql } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
@@ -20,19 +21,80 @@ import { makeTinyPdf } from "~/services/proposals/pdf";
 import { sha256Hex } from "~/services/proposals/science-case.server";
 import { targetFieldsOf } from "~/services/proposals/targets.server";
 import { freezeVersion } from "~/services/proposals/versions.server";
-import type { DemoProposal } from "./scenario";
+import { raTransitingAtMidnight } from "~/services/sketch/night";
+import type { DemoProposal, DemoProposalTarget } from "./scenario";
 
-/** Writes the demo proposals that are missing; returns how many the cycle now holds from the list. */
-export async function ensureDemoProposals(db: Database, cycleId: number, list: readonly DemoProposal[]) {
+const DAY_MS = 86_400_000;
+const round2 = (x: number) => Math.round(x * 100) / 100;
+const wrap360 = (x: number) => ((x % 360) + 360) % 360;
+
+/** The middle night of a cycle (YYYY-MM-DD). */
+function middleNight(cycle: { observingStart: string; observingEnd: string }) {
+  const a = Date.parse(`${cycle.observingStart}T00:00:00Z`);
+  const b = Date.parse(`${cycle.observingEnd}T00:00:00Z`);
+  return new Date(a + Math.floor((b - a) / DAY_MS / 2) * DAY_MS).toISOString().slice(0, 10);
+}
+
+/** A demo target placed in its cycle: RA from the meridian at local midnight, windows from the first night. */
+export function placeTarget(
+  t: DemoProposalTarget,
+  cycle: { observingStart: string; observingEnd: string },
+  longitudeDeg: number,
+) {
+  const raDeg = round2(wrap360(raTransitingAtMidnight(middleNight(cycle), longitudeDeg) + 15 * t.raOffsetH));
+  const first = Date.parse(`${cycle.observingStart}T00:00:00Z`);
+  const iso = (days: number) => new Date(first + days * DAY_MS).toISOString().replace(".000Z", "Z");
+  return {
+    name: t.name,
+    raDeg,
+    decDeg: t.decDeg,
+    model: t.model,
+    magnitudes: t.magnitudes,
+    minElevationDeg: t.minElevationDeg,
+    notes: t.notes ?? "",
+    timeWindows: (t.timeWindows ?? []).map((w) => ({
+      startUtc: iso(w.startDay),
+      endUtc: iso(w.endDay),
+      ...(w.note ? { note: w.note } : {}),
+    })),
+    calibrators: (t.calibrators ?? []).map(({ dRaDeg, dDecDeg, ...c }) => ({
+      ...c,
+      raDeg: round2(wrap360(raDeg + dRaDeg)),
+      decDeg: round2(t.decDeg + dDecDeg),
+    })),
+  };
+}
+
+/** When a demo proposal was submitted: before its cycle's deadline, and never after two days ago. */
+export function demoSubmittedAt(demo: DemoProposal, deadline: Date, today: Date): Date {
+  const byDeadline = deadline.getTime() - (demo.submittedDaysBeforeDeadline ?? 1) * DAY_MS;
+  return new Date(
+    Math.min(byDeadline, today.getTime() - 2 * DAY_MS - (demo.submittedDaysBeforeDeadline ?? 0) * 3_600_000),
+  );
+}
+
+/** Writes the demo proposals of one cycle that are missing; returns how many of the list the cycle holds. */
+export async function ensureDemoProposals(
+  db: Database,
+  {
+    cycleId,
+    list,
+    longitudeDeg,
+    today,
+  }: { cycleId: number; list: readonly DemoProposal[]; longitudeDeg: number; today: Date },
+) {
   let count = 0;
   for (const demo of list) {
-    await ensureDemoProposal(db, cycleId, demo);
+    await ensureDemoProposal(db, { cycleId, demo, longitudeDeg, today });
     count++;
   }
   return count;
 }
 
-async function ensureDemoProposal(db: Database, cycleId: number, demo: DemoProposal) {
+async function ensureDemoProposal(
+  db: Database,
+  { cycleId, demo, longitudeDeg, today }: { cycleId: number; demo: DemoProposal; longitudeDeg: number; today: Date },
+) {
   await db.transaction(async (tx) => {
     const [pi] = await tx.select().from(users).where(sql`lower(${users.email}) = lower(${demo.pi})`);
     if (!pi) throw new Error(`demo proposal "${demo.title}": no demo person ${demo.pi}`);
@@ -42,6 +104,7 @@ async function ensureDemoProposal(db: Database, cycleId: number, demo: DemoPropo
       .where(and(eq(proposals.cycleId, cycleId), eq(proposals.piId, pi.id), eq(proposals.title, demo.title)));
     if (existing) return;
     const [cycle] = await tx.select().from(cycles).where(eq(cycles.id, cycleId));
+    const submittedAt = demoSubmittedAt(demo, cycle.submissionDeadline, today);
     const [band] = await tx
       .select({ id: bands.id, instrumentId: bands.instrumentId })
       .from(bands)
@@ -49,7 +112,7 @@ async function ensureDemoProposal(db: Database, cycleId: number, demo: DemoPropo
       .where(and(eq(instruments.name, demo.instrument), eq(bands.name, demo.band)));
     if (!band) throw new Error(`demo proposal "${demo.title}": no band ${demo.instrument} ${demo.band}`);
     const created = new Date(
-      demo.submittedAt ? Date.parse(demo.submittedAt) - 3 * 86_400_000 : Date.parse("2026-11-20T10:00:00Z"),
+      demo.status === "draft" ? today.getTime() - 10 * DAY_MS : submittedAt.getTime() - 3 * DAY_MS,
     );
     const [proposal] = await tx
       .insert(proposals)
@@ -83,7 +146,7 @@ async function ensureDemoProposal(db: Database, cycleId: number, demo: DemoPropo
       await tx.insert(proposalHours).values({ proposalId: proposal.id, configurationId: config.id, hours });
     }
     for (const [position, t] of demo.targets.entries()) {
-      const fields = targetFieldsOf({ ...t, notes: t.notes ?? "" });
+      const fields = targetFieldsOf(placeTarget(t, cycle, longitudeDeg));
       await tx.insert(proposalTargets).values({ proposalId: proposal.id, position, ...fields });
     }
     if (demo.pdf) {
@@ -109,7 +172,6 @@ async function ensureDemoProposal(db: Database, cycleId: number, demo: DemoPropo
       });
     }
     if (demo.status !== "draft") {
-      const submittedAt = new Date(demo.submittedAt ?? "2026-11-20T12:00:00Z");
       const [locked] = await tx.select().from(proposals).where(eq(proposals.id, proposal.id)).for("update");
       await freezeVersion(tx, { proposal: locked, cycle, submittedById: pi.id, now: submittedAt });
       if (demo.status !== "submitted") {

@@ -1,4 +1,5 @@
-import { href } from "react-router";
+import { href, Link } from "react-router";
+import { StateBadge } from "~/components/committee/StateBadge";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, type BadgeTone, ButtonLink, Card, EmptyState, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
@@ -20,6 +21,8 @@ export async function loader({ request, context }: Route.LoaderArgs) {
       observingStart: c.observingStart,
       observingEnd: c.observingEnd,
       submissionDeadline: c.submissionDeadline.toISOString(),
+      reviewDeadline: c.reviewDeadline?.toISOString() ?? null,
+      state: c.state,
       phase: cyclePhase(c, now),
       offers: c.offers.map((o) => ({ name: o.name, nightsAvailable: o.nightsAvailable })),
     })),
@@ -51,8 +54,15 @@ export default function Cycles({ loaderData }: Route.ComponentProps) {
             <Card
               key={c.id}
               title={
-                <span className="flex items-center gap-2">
-                  {c.name} <Badge tone={phaseTone[c.phase]}>{c.phase}</Badge>
+                <span className="flex flex-wrap items-center gap-2">
+                  {loaderData.canManage ? (
+                    <Link to={href("/cycles/:cycleId", { cycleId: String(c.id) })} className="hover:underline">
+                      {c.name}
+                    </Link>
+                  ) : (
+                    c.name
+                  )}{" "}
+                  <StateBadge state={c.state} /> <Badge tone={phaseTone[c.phase]}>{c.phase}</Badge>
                 </span>
               }
               actions={
@@ -69,7 +79,7 @@ export default function Cycles({ loaderData }: Route.ComponentProps) {
               }
             >
               {c.description ? <p className="mb-3 text-night-700">{c.description}</p> : null}
-              <dl className="grid gap-3 sm:grid-cols-3">
+              <dl className="grid gap-3 sm:grid-cols-4">
                 <div>
                   <dt className="text-sm text-night-600">Nights</dt>
                   <dd className="num font-medium">
@@ -79,6 +89,10 @@ export default function Cycles({ loaderData }: Route.ComponentProps) {
                 <div>
                   <dt className="text-sm text-night-600">Submission deadline</dt>
                   <dd className="num font-medium">{formatUtc(new Date(c.submissionDeadline))}</dd>
+                </div>
+                <div>
+                  <dt className="text-sm text-night-600">Review deadline</dt>
+                  <dd className="num font-medium">{c.reviewDeadline ? formatUtc(new Date(c.reviewDeadline)) : "—"}</dd>
                 </div>
                 <div>
                   <dt className="text-sm text-night-600">Configurations on offer</dt>

@@ -1,5 +1,5 @@
 /**
- * The computation resource routes (`POST /api/coverage`, `/api/ephemeris`, `/api/triangles`, `/api/plan`): check
+ * The computation resource routes (`POST /api/coverage`, `/api/ephemeris`, `/api/triangles`, `/api/plan`, `/api/rank`): check
  * who asks, read the JSON body, validate it with the engine's wire schema (400), check its cost budget
  * (422), run the computation on the worker pool (503 when the pool is full, 429 when the person has
  * too many running), answer JSON. Each route module is its loader and action from here.

@@ -14,7 +14,9 @@ import {
   parseCoverageRequest,
   parseEphemerisRequest,
   parsePlanRequest,
+  parseRankRequest,
   parseTrianglesRequest,
+  rankReviews,
   rankTriangles,
   trianglesBudgetFailure,
 } from "~/engine";
@@ -33,6 +35,8 @@ export const COMPUTATIONS = {
   ephemeris: define({ parse: parseEphemerisRequest, budget: () => null, compute: computeEphemeris }),
   // The plan's size is capped by its schema (targets, calibrators, blocks, delay-line work).
   plan: define({ parse: parsePlanRequest, budget: () => null, compute: computePlan }),
+  // Capped by its schema too (reviews, identifier lengths).
+  rank: define({ parse: parseRankRequest, budget: () => null, compute: rankReviews }),
 } as const;
 
 export type ComputationName = keyof typeof COMPUTATIONS;

@@ -5,5 +5,14 @@
  */
 export { createCycle, updateCycle } from "./commands.server";
 export { type CyclePhase, cyclePhase } from "./phase";
-export { cyclesOfferingConfigurations, findCycleByName, getCycle, listCycles, openCycles } from "./queries.server";
-export type { CycleInput } from "./schemas";
+export {
+  committeeOf,
+  cyclesOfferingConfigurations,
+  findCycleByName,
+  getCycle,
+  listCycles,
+  openCycles,
+  reviewerChoices,
+} from "./queries.server";
+export type { CommitteeFields, CycleInput } from "./schemas";
+export { STATE_WORDS, scoringClosedBecause, scoringOpen } from "./states";

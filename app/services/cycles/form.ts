@@ -5,7 +5,14 @@
 import * as v from "valibot";
 import { type FieldErrors, fieldErrors } from "~/lib/form-errors";
 import { toUtcInput } from "~/lib/format";
-import { CycleFormSchema, type CycleFormValues, type CycleInput, NightsAvailable } from "./schemas";
+import {
+  type CommitteeFields,
+  CycleFormSchema,
+  type CycleFormValues,
+  type CycleInput,
+  MAX_SCALE_STEPS,
+  NightsAvailable,
+} from "./schemas";
 
 export type { CycleFormValues };
 
@@ -17,12 +24,17 @@ export function blankCycleValues(configurationIds: number[]): CycleFormValues {
     observingStart: "",
     observingEnd: "",
     submissionDeadline: "",
+    reviewDeadline: "",
+    decisionDate: "",
+    scoreBest: "1",
+    scoreWorst: "5",
     offered: configurationIds.map(String),
     nights: {},
+    committee: [],
   };
 }
 
-/** A stored cycle as form values: the deadline as its UTC `datetime-local` value. */
+/** A stored cycle as form values: the deadlines as their UTC `datetime-local` values. */
 export function valuesOfCycle(cycle: CycleInput): CycleFormValues {
   const nights: Record<string, string> = {};
   for (const o of cycle.offers) nights[o.configurationId] = o.nightsAvailable == null ? "" : String(o.nightsAvailable);
@@ -32,8 +44,13 @@ export function valuesOfCycle(cycle: CycleInput): CycleFormValues {
     observingStart: cycle.observingStart,
     observingEnd: cycle.observingEnd,
     submissionDeadline: toUtcInput(cycle.submissionDeadline),
+    reviewDeadline: cycle.reviewDeadline ? toUtcInput(cycle.reviewDeadline) : "",
+    decisionDate: cycle.decisionDate ?? "",
+    scoreBest: String(cycle.scoreBest ?? 1),
+    scoreWorst: String(cycle.scoreWorst ?? 5),
     offered: cycle.offers.map((o) => String(o.configurationId)),
     nights,
+    committee: (cycle.committee ?? []).map(String),
   };
 }
 
@@ -54,15 +71,48 @@ export function cycleFormValues(
     observingStart: str("observingStart"),
     observingEnd: str("observingEnd"),
     submissionDeadline: str("submissionDeadline"),
+    reviewDeadline: str("reviewDeadline"),
+    decisionDate: str("decisionDate"),
+    scoreBest: str("scoreBest"),
+    scoreWorst: str("scoreWorst"),
     offered: form.getAll("offered").filter((x): x is string => typeof x === "string"),
     nights,
+    committee: form.getAll("committee").filter((x): x is string => typeof x === "string"),
   };
 }
 
+/** The rules between the committee's fields and the cycle's dates; adds to `errors`. */
+function checkCommittee(
+  out: CommitteeFields & { submissionDeadline: Date; observingStart: string },
+  errors: FieldErrors,
+) {
+  const firstNight = Date.parse(`${out.observingStart}T00:00:00Z`);
+  if (out.reviewDeadline) {
+    if (out.reviewDeadline.getTime() <= out.submissionDeadline.getTime())
+      errors.reviewDeadline = "Review deadline: must come after the submission deadline";
+    else if (out.reviewDeadline.getTime() >= firstNight)
+      errors.reviewDeadline = "Review deadline: must fall before the first night of the cycle";
+  }
+  if (out.decisionDate) {
+    if (out.reviewDeadline && out.decisionDate < out.reviewDeadline.toISOString().slice(0, 10))
+      errors.decisionDate = "Decision date: must not be before the review deadline";
+    else if (out.decisionDate > out.observingStart)
+      errors.decisionDate = "Decision date: must not be after the first night of the cycle";
+  }
+  if (out.scoreBest === out.scoreWorst) errors.scoreWorst = "Poorest score: must differ from the best score";
+  else if (Math.abs(out.scoreBest - out.scoreWorst) > MAX_SCALE_STEPS)
+    errors.scoreWorst = `Poorest score: at most ${MAX_SCALE_STEPS} steps from the best score`;
+}
+
+/**
+ * Checks the form. `reviewerIds` are the people who may sit on the committee (the reviewer role);
+ * committee ids outside it are refused.
+ */
 export function parseCycleForm(
   values: CycleFormValues,
   configurationIds: number[],
-): { ok: true; value: CycleInput } | { ok: false; errors: FieldErrors } {
+  reviewerIds: readonly number[] = [],
+): { ok: true; value: CycleInput & CommitteeFields } | { ok: false; errors: FieldErrors } {
   const parsed = v.safeParse(CycleFormSchema, values);
   const errors = parsed.success ? {} : fieldErrors(parsed.issues, { depth: 1 });
   const offers: CycleInput["offers"] = [];
@@ -77,7 +127,11 @@ export function parseCycleForm(
     offers.push({ configurationId: id, nightsAvailable: nights.success ? nights.output : null });
   }
   if (offers.length === 0 && !errors.offered) errors.offered = "Configurations: offer at least one configuration";
+  const committee = [...new Set(values.committee.map(Number))];
+  if (committee.some((id) => !reviewerIds.includes(id)))
+    errors.committee = "Committee: only people with the reviewer role can sit on the committee";
   if (parsed.success) {
+    checkCommittee({ ...parsed.output, committee }, errors);
     const { observingStart, observingEnd, submissionDeadline } = parsed.output;
     if (observingEnd < observingStart) errors.observingEnd = "Last night: must not be before the first night";
     if (submissionDeadline.getTime() >= Date.parse(`${observingStart}T00:00:00Z`)) {
@@ -85,5 +139,5 @@ export function parseCycleForm(
     }
   }
   if (Object.keys(errors).length || !parsed.success) return { ok: false, errors };
-  return { ok: true, value: { ...parsed.output, offers } };
+  return { ok: true, value: { ...parsed.output, offers, committee } };
 }

@@ -1,8 +1,10 @@
 /** Reading observing cycles: their period, deadline and the configurations on offer (with nights). */
-import { asc, desc, eq, gt, inArray, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, gt, inArray, type SQL } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
 import { configurations } from "~/db/schema/array";
+import { committeeMembers } from "~/db/schema/committee";
 import { cycleConfigurations, cycles } from "~/db/schema/proposals";
+import { userRoles, users } from "~/db/schema/users";
 
 /** What a cycle offers: a configuration (and its name) with the nights it is available. */
 const offerColumns = {
@@ -38,12 +40,12 @@ export async function getCycle(db: DbOrTx, { cycleId }: { cycleId: number }) {
   return cycle ?? null;
 }
 
-/** Cycles still taking proposals at `now` (deadline in the future), soonest deadline first. */
+/** Cycles taking proposals at `now` (open, deadline in the future), soonest deadline first. */
 export async function openCycles(db: DbOrTx, now = new Date()) {
   return db
     .select()
     .from(cycles)
-    .where(gt(cycles.submissionDeadline, now))
+    .where(and(eq(cycles.state, "open"), gt(cycles.submissionDeadline, now)))
     .orderBy(asc(cycles.submissionDeadline), asc(cycles.name));
 }
 
@@ -65,4 +67,24 @@ export async function cyclesOfferingConfigurations(db: DbOrTx): Promise<Record<n
     out[r.configurationId].push(r.name);
   }
   return out;
+}
+
+/** The members of a cycle's committee, by name. */
+export async function committeeOf(db: DbOrTx, { cycleId }: { cycleId: number }) {
+  return db
+    .select({ id: users.id, name: users.name, email: users.email, institute: users.institute })
+    .from(committeeMembers)
+    .innerJoin(users, eq(users.id, committeeMembers.userId))
+    .where(eq(committeeMembers.cycleId, cycleId))
+    .orderBy(asc(users.name), asc(users.id));
+}
+
+/** Everyone who may sit on a committee (the reviewer role), by name. */
+export async function reviewerChoices(db: DbOrTx) {
+  return db
+    .select({ id: users.id, name: users.name, institute: users.institute })
+    .from(users)
+    .innerJoin(userRoles, and(eq(userRoles.userId, users.id), eq(userRoles.role, "reviewer")))
+    .where(eq(users.active, true))
+    .orderBy(asc(users.name), asc(users.id));
 }

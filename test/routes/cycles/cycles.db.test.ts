@@ -3,6 +3,7 @@ import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { cycles, proposalHours, proposals } from "~/db/schema/proposals";
 import { seedDemoScenario } from "~/db/seed/factories.server";
+import { demoCycles } from "~/db/seed/scenario";
 import { action as editAction, loader as editLoader } from "~/routes/cycles/edit";
 import { loader as listLoader } from "~/routes/cycles/index";
 import { action as newAction } from "~/routes/cycles/new";
@@ -29,11 +30,13 @@ beforeAll(async () => {
 
 function cycleForm(over: Record<string, string | string[]> = {}) {
   return {
-    name: "2027B",
+    name: "T2031B",
     description: "Second semester",
     observingStart: "2027-09-01",
     observingEnd: "2028-02-28",
     submissionDeadline: "2027-06-15T12:00",
+    scoreBest: "1",
+    scoreWorst: "5",
     offered: [String(configIds["compact-3"]), String(configIds["extended-6"])],
     [`nights-${configIds["compact-3"]}`]: "30",
     [`nights-${configIds["extended-6"]}`]: "",
@@ -45,7 +48,10 @@ describe("cycles", () => {
   it("lists the demo cycle for a signed-in person; only the chair may manage", async () => {
     const asProposer = await listLoader(routeArgs("/cycles", { headers: { Cookie: proposer } }));
     expect(asProposer.canManage).toBe(false);
-    expect(asProposer.cycles.map((c: { name: string }) => c.name)).toContain("2027A");
+    const demo = demoCycles(new Date());
+    expect(asProposer.cycles.map((c: { name: string }) => c.name)).toEqual(
+      expect.arrayContaining([demo.current.name, demo.review.name, demo.open.name]),
+    );
     const asChair = await listLoader(routeArgs("/cycles", { headers: { Cookie: chair } }));
     expect(asChair.canManage).toBe(true);
   });
@@ -53,10 +59,13 @@ describe("cycles", () => {
   it("lets the chair create a cycle with its offers and nights", async () => {
     const res = await settle(() => newAction(routeArgs("/cycles/new", formPost(cycleForm(), { Cookie: chair }))));
     expect(res.status).toBe(302);
-    const [row] = await testDb().select().from(cycles).where(eq(cycles.name, "2027B"));
+    expect(res.headers.get("Location")).toBe("/cycles");
+    const [row] = await testDb().select().from(cycles).where(eq(cycles.name, "T2031B"));
     expect(row.submissionDeadline.toISOString()).toBe("2027-06-15T12:00:00.000Z");
+    // A new cycle is being prepared until the chair opens it; the scale is the default 1 … 5.
+    expect([row.state, row.scoreBest, row.scoreWorst, row.reviewDeadline]).toEqual(["draft", 1, 5, null]);
     const list = await listLoader(routeArgs("/cycles", { headers: { Cookie: chair } }));
-    const b = list.cycles.find((c: { name: string }) => c.name === "2027B");
+    const b = list.cycles.find((c: { name: string }) => c.name === "T2031B");
     expect(b?.offers).toEqual([
       { name: "compact-3", nightsAvailable: 30 },
       { name: "extended-6", nightsAvailable: null },
@@ -104,11 +113,11 @@ describe("cycles", () => {
     };
     expect(none.data.errors.offered).toBe("Configurations: offer at least one configuration");
     const dup = (await newAction(
-      routeArgs("/cycles/new", formPost(cycleForm({ name: "2027A" }), { Cookie: chair })),
+      routeArgs("/cycles/new", formPost(cycleForm({ name: demoCycles(new Date()).open.name }), { Cookie: chair })),
     )) as {
       data: { errors: Record<string, string> };
     };
-    expect(dup.data.errors.name).toBe("Name: a cycle called 2027A exists already");
+    expect(dup.data.errors.name).toBe(`Name: a cycle called ${demoCycles(new Date()).open.name} exists already`);
   });
 
   it("refuses proposers (403) and anonymous visitors (sign-in)", async () => {
@@ -122,7 +131,7 @@ describe("cycles", () => {
   });
 
   it("keeps a configuration on offer while proposals of the cycle request it", async () => {
-    const [cycle] = await testDb().select().from(cycles).where(eq(cycles.name, "2027B"));
+    const [cycle] = await testDb().select().from(cycles).where(eq(cycles.name, "T2031B"));
     const pi = await findUserByEmail(testDb(), "ines.arroyo@valle-alto.example");
     const [p] = await testDb().insert(proposals).values({ cycleId: cycle.id, piId: pi!.id, title: "Test" }).returning();
     await testDb()

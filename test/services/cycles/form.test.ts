@@ -11,8 +11,13 @@ function typed(over: Partial<CycleFormValues> = {}): CycleFormValues {
     observingStart: "2027-09-01",
     observingEnd: "2028-02-28",
     submissionDeadline: "2027-06-15T12:00",
+    reviewDeadline: "",
+    decisionDate: "",
+    scoreBest: "1",
+    scoreWorst: "5",
     offered: ["3", "7"],
     nights: { 3: "30", 7: "" },
+    committee: [],
     ...over,
   };
 }
@@ -28,6 +33,11 @@ describe("the cycle form", () => {
         observingStart: "2027-09-01",
         observingEnd: "2028-02-28",
         submissionDeadline: new Date("2027-06-15T12:00:00Z"),
+        reviewDeadline: null,
+        decisionDate: null,
+        scoreBest: 1,
+        scoreWorst: 5,
+        committee: [],
         offers: [
           { configurationId: 3, nightsAvailable: 30 },
           { configurationId: 7, nightsAvailable: null },
@@ -66,5 +76,53 @@ describe("the cycle form", () => {
     if (!parsed.ok) throw new Error("the form should parse");
     expect(valuesOfCycle(parsed.value)).toEqual(typed({ name: "2027B" }));
     expect(blankCycleValues(ids)).toMatchObject({ name: "", offered: ["3", "7"], nights: {} });
+  });
+
+  it("reads the committee's dates, scale and members, and checks them against each other", () => {
+    const ok = parseCycleForm(
+      typed({
+        reviewDeadline: "2027-07-15T12:00",
+        decisionDate: "2027-08-01",
+        scoreBest: "10",
+        scoreWorst: "1",
+        committee: ["21", "22"],
+      }),
+      ids,
+      [21, 22, 23],
+    );
+    expect(ok.ok && ok.value).toMatchObject({
+      reviewDeadline: new Date("2027-07-15T12:00:00Z"),
+      decisionDate: "2027-08-01",
+      scoreBest: 10,
+      scoreWorst: 1,
+      committee: [21, 22],
+    });
+    const bad = parseCycleForm(
+      typed({
+        reviewDeadline: "2027-06-01T00:00",
+        decisionDate: "2027-05-01",
+        scoreBest: "3",
+        scoreWorst: "3",
+        committee: ["99"],
+      }),
+      ids,
+      [21],
+    );
+    expect(bad.ok ? {} : bad.errors).toEqual({
+      reviewDeadline: "Review deadline: must come after the submission deadline",
+      decisionDate: "Decision date: must not be before the review deadline",
+      scoreWorst: "Poorest score: must differ from the best score",
+      committee: "Committee: only people with the reviewer role can sit on the committee",
+    });
+    const late = parseCycleForm(typed({ reviewDeadline: "2027-09-02T00:00", scoreWorst: "40" }), ids);
+    expect(late.ok ? {} : late.errors).toEqual({
+      reviewDeadline: "Review deadline: must fall before the first night of the cycle",
+      scoreWorst: "Poorest score: at most 20 steps from the best score",
+    });
+    const unreadable = parseCycleForm(typed({ scoreBest: "x", decisionDate: "2027-13-01" }), ids);
+    expect(unreadable.ok ? {} : unreadable.errors).toEqual({
+      scoreBest: "Best score: a whole number from 0 to 100",
+      decisionDate: "Decision date: use the form YYYY-MM-DD",
+    });
   });
 });

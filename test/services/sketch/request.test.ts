@@ -44,7 +44,7 @@ describe("coverage request of a sketch", () => {
     expect(b.wavelengthsM).toHaveLength(6);
     expect(b.night).toEqual({ date: "2027-03-15", stepMin: 10 });
     expect(b.minElevationDeg).toBe(30);
-    expect(b.delayLineStrokeM).toBe(90);
+    expect(b.delayLineStrokeM).toBe(200);
     expect(b.beam).toEqual({ gridSize: 256, weighting: "natural", includeImages: true });
     expect(sent(b).ok).toBe(true);
   });

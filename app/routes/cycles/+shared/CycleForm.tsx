@@ -18,12 +18,46 @@ const CYCLE_FIELDS: FieldSpec[] = [
   { name: "description", label: "Description", multiline: true, maxLength: 500, wrapClassName: "md:col-span-2" },
 ];
 
+const COMMITTEE_FIELDS: FieldSpec[] = [
+  {
+    name: "reviewDeadline",
+    label: "Review deadline",
+    unit: "UTC",
+    type: "datetime-local",
+    hint: "Reviews are submitted before it; the chair may reopen scoring later.",
+  },
+  { name: "decisionDate", label: "Decision date", type: "date", hint: "When the teams should hear the outcome." },
+  { name: "scoreBest", label: "Best score", inputMode: "numeric", required: true, hint: "Default 1 (best)." },
+  { name: "scoreWorst", label: "Poorest score", inputMode: "numeric", required: true, hint: "Default 5 (poorest)." },
+];
+
+/** A person who may sit on the committee, ticked when on it. */
+function MemberRow({ reviewer, values }: { reviewer: ReviewerChoice; values: CycleFormValues }) {
+  return (
+    <li className="py-2">
+      <label className="flex items-start gap-2">
+        <input
+          type="checkbox"
+          name="committee"
+          value={reviewer.id}
+          defaultChecked={values.committee.includes(String(reviewer.id))}
+          className="mt-1 h-4 w-4 accent-ember-700"
+        />
+        <span>
+          <span className="font-medium">{reviewer.name}</span>{" "}
+          <span className="text-sm text-night-600">{reviewer.institute}</span>
+        </span>
+      </label>
+    </li>
+  );
+}
+
 /** A configuration that may be offered, with its nights. */
 function OfferRow({
   choice,
   values,
   errors,
-}: { choice: ConfigurationChoice } & Omit<CycleFormProps, "configurations">) {
+}: { choice: ConfigurationChoice } & Pick<CycleFormProps, "values" | "errors">) {
   const nights = `nights-${choice.id}`;
   return (
     <li className="flex flex-wrap items-center gap-4 py-3">
@@ -55,14 +89,23 @@ function OfferRow({
   );
 }
 
+export type ReviewerChoice = { id: number; name: string; institute: string };
+
 type CycleFormProps = {
   values: CycleFormValues;
   errors: Record<string, string>;
   configurations: ConfigurationChoice[];
+  reviewers: ReviewerChoice[];
 };
 
 /** The chair's form for a cycle: dates, deadline and the configurations on offer with their nights. */
-export function CycleForm({ values, errors, configurations, submitLabel }: CycleFormProps & { submitLabel: string }) {
+export function CycleForm({
+  values,
+  errors,
+  configurations,
+  reviewers,
+  submitLabel,
+}: CycleFormProps & { submitLabel: string }) {
   return (
     <Form method="post" className="grid gap-6" noValidate>
       <FormErrors errors={Object.values(errors)} />
@@ -78,6 +121,22 @@ export function CycleForm({ values, errors, configurations, submitLabel }: Cycle
             <OfferRow key={c.id} choice={c} values={values} errors={errors} />
           ))}
         </ul>
+      </Card>
+      <Card title="The committee">
+        <div className="grid gap-4 md:grid-cols-2">
+          <FieldList fields={COMMITTEE_FIELDS} values={values} errors={errors} />
+        </div>
+        <h3 className="mt-5 text-sm font-semibold text-night-800">Members</h3>
+        <GroupError message={errors.committee} className="mt-1" />
+        {reviewers.length === 0 ? (
+          <p className="text-sm text-night-600">Nobody holds the reviewer role yet (People, for administrators).</p>
+        ) : (
+          <ul className="grid divide-y divide-night-100 sm:grid-cols-2 sm:divide-y-0">
+            {reviewers.map((r) => (
+              <MemberRow key={r.id} reviewer={r} values={values} />
+            ))}
+          </ul>
+        )}
       </Card>
       <div>
         <SubmitButton label={submitLabel} />
@@ -98,16 +157,17 @@ export function CycleEditor({
 }: {
   title: string;
   submitLabel: string;
-  page: { values: CycleFormValues; configurations: ConfigurationChoice[] };
+  page: { values: CycleFormValues; configurations: ConfigurationChoice[]; reviewers: ReviewerChoice[] };
   retry: { values: CycleFormValues; errors: Record<string, string> } | undefined;
 }) {
   return (
     <>
-      <PageHeader title={title} lead="Dates are nights at the site; the deadline is in UTC." />
+      <PageHeader title={title} lead="Dates are nights at the site; the deadlines are in UTC." />
       <CycleForm
         values={retry?.values ?? page.values}
         errors={retry?.errors ?? {}}
         configurations={page.configurations}
+        reviewers={page.reviewers}
         submitLabel={submitLabel}
       />
     </>

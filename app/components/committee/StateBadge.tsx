@@ -1,0 +1,23 @@
+/** A cycle's state as a badge: its own colour and words for each state of the committee's season. */
+import { Badge, type BadgeTone } from "~/components/ui";
+import type { CycleState } from "~/db/schema/proposals";
+
+const TONE: Record<CycleState, BadgeTone> = {
+  draft: "neutral",
+  open: "ok",
+  reviewing: "info",
+  deciding: "caution",
+  closed: "accent",
+};
+
+const WORDS: Record<CycleState, string> = {
+  draft: "Being prepared",
+  open: "Open for proposals",
+  reviewing: "With the reviewers",
+  deciding: "Decisions in progress",
+  closed: "Decisions sent",
+};
+
+export function StateBadge({ state }: { state: CycleState }) {
+  return <Badge tone={TONE[state]}>{WORDS[state]}</Badge>;
+}
