@@ -100,6 +100,11 @@ const EnvSchema = v.pipe(
      * It never changes what a signed-in person may read or do.
      */
     DEMO_MODE: v.optional(v.picklist(["0", "1"]), "1"),
+    /**
+     * Sign-in attempts one client address may make in 15 minutes (default 30). Raise it where many
+     * people sign in from one address (an office behind one gateway, the browser tests).
+     */
+    SIGN_IN_ATTEMPTS_PER_ADDRESS: wholeNumber(1, 1_000_000, "30"),
     ...MAIL_ENV_ENTRIES,
     ...COMPUTE_ENV_ENTRIES,
   }),

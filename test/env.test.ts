@@ -32,6 +32,9 @@ describe("the public origin and the other server settings", () => {
     expect(parseEnv({}).DB_CONNECT_TIMEOUT_S).toBe(3);
     expect(parseEnv({}).DB_STATEMENT_TIMEOUT_MS).toBe(10_000);
     expect(() => parseEnv({ DB_STATEMENT_TIMEOUT_MS: "1e4" })).toThrow(/DB_STATEMENT_TIMEOUT_MS/);
+    expect(parseEnv({}).SIGN_IN_ATTEMPTS_PER_ADDRESS).toBe(30);
+    expect(parseEnv({ SIGN_IN_ATTEMPTS_PER_ADDRESS: "500" }).SIGN_IN_ATTEMPTS_PER_ADDRESS).toBe(500);
+    expect(() => parseEnv({ SIGN_IN_ATTEMPTS_PER_ADDRESS: "0" })).toThrow(/SIGN_IN_ATTEMPTS_PER_ADDRESS/);
   });
 
   it("takes trusted proxies as addresses, CIDR ranges or range names, and nothing else", () => {

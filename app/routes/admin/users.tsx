@@ -79,7 +79,9 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
       </Form>
       {actionData?.error ? <Alert className="mb-4">{actionData.error}</Alert> : null}
       <div className="grid gap-3">
-        {loaderData.people.length === 0 ? <p className="text-night-600">{`Nobody matches “${loaderData.q}”.`}</p> : null}
+        {loaderData.people.length === 0 ? (
+          <p className="text-night-600">{`Nobody matches “${loaderData.q}”.`}</p>
+        ) : null}
         {loaderData.people.map((p) => (
           <PersonCard key={p.id} person={p} />
         ))}

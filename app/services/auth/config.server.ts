@@ -64,9 +64,14 @@ export const EMAIL_LINK_LIFETIME_MS = 15 * 60 * 1000;
  */
 export const EMAIL_LINK_USEFUL_MS = 3 * 60 * 1000;
 
-/** Sign-in attempts allowed per window, by client address and by e-mail address. */
+/** Sign-in attempts allowed per window, by client address and by e-mail address (the defaults). */
 export const RATE_LIMITS = {
   windowMs: 15 * 60 * 1000,
   perAddress: 30,
   perEmail: 5,
 } as const;
+
+/** The limits in force: the per-address count from SIGN_IN_ATTEMPTS_PER_ADDRESS. */
+export function signInRateLimits(): { windowMs: number; perAddress: number; perEmail: number } {
+  return { ...RATE_LIMITS, perAddress: env().SIGN_IN_ATTEMPTS_PER_ADDRESS };
+}

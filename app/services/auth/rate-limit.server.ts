@@ -1,7 +1,7 @@
 import { and, gt, inArray, lt, sql } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
 import { signInAttempts } from "~/db/schema/auth";
-import { RATE_LIMITS } from "./config.server";
+import { signInRateLimits } from "./config.server";
 
 export type RateLimitResult = { ok: true } | { ok: false; retryAfterSeconds: number; message: string };
 
@@ -27,13 +27,13 @@ export function addressBucket(address: string): string {
 
 /**
  * Records a sign-in attempt for the client address (and the e-mail address when given) and says
- * whether it stays within the limits of RATE_LIMITS. A refused attempt is not recorded.
+ * whether it stays within the limits in force (signInRateLimits). A refused attempt is not recorded.
  */
 export async function recordSignInAttempt(
   db: Database,
   input: { address: string; email?: string },
   now = new Date(),
-  limits: { windowMs: number; perAddress: number; perEmail: number } = RATE_LIMITS,
+  limits: { windowMs: number; perAddress: number; perEmail: number } = signInRateLimits(),
 ): Promise<RateLimitResult> {
   const since = new Date(now.getTime() - limits.windowMs);
   const keys = [`ip:${addressBucket(input.address)}`];
