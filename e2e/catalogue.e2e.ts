@@ -81,6 +81,37 @@ describe("star catalogue", () => {
     await context.close();
   });
 
+  it("a proposer types a star's name in the Sketchpad, sees it resolved and its best calibrators", async () => {
+    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", WIDE);
+    await page.goto(`${baseUrl}/sketchpad`);
+    const name = page.getByRole("combobox", { name: "Name" });
+    await name.pressSequentially("betelg", { delay: 30 });
+    // The suggestions' list (the "From My targets" select may hold a Betelgeuse too).
+    await page
+      .getByRole("listbox")
+      .getByRole("option", { name: /Betelgeuse/ })
+      .first()
+      .waitFor();
+    await name.press("ArrowDown");
+    await name.press("Enter");
+    await expect(name.inputValue()).resolves.toBe("Betelgeuse");
+    // stars.8.json, HIP 27989: RA 88.7929° = 05h55m10.30s, Dec +7.4071° = +07°24′25.6″ (as in My targets).
+    await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("05:55:10.30");
+    await expect(page.getByLabel("Declination").inputValue()).resolves.toBe("+07:24:25.6");
+    const facts = page.locator(`#${await name.getAttribute("id")}-status`);
+    await expect(facts.textContent()).resolves.toMatch(/HD 39801/);
+    // The sketch follows the star, and its top calibrators are listed with a link to the full shortlist.
+    await page.getByText(/^Up to date/).waitFor({ timeout: 30_000 });
+    const peek = page.getByRole("region", { name: "Calibrators" });
+    await peek.getByRole("link", { name: "The full Calibrator shortlist" }).waitFor();
+    await expect
+      .poll(async () => (await peek.locator("li").count()) > 0 || (await peek.getByText(/No catalogue star/).count()))
+      .toBeTruthy();
+    await screenshot(page, "catalogue-sketchpad-1366");
+    expect(seen.errors).toEqual([]);
+    await context.close();
+  });
+
   it("a proposer opens the Calibrator shortlist of a proposal's target and adds a calibrator", async () => {
     const target = await demoDraftTarget();
     const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", WIDE);

@@ -140,15 +140,24 @@ describe("Night builder", () => {
     await page.getByRole("button", { name: "Publish to the PIs" }).click();
     await page.getByText(/is published; \d+ e-mails? to the teams of \d programs?/).waitFor();
     await page.getByText("Published", { exact: false }).first().waitFor();
-    await page.goto(`${baseUrl}/mailbox?q=${encodeURIComponent(fx.people.pi.email)}`);
-    await page
+    expect(seen.errors).toEqual([]);
+    await context.close();
+
+    // The mailbox is each person's own: the PI reads the notice in theirs.
+    const pi = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const eq = fx.cookies.pi.indexOf("=");
+    await pi.addCookies([{ name: fx.cookies.pi.slice(0, eq), value: fx.cookies.pi.slice(eq + 1), url: baseUrl }]);
+    const piPage = await pi.newPage();
+    const piSeen = watchPage(piPage);
+    await piPage.goto(`${baseUrl}/mailbox`);
+    await piPage
       .getByRole("link", { name: new RegExp(`^Night plan ${today}: \\d+ blocks for “Winds of the Ardilla stars”`) })
       .first()
       .click();
-    await page.getByText("the night's iCalendar file").first().waitFor();
-    await screenshot(page, "night-plan-mail");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await piPage.getByText("the night's iCalendar file").first().waitFor();
+    await screenshot(piPage, "night-plan-mail");
+    expect(piSeen.errors).toEqual([]);
+    await pi.close();
   });
 
   it("marks a block of an earlier night executed, and the hours owed drop", async () => {

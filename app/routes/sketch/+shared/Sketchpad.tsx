@@ -22,6 +22,7 @@ import { BandInput } from "./BandInput";
 import { binder, InputError, InputGroup } from "./InputGroup";
 import { ModelInputs } from "./ModelInputs";
 import { SamplingInputs } from "./SamplingInputs";
+import { SketchCalibrators } from "./SketchCalibrators";
 import type { SketchPageProps } from "./SketchPage";
 import { type Shown, SketchPanels } from "./SketchPanels";
 import { StationPicker } from "./StationPicker";
@@ -158,14 +159,17 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
           ) : null}
 
           {shown && !(waiting && !status.busy) ? (
-            <SketchPanels
-              shown={shown}
-              beam={lastBeam.current}
-              ephemeris={ephemeris.data?.result}
-              site={registry.site}
-              uvUnit={state.uvUnit}
-              onUvUnit={onUvUnit}
-            />
+            <>
+              <SketchPanels
+                shown={shown}
+                beam={lastBeam.current}
+                ephemeris={ephemeris.data?.result}
+                site={registry.site}
+                uvUnit={state.uvUnit}
+                onUvUnit={onUvUnit}
+              />
+              <SketchCalibrators body={shown.body} date={settled.date || defaults.date} />
+            </>
           ) : waiting ? (
             <EmptyState
               title="Type a target to start"

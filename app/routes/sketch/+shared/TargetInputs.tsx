@@ -1,7 +1,9 @@
 /**
- * The target of a sketch: picked from the person's own targets, or a name and J2000 coordinates typed
- * in sexagesimal or decimal form, each with the reading of what was typed as its hint.
+ * The target of a sketch: picked from the person's own targets, a star of the catalogue by name (its
+ * coordinates filled in), or a name and J2000 coordinates typed in sexagesimal or decimal form, each
+ * with the reading of what was typed as its hint.
  */
+import { StarNameField, starCoordinates } from "~/components/catalogue/StarNameField";
 import { Button, SelectField, TextField } from "~/components/ui";
 import { formatDeclination, formatRightAscension, parseDeclination, parseRightAscension } from "~/lib/coordinates";
 import { modelInputsOf, type SavedTarget } from "~/services/sketch/models";
@@ -70,12 +72,14 @@ export function TargetInputs({
   return (
     <InputGroup title="Target">
       {savedTargets.length > 0 ? <SavedTargetPicker savedTargets={savedTargets} set={set} /> : null}
-      <TextField
+      <StarNameField
         label="Name"
-        {...field("name")}
+        name="name"
+        value={state.name}
+        onValueChange={(name) => type({ name })}
+        onResolved={(star) => set({ name: star.name, ...starCoordinates(star) })}
         maxLength={200}
-        autoComplete="off"
-        placeholder="optional"
+        placeholder="optional: a star's name fills its coordinates"
         error={errors.name}
       />
       {COORDINATES.map((c) => {
