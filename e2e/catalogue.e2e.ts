@@ -96,6 +96,7 @@ describe("star catalogue", () => {
     await name.press("Enter");
     await expect(name.inputValue()).resolves.toBe("Betelgeuse");
     // stars.8.json, HIP 27989: RA 88.7929° = 05h55m10.30s, Dec +7.4071° = +07°24′25.6″ (as in My targets).
+    await page.getByText("Coordinates filled in.").waitFor();
     await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("05:55:10.30");
     await expect(page.getByLabel("Declination").inputValue()).resolves.toBe("+07:24:25.6");
     const facts = page.locator(`#${await name.getAttribute("id")}-status`);
