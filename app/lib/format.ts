@@ -1,7 +1,12 @@
 /**
  * Formatting shared by server and browser, so both render the same text: instants in UTC with the
- * zone shown, 24-hour clock; byte sizes.
+ * zone shown, 24-hour clock; byte sizes; counted nouns.
  */
+
+/** "1 triangle", "3 triangles", "0 samples"; `many` for irregular plurals. */
+export function plural(n: number, one: string, many = `${one}s`): string {
+  return `${n} ${n === 1 ? one : many}`;
+}
 
 /** "2027-01-15 12:00 UTC" */
 export function formatUtc(d: Date): string {

@@ -7,6 +7,7 @@ import { dbContext } from "~/context";
 import { requireFormBody } from "~/lib/body.server";
 import { redirectWithFlash } from "~/lib/flash.server";
 import { fieldErrors } from "~/lib/form-errors";
+import { plural } from "~/lib/format";
 import { requirePermission } from "~/lib/guards.server";
 import { invariantResponse, toId } from "~/lib/not-found";
 import { boardPage } from "~/services/committee/board-page.server";
@@ -76,7 +77,7 @@ export async function action({ request, params, context }: Route.ActionArgs) {
       if (!result.ok) return refuse({ form: result.message }, 409);
       return redirectWithFlash(here, {
         kind: "success",
-        text: `Grades and decisions of ${result.saved} proposals saved.`,
+        text: `Grades and decisions of ${plural(result.saved, "proposal")} saved.`,
       });
     }
     case "release": {
@@ -107,8 +108,8 @@ export default function Board({ loaderData: d, actionData }: Route.ComponentProp
         title={`Ranking board — ${d.cycle.name}`}
         lead={
           <>
-            <StateBadge state={d.cycle.state} /> {d.rows.length} proposals · scale {d.cycle.scaleText} · review deadline{" "}
-            <span className="num">{d.cycle.reviewDeadline ?? "not set"}</span>
+            <StateBadge state={d.cycle.state} /> {plural(d.rows.length, "proposal")} · scale {d.cycle.scaleText} ·
+            review deadline <span className="num">{d.cycle.reviewDeadline ?? "not set"}</span>
           </>
         }
         back={{ to: href("/board"), label: "All boards" }}

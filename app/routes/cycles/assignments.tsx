@@ -7,6 +7,7 @@ import { Alert, Card, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
 import { requireFormBody } from "~/lib/body.server";
 import { redirectWithFlash } from "~/lib/flash.server";
+import { plural } from "~/lib/format";
 import { requirePermission } from "~/lib/guards.server";
 import { invariantResponse, toId } from "~/lib/not-found";
 import {
@@ -119,8 +120,8 @@ export default function Assignments({ loaderData: d, actionData }: Route.Compone
         title={`Assignments — ${d.cycle.name}`}
         lead={
           <>
-            <StateBadge state={d.cycle.state} /> {d.proposals.length} proposals, {d.members.length} reviewers on the
-            committee. Conflicted reviewers are never offered.
+            <StateBadge state={d.cycle.state} /> {plural(d.proposals.length, "proposal")},{" "}
+            {plural(d.members.length, "reviewer")} on the committee. Conflicted reviewers are never offered.
           </>
         }
         back={{ to: href("/cycles/:cycleId", { cycleId: String(d.cycle.id) }), label: "Back to the cycle" }}

@@ -2,10 +2,7 @@
  * Counted nouns and the status line of the Sketchpad and the Triangle finder, in words. Pure.
  */
 
-/** "1 triangle", "3 triangles", "0 samples"; `many` for irregular plurals. */
-export function plural(n: number, one: string, many = `${one}s`): string {
-  return `${n} ${n === 1 ? one : many}`;
-}
+export { plural } from "~/lib/format";
 
 /** Seconds with two decimals, from milliseconds: 283.4 → "0.28 s". */
 export function seconds(ms: number): string {

@@ -4,10 +4,12 @@
  * change of hours redraws the allocation against the capacity. Rows without a saved decision start
  * from the suggested allocation. Allocated hours are spread over LST like the proposal's request.
  */
+
 import { useMemo, useState } from "react";
 import { Form, useNavigation } from "react-router";
 import { ConfirmDialog } from "~/components/committee/ConfirmDialog";
 import { Badge, Button, Card, FormErrors, SelectField } from "~/components/ui";
+import { plural } from "~/lib/format";
 import type { BoardPageData } from "~/services/committee/board-page.server";
 import { LstChart } from "./LstChart";
 
@@ -280,9 +282,9 @@ export function AllocationWorkbench({
             closeOn={answered}
           >
             <p>
-              Every PI and co-investigator of the {open.length} proposals under review gets the decision, the hours
-              granted and the reviewers' comments to the PI (without names). The proposals' statuses change and the
-              cycle closes. Saved decisions only: save your changes first.
+              Every PI and co-investigator of the {plural(open.length, "proposal")} under review gets the decision, the
+              hours granted and the reviewers' comments to the PI (without names). The proposals' statuses change and
+              the cycle closes. Saved decisions only: save your changes first.
             </p>
           </ConfirmDialog>
           {d.undecided > 0 ? (

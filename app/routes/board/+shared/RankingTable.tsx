@@ -3,9 +3,11 @@
  * chair shows names), mean, spread, normalized score, rank, disagreement, grade and suggestion; sortable,
  * filterable, exported as CSV with units.
  */
+
 import { useMemo, useState } from "react";
 import { href, Link } from "react-router";
 import { Badge, Card, type Column, DataTable, SelectField, TextField } from "~/components/ui";
+import { plural } from "~/lib/format";
 import type { BoardPageData } from "~/services/committee/board-page.server";
 
 type Row = BoardPageData["rows"][number];
@@ -169,7 +171,7 @@ export function RankingTable({
         </div>
       </search>
       <p className="mb-2 text-sm text-night-600" aria-live="polite">
-        {shown.length} of {rows.length} proposals shown.
+        {shown.length} of {plural(rows.length, "proposal")} shown.
       </p>
       <DataTable
         columns={columns}

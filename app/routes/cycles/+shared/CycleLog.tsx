@@ -1,5 +1,7 @@
 /** The audit log's entries about one cycle: transitions, assignments, conflicts, reviews, decisions. */
+
 import { Card } from "~/components/ui";
+import { plural } from "~/lib/format";
 
 const WORDS: Record<string, string> = {
   "cycle.open": "opened the cycle for proposals",
@@ -25,7 +27,7 @@ function detailText(e: Entry): string {
   const d = e.detail;
   if (typeof d.title === "string" && typeof d.decision === "string") return `“${d.title}”: ${d.decision}`;
   if (typeof d.added === "number") return `${d.added} assignment${d.added === 1 ? "" : "s"} (${String(d.mode ?? "")})`;
-  if (typeof d.proposalsUnderReview === "number") return `${d.proposalsUnderReview} proposals under review`;
+  if (typeof d.proposalsUnderReview === "number") return `${plural(d.proposalsUnderReview, "proposal")} under review`;
   if (typeof d.reviewDeadline === "string") return `until ${d.reviewDeadline.slice(0, 16).replace("T", " ")} UTC`;
   if (typeof d.triageAfter === "number") return `after position ${d.triageAfter}`;
   return "";
