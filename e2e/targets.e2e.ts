@@ -102,7 +102,22 @@ describe("My targets and cycles", () => {
     await page.getByLabel(/Submission deadline/).fill("2027-06-15T12:00");
     await page.getByLabel("First night").fill("2027-09-01");
     await page.getByLabel("Last night").fill("2028-02-28");
+    // Nothing is on offer until the chair ticks it; a ticked configuration needs its nights, at most the
+    // cycle's 181 (2027-09-01 … 2028-02-28, both counted).
+    await expect(page.getByRole("checkbox", { name: /^compact-3/ }).isChecked()).resolves.toBe(false);
+    await page.getByRole("checkbox", { name: /^compact-3/ }).check();
+    await page.getByRole("checkbox", { name: /^medium-4/ }).check();
     await page.getByLabel(/Nights for compact-3/).fill("30");
+    await page.getByRole("button", { name: "Create cycle" }).click();
+    await page.getByText("Nights: give the nights this configuration is on offer, or untick it").first().waitFor();
+    await expect(page.getByLabel(/Nights for compact-3/).inputValue()).resolves.toBe("30");
+    await page.getByLabel(/Nights for medium-4/).fill("200");
+    await page.getByRole("button", { name: "Create cycle" }).click();
+    await page
+      .getByText(/Nights: at most 181, the nights from the first to the last night/)
+      .first()
+      .waitFor();
+    await page.getByLabel(/Nights for medium-4/).fill("20");
     await page.getByRole("button", { name: "Create cycle" }).click();
     await page.getByText("Cycle Test 2027B created.").waitFor();
     await expect(page.getByText("compact-3 (30 nights)").first().isVisible()).resolves.toBe(true);

@@ -16,8 +16,8 @@ import {
 
 export type { CycleFormValues };
 
-/** A new cycle's form: everything empty, every configuration on offer. */
-export function blankCycleValues(configurationIds: number[]): CycleFormValues {
+/** A new cycle's form: everything empty, no configuration ticked (the chair picks what is on offer). */
+export function blankCycleValues(): CycleFormValues {
   return {
     name: "",
     description: "",
@@ -28,10 +28,41 @@ export function blankCycleValues(configurationIds: number[]): CycleFormValues {
     decisionDate: "",
     scoreBest: "1",
     scoreWorst: "5",
-    offered: configurationIds.map(String),
+    offered: [],
     nights: {},
     committee: [],
   };
+}
+
+/** Nights from the first to the last night of the cycle, both counted; null for dates not (yet) valid. */
+export function periodNights(observingStart: string, observingEnd: string): number | null {
+  const a = Date.parse(`${observingStart}T00:00:00Z`);
+  const b = Date.parse(`${observingEnd}T00:00:00Z`);
+  if (Number.isNaN(a) || Number.isNaN(b) || b < a) return null;
+  return Math.round((b - a) / 86_400_000) + 1;
+}
+
+/** The nights of the ticked offers against the period: each given, none and not all together above it. */
+function checkNights(offers: CycleInput["offers"], period: number | null, errors: FieldErrors) {
+  let total = 0;
+  for (const o of offers) {
+    const key = `nights-${o.configurationId}`;
+    if (errors[key]) continue;
+    if (o.nightsAvailable === null) {
+      errors[key] = "Nights: give the nights this configuration is on offer, or untick it";
+      continue;
+    }
+    total += o.nightsAvailable;
+    if (period !== null && o.nightsAvailable > period)
+      errors[key] = `Nights: at most ${period}, the nights from the first to the last night of the cycle`;
+  }
+  if (
+    period !== null &&
+    total > period &&
+    !errors.offered &&
+    !offers.some((o) => errors[`nights-${o.configurationId}`])
+  )
+    errors.offered = `Configurations: ${total} nights in all, more than the ${period} nights of the cycle (one configuration is installed at a time)`;
 }
 
 /** A stored cycle as form values: the deadlines as their UTC `datetime-local` values. */
@@ -127,6 +158,11 @@ export function parseCycleForm(
     offers.push({ configurationId: id, nightsAvailable: nights.success ? nights.output : null });
   }
   if (offers.length === 0 && !errors.offered) errors.offered = "Configurations: offer at least one configuration";
+  checkNights(
+    offers,
+    parsed.success ? periodNights(parsed.output.observingStart, parsed.output.observingEnd) : null,
+    errors,
+  );
   const committee = [...new Set(values.committee.map(Number))];
   if (committee.some((id) => !reviewerIds.includes(id)))
     errors.committee = "Committee: only people with the reviewer role can sit on the committee";

@@ -39,7 +39,7 @@ function cycleForm(over: Record<string, string | string[]> = {}) {
     scoreWorst: "5",
     offered: [String(configIds["compact-3"]), String(configIds["extended-6"])],
     [`nights-${configIds["compact-3"]}`]: "30",
-    [`nights-${configIds["extended-6"]}`]: "",
+    [`nights-${configIds["extended-6"]}`]: "20",
     ...over,
   };
 }
@@ -68,7 +68,7 @@ describe("cycles", () => {
     const b = list.cycles.find((c: { name: string }) => c.name === "T2031B");
     expect(b?.offers).toEqual([
       { name: "compact-3", nightsAvailable: 30 },
-      { name: "extended-6", nightsAvailable: null },
+      { name: "extended-6", nightsAvailable: 20 },
     ]);
   });
 
@@ -143,6 +143,7 @@ describe("cycles", () => {
     const form = { ...page.values, offered: [String(configIds["compact-3"])] } as Record<string, unknown>;
     const fields: Record<string, string | string[]> = {};
     for (const [k, val] of Object.entries(form)) if (k !== "nights") fields[k] = val as string | string[];
+    fields[`nights-${configIds["compact-3"]}`] = "30";
     const out = (await editAction(
       routeArgs(`/cycles/${cycle.id}/edit`, {
         ...formPost(fields, { Cookie: chair }),

@@ -187,6 +187,8 @@ describe("the cycle's page", () => {
       const out: Record<string, string | string[]> = {};
       for (const [k, val] of Object.entries({ ...page.values, ...over }))
         if (k !== "nights") out[k] = val as string | string[];
+      // The nights as the form posts them, one field per configuration.
+      for (const [id, nights] of Object.entries(page.values.nights)) out[`nights-${id}`] = nights;
       return out;
     };
     const scale = (await editAction(at(`${path()}/edit`, w.chair, fields({ scoreBest: "1", scoreWorst: "10" })))) as {

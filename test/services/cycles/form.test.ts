@@ -16,14 +16,14 @@ function typed(over: Partial<CycleFormValues> = {}): CycleFormValues {
     scoreBest: "1",
     scoreWorst: "5",
     offered: ["3", "7"],
-    nights: { 3: "30", 7: "" },
+    nights: { 3: "30", 7: "20" },
     committee: [],
     ...over,
   };
 }
 
 describe("the cycle form", () => {
-  it("reads the deadline as UTC, trims the name and keeps empty nights as not fixed", () => {
+  it("reads the deadline as UTC, trims the name and the nights of each ticked configuration", () => {
     const out = parseCycleForm(typed(), ids);
     expect(out).toEqual({
       ok: true,
@@ -40,7 +40,7 @@ describe("the cycle form", () => {
         committee: [],
         offers: [
           { configurationId: 3, nightsAvailable: 30 },
-          { configurationId: 7, nightsAvailable: null },
+          { configurationId: 7, nightsAvailable: 20 },
         ],
       },
     });
@@ -63,6 +63,26 @@ describe("the cycle form", () => {
     });
   });
 
+  it("wants the nights of each ticked configuration, none above the cycle's nights, nor all together", () => {
+    // 2027-09-01 … 2028-02-28: 30 + 31 + 30 + 31 + 31 + 28 = 181 nights, both ends counted.
+    const empty = parseCycleForm(typed({ nights: { 3: "30", 7: "" } }), ids);
+    expect(empty.ok ? {} : empty.errors).toEqual({
+      "nights-7": "Nights: give the nights this configuration is on offer, or untick it",
+    });
+    const long = parseCycleForm(typed({ nights: { 3: "182", 7: "10" } }), ids);
+    expect(long.ok ? {} : long.errors).toEqual({
+      "nights-3": "Nights: at most 181, the nights from the first to the last night of the cycle",
+    });
+    expect(parseCycleForm(typed({ nights: { 3: "181", 7: "0" } }), ids).ok).toBe(true);
+    const all = parseCycleForm(typed({ nights: { 3: "100", 7: "90" } }), ids);
+    expect(all.ok ? {} : all.errors).toEqual({
+      offered:
+        "Configurations: 190 nights in all, more than the 181 nights of the cycle (one configuration is installed at a time)",
+    });
+    // An unticked configuration's nights are not read.
+    expect(parseCycleForm(typed({ offered: ["3"], nights: { 3: "30", 7: "" } }), ids).ok).toBe(true);
+  });
+
   it("checks the order of the dates only once each date is readable", () => {
     const late = parseCycleForm(typed({ observingEnd: "2027-08-31", submissionDeadline: "2027-09-01T00:00" }), ids);
     expect(late.ok ? {} : late.errors).toEqual({
@@ -71,11 +91,11 @@ describe("the cycle form", () => {
     });
   });
 
-  it("shows a stored cycle as the values it was typed as, and a new one offering everything", () => {
+  it("shows a stored cycle as the values it was typed as, and a new one offering nothing yet", () => {
     const parsed = parseCycleForm(typed({ name: "2027B" }), ids);
     if (!parsed.ok) throw new Error("the form should parse");
     expect(valuesOfCycle(parsed.value)).toEqual(typed({ name: "2027B" }));
-    expect(blankCycleValues(ids)).toMatchObject({ name: "", offered: ["3", "7"], nights: {} });
+    expect(blankCycleValues()).toMatchObject({ name: "", offered: [], nights: {} });
   });
 
   it("reads the committee's dates, scale and members, and checks them against each other", () => {

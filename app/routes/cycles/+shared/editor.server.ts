@@ -37,9 +37,7 @@ export async function cycleEditorPage(db: Database, cycle: StoredCycle | null) {
     reviewerChoices(db),
     cycle ? committeeOf(db, { cycleId: cycle.id }) : Promise.resolve([]),
   ]);
-  const values = cycle
-    ? valuesOfCycle({ ...cycle, committee: committee.map((m) => m.id) })
-    : blankCycleValues(configurations.map((c) => c.id));
+  const values = cycle ? valuesOfCycle({ ...cycle, committee: committee.map((m) => m.id) }) : blankCycleValues();
   return { configurations, reviewers, values };
 }
 
