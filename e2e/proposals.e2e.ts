@@ -40,7 +40,7 @@ describe("proposals", () => {
     await text.getByLabel("Instrument and band").selectOption({ label: "Brasa — H (1.65 µm, limit 7.5 mag)" });
     await page
       .getByTestId("autosave-status")
-      .getByText(/^Saved \d{1,2}:\d{2}/)
+      .getByText(/^Saved \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC$/)
       .waitFor();
     await expect(page.getByText("19 / 300 words").isVisible()).resolves.toBe(true);
 

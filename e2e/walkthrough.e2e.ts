@@ -1,3 +1,5 @@
+import { readFileSync } from "node:fs";
+import Papa from "papaparse";
 import { describe, expect, inject, it } from "vitest";
 import { screenshot, signedInPage, useBrowser } from "./browser";
 
@@ -62,6 +64,41 @@ describe("walkthrough details", () => {
     expect(overlaps(box, nav)).toBe(false);
     expect(overlaps(box, heading)).toBe(false);
     await screenshot(page, "toast-position");
+    await context.close();
+  });
+
+  it("exports My proposals with the values the page shows, units and zone in the column names", async () => {
+    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", {
+      viewport: { width: 1366, height: 900 },
+    });
+    await page.goto(`${baseUrl}/proposals`);
+    const [file] = await Promise.all([
+      page.waitForEvent("download"),
+      page.getByRole("button", { name: "Export CSV" }).click(),
+    ]);
+    const csv = Papa.parse<Record<string, string>>(readFileSync((await file.path())!, "utf8"), {
+      header: true,
+      skipEmptyLines: true,
+    });
+    expect(csv.errors).toEqual([]);
+    expect(csv.meta.fields).toEqual(
+      expect.arrayContaining(["Deadline (UTC)", "Hours (h)", "Last change (UTC)", "Status", "Title"]),
+    );
+    const rows = page.locator("table tbody tr");
+    expect(csv.data.length).toBe(await rows.count());
+    for (const [i, row] of csv.data.entries()) {
+      const shown = ((await rows.nth(i).textContent()) ?? "").replace(/\s+/g, " ");
+      // A draft's deadline as the page shows it ("2027-… 12:00 UTC (in 44 days)"), a dash for the rest.
+      if (row["Deadline (UTC)"]) {
+        expect(row["Deadline (UTC)"]).toMatch(/^\d{4}-\d{2}-\d{2} \d{2}:\d{2}$/);
+        expect(shown).toContain(`${row["Deadline (UTC)"]} UTC`);
+      } else expect(shown).toContain("—");
+      expect(shown).toContain(row.Status);
+      expect(shown).toContain(row["Last change (UTC)"]);
+    }
+    expect(csv.data.some((r) => r["Deadline (UTC)"])).toBe(true);
+    await screenshot(page, "proposals-list");
+    expect(seen.errors).toEqual([]);
     await context.close();
   });
 });

@@ -69,16 +69,16 @@ const columns: Column<Row>[] = [
     render: (r) => <StatusBadge status={r.status} label={r.statusLabel} />,
   },
   {
+    // What the page shows is what the export carries: the deadline in UTC while the proposal can
+    // still be submitted (the countdown beside it on the page), nothing otherwise.
     key: "deadline",
     header: "Deadline",
-    value: (r) => (r.hoursLeft === null ? null : Math.round(r.hoursLeft * 10) / 10),
+    unit: "UTC",
+    value: (r) => (r.countdown ? shownUtc(r.deadline).replace(/ UTC$/, "") : null),
     render: (r) =>
       r.countdown ? (
-        <span
-          title={shownUtc(r.deadline)}
-          className={r.hoursLeft !== null && r.hoursLeft < 72 ? "font-semibold text-caution-700" : undefined}
-        >
-          {r.countdown}
+        <span className={r.hoursLeft !== null && r.hoursLeft < 72 ? "font-semibold text-caution-700" : undefined}>
+          {shownUtc(r.deadline)} <span className="whitespace-nowrap">({r.countdown})</span>
         </span>
       ) : (
         <span className="text-night-500">—</span>
@@ -87,7 +87,12 @@ const columns: Column<Row>[] = [
   { key: "targets", header: "Targets", align: "right", value: (r) => r.targets },
   { key: "hours", header: "Hours", unit: "h", align: "right", value: (r) => Math.round(r.hours * 10) / 10 },
   { key: "version", header: "Version", align: "right", value: (r) => (r.version > 0 ? r.version : null) },
-  { key: "updated", header: "Last change", value: (r) => r.updatedAt.slice(0, 16).replace("T", " ") },
+  {
+    key: "updated",
+    header: "Last change",
+    unit: "UTC",
+    value: (r) => r.updatedAt.slice(0, 16).replace("T", " "),
+  },
 ];
 
 export default function MyProposals({ loaderData }: Route.ComponentProps) {

@@ -77,7 +77,8 @@ export function DetailsCard(props: DetailsCardProps) {
   else if (autosaveErrors) status = "Not saved: fix the field marked below.";
   else if (dirty) status = "Unsaved changes";
   else if (fetcher.data?.savedAt)
-    status = `Saved ${new Date(fetcher.data.savedAt).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" })}`;
+    // The same clock as every other time of the app: UTC, 24-hour, the zone shown.
+    status = `Saved ${shownUtc(fetcher.data.savedAt)}`;
   else status = `Last change ${shownUtc(proposal.updatedAt)}`;
 
   if (!props.editable) {
