@@ -150,7 +150,8 @@ describe("array registry", () => {
     });
     await page.getByRole("button", { name: "Preview the import" }).click();
     const problems = page.getByRole("alert").filter({ hasText: "Nothing was imported" });
-    await problems.getByText("row 2, eastM: must be a number").waitFor();
+    // Line 3 of the file (the header is line 1).
+    await problems.getByText("row 3, eastM: must be a number").waitFor();
     await expect(page.getByRole("button", { name: /^Apply/ }).count()).resolves.toBe(0);
     await screenshot(page, "registry-import-errors");
     expect(await station("W25")).toMatchObject({ eastM: -60 });

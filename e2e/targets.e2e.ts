@@ -27,7 +27,7 @@ describe("My targets and cycles", () => {
     await page.setInputFiles("#file", broken);
     await page.getByRole("button", { name: "Check the list" }).click();
     await page.getByText("1 problem to fix — nothing has been imported.").waitFor();
-    const problems = page.getByRole("table", { name: "Problems by row" });
+    const problems = page.getByRole("table", { name: "Problems by line of the file" });
     await expect(problems.locator("tbody tr").first().textContent()).resolves.toMatch(/3\s*ra\s*Right ascension/);
     await screenshot(page, "targets-import-error");
 
@@ -40,7 +40,15 @@ describe("My targets and cycles", () => {
     await page.getByRole("button", { name: "Check the list" }).click();
     await page.getByRole("button", { name: "Import 2 targets" }).click();
     await page.getByText("Imported 2 new targets.").waitFor();
+    // The same list again: nothing to import, and the page says why.
+    await page.getByRole("link", { name: "Import CSV" }).click();
+    await page.setInputFiles("#file", good);
+    await page.getByRole("button", { name: "Check the list" }).click();
+    await page.getByText("All 2 already in your list, unchanged: nothing to import.").waitFor();
+    await expect(page.getByRole("button", { name: /^Import \d/ }).count()).resolves.toBe(0);
+    await page.getByRole("link", { name: "Back to My targets" }).click();
     const table = page.getByRole("table", { name: "My targets" });
+    await table.locator("tbody tr").first().waitFor();
     await expect(table.locator("tbody tr").count()).resolves.toBe(2);
     await expect(table.textContent()).resolves.toContain("uniform disk 2.4 mas");
     expect(seen.errors).toEqual([]);

@@ -5,7 +5,7 @@ import { redirectWithFlash } from "~/lib/flash.server";
 import { requirePermission } from "~/lib/guards.server";
 import { MAX_TARGET_CSV_BYTES, parseTargetCsv } from "~/services/targets/csv";
 import { starPosition } from "~/services/targets/star-names.server";
-import { importTargets, targetNames } from "~/services/targets/targets.server";
+import { importTargets, targetsByName } from "~/services/targets/targets.server";
 import { ListCard, PreviewCard } from "./+shared/ImportCards";
 import { previewOf } from "./+shared/preview";
 import { TargetsPage } from "./+shared/TargetsPage";
@@ -23,14 +23,14 @@ export async function action({ request, context }: Route.ActionArgs) {
   const upload = await readUpload(request);
   if (!upload.ok) return data({ preview: null, fileError: upload.message }, { status: 400 });
   const db = context.get(dbContext);
-  const existing = await targetNames(db, { ownerId: viewer.user.id });
+  const existing = await targetsByName(db, { ownerId: viewer.user.id });
   const result = parseTargetCsv(upload.csv, {
-    existingNames: existing,
+    existing,
     replaceExisting: upload.replace,
     resolveName: starPosition,
   });
-  if (upload.intent !== "import" || result.errors.length > 0) {
-    const preview = previewOf(upload, result, existing);
+  if (upload.intent !== "import" || result.errors.length > 0 || result.targets.length === 0) {
+    const preview = previewOf(upload, result, new Set(existing.keys()));
     return data({ preview, fileError: null }, { status: result.errors.length ? 400 : 200 });
   }
   // All rows are good: write them together, or not at all.

@@ -4,11 +4,11 @@
  * are ignored, so "East (m)" and "east_m" both name eastM, and "Station" names the name column.
  * All five columns are required and every cell must be filled (an upsert never guesses a value).
  * Other columns are ignored, and the preview lists them. Comma, semicolon or tab separated.
- * Blank lines are skipped but keep their number. A station name may appear only once in a file;
+ * Rows are numbered by the file's own lines (`readCsvRecords`), blank lines counted. A station name may appear only once in a file;
  * names are compared exactly, as the database does.
  */
-import Papa from "papaparse";
 import * as v from "valibot";
+import { isBlankRecord, readCsvRecords } from "~/lib/csv";
 import { STATION_COLUMNS, type StationColumn, type StationRecord, StationSchema } from "./schemas";
 import {
   type FileFormat,
@@ -65,24 +65,12 @@ function readHeader(header: string[]) {
   return { columnOf, ignored, errors };
 }
 
-/** The rows of the text, and the row (counted from the header) of each quote that is never closed. */
+/** The records of the text with their line numbers, the header's record, and each quote never closed. */
 function readRows(text: string) {
-  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ""), {
-    header: false,
-    skipEmptyLines: false,
-    delimitersToGuess: [",", ";", "\t"],
-  });
-  const rows = parsed.data;
-  const headerIndex = rows.findIndex((r) => r.some((c) => c.trim() !== ""));
-  const unclosed = parsed.errors
-    .filter((e) => e.code === "MissingQuotes")
-    .map((e) => ({
-      section: null,
-      row: typeof e.row === "number" ? e.row - headerIndex : null,
-      column: null,
-      message: "a quoted value is never closed",
-    }));
-  return { rows, headerIndex, unclosed };
+  const { records, errors } = readCsvRecords(text, { delimitersToGuess: [",", ";", "\t"] });
+  const headerIndex = records.findIndex((r) => !isBlankRecord(r));
+  const unclosed = errors.map((e) => ({ section: null, row: e.line, column: null, message: e.message }));
+  return { records, headerIndex, unclosed };
 }
 
 /** Stations from CSV text (see the rules at the top of this file). */
@@ -92,11 +80,11 @@ export function parseStationsCsv(text: string): ParsedStations {
     result.errors.push(...issues);
     return result;
   };
-  const { rows, headerIndex, unclosed } = readRows(text);
+  const { records, headerIndex, unclosed } = readRows(text);
   if (headerIndex < 0) return refuse(fileIssue("The file is empty."));
   if (unclosed.length > 0) return refuse(...unclosed);
 
-  const header = rows[headerIndex];
+  const header = records[headerIndex].cells;
   const { columnOf, ignored, errors } = readHeader(header);
   if (ignored.length > 0)
     result.notices.push(
@@ -104,10 +92,10 @@ export function parseStationsCsv(text: string): ParsedStations {
     );
   if (errors.length > 0) return refuse(...errors);
 
-  const filled = rows
+  const filled = records
     .slice(headerIndex + 1)
-    .map((cells, i) => ({ cells, row: i + 1 }))
-    .filter(({ cells }) => cells.some((c) => c.trim() !== ""));
+    .filter((r) => !isBlankRecord(r))
+    .map(({ cells, line }) => ({ cells, row: line }));
   if (filled.length === 0) return refuse(fileIssue("The file has a header row but no stations under it."));
   const tooMany = tooManyStations(filled.length);
   if (tooMany) return refuse(tooMany);

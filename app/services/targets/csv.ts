@@ -11,107 +11,138 @@
  *   mag_<band>                    magnitude in a band, e.g. mag_H, mag_K, mag_N
  *   notes                         free text
  *
- * Column names are case-insensitive; unknown columns are reported as a warning and ignored. Row numbers
- * in messages count as a spreadsheet does: the header is row 1.
+ * Column names are case-insensitive; unknown columns are reported as a warning and ignored. Rows are
+ * numbered by the file's own lines (the header on line 1 when nothing comes before it).
  */
-import Papa from "papaparse";
-import { toCsv } from "~/lib/csv";
+import { isBlankRecord, readCsvRecords, toCsv } from "~/lib/csv";
 import { modelCells, readTargetCells, type StarPositionResolver } from "./cells";
 import { MAG_COLUMN, magColumn, type RowError, type StoredTarget, TARGET_COLUMNS, type TargetValues } from "./schemas";
 
 export type ImportedTarget = TargetValues & { row: number };
 export type { RowError };
-export type TargetCsvResult = { targets: ImportedTarget[]; errors: RowError[]; warnings: string[] };
+export type TargetCsvResult = {
+  targets: ImportedTarget[];
+  errors: RowError[];
+  warnings: string[];
+  /** Rows identical to a target already in the list: nothing to write for them. */
+  unchanged: number;
+};
 
 /** Largest CSV accepted, bytes, and most rows. */
 export const MAX_TARGET_CSV_BYTES = 512 * 1024;
 export const MAX_TARGET_ROWS = 500;
 
+const near = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b));
+
+/** Whether a row read from a file says exactly what the stored target says. */
+export function sameTarget(a: TargetValues, b: StoredTarget): boolean {
+  const ma = Object.entries(a.magnitudes).sort();
+  const mb = Object.entries(b.magnitudes ?? {}).sort();
+  return (
+    near(a.raDeg, b.raDeg) &&
+    near(a.decDeg, b.decDeg) &&
+    JSON.stringify(a.model) === JSON.stringify(b.model) &&
+    ma.length === mb.length &&
+    ma.every(([band, m], i) => mb[i][0] === band && near(m, mb[i][1])) &&
+    (a.notes ?? "") === (b.notes ?? "")
+  );
+}
+
+/** One problem per line, the first found, in the order of the file. */
+function firstPerLine(errors: RowError[]): RowError[] {
+  const byLine = new Map<number, RowError>();
+  for (const e of errors) if (!byLine.has(e.row)) byLine.set(e.row, e);
+  return [...byLine.values()].sort((a, b) => a.row - b.row);
+}
+
 /**
- * Parses and checks a CSV target list. `existingNames` (lower case) are names already in the
- * person's list: reported per row unless `replaceExisting` is set.
+ * Parses and checks a CSV target list. Rows and problems carry the file's own line numbers
+ * (`readCsvRecords`), one problem per line, in order, naming columns as the file's header writes them.
+ * `existing` are the person's stored targets by lower-case name: a row identical to one is counted as
+ * unchanged and skipped; a different row of the same name is reported unless `replaceExisting` is set.
  */
 export function parseTargetCsv(
   text: string,
-  options: { existingNames?: Set<string>; replaceExisting?: boolean; resolveName?: StarPositionResolver } = {},
+  options: { existing?: Map<string, StoredTarget>; replaceExisting?: boolean; resolveName?: StarPositionResolver } = {},
 ): TargetCsvResult {
   const errors: RowError[] = [];
   const warnings: string[] = [];
-  if (text.trim() === "")
-    return { targets: [], errors: [{ row: 1, column: "file", message: "the file is empty" }], warnings };
-  if (new TextEncoder().encode(text).length > MAX_TARGET_CSV_BYTES) {
-    return {
-      targets: [],
-      errors: [{ row: 1, column: "file", message: `the file is larger than ${MAX_TARGET_CSV_BYTES / 1024} KB` }],
-      warnings,
-    };
-  }
-  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ""), {
-    header: true,
-    skipEmptyLines: "greedy",
-    transformHeader: (h) => h.trim().toLowerCase(),
+  const refuse = (row: number, column: string, message: string): TargetCsvResult => ({
+    targets: [],
+    errors: [{ row, column, message }],
+    warnings,
+    unchanged: 0,
   });
-  const header = parsed.meta.fields ?? [];
+  if (text.trim() === "") return refuse(1, "file", "the file is empty");
+  if (new TextEncoder().encode(text).length > MAX_TARGET_CSV_BYTES)
+    return refuse(1, "file", `the file is larger than ${MAX_TARGET_CSV_BYTES / 1024} KB`);
+  const read = readCsvRecords(text);
+  const filled = read.records.filter((r) => !isBlankRecord(r));
+  const headerRecord = filled[0];
+  if (!headerRecord) return refuse(1, "file", "the file is empty");
+  const written = headerRecord.cells.map((h) => h.trim());
+  const header = written.map((h) => h.toLowerCase());
+  /** A column as the file's header writes it ("mag_H", not "mag_h"). */
+  const asWritten = (column: string) => written[header.indexOf(column)] ?? column;
   // With the star catalogue, a list may give names alone (no ra and dec columns at all).
   const byNameOnly = options.resolveName && !header.includes("ra") && !header.includes("dec");
   const missing = (byNameOnly ? ["name"] : ["name", "ra", "dec"]).filter((c) => !header.includes(c));
   if (missing.length) {
-    return {
-      targets: [],
-      errors: [
-        {
-          row: 1,
-          column: missing.join(", "),
-          message: `missing column${missing.length > 1 ? "s" : ""} ${missing.join(", ")} (the header needs name, ra, dec)`,
-        },
-      ],
-      warnings,
-    };
+    const message = `missing column${missing.length > 1 ? "s" : ""} ${missing.join(", ")} (the header needs name, ra, dec)`;
+    return refuse(headerRecord.line, missing.join(", "), message);
   }
   const known = new Set<string>(TARGET_COLUMNS);
-  const unknown = header.filter((h) => !known.has(h) && !MAG_COLUMN.test(h));
+  const unknown = written.filter((_, i) => !known.has(header[i]) && !MAG_COLUMN.test(header[i]));
   if (unknown.length) warnings.push(`ignored column${unknown.length > 1 ? "s" : ""}: ${unknown.join(", ")}`);
-  for (const e of parsed.errors) {
-    if (e.type === "FieldMismatch" && e.code === "TooFewFields") continue; // short rows: missing cells are reported below
-    errors.push({ row: (e.row ?? 0) + 2, column: "line", message: e.message });
-  }
-  if (parsed.data.length > MAX_TARGET_ROWS) {
-    return {
-      targets: [],
-      errors: [{ row: 1, column: "file", message: `more than ${MAX_TARGET_ROWS} targets; split the list` }],
-      warnings,
-    };
-  }
+  for (const e of read.errors) errors.push({ row: e.line, column: "line", message: e.message });
+  const rows = filled.slice(1);
+  if (rows.length > MAX_TARGET_ROWS) return refuse(1, "file", `more than ${MAX_TARGET_ROWS} targets; split the list`);
   const targets: ImportedTarget[] = [];
   const seen = new Map<string, number>();
   const magColumns = header.filter((h) => MAG_COLUMN.test(h));
-  parsed.data.forEach((cells, i) => {
-    const row = i + 2;
-    const read = readTargetCells(cells, magColumns, row, options.resolveName);
-    errors.push(...read.errors);
-    if (read.resolved) warnings.push(`row ${row}: coordinates of ${read.resolved.star} from the star catalogue`);
+  let unchanged = 0;
+  for (const record of rows) {
+    const row = record.line;
+    if (record.cells.length > header.length && record.cells.slice(header.length).some((c) => c.trim() !== "")) {
+      const message = `${record.cells.length} values, but the header names ${header.length} columns`;
+      errors.push({ row, column: "line", message });
+      continue;
+    }
+    const cells = Object.fromEntries(header.map((h, i) => [h, (record.cells[i] ?? "").trim()]));
+    const checked = readTargetCells(cells, magColumns, row, options.resolveName);
+    errors.push(...checked.errors.map((e) => ({ ...e, column: asWritten(e.column) })));
+    if (checked.resolved) warnings.push(`line ${row}: coordinates of ${checked.resolved.star} from the star catalogue`);
     const name = (cells.name ?? "").trim();
     const key = name.toLowerCase();
     let clash = false;
     if (name) {
       if (seen.has(key)) {
-        errors.push({ row, column: "name", message: `"${name}" appears twice (also row ${seen.get(key)})` });
-        clash = true;
-      } else seen.set(key, row);
-      if (options.existingNames?.has(key) && !options.replaceExisting) {
         errors.push({
           row,
-          column: "name",
-          message: `"${name}" is already in My targets (tick "replace" to update it)`,
+          column: asWritten("name"),
+          message: `"${name}" appears twice (also line ${seen.get(key)})`,
+        });
+        clash = true;
+      } else seen.set(key, row);
+      const stored = options.existing?.get(key);
+      if (!clash && stored && checked.target && sameTarget(checked.target, stored)) {
+        unchanged++;
+        continue;
+      }
+      if (stored && !options.replaceExisting) {
+        errors.push({
+          row,
+          column: asWritten("name"),
+          message: `"${name}" is already in My targets with other values (tick "replace" to update it)`,
         });
         clash = true;
       }
     }
-    if (read.target && !clash) targets.push({ row, ...read.target });
-  });
-  if (parsed.data.length === 0 && errors.length === 0)
-    errors.push({ row: 2, column: "file", message: "the file has a header but no targets" });
-  return { targets, errors, warnings };
+    if (checked.target && !clash) targets.push({ row, ...checked.target });
+  }
+  if (rows.length === 0 && errors.length === 0)
+    errors.push({ row: headerRecord.line + 1, column: "file", message: "the file has a header but no targets" });
+  return { targets, errors: firstPerLine(errors), warnings, unchanged };
 }
 
 /** The CSV of a target list, in the same columns `parseTargetCsv` reads. */

@@ -30,10 +30,20 @@ export async function nameTaken(
   return rows.some((r) => r.id !== exceptId);
 }
 
-/** Lower-case names of the owner's targets, for the import's duplicate check. */
-export async function targetNames(db: Database, { ownerId }: { ownerId: number }) {
-  const rows = await db.select({ name: targets.name }).from(targets).where(eq(targets.ownerId, ownerId));
-  return new Set(rows.map((r) => r.name.toLowerCase()));
+/** The owner's targets by lower-case name, for the import's check of names already in the list. */
+export async function targetsByName(db: Database, { ownerId }: { ownerId: number }) {
+  const rows = await db
+    .select({
+      name: targets.name,
+      raDeg: targets.raDeg,
+      decDeg: targets.decDeg,
+      model: targets.model,
+      magnitudes: targets.magnitudes,
+      notes: targets.notes,
+    })
+    .from(targets)
+    .where(eq(targets.ownerId, ownerId));
+  return new Map(rows.map((r) => [r.name.toLowerCase(), r]));
 }
 
 /** Band names of all instruments, for the magnitude columns of forms and exports. */

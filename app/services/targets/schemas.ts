@@ -77,5 +77,5 @@ export type StoredTarget = Pick<
   "name" | "raDeg" | "decDeg" | "model" | "magnitudes" | "notes"
 >;
 
-/** A problem with one cell: `row` counts as a spreadsheet does (header = 1); 0 for a form. */
+/** A problem with one cell: `row` is the line of the file (`readCsvRecords`); 0 for a form. */
 export type RowError = { row: number; column: string; message: string };

@@ -3,4 +3,4 @@
  * Queries and commands live in queries.server.ts and commands.server.ts.
  */
 export { createTarget, deleteTarget, importTargets, updateTarget } from "./commands.server";
-export { bandNames, getTarget, listTargets, nameTaken, targetNames } from "./queries.server";
+export { bandNames, getTarget, listTargets, nameTaken, targetsByName } from "./queries.server";

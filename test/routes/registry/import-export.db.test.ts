@@ -75,7 +75,8 @@ describe("import", () => {
               content: text,
             });
       expect(out.status).toBe(400);
-      expect(out.data.errors).toEqual(["row 2, eastM: must be a number"]);
+      // B2 is on line 3 of the file (the header on line 1).
+      expect(out.data.errors).toEqual(["row 3, eastM: must be a number"]);
       expect(out.data.content).toBeNull();
     }
     expect(await stationByName(site.id, "B3")).toBeNull();

@@ -145,7 +145,7 @@ describe("My targets", () => {
     );
     const preview = await postImport({ intent: "preview", csv });
     expect(preview.data.preview.errors.map((e) => e.message)).toEqual([
-      '"Lumbre Nova 12" is already in My targets (tick "replace" to update it)',
+      '"Lumbre Nova 12" is already in My targets with other values (tick "replace" to update it)',
     ]);
     expect(await mine()).toHaveLength(1);
     const withReplace = await postImport({ intent: "preview", csv, replace: "on" });

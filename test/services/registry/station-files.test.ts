@@ -13,21 +13,21 @@ X01,32.161,105.194,1.2,14.5
 `;
 
 describe("station CSV", () => {
-  it("reads a good file, rows counted from the first row under the header", () => {
+  it("reads a good file, rows numbered by the lines of the file (the header on line 1)", () => {
     const out = parseStationsCsv(GOOD_CSV);
     expect(out.errors).toEqual([]);
     expect(out.notices).toEqual([]);
     expect(out.stations).toEqual([
-      { row: 1, name: "C01", eastM: -16, northM: -27.713, upM: 0.16, pathOffsetM: 15.9 },
-      { row: 2, name: "C02", eastM: 0, northM: -27.713, upM: 0.32, pathOffsetM: 1.2 },
-      { row: 3, name: "X01", eastM: 32.161, northM: 105.194, upM: 1.2, pathOffsetM: 14.5 },
+      { row: 2, name: "C01", eastM: -16, northM: -27.713, upM: 0.16, pathOffsetM: 15.9 },
+      { row: 3, name: "C02", eastM: 0, northM: -27.713, upM: 0.32, pathOffsetM: 1.2 },
+      { row: 4, name: "X01", eastM: 32.161, northM: 105.194, upM: 1.2, pathOffsetM: 14.5 },
     ]);
   });
 
   it("takes columns in any order, headers with units in brackets, semicolons and a byte-order mark", () => {
     const out = parseStationsCsv("\uFEFFPath offset (m);Station;North (m);east_m;UP M\r\n1.5;W7;10;-3;0.25\r\n");
     expect(out.errors).toEqual([]);
-    expect(out.stations).toEqual([{ row: 1, name: "W7", eastM: -3, northM: 10, upM: 0.25, pathOffsetM: 1.5 }]);
+    expect(out.stations).toEqual([{ row: 2, name: "W7", eastM: -3, northM: 10, upM: 0.25, pathOffsetM: 1.5 }]);
   });
 
   it("names the missing column", () => {
@@ -47,25 +47,25 @@ C04,abc,5,0,0
 C05,"5,5",6,0,0
 `);
     expect(texts(out.errors)).toEqual([
-      "row 4, eastM: must be a number",
-      "row 5, eastM: must be a number with a point for decimals (5.5, not 5,5)",
+      "row 5, eastM: must be a number",
+      "row 6, eastM: must be a number with a point for decimals (5.5, not 5,5)",
     ]);
   });
 
   it("reports every bad cell of a row, empty cells as required, and out-of-range values with the range", () => {
     const out = parseStationsCsv("name,eastM,northM,upM,pathOffsetM\n,1e6,,2000,x\n");
     expect(texts(out.errors)).toEqual([
-      "row 1, name: is required",
-      "row 1, eastM: must be between -20000 and 20000 m",
-      "row 1, northM: is required",
-      "row 1, upM: must be between -1000 and 1000 m",
-      "row 1, pathOffsetM: must be a number",
+      "row 2, name: is required",
+      "row 2, eastM: must be between -20000 and 20000 m",
+      "row 2, northM: is required",
+      "row 2, upM: must be between -1000 and 1000 m",
+      "row 2, pathOffsetM: must be a number",
     ]);
   });
 
   it("refuses a station name twice in one file, naming both rows", () => {
     const out = parseStationsCsv("name,eastM,northM,upM,pathOffsetM\nC01,0,0,0,0\nC02,1,0,0,0\nC01,2,0,0,0\n");
-    expect(texts(out.errors)).toEqual(["row 3, name: C01 is already on row 1; a station may appear only once"]);
+    expect(texts(out.errors)).toEqual(["row 4, name: C01 is already on row 2; a station may appear only once"]);
   });
 
   it("ignores extra columns and says which", () => {
@@ -77,18 +77,18 @@ C05,"5,5",6,0,0
     expect(out.notices).toEqual(["Not used and ignored: the columns “Distance from centre (m)”, “notes”."]);
   });
 
-  it("skips blank lines but keeps their row numbers", () => {
+  it("skips blank lines but counts them in the line numbers", () => {
     const out = parseStationsCsv("name,eastM,northM,upM,pathOffsetM\nC01,0,0,0,0\n\n,,,,\nC02,x,0,0,0\n");
-    expect(texts(out.errors)).toEqual(["row 4, eastM: must be a number"]);
+    expect(texts(out.errors)).toEqual(["row 5, eastM: must be a number"]);
   });
 
   it("refuses a row with too few or too many values, an unclosed quote, a header without rows, an empty file", () => {
     expect(texts(parseStationsCsv("name,eastM,northM,upM,pathOffsetM\nC01,0,0\nC02,0,0,0,0,9\n").errors)).toEqual([
-      "row 1: has 3 values but the header has 5 columns",
-      "row 2: has 6 values but the header has 5 columns",
+      "row 2: has 3 values but the header has 5 columns",
+      "row 3: has 6 values but the header has 5 columns",
     ]);
     expect(texts(parseStationsCsv('name,eastM,northM,upM,pathOffsetM\n"C01,0,0,0,0\n').errors)).toEqual([
-      "row 1: a quoted value is never closed",
+      "row 2: a quoted value is never closed",
     ]);
     expect(texts(parseStationsCsv("name,eastM,northM,upM,pathOffsetM\n").errors)).toEqual([
       "The file has a header row but no stations under it.",
@@ -99,8 +99,8 @@ C05,"5,5",6,0,0
   it("refuses names that would break a configuration's station list", () => {
     const out = parseStationsCsv("name,eastM,northM,upM,pathOffsetM\nC 01,0,0,0,0\n=cmd,0,0,0,0\n");
     expect(texts(out.errors)).toEqual([
-      "row 1, name: must start with a letter or digit and use only letters, digits, '.', '_' or '-'",
       "row 2, name: must start with a letter or digit and use only letters, digits, '.', '_' or '-'",
+      "row 3, name: must start with a letter or digit and use only letters, digits, '.', '_' or '-'",
     ]);
   });
 });

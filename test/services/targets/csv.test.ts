@@ -1,5 +1,17 @@
 import { describe, expect, it } from "vitest";
 import { parseTargetCsv, targetsToCsv } from "~/services/targets/csv";
+import type { StoredTarget } from "~/services/targets/schemas";
+
+/** A stored target with the values a test names (a point at 05h, −10° by default). */
+const stored = (t: Partial<StoredTarget>): StoredTarget => ({
+  name: "T",
+  raDeg: 75,
+  decDeg: -10,
+  model: { type: "point" },
+  magnitudes: {},
+  notes: "",
+  ...t,
+});
 
 const header =
   "name,ra,dec,model,size_mas,ld_coefficient,separation_mas,position_angle_deg,flux_ratio,mag_H,mag_K,notes";
@@ -48,11 +60,50 @@ describe("target list CSV", () => {
     const csv = [header, "Twin,05:00:00,-10,,,,,,,,,", "twin,06:00:00,-10,,,,,,,,,", "Old,07:00:00,-10,,,,,,,,,"].join(
       "\n",
     );
-    const out = parseTargetCsv(csv, { existingNames: new Set(["old"]) });
+    // "Old" is in the list already, elsewhere in the sky: a clash unless the list is to be replaced.
+    const existing = new Map([["old", stored({ name: "Old", raDeg: 100 })]]);
+    const out = parseTargetCsv(csv, { existing });
     expect(out.errors.map((e) => `${e.row}:${e.column}`)).toEqual(["3:name", "4:name"]);
-    expect(out.errors[0].message).toBe('"twin" appears twice (also row 2)');
-    const replacing = parseTargetCsv(csv, { existingNames: new Set(["old"]), replaceExisting: true });
+    expect(out.errors[0].message).toBe('"twin" appears twice (also line 2)');
+    const replacing = parseTargetCsv(csv, { existing, replaceExisting: true });
     expect(replacing.errors.map((e) => e.row)).toEqual([3]);
+  });
+
+  it("numbers rows by the file's own lines: blank lines and quoted line breaks counted", () => {
+    const csv = [
+      header,
+      "",
+      'Quoted,05:00:00,-10,,,,,,,,,"a note',
+      'on two lines"',
+      "",
+      "Bad,25:00:00,-10,,,,,,,,,",
+    ].join("\n");
+    const out = parseTargetCsv(csv);
+    expect(out.targets.map((t) => [t.name, t.row])).toEqual([["Quoted", 3]]);
+    // The bad row is on line 6 of the file: what an editor shows.
+    expect(out.errors.map((e) => e.row)).toEqual([6]);
+  });
+
+  it("reports one problem per line, in the order of the file, with the header's own column names", () => {
+    const csv = ["name,RA,Dec,model,size_mas,mag_H", "Late,05:00:00,-10,uniformDisk,,x", "Early,25:00:00,-99,,,"].join(
+      "\n",
+    );
+    const out = parseTargetCsv(csv);
+    expect(out.errors.map((e) => `${e.row}:${e.column}`)).toEqual(["2:size_mas", "3:RA"]);
+    const mags = parseTargetCsv("name,ra,dec,mag_H\nA,05:00:00,-10,bright");
+    expect(mags.errors).toEqual([expect.objectContaining({ row: 2, column: "mag_H" })]);
+  });
+
+  it("counts rows identical to targets in the list as unchanged, and writes nothing for them", () => {
+    const csv = [header, "Same,05:00:00,-10:00:00,uniformDisk,3,,,,,4.2,,", "New,06:00:00,-10,,,,,,,,,"].join("\n");
+    const first = parseTargetCsv(csv);
+    const existing = new Map(first.targets.map((t) => [t.name.toLowerCase(), stored(t)]));
+    const again = parseTargetCsv(csv, { existing });
+    expect(again).toMatchObject({ errors: [], targets: [], unchanged: 2 });
+    // One changed row: that one is a clash, the identical one stays unchanged.
+    const changed = parseTargetCsv(csv.replace("4.2", "4.3"), { existing });
+    expect(changed.unchanged).toBe(1);
+    expect(changed.errors.map((e) => e.row)).toEqual([2]);
   });
 
   it("asks for the model's parameters and checks their ranges", () => {

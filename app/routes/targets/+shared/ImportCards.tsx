@@ -1,6 +1,7 @@
 import { Form } from "react-router";
 import { Badge, Button, Card, DataTable } from "~/components/ui";
 import { FieldList, type FieldSpec, GroupError } from "~/components/ui/FieldList";
+import { plural } from "~/lib/format";
 import type { RowError } from "~/services/targets/csv";
 import { coordinateColumns } from "./columns";
 import type { Preview, PreviewRow } from "./preview";
@@ -73,7 +74,7 @@ type Table<Row> = Omit<Parameters<typeof DataTable<Row>>[0], "rows">;
 const previewTable: Table<PreviewRow> = {
   caption: "Targets read from the list",
   columns: [
-    { key: "row", header: "Row", align: "right", value: (r) => r.row },
+    { key: "row", header: "Line", align: "right", value: (r) => r.row },
     { key: "name", header: "Name", value: (r) => r.name },
     ...coordinateColumns<PreviewRow>(),
     { key: "model", header: "Model", value: (r) => r.model },
@@ -86,20 +87,18 @@ const previewTable: Table<PreviewRow> = {
     },
   ],
   rowKey: (r) => r.row,
-  empty: "No row could be read.",
+  empty: "No target to import.",
 };
 
 const problemTable: Table<RowError> = {
-  caption: "Problems by row",
+  caption: "Problems by line of the file",
   columns: [
-    { key: "row", header: "Row", align: "right", value: (e) => e.row },
+    { key: "row", header: "Line", align: "right", value: (e) => e.row },
     { key: "column", header: "Column", value: (e) => e.column },
     { key: "message", header: "Problem", value: (e) => e.message },
   ],
   rowKey: (e) => `${e.row}-${e.column}-${e.message}`,
 };
-
-const plural = (n: number, noun: string) => `${n} ${noun}${n === 1 ? "" : "s"}`;
 
 /** Step 2: what the list would change, its problems, and the button that imports a clean list. */
 export function PreviewCard({ preview, busy }: { preview: Preview; busy: boolean }) {
@@ -118,6 +117,13 @@ export function PreviewCard({ preview, busy }: { preview: Preview; busy: boolean
           </p>
           <DataTable {...problemTable} rows={preview.errors} />
         </div>
+      ) : null}
+      {preview.unchanged > 0 ? (
+        <p role="status" className="mb-2 text-sm text-night-700">
+          {preview.rows.length === 0 && problems === 0
+            ? `All ${preview.unchanged} already in your list, unchanged: nothing to import.`
+            : `${plural(preview.unchanged, "row")} already in your list, unchanged: left as they are.`}
+        </p>
       ) : null}
       <DataTable {...previewTable} rows={preview.rows} />
       {problems === 0 && preview.rows.length > 0 ? (

@@ -14,7 +14,15 @@ export type PreviewRow = {
 };
 
 /** The checked list, with the text it came from so that the import can post it again. */
-export type Preview = { csv: string; replace: boolean; rows: PreviewRow[]; errors: RowError[]; warnings: string[] };
+export type Preview = {
+  csv: string;
+  replace: boolean;
+  rows: PreviewRow[];
+  errors: RowError[];
+  warnings: string[];
+  /** Rows identical to targets already in the list (nothing to write for them). */
+  unchanged: number;
+};
 
 /** The preview of a parsed list; `existing` are the lower-case names already in My targets. */
 export function previewOf(
@@ -34,5 +42,5 @@ export function previewOf(
       change: existing.has(t.name.toLowerCase()) ? "update" : "new",
     }),
   );
-  return { csv, replace, rows, errors: result.errors, warnings: result.warnings };
+  return { csv, replace, rows, errors: result.errors, warnings: result.warnings, unchanged: result.unchanged };
 }

@@ -107,7 +107,10 @@ export function ChooseFileCard({
             Stations, configurations, instruments and bands are matched by name: new ones are added, changed ones
             updated.
           </li>
-          <li>Rows count from 1 at the first row under the header. Up to {MAX_IMPORT_STATIONS} stations at once.</li>
+          <li>
+            A CSV row is named by its line in the file (the header on line 1); a JSON item by its place in its list. Up
+            to {MAX_IMPORT_STATIONS} stations at once.
+          </li>
           <li>One error anywhere and nothing is written.</li>
         </ul>
       </details>
