@@ -3,19 +3,31 @@ import { Badge, type BadgeTone } from "~/components/ui";
 import type { ProposalStatus } from "~/db/schema/proposals";
 import type { Verdict } from "~/services/proposals/feasibility";
 
-const STATUS_TONE: Record<ProposalStatus, BadgeTone> = {
-  draft: "neutral",
-  submitted: "info",
-  under_review: "accent",
-  accepted: "ok",
-  waitlisted: "caution",
-  declined: "danger",
-  scheduled: "ok",
-  withdrawn: "neutral",
+/**
+ * Each status its own colour and mark, so no two look alike even without colour (a reader who does not
+ * tell orange from red still tells ◔ from ✕): the mark is decoration, the label says it in words.
+ */
+export const STATUS_STYLE: Record<ProposalStatus, { tone: BadgeTone; mark: string }> = {
+  draft: { tone: "neutral", mark: "✎" },
+  submitted: { tone: "info", mark: "↑" },
+  under_review: { tone: "accent", mark: "◔" },
+  accepted: { tone: "ok", mark: "✓" },
+  waitlisted: { tone: "caution", mark: "…" },
+  declined: { tone: "danger", mark: "✕" },
+  scheduled: { tone: "ok", mark: "★" },
+  withdrawn: { tone: "neutral", mark: "↩" },
 };
 
 export function StatusBadge({ status, label }: { status: ProposalStatus; label: string }) {
-  return <Badge tone={STATUS_TONE[status]}>{label}</Badge>;
+  const style = STATUS_STYLE[status];
+  return (
+    <Badge tone={style.tone}>
+      <span aria-hidden="true" className="mr-1 font-semibold">
+        {style.mark}
+      </span>
+      <span>{label}</span>
+    </Badge>
+  );
 }
 
 const VERDICT: Record<Verdict, { tone: BadgeTone; label: string; mark: string }> = {
