@@ -116,6 +116,11 @@ describe("My targets and cycles", () => {
     await page.getByRole("checkbox", { name: /^compact-3/ }).check();
     await page.getByRole("checkbox", { name: /^medium-4/ }).check();
     await page.getByLabel(/Nights for compact-3/).fill("30");
+    // Each "Nights for …" label on one line, the configuration's name unbroken at its hyphen.
+    for (const label of await page.locator("label", { hasText: /^Nights for / }).all()) {
+      const box = await label.boundingBox();
+      expect(box?.height ?? 0).toBeLessThan(30);
+    }
     await page.getByRole("button", { name: "Create cycle" }).click();
     await page.getByText("Nights: give the nights this configuration is on offer, or untick it").first().waitFor();
     await expect(page.getByLabel(/Nights for compact-3/).inputValue()).resolves.toBe("30");

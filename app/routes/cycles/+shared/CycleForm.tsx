@@ -75,7 +75,8 @@ function OfferRow({
           <span className="block text-sm text-night-600">{choice.description}</span>
         </span>
       </label>
-      <div className="w-44">
+      {/* Wide enough for "Nights for extended-6 (nights)" on one line: a name never breaks at its hyphen. */}
+      <div className="w-full sm:w-64">
         <TextField
           label={`Nights for ${choice.name}`}
           name={nights}
