@@ -3,6 +3,9 @@
  * configuration's baselines and stations in its colour, a ringed station and a position as typed.
  * East and north in metres; pure, so the map component only chooses what to show.
  */
+import { LABEL_SPACING_PX } from "~/components/plots/station-spacing";
+
+export { extent, LABEL_SPACING_PX, nearestDistances } from "~/components/plots/station-spacing";
 
 export type MapStation = { name: string; eastM: number; northM: number };
 export type MapConfiguration = { name: string; stationNames: string[] };
@@ -11,29 +14,7 @@ export type MapPoint = { eastM: number; northM: number };
 const STATION_GREY = "#56637f";
 const FOCUS_COLOUR = "#a03611";
 const PREVIEW_COLOUR = "#0f6f73";
-/** A station's name is drawn when the nearest other station is at least this far away on screen, pixels. */
-export const LABEL_SPACING_PX = 24;
 const AT = "east %{x:.2f} m<br>north %{y:.2f} m";
-
-/** For each station, the ground distance to its nearest neighbour, metres (Infinity when alone). */
-export function nearestDistances(stations: MapStation[]): number[] {
-  return stations.map((s, i) => {
-    let best = Infinity;
-    stations.forEach((o, j) => {
-      if (i !== j) best = Math.min(best, Math.hypot(s.eastM - o.eastM, s.northM - o.northM));
-    });
-    return best;
-  });
-}
-
-/** The larger of the east–west and north–south spans, metres; at least 20 (100 for no stations). */
-export function extent(stations: MapStation[]): number {
-  if (stations.length === 0) return 100;
-  const es = stations.map((s) => s.eastM);
-  const ns = stations.map((s) => s.northM);
-  return Math.max(Math.max(...es) - Math.min(...es), Math.max(...ns) - Math.min(...ns), 20);
-}
-
 export type Baseline = { a: string; b: string; lengthM: number };
 
 /** Ground baselines (east and north only) of a station list, shortest first. */

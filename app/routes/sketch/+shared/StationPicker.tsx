@@ -5,6 +5,7 @@
  */
 import { useMemo } from "react";
 import { Plot, plotLayout, stationPoints } from "~/components/plots/Plot";
+import { extent, namesWithRoom } from "~/components/plots/station-spacing";
 import { SelectField } from "~/components/ui";
 import type { FieldErrors } from "~/services/sketch/inputs";
 import { pickedStations, type RegistryLike } from "~/services/sketch/registry";
@@ -16,13 +17,20 @@ const FREE = "";
 const MAP_CONFIG = { displayModeBar: false, scrollZoom: false };
 type Station = RegistryLike["stations"][number];
 
-/** The map's markers of some stations: filled when in the sketch, hollow when not. */
-function stationTrace(list: readonly Station[], chosen: boolean) {
+/** Width of the map's drawing area in the input column, pixels (the column is about 240 px wide). */
+const MAP_DRAWING_PX = 190;
+
+/**
+ * The map's markers of some stations: filled when in the sketch, hollow when not. A name is drawn
+ * only where it has room (`hasRoom`); a packed core's names are on hover and in the checkbox list.
+ */
+function stationTrace(list: readonly Station[], chosen: boolean, hasRoom: (name: string) => boolean) {
   return {
     type: "scatter",
     mode: "markers+text",
     name: chosen ? "In the sketch" : "Not used",
     ...stationPoints(list),
+    text: list.map((s) => (hasRoom(s.name) ? s.name : "")),
     customdata: list.map((s) => s.name),
     textposition: "top center",
     textfont: { size: 10, color: chosen ? "#7f2e14" : "#56637f" },
@@ -65,7 +73,10 @@ export function StationPicker({
   const data = useMemo(() => {
     const on = registry.stations.filter((s) => pickedSet.has(s.name));
     const off = registry.stations.filter((s) => !pickedSet.has(s.name));
-    return [stationTrace(off, false), stationTrace(on, true)];
+    const room = namesWithRoom(registry.stations, extent(registry.stations) / MAP_DRAWING_PX);
+    const roomy = new Set(registry.stations.filter((_, i) => room[i]).map((s) => s.name));
+    const hasRoom = (name: string) => roomy.has(name);
+    return [stationTrace(off, false, hasRoom), stationTrace(on, true, hasRoom)];
   }, [pickedKey, registry.stations]);
   const layout = useMemo(
     () =>
@@ -112,7 +123,9 @@ export function StationPicker({
         }}
       />
       <details className="text-sm" open={state.config === FREE}>
-        <summary className="cursor-pointer font-medium text-night-800">Pick stations with checkboxes</summary>
+        <summary className="cursor-pointer font-medium text-night-800">
+          Pick stations with checkboxes (names of close-packed stations are here and on hover)
+        </summary>
         <div className="mt-2 grid grid-cols-4 gap-x-2 gap-y-1">
           {registry.stations.map((s) => (
             <label key={s.name} className="flex items-center gap-1">
