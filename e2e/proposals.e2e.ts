@@ -66,6 +66,11 @@ describe("proposals", () => {
     await screenshot(page, "proposal-target");
     await page.getByRole("button", { name: "Add the target" }).click();
     await page.getByText("Ceniza Lumbre 4 added to the proposal.").waitFor();
+    // The target's position as every page writes it: sexagesimal, the degrees in the tooltip.
+    await page
+      .getByText(/^RA \d{2}:\d{2}:\d{2}\.\d{2}, Dec [+-]\d{2}:\d{2}:\d{2}\.\d$/)
+      .first()
+      .waitFor();
 
     // The science case: a small PDF made here.
     const dir = mkdtempSync(join(tmpdir(), "fd-proposal-"));

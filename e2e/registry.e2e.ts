@@ -235,6 +235,14 @@ describe("array registry", () => {
     const c04 = (await station("C04"))!;
     await page.goto(`${baseUrl}/registry/stations/${c04.id}/edit`);
     await page.getByRole("button", { name: "Delete C04" }).click();
+    // The button asks first: a dialog says what goes; Cancel leaves everything as it was.
+    const dialog = page.getByRole("dialog", { name: "Delete this station?" });
+    await dialog.waitFor();
+    await screenshot(page, "registry-delete-confirm");
+    await dialog.getByRole("button", { name: "Cancel" }).click();
+    await expect(dialog.isVisible()).resolves.toBe(false);
+    await page.getByRole("button", { name: "Delete C04" }).click();
+    await dialog.getByRole("button", { name: "Yes, delete C04" }).click();
     await page
       .getByText("C04 cannot be deleted while a configuration uses it: compact-3. Take it out of it first.")
       .waitFor();
@@ -245,6 +253,10 @@ describe("array registry", () => {
       const row = (await station(name))!;
       await page.goto(`${baseUrl}/registry/stations/${row.id}/edit`);
       await page.getByRole("button", { name: `Delete ${name}` }).click();
+      await page
+        .getByRole("dialog")
+        .getByRole("button", { name: `Yes, delete ${name}` })
+        .click();
       await page.getByText(`Station ${name} deleted.`).waitFor();
       expect(await station(name)).toBeNull();
     }

@@ -20,9 +20,10 @@ const expectedMenus: Record<string, string[]> = {
     "Array registry",
     "My targets",
     "Proposals",
+    "Cycles",
     "Mailbox",
   ],
-  "Kenji Morrow": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Review desk", "Mailbox"],
+  "Kenji Morrow": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Review desk", "Cycles", "Mailbox"],
   "Henrik Solberg": [
     "Sketchpad",
     "Triangle finder",
@@ -33,8 +34,16 @@ const expectedMenus: Record<string, string[]> = {
     "Cycles",
     "Mailbox",
   ],
-  "Mei-Lin Chao": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Night builder", "Mailbox"],
-  "Rafael Quispe": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Mailbox", "People"],
+  "Mei-Lin Chao": [
+    "Sketchpad",
+    "Triangle finder",
+    "Calibrators",
+    "Array registry",
+    "Cycles",
+    "Night builder",
+    "Mailbox",
+  ],
+  "Rafael Quispe": ["Sketchpad", "Triangle finder", "Calibrators", "Array registry", "Cycles", "Mailbox", "People"],
 };
 
 describe("sign-in through the local sign-on service", () => {

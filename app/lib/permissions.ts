@@ -14,6 +14,7 @@ export const PERMISSIONS = [
   "proposals:own",
   "review:desk",
   "ranking:board",
+  "cycles:read",
   "cycles:manage",
   "nights:build",
   "mailbox:own",
@@ -27,9 +28,10 @@ export const PUBLIC_PERMISSIONS: readonly Permission[] = ["registry:read"];
 
 /**
  * Permissions every signed-in person has, whatever their roles: reading their own notices (the
- * mailbox stands in for each person's inbox). Nothing here depends on the demo mode.
+ * mailbox stands in for each person's inbox) and the list of observing cycles with their dates.
+ * Nothing here depends on the demo mode.
  */
-export const SIGNED_IN_PERMISSIONS: readonly Permission[] = ["mailbox:own"];
+export const SIGNED_IN_PERMISSIONS: readonly Permission[] = ["mailbox:own", "cycles:read"];
 
 export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
   proposer: ["registry:read", "sketch:use", "proposals:own"],
@@ -134,7 +136,7 @@ export const SECTIONS: readonly Section[] = [
   {
     label: "Cycles",
     to: href("/cycles"),
-    permission: "cycles:manage",
+    permission: "cycles:read",
     summary: "Observing cycles: dates, deadline and the configurations on offer with their nights.",
   },
   {

@@ -36,6 +36,16 @@ describe("sections by role", () => {
     expect(labels([], { signedIn: false })).not.toContain("Mailbox");
   });
 
+  it("shows Cycles to every role that may open the list, and lets only the chair manage them", () => {
+    const labels = (role: Parameters<typeof sectionsFor>[0][number]) =>
+      sectionsFor([role], { signedIn: true }).map((s) => s.label);
+    for (const role of ["proposer", "reviewer", "chair", "scheduler", "admin"] as const) {
+      expect(labels(role), role).toContain("Cycles");
+      expect(permissionsFor([role], { signedIn: true }).has("cycles:manage"), role).toBe(role === "chair");
+    }
+    expect(sectionsFor([], { signedIn: false }).map((s) => s.label)).not.toContain("Cycles");
+  });
+
   it("lets only administrators read everybody's mail; the demo mode is not a permission", () => {
     expect(permissionsFor(["proposer"], { signedIn: true }).has("mailbox:own")).toBe(true);
     for (const role of ["proposer", "reviewer", "chair", "scheduler"] as const)

@@ -4,12 +4,12 @@ import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, type BadgeTone, ButtonLink, Card, EmptyState, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
 import { formatUtc } from "~/lib/format";
-import { requireUser } from "~/lib/guards.server";
+import { requirePermission } from "~/lib/guards.server";
 import { type CyclePhase, cyclePhase, listCycles } from "~/services/cycles/cycles.server";
 import type { Route } from "./+types/index";
 
 export async function loader({ request, context }: Route.LoaderArgs) {
-  const viewer = await requireUser(request);
+  const viewer = await requirePermission(request, "cycles:read");
   const list = await listCycles(context.get(dbContext));
   const now = new Date();
   return {

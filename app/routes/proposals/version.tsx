@@ -1,5 +1,6 @@
 import { href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
+import { Coordinates } from "~/components/targets/Coordinates";
 import { Badge, Card, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
 import { formatBytes } from "~/lib/format";
@@ -122,7 +123,7 @@ export default function ProposalVersion({ loaderData }: Route.ComponentProps) {
                 {i + 1}. {t.name}
               </span>{" "}
               <span className="num text-night-700">
-                RA {t.raDeg.toFixed(4)}°, Dec {t.decDeg.toFixed(4)}° · {t.model} · {t.magnitudes}
+                <Coordinates raDeg={t.raDeg} decDeg={t.decDeg} /> · {t.model} · {t.magnitudes}
               </span>
               <span className="block text-night-600">
                 {t.minElevationDeg === null ? "array elevation limit" : `elevation ≥ ${t.minElevationDeg}°`}

@@ -1,9 +1,9 @@
 import { data, href } from "react-router";
 import * as v from "valibot";
-import { ConfirmDialog } from "~/components/committee/ConfirmDialog";
 import { ErrorPage } from "~/components/ErrorPage";
 import { shownUtc } from "~/components/proposals/utc";
 import { Alert, Badge, Card, PageHeader, TextArea } from "~/components/ui";
+import { ConfirmDialog } from "~/components/ui/ConfirmDialog";
 import { dbContext } from "~/context";
 import { requireFormBody } from "~/lib/body.server";
 import { redirectWithFlash } from "~/lib/flash.server";

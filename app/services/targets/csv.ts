@@ -33,14 +33,20 @@ export const MAX_TARGET_CSV_BYTES = 512 * 1024;
 export const MAX_TARGET_ROWS = 500;
 
 const near = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b));
+/** Decimals of the exported coordinates: 1e-7° is 0.36 mas, far below any pointing or delay need. */
+const COORDINATE_DECIMALS = 7;
+/** Coordinates as the export writes them, rounded (84.05333333333334 → 84.0533333). */
+const coordinate = (deg: number) => Number(deg.toFixed(COORDINATE_DECIMALS));
+/** Two positions are the same when they agree to the export's rounding. */
+const samePlace = (a: number, b: number) => Math.abs(a - b) <= 10 ** -COORDINATE_DECIMALS;
 
 /** Whether a row read from a file says exactly what the stored target says. */
 export function sameTarget(a: TargetValues, b: StoredTarget): boolean {
   const ma = Object.entries(a.magnitudes).sort();
   const mb = Object.entries(b.magnitudes ?? {}).sort();
   return (
-    near(a.raDeg, b.raDeg) &&
-    near(a.decDeg, b.decDeg) &&
+    samePlace(a.raDeg, b.raDeg) &&
+    samePlace(a.decDeg, b.decDeg) &&
     JSON.stringify(a.model) === JSON.stringify(b.model) &&
     ma.length === mb.length &&
     ma.every(([band, m], i) => mb[i][0] === band && near(m, mb[i][1])) &&
@@ -155,8 +161,8 @@ export function targetsToCsv(list: StoredTarget[]): string {
       const m = modelCells(t.model);
       return [
         t.name,
-        t.raDeg,
-        t.decDeg,
+        coordinate(t.raDeg),
+        coordinate(t.decDeg),
         t.model.type,
         m.size_mas,
         m.ld_coefficient,

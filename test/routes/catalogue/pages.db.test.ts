@@ -287,8 +287,8 @@ describe("a target given by name alone", () => {
     expect(preview.status).toBe(200);
     expect(preview.data.preview.errors).toEqual([]);
     expect(preview.data.preview.warnings).toEqual([
-      "row 2: coordinates of Sirius (HIP 32349) from the star catalogue",
-      "row 3: coordinates of Canopus (HIP 30438) from the star catalogue",
+      "line 2: coordinates of Sirius (HIP 32349) from the star catalogue",
+      "line 3: coordinates of Canopus (HIP 30438) from the star catalogue",
     ]);
     expect((await post("name,model\nSirius,point\nalf Car,point\n", "import")).status).toBe(302);
     const [sirius] = await mine("Sirius");

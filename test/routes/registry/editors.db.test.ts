@@ -70,7 +70,7 @@ describe("who may edit the registry", () => {
             post(
               `/registry/sites/${demoSiteId}/edit`,
               "anonymous",
-              { intent: "delete", confirmName: "Sierra Lumbre Array" },
+              { intent: "delete", confirm: "yes", confirmName: "Sierra Lumbre Array" },
               { siteId: String(demoSiteId) },
             ),
           ),
@@ -325,6 +325,18 @@ describe("stations", () => {
 
     const site = await smallSite("Llano Borrar");
     const a4 = (await stationByName(site.id, "A4"))!;
+    // A delete not confirmed in the dialog is refused, and nothing goes.
+    const unconfirmed = await remove(
+      stationEditAction,
+      `/registry/stations/${a4.id}/edit`,
+      { stationId: String(a4.id) },
+      { confirm: "" },
+    );
+    expect(unconfirmed.status).toBe(400);
+    expect(unconfirmed.data.formError ?? JSON.stringify(unconfirmed.data)).toContain(
+      "Confirm the deletion in the dialog.",
+    );
+    expect(await stationByName(site.id, "A4")).not.toBeNull();
     const gone = await remove(stationEditAction, `/registry/stations/${a4.id}/edit`, { stationId: String(a4.id) });
     expect(gone.status).toBe(302);
     expect(await stationByName(site.id, "A4")).toBeNull();

@@ -124,7 +124,7 @@ export const save = (handler: Handler, path: string, fields: Fields, params: Fie
 
 /** The administrator posts a page's delete form (intent "delete"). */
 export const remove = (handler: Handler, path: string, params: Fields, fields: Fields = {}) =>
-  run(() => handler(post(path, "admin", { intent: "delete", ...fields }, params)));
+  run(() => handler(post(path, "admin", { intent: "delete", confirm: "yes", ...fields }, params)));
 
 /** A station's form fields, as typed (metres). */
 export const stationFields = (name: string, eastM: string, northM: string, upM = "0", pathOffsetM = "0") => ({

@@ -139,7 +139,12 @@ describe("target list CSV", () => {
       model: first.targets[0].model,
       magnitudes: first.targets[0].magnitudes,
     });
-    expect(again.targets[0].raDeg).toBeCloseTo(first.targets[0].raDeg, 9);
-    expect(again.targets[0].decDeg).toBeCloseTo(first.targets[0].decDeg, 9);
+    // Coordinates are written to 7 decimals of a degree (0.36 mas): 84.0533333, not 84.05333333333334.
+    expect(targetsToCsv(first.targets)).toContain("84.0533333,-1.2019444");
+    expect(again.targets[0].raDeg).toBeCloseTo(first.targets[0].raDeg, 7);
+    expect(again.targets[0].decDeg).toBeCloseTo(first.targets[0].decDeg, 7);
+    // Read back against the list it came from, every row is unchanged.
+    const stored = new Map(first.targets.map((t) => [t.name.toLowerCase(), t]));
+    expect(parseTargetCsv(targetsToCsv(first.targets), { existing: stored })).toMatchObject({ unchanged: 1 });
   });
 });

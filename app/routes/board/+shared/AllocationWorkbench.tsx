@@ -7,8 +7,8 @@
 
 import { useMemo, useState } from "react";
 import { Form, useNavigation } from "react-router";
-import { ConfirmDialog } from "~/components/committee/ConfirmDialog";
 import { Badge, Button, Card, FormErrors, SelectField } from "~/components/ui";
+import { ConfirmDialog } from "~/components/ui/ConfirmDialog";
 import { plural } from "~/lib/format";
 import type { BoardPageData } from "~/services/committee/board-page.server";
 import { LstChart } from "./LstChart";

@@ -5,7 +5,7 @@
  * 400) shows its messages and keeps what was typed.
  */
 import type { ReactNode } from "react";
-import { Form, href, Link, useNavigation } from "react-router";
+import { Form, href, Link, useActionData, useNavigation } from "react-router";
 import {
   Button,
   ButtonLink,
@@ -17,6 +17,7 @@ import {
   TextArea,
   TextField,
 } from "~/components/ui";
+import { ConfirmDialog } from "~/components/ui/ConfirmDialog";
 import { sentence } from "~/lib/form-errors";
 import type { EditorState } from "./editor.server";
 import { type FieldSpec, labelsOf } from "./fields";
@@ -133,7 +134,10 @@ export function Page({ noun, editing, label, title, lead, state, fields, cancelT
   );
 }
 
-/** A card with a single delete button (and optional extra fields, e.g. a confirmation). */
+/**
+ * A card with a delete button that asks first: a dialog says what goes, with the form that deletes
+ * (and optional extra fields, e.g. a name to type). The action refuses a delete without `confirm=yes`.
+ */
 export function DeleteCard({
   title,
   children,
@@ -145,16 +149,23 @@ export function DeleteCard({
   buttonLabel: string;
   fields?: ReactNode;
 }) {
+  const actionData = useActionData();
   return (
     <Card title={title} className="ring-danger-700/30">
-      <Form method="post" className="space-y-3" aria-label={title}>
-        <input type="hidden" name="intent" value="delete" />
+      <div className="space-y-3">
         <div className="text-sm text-night-700">{children}</div>
-        {fields}
-        <Button type="submit" variant="danger">
-          {buttonLabel}
-        </Button>
-      </Form>
+        <ConfirmDialog
+          label={buttonLabel}
+          title={`${title}?`}
+          intent="delete"
+          confirmLabel={`Yes, ${buttonLabel.charAt(0).toLowerCase()}${buttonLabel.slice(1)}`}
+          variant="danger"
+          fields={fields}
+          closeOn={actionData}
+        >
+          {children} This cannot be undone.
+        </ConfirmDialog>
+      </div>
     </Card>
   );
 }

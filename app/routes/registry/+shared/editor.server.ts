@@ -103,6 +103,8 @@ export function action<T>(
     if (!handlers.delete) return handlers.save(post);
     const intent = v.safeParse(Intent, body.form.get("intent"));
     if (!intent.success) return refuse({ form: intent.issues[0].message });
+    if (intent.output === "delete" && body.form.get("confirm") !== "yes")
+      return refuse({ form: "Confirm the deletion in the dialog." });
     return intent.output === "delete" ? handlers.delete(post) : handlers.save(post);
   };
 }

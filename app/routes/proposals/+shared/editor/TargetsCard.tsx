@@ -1,5 +1,7 @@
 /** The proposal's targets in order, with links to edit them, and the copy from "My targets". */
+
 import { Form, href, Link } from "react-router";
+import { Coordinates } from "~/components/targets/Coordinates";
 import { Button, ButtonLink, Card, SelectField } from "~/components/ui";
 import { Choices } from "../Choices";
 import { IntentButton, RemoveButton } from "./IntentButton";
@@ -61,7 +63,7 @@ function TargetItem({
           {t.name}
         </p>
         <p className="num text-sm text-night-700">
-          RA {t.raDeg.toFixed(4)}°, Dec {t.decDeg.toFixed(4)}° · {t.model} · {t.magnitudes}
+          <Coordinates raDeg={t.raDeg} decDeg={t.decDeg} /> · {t.model} · {t.magnitudes}
         </p>
         <p className="text-sm text-night-600">
           {t.minElevationDeg === null ? "the array's elevation limit" : `elevation ≥ ${t.minElevationDeg}°`} ·{" "}

@@ -5,7 +5,7 @@
  */
 import { type ReactNode, useEffect, useId, useRef } from "react";
 import { Form, useNavigation } from "react-router";
-import { Button, type ButtonVariant } from "~/components/ui/Button";
+import { Button, type ButtonVariant } from "./Button";
 
 export function ConfirmDialog({
   label,
