@@ -3,6 +3,7 @@ import * as v from "valibot";
 import { ConfirmDialog } from "~/components/committee/ConfirmDialog";
 import { StateBadge } from "~/components/committee/StateBadge";
 import { ErrorPage } from "~/components/ErrorPage";
+import { CycleImagingQueue } from "~/components/imaging/CycleImagingQueue";
 import { Alert, ButtonLink, Card, DetailList, PageHeader, TextField } from "~/components/ui";
 import { dbContext } from "~/context";
 import { requireFormBody } from "~/lib/body.server";
@@ -167,6 +168,9 @@ export default function CyclePage({ loaderData: d, actionData }: Route.Component
         </Card>
       </div>
       <DarknessCard darkness={d.darkness} />
+      <div className="mt-6">
+        <CycleImagingQueue cycleId={Number(id)} cycleName={c.name} />
+      </div>
       <CycleLog log={d.log} />
     </>
   );

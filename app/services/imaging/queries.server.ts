@@ -9,7 +9,7 @@ import { type ImagingState, imagingJobs } from "~/db/schema/imaging";
 import { proposalTargets } from "~/db/schema/proposals";
 import type { Viewer } from "~/lib/guards.server";
 import { proposalReading } from "./access.server";
-import type { ImagingJobRequest } from "./schemas";
+import type { ImagingJobJson, ImagingJobRequest } from "./schemas";
 
 type JobRow = typeof imagingJobs.$inferSelect;
 
@@ -25,7 +25,10 @@ export function settingsOf(request: ImagingJobRequest) {
 }
 
 /** The JSON of a job; `full` adds the result (images, χ², fidelity, verdict). */
-export function jobJson(row: Omit<JobRow, "oifits">, { readOnly, full }: { readOnly: boolean; full: boolean }) {
+export function jobJson(
+  row: Omit<JobRow, "oifits">,
+  { readOnly, full }: { readOnly: boolean; full: boolean },
+): ImagingJobJson {
   const request = row.request as unknown as ImagingJobRequest;
   return {
     id: row.id,
@@ -47,7 +50,6 @@ export function jobJson(row: Omit<JobRow, "oifits">, { readOnly, full }: { readO
     result: full && row.state === "done" ? row.result : null,
   };
 }
-export type ImagingJobJson = ReturnType<typeof jobJson>;
 
 const withoutBytes = {
   id: imagingJobs.id,

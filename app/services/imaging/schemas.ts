@@ -120,3 +120,31 @@ export function simulateBodyOf(coverage: Record<string, unknown>, settings: Imag
     closurePhaseTriangles: settings.closurePhaseTriangles,
   };
 }
+
+export type ImagingStateName = "queued" | "running" | "done" | "failed" | "cancelled";
+
+/** A job as GET /api/imaging/jobs/:id answers it (docs/api.md); `result` only there and when done. */
+export interface ImagingJobJson {
+  id: number;
+  state: ImagingStateName;
+  source: "sketch" | "proposalTarget";
+  label: string;
+  proposalTargetId: number | null;
+  cycleBatchId: number | null;
+  /** True for a reader who is not the owner (no Cancel). */
+  readOnly: boolean;
+  settings: ImagingJobRequest["image"] & {
+    vis2Relative: number;
+    closurePhaseDeg: number;
+    closurePhaseTriangles: "all" | "independent";
+  };
+  model: TargetModel;
+  progress: { iteration: number; chi2: number | null; iterationBudget: number };
+  attempts: number;
+  error: string | null;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+  hasOifits: boolean;
+  result: Record<string, unknown> | null;
+}
