@@ -48,9 +48,7 @@ export function ImagingImages({
         z: grid(reconstruction, gridSize),
       },
     ];
-    let zmin = 0;
-    for (const im of images) for (const row of im.z) for (const v of row) zmin = Math.min(zmin, v);
-    return images.map((im, i) => ({
+    return images.map((im) => ({
       ...im,
       data: [
         {
@@ -58,11 +56,10 @@ export function ImagingImages({
           x: axis,
           y: axis,
           z: im.z,
-          zmin,
+          zmin: 0,
           zmax: 1,
           colorscale: HEAT,
-          showscale: i === images.length - 1,
-          colorbar: { title: { text: "relative to peak", side: "right" }, thickness: 10, len: 0.9 },
+          showscale: false,
           hovertemplate: "east %{x:.2f} mas, north %{y:.2f} mas<br>%{z:.3f} of peak<extra></extra>",
         },
       ],
@@ -83,19 +80,31 @@ export function ImagingImages({
       }),
     [],
   );
+  const gradient = `linear-gradient(to right, ${HEAT.map(([at, colour]) => `${colour} ${Number(at) * 100}%`).join(", ")})`;
   return (
-    <div className="grid gap-3 md:grid-cols-3" data-testid="imaging-images">
-      {figures.map((f) => (
-        <Plot
-          key={f.key}
-          label={`${f.label}, offsets in milliarcseconds, east to the left, relative to its peak`}
-          caption={f.caption}
-          priority="heavy"
-          height={280}
-          data={f.data}
-          layout={layout}
+    <div className="space-y-2">
+      <div className="grid gap-3 md:grid-cols-3" data-testid="imaging-images">
+        {figures.map((f) => (
+          <Plot
+            key={f.key}
+            label={`${f.label}, offsets in milliarcseconds, east to the left, relative to its peak`}
+            caption={f.caption}
+            priority="heavy"
+            height={280}
+            data={f.data}
+            layout={layout}
+          />
+        ))}
+      </div>
+      <p className="flex flex-wrap items-center gap-2 text-xs text-night-600">
+        <span>One colour scale, each image relative to its own peak: 0</span>
+        <span
+          aria-hidden="true"
+          className="inline-block h-3 w-32 rounded ring-1 ring-night-200"
+          style={{ background: gradient }}
         />
-      ))}
+        <span>1 (the dirty image's negative sidelobes are shown as 0).</span>
+      </p>
     </div>
   );
 }

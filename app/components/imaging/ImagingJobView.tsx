@@ -70,7 +70,7 @@ function Results({ job, result }: { job: ImagingJob; result: Result }) {
           className={`rounded-lg border p-3 ${result.fidelity.recovered ? "border-ok-700/30 bg-ok-50 text-ok-700" : "border-caution-700/30 bg-caution-50 text-caution-700"}`}
         >
           <p className="font-semibold" data-testid="imaging-verdict">
-            {result.fidelity.verdict}
+            {result.fidelity.verdict.charAt(0).toUpperCase() + result.fidelity.verdict.slice(1)}
           </p>
           <p className="text-sm">
             Fidelity {f(result.fidelity.ncc, 3)} (normalized cross-correlation of the reconstruction with the model,
