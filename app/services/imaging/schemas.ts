@@ -4,6 +4,7 @@
  */
 import * as v from "valibot";
 import { DEFAULT_NOISE, type Regularizer, type SimulateRequest, type TargetModel } from "~/engine";
+import { MAX_ROW_ID } from "~/lib/not-found";
 
 /**
  * Defaults: a 64² grid (pixel λ/(4 B_max)), maximum entropy with a flat prior, the weight found
@@ -65,7 +66,12 @@ export const ImagingSettingsSchema = v.object(
 export type ImagingSettings = v.InferOutput<typeof ImagingSettingsSchema>;
 
 const id = (name: string) =>
-  v.pipe(v.number(`${name} must be a number`), v.integer(`${name} must be a whole number`), v.minValue(1));
+  v.pipe(
+    v.number(`${name} must be a number`),
+    v.integer(`${name} must be a whole number`),
+    v.minValue(1, `${name} must be a positive number`),
+    v.maxValue(MAX_ROW_ID, `${name} is not a number of ours`),
+  );
 
 export const StartImagingSchema = v.object(
   {
