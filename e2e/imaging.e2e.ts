@@ -10,6 +10,7 @@ import { and, eq, ne } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDatabase } from "~/db/client.server";
 import { reviewAssignments, reviewConflicts } from "~/db/schema/committee";
+import { imagingJobs } from "~/db/schema/imaging";
 import { proposals, proposalTargets } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { ARTIFACTS, screenshot, signedInPage, useBrowser } from "./browser";
@@ -21,13 +22,16 @@ let close: () => Promise<void>;
 let proposalId = 0;
 let targetId = 0;
 let reviewerName = "";
+let cycleId = 0;
+let db: ReturnType<typeof createDatabase>["db"];
 
 beforeAll(async () => {
   const made = createDatabase(inject("databaseUrl"), { max: 2 });
   close = () => made.client.end();
-  const db = made.db;
+  db = made.db;
   const [p] = await db.select().from(proposals).where(eq(proposals.title, TITLE));
   proposalId = p.id;
+  cycleId = p.cycleId;
   const [t] = await db.select().from(proposalTargets).where(eq(proposalTargets.proposalId, p.id));
   targetId = t.id;
   // A reviewer with an active assignment to it and no conflict declared.
@@ -120,6 +124,44 @@ describe("imaging preview", () => {
     await screenshot(page, "imaging-reviewer-1366");
     await page.setViewportSize({ width: 360, height: 800 });
     await screenshot(page, "imaging-reviewer-360");
+    expect(seen.errors).toEqual([]);
+    await context.close();
+  });
+
+  it("the chair queues previews for every imaging target of the cycle and sees the queue", async () => {
+    const { context, page, seen } = await signedInPage(browser, "Henrik Solberg", {
+      viewport: { width: 1366, height: 900 },
+    });
+    await page.goto(`${baseUrl}/cycles/${cycleId}`);
+    const section = page.getByRole("region", { name: "Imaging previews" });
+    await section.getByRole("button", { name: "Queue previews for every imaging target" }).click();
+    await expect.poll(() => section.textContent(), { timeout: 20_000 }).toMatch(/\d+ previews queued\./);
+    await expect.poll(() => section.textContent(), { timeout: 20_000 }).toMatch(/Queue: \d+ waiting, \d+ running/);
+    await expect(section.getByRole("table").textContent()).resolves.toMatch(/Brasero 9/);
+    await section.scrollIntoViewIfNeeded();
+    await screenshot(page, "imaging-chair-queue-1366");
+    await page.setViewportSize({ width: 360, height: 800 });
+    await section.screenshot({ path: join(ARTIFACTS, "imaging-chair-queue-360.png") });
+    expect(seen.errors).toEqual([]);
+    await context.close();
+    // Leave the worker free for the other browser tests.
+    await db.update(imagingJobs).set({ state: "cancelled" }).where(eq(imagingJobs.cycleBatchId, cycleId));
+  });
+
+  it("the Sketchpad previews the sketch as it stands", async () => {
+    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", {
+      viewport: { width: 1366, height: 900 },
+    });
+    const sketch = "name=Preview%20field&ra=11:00:00&dec=-36:00:00&date=2027-03-15&model=binary&sep=4&pa=60&ratio=0.4";
+    await page.goto(`${baseUrl}/sketchpad?config=medium-4&${sketch}`);
+    const panel = page.getByRole("region", { name: "Imaging preview" });
+    await panel.getByLabel(/Grid size/).fill("32");
+    await panel.getByRole("button", { name: "Start the preview" }).click();
+    await panel.getByTestId("imaging-verdict").waitFor({ timeout: 180_000 });
+    await expect(panel.textContent()).resolves.toMatch(/Preview field \(Sketchpad\)/);
+    await expect.poll(() => panel.locator(".main-svg").count(), { timeout: 20_000 }).toBeGreaterThanOrEqual(3);
+    await panel.scrollIntoViewIfNeeded();
+    await screenshot(page, "imaging-sketchpad-1366");
     expect(seen.errors).toEqual([]);
     await context.close();
   });
