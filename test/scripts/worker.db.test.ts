@@ -24,7 +24,8 @@ const db = testDb();
 const started: ChildProcess[] = [];
 const log: string[] = [];
 
-function startWorker(): ChildProcess {
+/** Starts `scripts/worker.ts`; resolves once it takes previews (its signal handlers are in place). */
+async function startWorker(): Promise<ChildProcess> {
   const child = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts"], {
     cwd: ROOT,
     env: {
@@ -38,6 +39,11 @@ function startWorker(): ChildProcess {
   child.stdout?.on("data", (d) => log.push(String(d)));
   child.stderr?.on("data", (d) => log.push(String(d)));
   started.push(child);
+  await until(
+    "the worker to start",
+    async () => (log.join("").includes(`worker ${child.pid} takes`) ? true : null),
+    60_000,
+  );
   return child;
 }
 
@@ -68,7 +74,7 @@ describe("imaging worker processes", () => {
     if (!answer.ok) throw new Error(answer.message);
     const id = answer.jobs[0].id;
 
-    const first = startWorker();
+    const first = await startWorker();
     await until(
       "the first worker to start the preview",
       async () => ((await rowOf(id)).state === "running" ? true : null),
@@ -78,7 +84,7 @@ describe("imaging worker processes", () => {
     await new Promise((r) => first.once("exit", r));
     expect((await rowOf(id)).state).toBe("running");
 
-    startWorker();
+    const second = await startWorker();
     const done = await until(
       "the second worker to finish it",
       async () => {
@@ -94,5 +100,40 @@ describe("imaging worker processes", () => {
     expect(done.state).toBe("done");
     expect(done.attempts).toBe(2);
     expect((done.result as { image: number[] }).image).toHaveLength(64 * 64);
+    second.kill("SIGKILL");
+    await new Promise((r) => second.once("exit", r));
   }, 180_000);
+
+  it("a worker stopped with SIGTERM hands its preview back at once; the next worker finishes it", async () => {
+    const first = await startWorker();
+    const viewer = await viewerWith(db, "stopped@example.test", ["proposer"]);
+    const answer = await startPreviews(db, {
+      viewer,
+      json: { source: { kind: "sketch", coverage: imagingCoverage() }, settings: { gridSize: 64, maxIterations: 200 } },
+    });
+    if (!answer.ok) throw new Error(answer.message);
+    const id = answer.jobs[0].id;
+    await until(
+      "the first worker to start the preview",
+      async () => ((await rowOf(id)).state === "running" ? true : null),
+      60_000,
+    );
+    first.kill("SIGTERM");
+    const code = await new Promise((r) => first.once("exit", r));
+    expect(code).toBe(0);
+    expect((await rowOf(id)).state).toBe("queued");
+    const startedAt = Date.now();
+    await startWorker();
+    const done = await until(
+      "the next worker to finish it",
+      async () => {
+        const row = await rowOf(id);
+        return row.state === "done" ? row : null;
+      },
+      60_000,
+    );
+    expect(done.attempts).toBe(2);
+    // Handed back, not expired: taken again well before the expiry.
+    expect(Date.now() - startedAt).toBeLessThan(EXPIRE_S * 1000 + 30_000);
+  }, 120_000);
 });
