@@ -11,6 +11,8 @@ import PgBoss from "pg-boss";
 import { env } from "~/env.server";
 
 export const IMAGING_QUEUE = "imaging-preview";
+/** Where pg-boss moves a preview whose every attempt ended without an answer (its row is then failed). */
+export const IMAGING_LOST_QUEUE = "imaging-preview-lost";
 export const RETRY_LIMIT = 3;
 
 export type QueueRole = "sender" | "worker";
@@ -37,8 +39,10 @@ async function startBoss(url: string, role: QueueRole): Promise<PgBoss> {
   });
   boss.on("error", (e) => console.warn(`[imaging] queue: ${e.message}`));
   await boss.start();
+  await boss.createQueue(IMAGING_LOST_QUEUE, { name: IMAGING_LOST_QUEUE });
   await boss.createQueue(IMAGING_QUEUE, {
     name: IMAGING_QUEUE,
+    deadLetter: IMAGING_LOST_QUEUE,
     retryLimit: RETRY_LIMIT,
     retryDelay: 1,
     expireInSeconds: config.IMAGING_JOB_EXPIRE_S,
@@ -66,7 +70,12 @@ export async function sendPreview(jobId: number): Promise<string> {
   const id = await boss.send(
     IMAGING_QUEUE,
     { jobId },
-    { retryLimit: RETRY_LIMIT, retryDelay: 1, expireInSeconds: config.IMAGING_JOB_EXPIRE_S },
+    {
+      retryLimit: RETRY_LIMIT,
+      retryDelay: 1,
+      expireInSeconds: config.IMAGING_JOB_EXPIRE_S,
+      deadLetter: IMAGING_LOST_QUEUE,
+    },
   );
   if (!id) throw new Error("the imaging queue did not take the job");
   return id;
@@ -76,6 +85,15 @@ export async function sendPreview(jobId: number): Promise<string> {
 export async function withdrawPreview(queueJobId: string): Promise<void> {
   const boss = await imagingQueue("sender");
   await boss.cancel(IMAGING_QUEUE, queueJobId).catch(() => undefined);
+}
+
+/** Stops one pg-boss instance of this process (a worker that stops); the next use starts a new one. */
+export async function stopImagingQueue(role: QueueRole, url = env().DATABASE_URL): Promise<void> {
+  const map = instances();
+  const key = `${role} ${url}`;
+  const found = map.get(key);
+  map.delete(key);
+  await (await found?.catch(() => null))?.stop({ graceful: false, wait: true });
 }
 
 /** Stops every pg-boss instance of this process (server shutdown, tests). */

@@ -14,7 +14,7 @@ import type { Database } from "~/db/client.server";
 import { imagingJobs } from "~/db/schema/imaging";
 import { env } from "~/env.server";
 import type { ThreadMessage } from "./preview.thread";
-import { IMAGING_QUEUE, imagingQueue } from "./queue.server";
+import { IMAGING_LOST_QUEUE, IMAGING_QUEUE, imagingQueue, RETRY_LIMIT, stopImagingQueue } from "./queue.server";
 import type { ImagingJobRequest } from "./schemas";
 
 const PROGRESS_EVERY_MS = 500;
@@ -158,6 +158,20 @@ export async function runImagingJob(
   return outcome.kind;
 }
 
+/** Fails the row of a preview pg-boss gave up on. */
+export async function failLost(db: Database, jobId: number) {
+  const end = new Date();
+  await db
+    .update(imagingJobs)
+    .set({
+      state: "failed",
+      error: `The workers that took this preview stopped before it was done (${RETRY_LIMIT + 1} attempts). Start it again; if it keeps failing, tell the observatory.`,
+      finishedAt: end,
+      updatedAt: end,
+    })
+    .where(and(eq(imagingJobs.id, jobId), inArray(imagingJobs.state, ["queued", "running"])));
+}
+
 export interface ImagingWorker {
   /** Stops taking jobs; the previews running now are stopped and handed back to the queue at once. */
   stop(): Promise<void>;
@@ -187,6 +201,16 @@ export async function startImagingWorker(
       }),
     );
   }
+  // A preview whose every attempt lost its worker (or hit a database error) ends failed, not "running".
+  workIds.push(
+    await boss.work<{ jobId: number }>(
+      IMAGING_LOST_QUEUE,
+      { batchSize: 1, pollingIntervalSeconds: 2 },
+      async ([job]) => {
+        await failLost(db, job.data.jobId);
+      },
+    ),
+  );
   return {
     async stop() {
       for (const id of workIds) await boss.offWork({ id }).catch(() => undefined);
@@ -194,7 +218,7 @@ export async function startImagingWorker(
       await Promise.allSettled([...handlers]);
       // Let pg-boss record the handed-back jobs as failed (to be retried) before it closes.
       await new Promise((r) => setTimeout(r, 300));
-      await boss.stop({ graceful: false, wait: true, close: true }).catch(() => undefined);
+      await stopImagingQueue("worker", url).catch(() => undefined);
     },
   };
 }

@@ -6,12 +6,12 @@
 
 import { imagingCoverage, viewerWith } from "@test/imaging";
 import { testDb } from "@test/routes";
-import { eq } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { imagingJobs } from "~/db/schema/imaging";
 import { cancelPreview, startPreviews } from "~/services/imaging/commands.server";
 import { readJob } from "~/services/imaging/queries.server";
-import { stopImagingQueues } from "~/services/imaging/queue.server";
+import { IMAGING_QUEUE, imagingQueue, stopImagingQueues } from "~/services/imaging/queue.server";
 import { type ImagingWorker, startImagingWorker } from "~/services/imaging/worker.server";
 
 const db = testDb();
@@ -82,6 +82,31 @@ describe("imaging previews without a worker", () => {
     expect(kind).toMatchObject({ ok: false, status: 400 });
     const cycle = await startPreviews(db, { viewer, json: { source: { kind: "cycle", cycleId: 1 } } });
     expect(cycle).toMatchObject({ ok: false, status: 403 });
+  });
+});
+
+describe("a preview pg-boss gives up on", () => {
+  it("ends failed with the reason, not running forever", async () => {
+    const viewer = await viewerWith(db, "lost@example.test", ["proposer"]);
+    const a = await startPreviews(db, {
+      viewer,
+      json: { source: { kind: "sketch", coverage: imagingCoverage() }, settings: small },
+    });
+    if (!a.ok) throw new Error(a.message);
+    const boss = await imagingQueue("sender", process.env.DATABASE_URL);
+    // As if a worker had taken it and every retry had been used up, then it failed once more.
+    const [taken] = await boss.fetch<{ jobId: number }>(IMAGING_QUEUE);
+    expect(taken.data.jobId).toBe(a.jobs[0].id);
+    await db.update(imagingJobs).set({ state: "running" }).where(eq(imagingJobs.id, a.jobs[0].id));
+    await db.execute(sql`update pgboss.job set retry_count = retry_limit where id = ${taken.id}`);
+    await boss.fail(IMAGING_QUEUE, taken.id);
+    const worker = await startImagingWorker(db, { url: process.env.DATABASE_URL, concurrency: 1 });
+    try {
+      const row = await waitFor(a.jobs[0].id, ["failed"], 20_000);
+      expect(row.error).toMatch(/stopped before it was done \(4 attempts\)/);
+    } finally {
+      await worker.stop();
+    }
   });
 });
 
