@@ -138,14 +138,14 @@ describe("imaging preview", () => {
     await expect.poll(() => section.textContent(), { timeout: 20_000 }).toMatch(/\d+ previews queued\./);
     await expect.poll(() => section.textContent(), { timeout: 20_000 }).toMatch(/Queue: \d+ waiting, \d+ running/);
     await expect(section.getByRole("table").textContent()).resolves.toMatch(/Brasero 9/);
+    // Leave the worker free for the other browser tests: the rest of the queue is cancelled.
+    await db.update(imagingJobs).set({ state: "cancelled" }).where(eq(imagingJobs.cycleBatchId, cycleId));
     await section.scrollIntoViewIfNeeded();
     await screenshot(page, "imaging-chair-queue-1366");
     await page.setViewportSize({ width: 360, height: 800 });
     await section.screenshot({ path: join(ARTIFACTS, "imaging-chair-queue-360.png") });
     expect(seen.errors).toEqual([]);
     await context.close();
-    // Leave the worker free for the other browser tests.
-    await db.update(imagingJobs).set({ state: "cancelled" }).where(eq(imagingJobs.cycleBatchId, cycleId));
   });
 
   it("the Sketchpad previews the sketch as it stands", async () => {

@@ -7,6 +7,7 @@
  */
 import { spawn } from "node:child_process";
 import { createServer, type Server } from "node:http";
+import { setPriority } from "node:os";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import type { ServerBuild } from "react-router";
 import { closeDatabase } from "~/db/client.server";
@@ -120,6 +121,12 @@ for (let i = 0; i < config.IMAGING_WORKERS; i++) {
     env: process.env,
     stdio: "inherit",
   });
+  // Below the server's priority (a nice increment, as the computation pool's threads): pages stay quick.
+  try {
+    if (worker.pid) setPriority(worker.pid, 10);
+  } catch {
+    // not allowed here: the worker runs at the server's priority
+  }
   worker.on("exit", (code, signal) => {
     if (!stopping) console.warn(`[imaging] worker ${worker.pid} ended (${signal ?? `exit ${code}`})`);
   });
