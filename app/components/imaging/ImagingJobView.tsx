@@ -39,24 +39,29 @@ const f = (x: number | null | undefined, d = 2) =>
   x === null || x === undefined || !Number.isFinite(x) ? "—" : x.toFixed(d);
 
 function Progress({ job }: { job: ImagingJob }) {
-  const { iteration, chi2 } = job.progress;
+  const { iteration, chi2, iterationBudget } = job.progress;
+  const fixed = job.settings.weight !== "auto" && iterationBudget > 0;
   return (
     <div className="space-y-2" aria-live="polite">
       <p className="text-sm text-night-700" data-testid="imaging-progress">
         {job.state === "queued"
           ? "Queued: a worker will take it in a moment."
-          : `Iteration ${iteration}, reduced χ² ${f(chi2)}`}
+          : `Iteration ${iteration}${fixed ? ` of at most ${iterationBudget}` : ""}, reduced χ² ${f(chi2)}`}
         {job.attempts > 1 ? ` (attempt ${job.attempts}: the first worker went away, another took it over)` : ""}
       </p>
-      <div className="h-2 overflow-hidden rounded-full bg-night-100" aria-hidden="true">
-        <div
-          className="h-full animate-pulse rounded-full bg-ember-500"
-          style={{ width: job.state === "queued" ? "8%" : "60%" }}
+      {job.state === "running" && fixed ? (
+        <progress
+          className="h-2 w-full accent-ember-600"
+          max={iterationBudget}
+          value={Math.min(iteration, iterationBudget)}
+          aria-label="Iterations done of the most allowed"
         />
-      </div>
-      <p className="text-xs text-night-600">
-        The automatic weight first runs short trials; the iteration count includes them.
-      </p>
+      ) : null}
+      {job.state === "running" && !fixed ? (
+        <p className="text-xs text-night-600">
+          The automatic weight first runs short trials to bring the reduced χ² near 1; the count includes them.
+        </p>
+      ) : null}
     </div>
   );
 }
