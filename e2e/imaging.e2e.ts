@@ -99,6 +99,14 @@ describe("imaging preview", () => {
         .map((el) => `${el.tagName}.${el.className}`.slice(0, 80)),
     );
     expect(wide).toEqual([]);
+
+    // A second, larger preview, cancelled while it runs.
+    await panel.getByLabel(/Grid size/).fill("128");
+    await panel.getByRole("button", { name: "Start the preview" }).click();
+    await panel.getByText(/^(Queued|Iteration \d+)/).waitFor({ timeout: 30_000 });
+    await panel.getByRole("button", { name: "Cancel" }).click();
+    await panel.getByText("This preview was cancelled.").waitFor({ timeout: 10_000 });
+    await expect(panel.getByTestId("imaging-job").getAttribute("data-state")).resolves.toBe("cancelled");
     expect(seen.errors).toEqual([]);
     await context.close();
   });
