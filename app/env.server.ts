@@ -2,6 +2,7 @@ import { isIP } from "node:net";
 import * as v from "valibot";
 import { parseNumber } from "./lib/numbers";
 import { COMPUTE_ENV_ENTRIES } from "./services/api/config.server";
+import { IMAGING_ENV_ENTRIES } from "./services/imaging/config.server";
 import { MAIL_ENV_ENTRIES } from "./services/mail/config.server";
 
 /** A whole number in [min, max] written plainly ("3000", not "0x0BB8" or "3e3"). */
@@ -107,6 +108,7 @@ const EnvSchema = v.pipe(
     SIGN_IN_ATTEMPTS_PER_ADDRESS: wholeNumber(1, 1_000_000, "30"),
     ...MAIL_ENV_ENTRIES,
     ...COMPUTE_ENV_ENTRIES,
+    ...IMAGING_ENV_ENTRIES,
   }),
   v.transform((e) => ({ ...e, APP_ORIGIN: new URL(e.APP_ORIGIN ?? `http://localhost:${e.PORT}`).origin })),
 );

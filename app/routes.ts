@@ -101,6 +101,10 @@ export default [
     route("nights/:date/plan", "routes/api/night-plan.ts"),
     route("rank", "routes/api/rank.ts"),
     route("cycles/:cycleId/board", "routes/api/cycle-board.ts"),
+    route("imaging/jobs", "routes/api/imaging-jobs.ts"),
+    route("imaging/jobs/:id", "routes/api/imaging-job.ts"),
+    route("imaging/jobs/:id/cancel", "routes/api/imaging-job-cancel.ts"),
+    route("imaging/jobs/:id/oifits", "routes/api/imaging-job-oifits.ts"),
   ]),
 
   route("*", "routes/not-found.tsx"),

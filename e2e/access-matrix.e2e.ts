@@ -216,6 +216,17 @@ const MATRIX: Row[] = [
     anonymous: "unauthorized",
     chair: "ok",
   }),
+  // Imaging previews: everyone's own; a preview nobody may read is the same 404 as a missing one.
+  get("/api/imaging/jobs", "/api/imaging/jobs", { ...all("ok"), anonymous: "unauthorized" }),
+  post("/api/imaging/jobs", "/api/imaging/jobs", {}, { ...all(400), anonymous: "unauthorized" }),
+  get("/api/imaging/jobs/:id", "/api/imaging/jobs/999999", { ...all(404), anonymous: "unauthorized" }),
+  post(
+    "/api/imaging/jobs/:id/cancel",
+    "/api/imaging/jobs/999999/cancel",
+    {},
+    { ...all(404), anonymous: "unauthorized" },
+  ),
+  get("/api/imaging/jobs/:id/oifits", "/api/imaging/jobs/999999/oifits", { ...all(404), anonymous: "unauthorized" }),
   get("/*", "/no/such/page", all(404)),
 ];
 

@@ -5,13 +5,16 @@
  * unset), and the outbox sender loop. Prints where everything lives and who can sign in; stops
  * everything on Ctrl-C or SIGTERM.
  */
+import { spawn } from "node:child_process";
 import { createServer, type Server } from "node:http";
+import { setPriority } from "node:os";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import type { ServerBuild } from "react-router";
 import { closeDatabase } from "~/db/client.server";
 import { DEMO_PEOPLE } from "~/db/seed/scenario";
 import { env } from "~/env.server";
 import { authEnv } from "~/services/auth/config.server";
+import { stopImagingQueues } from "~/services/imaging/queue.server";
 import { parseMailEnv } from "~/services/mail/config.server";
 import { ensureOutboxSender } from "~/services/mail/sender.server";
 import { createAppServer } from "./app-server";
@@ -111,8 +114,37 @@ stops.push(
       server.close(() => resolve());
     }),
 );
+// Imaging-preview workers (scripts/worker.ts), each a process of its own, stopped with the server.
+for (let i = 0; i < config.IMAGING_WORKERS; i++) {
+  const worker = spawn(process.execPath, ["--import", "tsx", `${root}/scripts/worker.ts`], {
+    cwd: root,
+    env: process.env,
+    stdio: "inherit",
+  });
+  // Below the server's priority (a nice increment, as the computation pool's threads): pages stay quick.
+  try {
+    if (worker.pid) setPriority(worker.pid, 10);
+  } catch {
+    // not allowed here: the worker runs at the server's priority
+  }
+  worker.on("exit", (code, signal) => {
+    if (!stopping) console.warn(`[imaging] worker ${worker.pid} ended (${signal ?? `exit ${code}`})`);
+  });
+  stops.push(
+    () =>
+      new Promise<void>((resolve) => {
+        if (worker.exitCode !== null || worker.signalCode !== null) return resolve();
+        worker.once("exit", () => resolve());
+        worker.kill("SIGTERM");
+      }),
+  );
+}
+if (config.IMAGING_WORKERS > 0) {
+  notes.push(`  Imaging-preview workers: ${config.IMAGING_WORKERS} (npm run worker starts more, on any machine)`);
+}
 const sender = ensureOutboxSender();
 if (sender) stops.push(() => sender.stop());
+stops.push(() => stopImagingQueues());
 stops.push(() => closeDatabase());
 
 const lines = [

@@ -8,6 +8,7 @@ import {
   reviewConflicts,
   reviews,
 } from "./schema/committee";
+import { imagingJobs } from "./schema/imaging";
 import { nightConfigurations, nightPlanBlocks, nightPlans } from "./schema/nights";
 import {
   cycleConfigurations,
@@ -160,4 +161,9 @@ export const proposalDecisionsRelations = relations(proposalDecisions, ({ one })
 export const allocatedHoursRelations = relations(allocatedHours, ({ one }) => ({
   proposal: one(proposals, { fields: [allocatedHours.proposalId], references: [proposals.id] }),
   configuration: one(configurations, { fields: [allocatedHours.configurationId], references: [configurations.id] }),
+}));
+
+export const imagingJobsRelations = relations(imagingJobs, ({ one }) => ({
+  owner: one(users, { fields: [imagingJobs.ownerId], references: [users.id] }),
+  proposalTarget: one(proposalTargets, { fields: [imagingJobs.proposalTargetId], references: [proposalTargets.id] }),
 }));

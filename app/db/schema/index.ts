@@ -4,6 +4,7 @@ export * from "./auth";
 export * from "./catalogue";
 export * from "./columns";
 export * from "./committee";
+export * from "./imaging";
 export * from "./mail";
 export * from "./nights";
 export * from "./proposals";

@@ -2,6 +2,7 @@ import { data, href, Link } from "react-router";
 import * as v from "valibot";
 import { StateBadge } from "~/components/committee/StateBadge";
 import { ErrorPage } from "~/components/ErrorPage";
+import { CycleImagingQueue } from "~/components/imaging/CycleImagingQueue";
 import { Alert, ButtonLink, Card, DetailList, PageHeader, TextField } from "~/components/ui";
 import { ConfirmDialog } from "~/components/ui/ConfirmDialog";
 import { dbContext } from "~/context";
@@ -167,6 +168,9 @@ export default function CyclePage({ loaderData: d, actionData }: Route.Component
         </Card>
       </div>
       <DarknessCard darkness={d.darkness} />
+      <div className="mt-6">
+        <CycleImagingQueue cycleId={Number(id)} cycleName={c.name} />
+      </div>
       <CycleLog log={d.log} />
     </>
   );

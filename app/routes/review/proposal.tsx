@@ -1,6 +1,7 @@
 import { data, href } from "react-router";
 import * as v from "valibot";
 import { ErrorPage } from "~/components/ErrorPage";
+import { ImagingPreview } from "~/components/imaging/ImagingPreview";
 import { shownUtc } from "~/components/proposals/utc";
 import { Alert, Badge, Card, PageHeader, TextArea } from "~/components/ui";
 import { ConfirmDialog } from "~/components/ui/ConfirmDialog";
@@ -156,7 +157,14 @@ export default function ReviewProposal({ loaderData: d, actionData }: Route.Comp
       />
       {a?.error ? <Alert className="mb-4">{a.error}</Alert> : null}
       <div className="grid grid-cols-[minmax(0,1fr)] gap-6 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-        <FrozenProposal p={d.frozen} scienceCaseHref={scienceCase} />
+        <div className="grid min-w-0 content-start gap-6">
+          <FrozenProposal p={d.frozen} scienceCaseHref={scienceCase} />
+          <ImagingPreview
+            source={{ kind: "proposal", proposalId: d.proposalId }}
+            readOnly
+            intro="The imaging previews made for this proposal's targets (by its team or the chair): the data the coverage would yield, the image reconstructed from them and how faithful it is. Read-only."
+          />
+        </div>
         <div className="grid content-start gap-6">
           {d.mode === "chair" ? <ChairReviews reviews={d.all ?? []} /> : null}
           {d.mode === "reviewer" && r?.submittedAt ? (

@@ -8,6 +8,7 @@
  */
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { href } from "react-router";
+import { ImagingPreview } from "~/components/imaging/ImagingPreview";
 import { whenDrawn } from "~/components/plots/draw-queue";
 import type { UvUnit } from "~/components/plots/UvPlanePanel";
 import { Button, ButtonLink, EmptyState, PageHeader, SelectField } from "~/components/ui";
@@ -61,6 +62,7 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
     [settled, registry],
   );
   const bodies = useMemo(() => (built.ok ? { light: { ...built.body, beam: null }, beam: built.body } : null), [built]);
+  const imagingCoverage = useMemo(() => (built.ok ? { ...built.body, beam: null } : null), [built]);
   const coverage = useApi<CoverageResponse>(href("/api/coverage"), bodies?.light ?? null);
   const withBeam = useApi<CoverageResponse>(href("/api/coverage"), bodies?.beam ?? null);
   const ephemeris = useApi<EphemerisResponse>(href("/api/ephemeris"), ephemerisBody);
@@ -187,6 +189,7 @@ export function Sketchpad({ registry, defaults, multiSite, savedTargets = [] }: 
           ) : (
             <EmptyState title="Computing the first sketch…">This takes about a second.</EmptyState>
           )}
+          <ImagingPreview source={{ kind: "sketch", coverage: imagingCoverage }} />
         </div>
       </div>
     </>

@@ -1,5 +1,6 @@
 /** The page of a proposal's target, new or existing: the target and model, constraints, calibrators, notes. */
 import { Form, href, useNavigation } from "react-router";
+import { ImagingPreview } from "~/components/imaging/ImagingPreview";
 import { TargetFields } from "~/components/targets/TargetForm";
 import { Button, ButtonLink, Card, FormErrors, PageHeader, TextArea } from "~/components/ui";
 import type { TargetFormState } from "~/services/proposals/target-form.server";
@@ -94,6 +95,14 @@ export function TargetEditor({
         )}
       </Form>
       {page.model ? <p className="mt-4 text-sm text-night-600">Stored model: {page.model}.</p> : null}
+      {page.targetId !== null ? (
+        <div className="mt-6">
+          <ImagingPreview
+            source={{ kind: "proposalTarget", proposalId: page.proposalId, targetId: page.targetId }}
+            intro="Simulates what the proposal's coverage would measure of this target (the requested configuration with the most stations, the proposal's band, the middle night of the cycle), then reconstructs an image from it. The committee sees the previews you make here."
+          />
+        </div>
+      ) : null}
     </>
   );
 }

@@ -1,0 +1,135 @@
+/** The settings of a new imaging preview, each with its default stated. */
+import { SelectField, TextField } from "~/components/ui";
+import { IMAGING_DEFAULTS, REGULARIZER_LABELS } from "~/services/imaging/schemas";
+
+/** The settings as typed (strings), turned into the request's numbers by `settingsBody`. */
+export type SettingsDraft = {
+  gridSize: string;
+  regularizer: string;
+  weightMode: "auto" | "fixed";
+  weight: string;
+  seed: string;
+  vis2Percent: string;
+  closurePhaseDeg: string;
+  closurePhaseTriangles: string;
+};
+
+export const DEFAULT_DRAFT: SettingsDraft = {
+  gridSize: String(IMAGING_DEFAULTS.gridSize),
+  regularizer: IMAGING_DEFAULTS.regularizer,
+  weightMode: "auto",
+  weight: "1",
+  seed: String(IMAGING_DEFAULTS.seed),
+  vis2Percent: String(IMAGING_DEFAULTS.vis2Relative * 100),
+  closurePhaseDeg: String(IMAGING_DEFAULTS.closurePhaseDeg),
+  closurePhaseTriangles: IMAGING_DEFAULTS.closurePhaseTriangles,
+};
+
+const num = (s: string) => (s.trim() === "" ? Number.NaN : Number(s));
+
+/** The `settings` of POST /api/imaging/jobs; the server validates and names any field out of range. */
+export function settingsBody(d: SettingsDraft) {
+  return {
+    gridSize: num(d.gridSize),
+    regularizer: d.regularizer,
+    weight: d.weightMode === "auto" ? "auto" : num(d.weight),
+    seed: num(d.seed),
+    vis2Relative: num(d.vis2Percent) / 100,
+    closurePhaseDeg: num(d.closurePhaseDeg),
+    closurePhaseTriangles: d.closurePhaseTriangles,
+  };
+}
+
+export function ImagingSettingsForm({
+  draft,
+  onChange,
+  errors,
+  disabled,
+}: {
+  draft: SettingsDraft;
+  onChange: (d: SettingsDraft) => void;
+  errors: Record<string, string>;
+  disabled?: boolean;
+}) {
+  const set = (patch: Partial<SettingsDraft>) => onChange({ ...draft, ...patch });
+  return (
+    <fieldset disabled={disabled} className="grid gap-3 sm:grid-cols-2 xl:grid-cols-4">
+      <legend className="sr-only">Imaging settings</legend>
+      <TextField
+        label="Grid size"
+        unit="pixels per side"
+        inputMode="numeric"
+        value={draft.gridSize}
+        onChange={(e) => set({ gridSize: e.target.value })}
+        error={errors["settings.gridSize"]}
+        hint="32–128, default 64; pixel λ/(4 B_max)."
+      />
+      <SelectField
+        label="Regularizer"
+        value={draft.regularizer}
+        onChange={(e) => set({ regularizer: e.target.value })}
+        error={errors["settings.regularizer"]}
+      >
+        {Object.entries(REGULARIZER_LABELS).map(([value, label]) => (
+          <option key={value} value={value}>
+            {label}
+          </option>
+        ))}
+      </SelectField>
+      <SelectField
+        label="Weight"
+        value={draft.weightMode}
+        onChange={(e) => set({ weightMode: e.target.value as "auto" | "fixed" })}
+        hint="Automatic: chosen so the reduced χ² comes out near 1."
+      >
+        <option value="auto">Automatic</option>
+        <option value="fixed">Fixed</option>
+      </SelectField>
+      {draft.weightMode === "fixed" ? (
+        <TextField
+          label="Weight value"
+          inputMode="decimal"
+          value={draft.weight}
+          onChange={(e) => set({ weight: e.target.value })}
+          error={errors["settings.weight"]}
+          hint="0 to 1 000 000, against the reduced χ²."
+        />
+      ) : null}
+      <TextField
+        label="Noise seed"
+        inputMode="numeric"
+        value={draft.seed}
+        onChange={(e) => set({ seed: e.target.value })}
+        error={errors["settings.seed"]}
+        hint="The same seed gives the same data."
+      />
+      <TextField
+        label="V² error"
+        unit="% of V²"
+        inputMode="decimal"
+        value={draft.vis2Percent}
+        onChange={(e) => set({ vis2Percent: e.target.value })}
+        error={errors["settings.vis2Relative"]}
+        hint="Default 5 % (common practice for a well calibrated night)."
+      />
+      <TextField
+        label="Closure-phase error"
+        unit="degrees"
+        inputMode="decimal"
+        value={draft.closurePhaseDeg}
+        onChange={(e) => set({ closurePhaseDeg: e.target.value })}
+        error={errors["settings.closurePhaseDeg"]}
+        hint="Default 2° (common practice)."
+      />
+      <SelectField
+        label="Closure phases"
+        value={draft.closurePhaseTriangles}
+        onChange={(e) => set({ closurePhaseTriangles: e.target.value })}
+        hint="Independent: the (N−1)(N−2)/2 triangles through the first station."
+      >
+        <option value="all">Every triangle</option>
+        <option value="independent">Independent triangles only</option>
+      </SelectField>
+    </fieldset>
+  );
+}
