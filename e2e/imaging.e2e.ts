@@ -50,7 +50,10 @@ afterAll(async () => {
 });
 
 describe("imaging preview", () => {
-  it("a proposer starts a preview, watches it, sees the images and the verdict, downloads OIFITS", async () => {
+  // A whole preview runs inside this test (queued, reconstructed, shown), then a second is cancelled.
+  it("a proposer starts a preview, watches it, sees the images and the verdict, downloads OIFITS", {
+    timeout: 300_000,
+  }, async () => {
     const { context, page, seen } = await signedInPage(browser, "Oskar Lindfors", {
       viewport: { width: 1366, height: 900 },
     });

@@ -3,13 +3,32 @@
  * scroll inside their own box). A page's detail pages are found by following the first link of its
  * list, so the test walks the demo data as a person would. Screenshots of each page at 360 px.
  */
+import { eq } from "drizzle-orm";
 import type { Page } from "playwright-core";
-import { describe, expect, inject, it } from "vitest";
+import { beforeAll, describe, expect, inject, it } from "vitest";
+import { createDatabase } from "~/db/client.server";
+import { outboxMessages } from "~/db/schema/mail";
+import { users } from "~/db/schema/users";
 import { screenshot, signedInPage, useBrowser } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const browser = useBrowser();
 const NARROW = { viewport: { width: 360, height: 780 } };
+
+// Whatever ran before, Inés has a message with a long subject, so her mailbox is tested with content.
+beforeAll(async () => {
+  const { db, client } = createDatabase(inject("databaseUrl"), { max: 1 });
+  const [ines] = await db.select().from(users).where(eq(users.name, "Inés Arroyo-Vidal"));
+  await db.insert(outboxMessages).values({
+    kind: "submission",
+    toAddress: ines.email,
+    subject: "Proposal submitted: “Limb darkening along the giant branch of an invented cluster” (2027B)",
+    html: "<p>A notice of the narrow-screen test.</p>",
+    text: "A notice of the narrow-screen test.",
+    userId: ines.id,
+  });
+  await client.end();
+});
 
 /** A page to visit: a path, or the first link on `from` whose address matches `link`. */
 type Visit = string | { from: string; link: RegExp };
@@ -30,6 +49,7 @@ const ROLES: { person: string; pages: Visit[] }[] = [
       "/proposals/new",
       { from: "/proposals", link: /^\/proposals\/\d+$/ },
       "/mailbox",
+      { from: "/mailbox", link: /^\/mailbox\/\d+$/ },
       "/account",
     ],
   },

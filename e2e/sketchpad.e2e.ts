@@ -275,15 +275,18 @@ describe("Sketchpad", () => {
       await page.keyboard.press("Tab");
       const at = await page.evaluate(() => {
         const a = document.activeElement as HTMLElement | null;
+        // The imaging preview's images (when the sketch has one) are counted apart from the sketch's plots.
         const fig = a?.closest("figure");
+        const preview = !!a?.closest('[aria-labelledby="imaging-preview-title"]');
         return {
+          preview,
           key: `${a?.tagName}#${a?.id}|${a?.getAttribute("aria-label")}|${a?.textContent?.slice(0, 20)}`,
           fig: fig?.getAttribute("aria-label") ?? null,
         };
       });
       if (i === 0) start = at.key;
       else if (at.key === start) break; // round the page once
-      if (at.fig) stops[at.fig] = (stops[at.fig] ?? 0) + 1;
+      if (at.fig && !at.preview) stops[at.fig] = (stops[at.fig] ?? 0) + 1;
     }
     // uv plane, elevation, dirty beam, dirty image, V², closure phases: one stop each; the station map
     // has no toolbar (stations are picked with the checkboxes below it).

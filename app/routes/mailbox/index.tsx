@@ -110,7 +110,7 @@ export default function Mailbox({ loaderData }: Route.ComponentProps) {
             : "The e-mails Fringe Docket has written to you, newest first: delivered, queued, or queued and retrying while the mail server does not answer."
         }
       />
-      <div className="grid gap-6">
+      <div className="grid grid-cols-1 gap-6">
         <Form method="get" action={href("/mailbox")} role="search" className="flex flex-wrap items-end gap-3">
           <div className="min-w-64 flex-1">
             <TextField

@@ -163,7 +163,7 @@ export function DeleteCard({
           fields={fields}
           closeOn={actionData}
         >
-          {children} This cannot be undone.
+          It goes for good: this cannot be undone.
         </ConfirmDialog>
       </div>
     </Card>
