@@ -6,7 +6,7 @@
  */
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
-import { and, eq, ne } from "drizzle-orm";
+import { and, eq, inArray, ne } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDatabase } from "~/db/client.server";
 import { reviewAssignments, reviewConflicts } from "~/db/schema/committee";
@@ -46,6 +46,11 @@ beforeAll(async () => {
   reviewerName = reviewer.name;
 });
 afterAll(async () => {
+  // Nothing of this file keeps the worker busy while the other browser tests run.
+  await db
+    ?.update(imagingJobs)
+    .set({ state: "cancelled" })
+    .where(inArray(imagingJobs.state, ["queued", "running"]));
   await close?.();
 });
 
@@ -153,7 +158,7 @@ describe("imaging preview", () => {
     await context.close();
   });
 
-  it("the Sketchpad previews the sketch as it stands", async () => {
+  it("the Sketchpad previews the sketch as it stands", { timeout: 240_000 }, async () => {
     const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", {
       viewport: { width: 1366, height: 900 },
     });
