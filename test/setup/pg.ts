@@ -48,6 +48,19 @@ export async function createDatabaseFrom(template: string, name: string) {
   await adminQuery((sql) => sql.unsafe(`create database "${name}" template "${template}"`));
 }
 
+/**
+ * Drops a test database and whoever is still connected to it. An autovacuum worker busy on it at that
+ * moment cannot be ended by the app's role (PostgreSQL answers 42501, insufficient privilege): it
+ * finishes within moments, so the drop is tried again a few times.
+ */
 export async function dropDatabase(name: string) {
-  await adminQuery((sql) => sql.unsafe(`drop database if exists "${name}" with (force)`));
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await adminQuery((sql) => sql.unsafe(`drop database if exists "${name}" with (force)`));
+      return;
+    } catch (e) {
+      if ((e as { code?: string }).code !== "42501" || attempt >= 20) throw e;
+      await new Promise((r) => setTimeout(r, 250));
+    }
+  }
 }
