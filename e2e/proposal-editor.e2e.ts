@@ -16,7 +16,7 @@ import { users } from "~/db/schema/users";
 import { demoCycles } from "~/db/seed/scenario";
 import { makeTinyPdf } from "~/services/proposals/pdf";
 import { observingPeriodText } from "~/services/proposals/period";
-import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
+import { screenshot, signedInPage, useBrowser } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const browser = useBrowser();
@@ -54,10 +54,7 @@ const flash = (page: Page, text: string | RegExp) => page.getByText(text).first(
 
 describe("the proposal editor", () => {
   it("walks a proposer from a draft to a submission with a failing line acknowledged, then a withdrawal", async () => {
-    const context = await browser.newContext(WIDE);
-    const page = await context.newPage();
-    const seen = watchPage(page);
-    await signInAs(page, "Inés Arroyo-Vidal");
+    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", WIDE);
     await newDraft(page, "Editor walkthrough");
 
     const text = page.getByRole("form", { name: "Proposal text" });
@@ -168,10 +165,7 @@ describe("the proposal editor", () => {
   });
 
   it("deletes a draft after the confirmation and goes back to My proposals (360 px)", async () => {
-    const context = await browser.newContext(NARROW);
-    const page = await context.newPage();
-    const seen = watchPage(page);
-    await signInAs(page, "Inés Arroyo-Vidal");
+    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", NARROW);
     await newDraft(page, "Editor delete me");
     await page.getByRole("button", { name: "Delete the draft" }).click();
     const dialog = page.getByRole("dialog", { name: "Delete this draft?" });
