@@ -12,6 +12,7 @@ import { committeeMembers, reviewAssignments, reviews } from "~/db/schema/commit
 import { cycles, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { autoAssign, DEFAULT_REVIEWERS_PER_PROPOSAL } from "~/engine";
+import { piOfProposal, reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 import { BOARD_STATUSES } from "./board.server";
 import {
@@ -42,14 +43,14 @@ async function cycleWork(db: DbOrTx, cycleId: number) {
     db
       .select({ id: proposals.id, title: proposals.title, category: proposals.scienceCategory, pi: users.name })
       .from(proposals)
-      .innerJoin(users, eq(users.id, proposals.piId))
+      .innerJoin(users, piOfProposal)
       .where(and(eq(proposals.cycleId, cycleId), inArray(proposals.status, BOARD_STATUSES)))
       .orderBy(asc(proposals.id)),
     db
       .select({ assignment: reviewAssignments, reviewer: users.name, review: reviews })
       .from(reviewAssignments)
-      .innerJoin(users, eq(users.id, reviewAssignments.reviewerId))
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+      .innerJoin(users, reviewerOfAssignment)
+      .leftJoin(reviews, reviewOfAssignment)
       .where(eq(reviewAssignments.cycleId, cycleId))
       .orderBy(asc(reviewAssignments.id)),
   ]);
@@ -240,7 +241,7 @@ export async function removeAssignment(
     const [row] = await tx
       .select({ a: reviewAssignments, review: reviews })
       .from(reviewAssignments)
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+      .leftJoin(reviews, reviewOfAssignment)
       .where(and(eq(reviewAssignments.id, assignmentId), eq(reviewAssignments.cycleId, cycleId)))
       .for("update", { of: reviewAssignments });
     if (!row) return { ok: false, message: "No such assignment in this cycle." };
@@ -271,7 +272,7 @@ export async function declineAssignment(
       .select({ a: reviewAssignments, review: reviews, cycle: cycles })
       .from(reviewAssignments)
       .innerJoin(cycles, eq(cycles.id, reviewAssignments.cycleId))
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+      .leftJoin(reviews, reviewOfAssignment)
       .where(eq(reviewAssignments.id, assignmentId))
       .for("update", { of: reviewAssignments });
     if (!row || row.a.reviewerId !== reviewerId) return { ok: false, message: "Not your assignment." };

@@ -23,6 +23,7 @@ import {
   proposalTargets,
 } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { configurationOf, piOfProposal, proposalOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import { type Board, computeBoard } from "./board";
 import type { BoardRecords, HoursByConfiguration } from "./board-records";
 import { cycleDarkness } from "./dark-time.server";
@@ -59,7 +60,7 @@ async function offeredConfigurations(db: DbOrTx, cycleId: number) {
       site: sites,
     })
     .from(cycleConfigurations)
-    .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
+    .innerJoin(configurations, configurationOf(cycleConfigurations.configurationId))
     .innerJoin(sites, eq(sites.id, configurations.siteId))
     .where(eq(cycleConfigurations.cycleId, cycleId))
     .orderBy(asc(configurations.name));
@@ -111,7 +112,7 @@ export async function loadBoardRecords(db: DbOrTx, { cycleId }: { cycleId: numbe
         pi: users.name,
       })
       .from(proposals)
-      .innerJoin(users, eq(users.id, proposals.piId))
+      .innerJoin(users, piOfProposal)
       .where(inCycle),
     db
       .select({
@@ -141,7 +142,7 @@ export async function loadBoardRecords(db: DbOrTx, { cycleId }: { cycleId: numbe
         submitted: sql<number>`count(${reviews.submittedAt})::int`,
       })
       .from(reviewAssignments)
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+      .leftJoin(reviews, reviewOfAssignment)
       .where(and(eq(reviewAssignments.cycleId, cycleId), eq(reviewAssignments.status, "active")))
       .groupBy(reviewAssignments.proposalId),
     db
@@ -151,8 +152,8 @@ export async function loadBoardRecords(db: DbOrTx, { cycleId }: { cycleId: numbe
         score: reviews.score,
       })
       .from(reviews)
-      .innerJoin(reviewAssignments, eq(reviewAssignments.id, reviews.assignmentId))
-      .innerJoin(proposals, eq(proposals.id, reviewAssignments.proposalId))
+      .innerJoin(reviewAssignments, reviewOfAssignment)
+      .innerJoin(proposals, proposalOfAssignment)
       .where(and(inCycle, isNotNull(reviews.submittedAt), isNotNull(reviews.score)))
       .orderBy(asc(reviewAssignments.id)),
     db.select().from(proposalDecisions).where(eq(proposalDecisions.cycleId, cycleId)),

@@ -10,6 +10,7 @@ import { configurations } from "~/db/schema/array";
 import { auditLog } from "~/db/schema/auth";
 import { allocatedHours, committeeBoards, proposalDecisions, reviewAssignments, reviews } from "~/db/schema/committee";
 import { cycles, type ProposalStatus, proposals } from "~/db/schema/proposals";
+import { configurationOf, reviewOfAssignment } from "~/lib/joins.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 import type { DecisionEntry } from "./decisions-form";
 import { queueDecisionNotices } from "./notices.server";
@@ -147,13 +148,13 @@ export async function releaseDecisions(
               hours: allocatedHours.hours,
             })
             .from(allocatedHours)
-            .innerJoin(configurations, eq(configurations.id, allocatedHours.configurationId))
+            .innerJoin(configurations, configurationOf(allocatedHours.configurationId))
             .where(inArray(allocatedHours.proposalId, ids))
             .orderBy(asc(configurations.name)),
           tx
             .select({ proposalId: reviewAssignments.proposalId, text: reviews.commentToPi })
             .from(reviews)
-            .innerJoin(reviewAssignments, eq(reviewAssignments.id, reviews.assignmentId))
+            .innerJoin(reviewAssignments, reviewOfAssignment)
             .where(
               and(
                 inArray(reviewAssignments.proposalId, ids),

@@ -9,6 +9,7 @@ import { auditLog } from "~/db/schema/auth";
 import { committeeMembers, reviewAssignments, reviewConflicts, reviews } from "~/db/schema/committee";
 import { cycles, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { proposalOfAssignment, reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 import { reviewProgress } from "./assignments.server";
 import { BOARD_STATUSES } from "./board.server";
@@ -31,8 +32,8 @@ export async function myDesk(db: DbOrTx, { userId }: { userId: number }) {
       category: proposals.scienceCategory,
     })
     .from(reviewAssignments)
-    .innerJoin(proposals, eq(proposals.id, reviewAssignments.proposalId))
-    .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+    .innerJoin(proposals, proposalOfAssignment)
+    .leftJoin(reviews, reviewOfAssignment)
     .where(eq(reviewAssignments.reviewerId, userId))
     .orderBy(asc(proposals.title));
   return seats.reverse().map(({ cycle }) => ({
@@ -145,7 +146,7 @@ export async function declareConflict(
     const [a] = await tx
       .select({ a: reviewAssignments, review: reviews })
       .from(reviewAssignments)
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+      .leftJoin(reviews, reviewOfAssignment)
       .where(and(eq(reviewAssignments.proposalId, proposalId), eq(reviewAssignments.reviewerId, reviewerId)))
       .for("update", { of: reviewAssignments });
     if (a?.review?.submittedAt)
@@ -205,9 +206,9 @@ export async function sendReminders(
     const pending = await tx
       .select({ a: reviewAssignments, review: reviews, title: proposals.title, reviewer: users })
       .from(reviewAssignments)
-      .innerJoin(proposals, eq(proposals.id, reviewAssignments.proposalId))
-      .innerJoin(users, eq(users.id, reviewAssignments.reviewerId))
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+      .innerJoin(proposals, proposalOfAssignment)
+      .innerJoin(users, reviewerOfAssignment)
+      .leftJoin(reviews, reviewOfAssignment)
       .where(
         and(
           eq(reviewAssignments.cycleId, cycleId),

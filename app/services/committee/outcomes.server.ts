@@ -12,6 +12,7 @@ import { configurations } from "~/db/schema/array";
 import { allocatedHours, proposalDecisions, reviewAssignments, reviews } from "~/db/schema/committee";
 import { type CalibratorJson, cycles, proposals, proposalTargets } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { configurationOf, piOfProposal, reviewOfAssignment } from "~/lib/joins.server";
 
 export const DECISION_WORDS = { accept: "Accepted", waitlist: "Waiting list", decline: "Not accepted" } as const;
 
@@ -44,13 +45,13 @@ export async function decisionForTeam(
     db
       .select({ configuration: configurations.name, hours: allocatedHours.hours })
       .from(allocatedHours)
-      .innerJoin(configurations, eq(configurations.id, allocatedHours.configurationId))
+      .innerJoin(configurations, configurationOf(allocatedHours.configurationId))
       .where(eq(allocatedHours.proposalId, proposalId))
       .orderBy(asc(configurations.name)),
     db
       .select({ text: reviews.commentToPi })
       .from(reviews)
-      .innerJoin(reviewAssignments, eq(reviewAssignments.id, reviews.assignmentId))
+      .innerJoin(reviewAssignments, reviewOfAssignment)
       .where(
         and(
           eq(reviewAssignments.proposalId, proposalId),
@@ -112,9 +113,9 @@ export async function acceptedPrograms(db: DbOrTx, { cycleId }: { cycleId: numbe
     })
     .from(proposalDecisions)
     .innerJoin(proposals, eq(proposals.id, proposalDecisions.proposalId))
-    .innerJoin(users, eq(users.id, proposals.piId))
+    .innerJoin(users, piOfProposal)
     .innerJoin(allocatedHours, eq(allocatedHours.proposalId, proposals.id))
-    .innerJoin(configurations, eq(configurations.id, allocatedHours.configurationId))
+    .innerJoin(configurations, configurationOf(allocatedHours.configurationId))
     .where(
       and(
         eq(proposalDecisions.cycleId, cycleId),

@@ -13,6 +13,7 @@ import { auditLog } from "~/db/schema/auth";
 import { reviewAssignments, reviews } from "~/db/schema/committee";
 import { cycles } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import { scoringClosedBecause } from "~/services/cycles/states";
 import { onScale } from "./scale";
 import type { ReviewFields } from "./schemas";
@@ -126,7 +127,7 @@ export async function othersReviews(
   const rows = await db
     .select({ score: reviews.score, confidence: reviews.confidence, commentToCommittee: reviews.commentToCommittee })
     .from(reviews)
-    .innerJoin(reviewAssignments, eq(reviewAssignments.id, reviews.assignmentId))
+    .innerJoin(reviewAssignments, reviewOfAssignment)
     .where(
       and(
         eq(reviewAssignments.proposalId, proposalId),
@@ -153,8 +154,8 @@ export async function allReviews(db: DbOrTx, { proposalId }: { proposalId: numbe
       submittedAt: reviews.submittedAt,
     })
     .from(reviewAssignments)
-    .innerJoin(users, eq(users.id, reviewAssignments.reviewerId))
-    .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+    .innerJoin(users, reviewerOfAssignment)
+    .leftJoin(reviews, reviewOfAssignment)
     .where(eq(reviewAssignments.proposalId, proposalId))
     .orderBy(asc(reviewAssignments.id));
 }

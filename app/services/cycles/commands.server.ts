@@ -6,6 +6,7 @@ import { committeeMembers, reviewAssignments, reviews } from "~/db/schema/commit
 import { type CycleState, cycleConfigurations, cycles, proposalHours, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import type { FieldErrors } from "~/lib/form-errors";
+import { configurationOf, reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import type { CycleInput } from "./schemas";
 
 /** The cycle's own columns of a checked input (committee fields only where given). */
@@ -92,7 +93,7 @@ async function committeeRefusals(tx: Transaction, cycleId: number, input: CycleI
     const [scored] = await tx
       .select({ n: sql<number>`count(*)::int` })
       .from(reviews)
-      .innerJoin(reviewAssignments, eq(reviewAssignments.id, reviews.assignmentId))
+      .innerJoin(reviewAssignments, reviewOfAssignment)
       .where(and(eq(reviewAssignments.cycleId, cycleId), isNotNull(reviews.score)));
     if (scored.n > 0)
       errors.scoreWorst = `Score scale: ${scored.n} review${scored.n === 1 ? " has" : "s have"} a score on the current scale; it can no longer change`;
@@ -101,7 +102,7 @@ async function committeeRefusals(tx: Transaction, cycleId: number, input: CycleI
     const busy = await tx
       .selectDistinct({ id: users.id, name: users.name })
       .from(reviewAssignments)
-      .innerJoin(users, eq(users.id, reviewAssignments.reviewerId))
+      .innerJoin(users, reviewerOfAssignment)
       .where(and(eq(reviewAssignments.cycleId, cycleId), eq(reviewAssignments.status, "active")));
     const leaving = busy.filter((b) => !input.committee!.includes(b.id));
     if (leaving.length)
@@ -121,7 +122,7 @@ export async function updateCycle(db: Database, { cycleId, input }: { cycleId: n
       .selectDistinct({ configurationId: proposalHours.configurationId, name: configurations.name })
       .from(proposalHours)
       .innerJoin(proposals, eq(proposals.id, proposalHours.proposalId))
-      .innerJoin(configurations, eq(configurations.id, proposalHours.configurationId))
+      .innerJoin(configurations, configurationOf(proposalHours.configurationId))
       .where(eq(proposals.cycleId, cycleId));
     const offered = new Set(input.offers.map((o) => o.configurationId));
     const blocked = requested.filter((r) => !offered.has(r.configurationId)).map((r) => r.name);

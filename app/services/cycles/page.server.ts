@@ -11,6 +11,7 @@ import { reviewAssignments, reviews } from "~/db/schema/committee";
 import { cycleConfigurations, type cycles, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { formatUtc } from "~/lib/format";
+import { configurationOf, reviewOfAssignment } from "~/lib/joins.server";
 import { cycleDarkness } from "~/services/committee/dark-time.server";
 import { scaleText } from "~/services/committee/scale";
 import { committeeOf } from "./queries.server";
@@ -27,7 +28,7 @@ export async function cycleDarknessSummary(db: DbOrTx, cycle: typeof cycles.$inf
       site: sites,
     })
     .from(cycleConfigurations)
-    .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
+    .innerJoin(configurations, configurationOf(cycleConfigurations.configurationId))
     .innerJoin(sites, eq(sites.id, configurations.siteId))
     .where(eq(cycleConfigurations.cycleId, cycle.id))
     .orderBy(configurations.name);
@@ -94,7 +95,7 @@ export async function cyclePage(db: DbOrTx, { cycle, now }: { cycle: typeof cycl
     db
       .select({ assigned: sql<number>`count(*)::int`, submitted: sql<number>`count(${reviews.submittedAt})::int` })
       .from(reviewAssignments)
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+      .leftJoin(reviews, reviewOfAssignment)
       .where(and(eq(reviewAssignments.cycleId, cycle.id), eq(reviewAssignments.status, "active"))),
     cycleLog(db, { cycleId: cycle.id }),
   ]);

@@ -5,6 +5,7 @@ import { configurations } from "~/db/schema/array";
 import { committeeMembers } from "~/db/schema/committee";
 import { cycleConfigurations, cycles } from "~/db/schema/proposals";
 import { userRoles, users } from "~/db/schema/users";
+import { configurationOf } from "~/lib/joins.server";
 
 /** What a cycle offers: a configuration (and its name) with the nights it is available. */
 const offerColumns = {
@@ -22,7 +23,7 @@ async function cyclesWithOffers(db: DbOrTx, where?: SQL) {
     ? await db
         .select(offerColumns)
         .from(cycleConfigurations)
-        .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
+        .innerJoin(configurations, configurationOf(cycleConfigurations.configurationId))
         .where(inArray(cycleConfigurations.cycleId, ids))
         .orderBy(asc(configurations.name))
     : [];

@@ -9,6 +9,7 @@ import { configurations, sites } from "~/db/schema/array";
 import { type NightPlanState, nightConfigurations, nightPlans } from "~/db/schema/nights";
 import { cycleConfigurations, cycles } from "~/db/schema/proposals";
 import { darkTimeOverPeriod, jdeFromJd, moonIlluminatedFraction, roundTo } from "~/engine";
+import { configurationOf } from "~/lib/joins.server";
 import { type CommandResult, done, refuse } from "./result";
 import type { RunInput } from "./schemas";
 import { windowStartJd } from "./sky";
@@ -67,7 +68,7 @@ export async function cycleCalendar(db: Database, { cycleId }: { cycleId: number
       nightsOffered: cycleConfigurations.nightsAvailable,
     })
     .from(cycleConfigurations)
-    .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
+    .innerJoin(configurations, configurationOf(cycleConfigurations.configurationId))
     .where(eq(cycleConfigurations.cycleId, cycleId))
     .orderBy(asc(configurations.name));
   const [site] = offers.length
@@ -80,7 +81,7 @@ export async function cycleCalendar(db: Database, { cycleId }: { cycleId: number
       name: configurations.name,
     })
     .from(nightConfigurations)
-    .innerJoin(configurations, eq(configurations.id, nightConfigurations.configurationId))
+    .innerJoin(configurations, configurationOf(nightConfigurations.configurationId))
     .where(
       and(
         eq(nightConfigurations.cycleId, cycleId),
@@ -178,7 +179,7 @@ export async function installRun(
       const [offer] = await tx
         .select({ name: configurations.name })
         .from(cycleConfigurations)
-        .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
+        .innerJoin(configurations, configurationOf(cycleConfigurations.configurationId))
         .where(and(eq(cycleConfigurations.cycleId, cycleId), eq(cycleConfigurations.configurationId, configurationId)));
       if (!offer) return refuse(400, `Configuration: ${cycle.name} does not offer it.`, "configurationId");
       configName = offer.name;

@@ -6,21 +6,12 @@
 import { and, asc, eq, inArray } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
 import { configurations } from "~/db/schema/array";
-import { type BlockOutcome, nightPlanBlocks, nightPlans } from "~/db/schema/nights";
+import { nightPlanBlocks, nightPlans } from "~/db/schema/nights";
+import { configurationOf, planOfBlock } from "~/lib/joins.server";
 import { grantedHours } from "./programs.server";
+import type { BlockFields } from "./timeline";
 
-export type ProgramBlock = {
-  id: number;
-  night: string;
-  configuration: string;
-  kind: "calibrator" | "science";
-  target: string;
-  object: string;
-  startUtc: string;
-  endUtc: string;
-  outcome: BlockOutcome;
-  note: string;
-};
+export type ProgramBlock = BlockFields & { id: number; night: string; configuration: string; note: string };
 
 export type ProgramHours = {
   configuration: string;
@@ -54,8 +45,8 @@ export async function programNights(db: DbOrTx, { proposalId }: { proposalId: nu
       note: nightPlanBlocks.note,
     })
     .from(nightPlanBlocks)
-    .innerJoin(nightPlans, eq(nightPlans.id, nightPlanBlocks.planId))
-    .innerJoin(configurations, eq(configurations.id, nightPlans.configurationId))
+    .innerJoin(nightPlans, planOfBlock)
+    .innerJoin(configurations, configurationOf(nightPlans.configurationId))
     .where(and(eq(nightPlanBlocks.proposalId, proposalId), inArray(nightPlans.state, ["published", "executed"])))
     .orderBy(asc(nightPlanBlocks.startUtc));
   const granted = (await grantedHours(db, { proposalIds: [proposalId] })).get(proposalId) ?? new Map<number, number>();

@@ -13,6 +13,7 @@ import { users } from "~/db/schema/users";
 import { NightPlanPublishedEmail } from "~/emails/NightPlanPublishedEmail";
 import { PLAN_SAFETY_WARNING } from "~/engine";
 import { env } from "~/env.server";
+import { piOfProposal } from "~/lib/joins.server";
 import { enqueueMail } from "~/services/mail/outbox.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 import { planContext, planRequest } from "./candidates";
@@ -60,7 +61,7 @@ export async function publishPlan(
             piEmail: users.email,
           })
           .from(proposals)
-          .innerJoin(users, eq(users.id, proposals.piId))
+          .innerJoin(users, piOfProposal)
           .where(inArray(proposals.id, ids))
       : [];
     const members = ids.length
