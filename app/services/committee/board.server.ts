@@ -5,7 +5,7 @@
  */
 import { and, asc, eq, inArray, isNotNull, sql } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
-import { configurationStations, configurations, sites, stations } from "~/db/schema/array";
+import { configurationStations, stations } from "~/db/schema/array";
 import {
   allocatedHours,
   committeeBoards,
@@ -14,16 +14,10 @@ import {
   reviewAssignments,
   reviews,
 } from "~/db/schema/committee";
-import {
-  cycleConfigurations,
-  cycles,
-  type ProposalStatus,
-  proposalHours,
-  proposals,
-  proposalTargets,
-} from "~/db/schema/proposals";
+import { cycles, type ProposalStatus, proposalHours, proposals, proposalTargets } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
-import { configurationOf, piOfProposal, proposalOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
+import { piOfProposal, proposalOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
+import { offersWithSites } from "~/services/cycles/queries.server";
 import { type Board, computeBoard } from "./board";
 import type { BoardRecords, HoursByConfiguration } from "./board-records";
 import { cycleDarkness } from "./dark-time.server";
@@ -52,18 +46,7 @@ function hoursMap(rows: { proposalId: number; configurationId: number; hours: nu
 
 /** The cycle's offered configurations with their stations and site, in name order. */
 async function offeredConfigurations(db: DbOrTx, cycleId: number) {
-  const offers = await db
-    .select({
-      id: configurations.id,
-      name: configurations.name,
-      nights: cycleConfigurations.nightsAvailable,
-      site: sites,
-    })
-    .from(cycleConfigurations)
-    .innerJoin(configurations, configurationOf(cycleConfigurations.configurationId))
-    .innerJoin(sites, eq(sites.id, configurations.siteId))
-    .where(eq(cycleConfigurations.cycleId, cycleId))
-    .orderBy(asc(configurations.name));
+  const offers = await offersWithSites(db, { cycleId: cycleId });
   const ids = offers.map((o) => o.id);
   const members = ids.length
     ? await db

@@ -1,10 +1,11 @@
 /** Writing observing cycles with their offers and committee, each change in one transaction. */
-import { and, eq, isNotNull, notInArray, sql } from "drizzle-orm";
+import { and, eq, isNotNull, sql } from "drizzle-orm";
 import type { Database, Transaction } from "~/db/client.server";
 import { configurations } from "~/db/schema/array";
 import { committeeMembers, reviewAssignments, reviews } from "~/db/schema/committee";
 import { type CycleState, cycleConfigurations, cycles, proposalHours, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { scopeExcept } from "~/lib/conditions.server";
 import type { FieldErrors } from "~/lib/form-errors";
 import { configurationOf, reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import type { CycleInput } from "./schemas";
@@ -39,11 +40,7 @@ async function writeCommittee(tx: Transaction, cycleId: number, committee: numbe
   if (committee === undefined) return;
   await tx
     .delete(committeeMembers)
-    .where(
-      committee.length
-        ? and(eq(committeeMembers.cycleId, cycleId), notInArray(committeeMembers.userId, committee))
-        : eq(committeeMembers.cycleId, cycleId),
-    );
+    .where(scopeExcept(eq(committeeMembers.cycleId, cycleId), committeeMembers.userId, committee));
   if (committee.length)
     await tx
       .insert(committeeMembers)

@@ -5,33 +5,21 @@
  */
 import { and, desc, eq, sql } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
-import { configurations, sites } from "~/db/schema/array";
 import { auditLog } from "~/db/schema/auth";
 import { reviewAssignments, reviews } from "~/db/schema/committee";
-import { cycleConfigurations, type cycles, proposals } from "~/db/schema/proposals";
+import { type cycles, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { formatUtc } from "~/lib/format";
-import { configurationOf, reviewOfAssignment } from "~/lib/joins.server";
+import { reviewOfAssignment } from "~/lib/joins.server";
 import { cycleDarkness } from "~/services/committee/dark-time.server";
 import { scaleText } from "~/services/committee/scale";
-import { committeeOf } from "./queries.server";
+import { committeeOf, offersWithSites } from "./queries.server";
 import { availableTransitions, STATE_WORDS } from "./states";
 import { guardFacts } from "./transitions.server";
 
 /** Darkness of the period per offered configuration: nights × mean dark hours per night (Sun below −18°). */
 export async function cycleDarknessSummary(db: DbOrTx, cycle: typeof cycles.$inferSelect) {
-  const offers = await db
-    .select({
-      id: configurations.id,
-      name: configurations.name,
-      nights: cycleConfigurations.nightsAvailable,
-      site: sites,
-    })
-    .from(cycleConfigurations)
-    .innerJoin(configurations, configurationOf(cycleConfigurations.configurationId))
-    .innerJoin(sites, eq(sites.id, configurations.siteId))
-    .where(eq(cycleConfigurations.cycleId, cycle.id))
-    .orderBy(configurations.name);
+  const offers = await offersWithSites(db, { cycleId: cycle.id });
   const siteList = [...new Map(offers.map((o) => [o.site.id, o.site])).values()];
   const dark = await cycleDarkness(db, {
     cycleId: cycle.id,

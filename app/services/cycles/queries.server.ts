@@ -1,7 +1,7 @@
 /** Reading observing cycles: their period, deadline and the configurations on offer (with nights). */
 import { and, asc, desc, eq, gt, inArray, type SQL } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
-import { configurations } from "~/db/schema/array";
+import { configurations, sites } from "~/db/schema/array";
 import { committeeMembers } from "~/db/schema/committee";
 import { cycleConfigurations, cycles } from "~/db/schema/proposals";
 import { userRoles, users } from "~/db/schema/users";
@@ -14,6 +14,22 @@ const offerColumns = {
   nightsAvailable: cycleConfigurations.nightsAvailable,
   name: configurations.name,
 };
+
+/** The configurations a cycle offers, with the nights each is available and its site, in name order. */
+export async function offersWithSites(db: DbOrTx, { cycleId }: { cycleId: number }) {
+  return db
+    .select({
+      id: configurations.id,
+      name: configurations.name,
+      nights: cycleConfigurations.nightsAvailable,
+      site: sites,
+    })
+    .from(cycleConfigurations)
+    .innerJoin(configurations, configurationOf(cycleConfigurations.configurationId))
+    .innerJoin(sites, eq(sites.id, configurations.siteId))
+    .where(eq(cycleConfigurations.cycleId, cycleId))
+    .orderBy(asc(configurations.name));
+}
 
 /** The cycles `where` picks (every cycle without), latest observing period first, with their offers by name. */
 async function cyclesWithOffers(db: DbOrTx, where?: SQL) {

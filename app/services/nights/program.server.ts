@@ -27,6 +27,8 @@ export type ProgramNights = { blocks: ProgramBlock[]; hours: ProgramHours[] };
 
 const hoursOf = (b: { startUtc: Date; endUtc: Date }) => (b.endUtc.getTime() - b.startUtc.getTime()) / 3_600_000;
 const round = (x: number) => Math.round(x * 100) / 100;
+/** ISO-8601 UTC, without the milliseconds when there are none. */
+const isoSecond = (d: Date) => d.toISOString().replace(".000Z", "Z");
 
 /** The planned and executed blocks of a proposal and its hours per configuration. */
 export async function programNights(db: DbOrTx, { proposalId }: { proposalId: number }): Promise<ProgramNights> {
@@ -73,17 +75,10 @@ export async function programNights(db: DbOrTx, { proposalId }: { proposalId: nu
     })
     .sort((a, b) => a.configuration.localeCompare(b.configuration));
   return {
-    blocks: rows.map((r) => ({
-      id: r.id,
-      night: r.night,
-      configuration: r.configuration,
-      kind: r.kind,
-      target: r.target,
-      object: r.object,
-      startUtc: r.startUtc.toISOString().replace(".000Z", "Z"),
-      endUtc: r.endUtc.toISOString().replace(".000Z", "Z"),
-      outcome: r.outcome,
-      note: r.note,
+    blocks: rows.map(({ configurationId, startUtc, endUtc, ...block }) => ({
+      ...block,
+      startUtc: isoSecond(startUtc),
+      endUtc: isoSecond(endUtc),
     })),
     hours,
   };
