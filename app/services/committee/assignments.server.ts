@@ -5,7 +5,7 @@
  * declared a conflict, is never picked for it. The preview is computed without writing; saving checks
  * every pair again in one transaction and sends each reviewer one notice.
  */
-import { and, asc, eq, inArray } from "drizzle-orm";
+import { and, asc, eq, inArray, type SQL } from "drizzle-orm";
 import type { Database, DbOrTx } from "~/db/client.server";
 import { auditLog } from "~/db/schema/auth";
 import { committeeMembers, reviewAssignments, reviews } from "~/db/schema/committee";
@@ -232,18 +232,26 @@ export async function saveAssignments(
   return out;
 }
 
+/** The assignments `where` picks with their reviews (if written), locked until the transaction ends. */
+export function lockAssignments(tx: DbOrTx, where: SQL | undefined) {
+  return tx
+    .select({ a: reviewAssignments, review: reviews })
+    .from(reviewAssignments)
+    .leftJoin(reviews, reviewOfAssignment)
+    .where(where)
+    .for("update", { of: reviewAssignments });
+}
+
 /** Takes an assignment back, while nothing has been written in its review. */
 export async function removeAssignment(
   db: Database,
   { cycleId, assignmentId, actorId }: { cycleId: number; assignmentId: number; actorId: number },
 ): Promise<{ ok: true } | { ok: false; message: string }> {
   return db.transaction(async (tx) => {
-    const [row] = await tx
-      .select({ a: reviewAssignments, review: reviews })
-      .from(reviewAssignments)
-      .leftJoin(reviews, reviewOfAssignment)
-      .where(and(eq(reviewAssignments.id, assignmentId), eq(reviewAssignments.cycleId, cycleId)))
-      .for("update", { of: reviewAssignments });
+    const [row] = await lockAssignments(
+      tx,
+      and(eq(reviewAssignments.id, assignmentId), eq(reviewAssignments.cycleId, cycleId)),
+    );
     if (!row) return { ok: false, message: "No such assignment in this cycle." };
     if (row.review) return { ok: false, message: "The reviewer has started this review; it stays." };
     await tx.delete(reviewAssignments).where(eq(reviewAssignments.id, assignmentId));

@@ -11,7 +11,7 @@ import { cycles, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { proposalOfAssignment, reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
-import { reviewProgress } from "./assignments.server";
+import { lockAssignments, reviewProgress } from "./assignments.server";
 import { BOARD_STATUSES } from "./board.server";
 import { conflictsOf, conflictText } from "./conflicts.server";
 import { queueReminder } from "./notices.server";
@@ -143,12 +143,10 @@ export async function declareConflict(
       return { ok: false, message: "Proposal: not one of this cycle's submitted proposals." };
     if (!CONFLICT_STATES.has(row.cycle.state))
       return { ok: false, message: "Conflicts are declared until the review closes." };
-    const [a] = await tx
-      .select({ a: reviewAssignments, review: reviews })
-      .from(reviewAssignments)
-      .leftJoin(reviews, reviewOfAssignment)
-      .where(and(eq(reviewAssignments.proposalId, proposalId), eq(reviewAssignments.reviewerId, reviewerId)))
-      .for("update", { of: reviewAssignments });
+    const [a] = await lockAssignments(
+      tx,
+      and(eq(reviewAssignments.proposalId, proposalId), eq(reviewAssignments.reviewerId, reviewerId)),
+    );
     if (a?.review?.submittedAt)
       return { ok: false, message: "You have submitted a review of this proposal; tell the chair about the conflict." };
     await tx
