@@ -1,5 +1,12 @@
-/** `where` conditions that recur across the services' writes. */
-import { and, type Column, notInArray, type SQL } from "drizzle-orm";
+/** `where` conditions that recur across the services' queries and writes. */
+import { and, type Column, eq, isNotNull, notInArray, type SQL } from "drizzle-orm";
+import { reviewAssignments, reviews } from "~/db/schema/committee";
+
+/** An assignment in force: not declined. */
+export const activeAssignment = eq(reviewAssignments.status, "active");
+
+/** A review its reviewer has submitted (drafts are the reviewer's own). */
+export const submittedReview = isNotNull(reviews.submittedAt);
 
 /**
  * The rows `scope` picks except those whose `column` is one of `keep` (every row of the scope when

@@ -16,6 +16,7 @@ import {
 } from "~/db/schema/committee";
 import { cycles, type ProposalStatus, proposalHours, proposals, proposalTargets } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { activeAssignment, submittedReview } from "~/lib/conditions.server";
 import { piOfProposal, proposalOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import { offersWithSites } from "~/services/cycles/queries.server";
 import { type Board, computeBoard } from "./board";
@@ -126,7 +127,7 @@ export async function loadBoardRecords(db: DbOrTx, { cycleId }: { cycleId: numbe
       })
       .from(reviewAssignments)
       .leftJoin(reviews, reviewOfAssignment)
-      .where(and(eq(reviewAssignments.cycleId, cycleId), eq(reviewAssignments.status, "active")))
+      .where(and(eq(reviewAssignments.cycleId, cycleId), activeAssignment))
       .groupBy(reviewAssignments.proposalId),
     db
       .select({
@@ -137,7 +138,7 @@ export async function loadBoardRecords(db: DbOrTx, { cycleId }: { cycleId: numbe
       .from(reviews)
       .innerJoin(reviewAssignments, reviewOfAssignment)
       .innerJoin(proposals, proposalOfAssignment)
-      .where(and(inCycle, isNotNull(reviews.submittedAt), isNotNull(reviews.score)))
+      .where(and(inCycle, submittedReview, isNotNull(reviews.score)))
       .orderBy(asc(reviewAssignments.id)),
     db.select().from(proposalDecisions).where(eq(proposalDecisions.cycleId, cycleId)),
     db

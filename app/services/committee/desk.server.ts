@@ -9,6 +9,7 @@ import { auditLog } from "~/db/schema/auth";
 import { committeeMembers, reviewAssignments, reviewConflicts, reviews } from "~/db/schema/committee";
 import { cycles, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { activeAssignment } from "~/lib/conditions.server";
 import { proposalOfAssignment, reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 import { lockAssignments, reviewProgress } from "./assignments.server";
@@ -207,13 +208,7 @@ export async function sendReminders(
       .innerJoin(proposals, proposalOfAssignment)
       .innerJoin(users, reviewerOfAssignment)
       .leftJoin(reviews, reviewOfAssignment)
-      .where(
-        and(
-          eq(reviewAssignments.cycleId, cycleId),
-          eq(reviewAssignments.status, "active"),
-          isNull(reviews.submittedAt),
-        ),
-      )
+      .where(and(eq(reviewAssignments.cycleId, cycleId), activeAssignment, isNull(reviews.submittedAt)))
       .orderBy(asc(users.id), asc(proposals.title));
     const byReviewer = new Map<number, typeof pending>();
     for (const p of pending) byReviewer.set(p.reviewer.id, [...(byReviewer.get(p.reviewer.id) ?? []), p]);

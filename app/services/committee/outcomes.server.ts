@@ -12,6 +12,7 @@ import { configurations } from "~/db/schema/array";
 import { allocatedHours, proposalDecisions, reviewAssignments, reviews } from "~/db/schema/committee";
 import { type CalibratorJson, cycles, proposals, proposalTargets } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { activeAssignment, submittedReview } from "~/lib/conditions.server";
 import { configurationOf, piOfProposal, reviewOfAssignment } from "~/lib/joins.server";
 
 export const DECISION_WORDS = { accept: "Accepted", waitlist: "Waiting list", decline: "Not accepted" } as const;
@@ -52,13 +53,7 @@ export async function decisionForTeam(
       .select({ text: reviews.commentToPi })
       .from(reviews)
       .innerJoin(reviewAssignments, reviewOfAssignment)
-      .where(
-        and(
-          eq(reviewAssignments.proposalId, proposalId),
-          eq(reviewAssignments.status, "active"),
-          isNotNull(reviews.submittedAt),
-        ),
-      )
+      .where(and(eq(reviewAssignments.proposalId, proposalId), activeAssignment, submittedReview))
       .orderBy(asc(reviewAssignments.id)),
   ]);
   const kind = row.decision.decision;

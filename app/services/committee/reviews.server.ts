@@ -7,12 +7,13 @@
  * instead of overwriting it. The first save inserts with ON CONFLICT DO NOTHING, so two first saves at
  * once also end with one stored and one refused. Saves of different reviews never wait on each other.
  */
-import { and, asc, eq, isNotNull, ne } from "drizzle-orm";
+import { and, asc, eq, ne } from "drizzle-orm";
 import type { Database, DbOrTx } from "~/db/client.server";
 import { auditLog } from "~/db/schema/auth";
 import { reviewAssignments, reviews } from "~/db/schema/committee";
 import { cycles } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { activeAssignment, submittedReview } from "~/lib/conditions.server";
 import { reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import { scoringClosedBecause } from "~/services/cycles/states";
 import { onScale } from "./scale";
@@ -132,8 +133,8 @@ export async function othersReviews(
       and(
         eq(reviewAssignments.proposalId, proposalId),
         ne(reviewAssignments.reviewerId, reviewerId),
-        eq(reviewAssignments.status, "active"),
-        isNotNull(reviews.submittedAt),
+        activeAssignment,
+        submittedReview,
       ),
     )
     .orderBy(asc(reviewAssignments.id));

@@ -5,7 +5,7 @@ import { configurations } from "~/db/schema/array";
 import { committeeMembers, reviewAssignments, reviews } from "~/db/schema/committee";
 import { type CycleState, cycleConfigurations, cycles, proposalHours, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
-import { scopeExcept } from "~/lib/conditions.server";
+import { activeAssignment, scopeExcept } from "~/lib/conditions.server";
 import type { FieldErrors } from "~/lib/form-errors";
 import { configurationOf, reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import type { CycleInput } from "./schemas";
@@ -100,7 +100,7 @@ async function committeeRefusals(tx: Transaction, cycleId: number, input: CycleI
       .selectDistinct({ id: users.id, name: users.name })
       .from(reviewAssignments)
       .innerJoin(users, reviewerOfAssignment)
-      .where(and(eq(reviewAssignments.cycleId, cycleId), eq(reviewAssignments.status, "active")));
+      .where(and(eq(reviewAssignments.cycleId, cycleId), activeAssignment));
     const leaving = busy.filter((b) => !input.committee!.includes(b.id));
     if (leaving.length)
       errors.committee = `Committee: ${leaving.map((l) => l.name).join(", ")} still ${leaving.length === 1 ? "has" : "have"} assignments; reassign them first`;

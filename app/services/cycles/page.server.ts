@@ -9,6 +9,7 @@ import { auditLog } from "~/db/schema/auth";
 import { reviewAssignments, reviews } from "~/db/schema/committee";
 import { type cycles, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { activeAssignment } from "~/lib/conditions.server";
 import { formatUtc } from "~/lib/format";
 import { reviewOfAssignment } from "~/lib/joins.server";
 import { cycleDarkness } from "~/services/committee/dark-time.server";
@@ -84,7 +85,7 @@ export async function cyclePage(db: DbOrTx, { cycle, now }: { cycle: typeof cycl
       .select({ assigned: sql<number>`count(*)::int`, submitted: sql<number>`count(${reviews.submittedAt})::int` })
       .from(reviewAssignments)
       .leftJoin(reviews, reviewOfAssignment)
-      .where(and(eq(reviewAssignments.cycleId, cycle.id), eq(reviewAssignments.status, "active"))),
+      .where(and(eq(reviewAssignments.cycleId, cycle.id), activeAssignment)),
     cycleLog(db, { cycleId: cycle.id }),
   ]);
   return {
