@@ -5,35 +5,15 @@
  * own check that the viewer may see the proposal.
  */
 import { Badge, type BadgeTone, Card, type Column, DataTable } from "~/components/ui";
+import type { ProgramBlock, ProgramHours } from "~/services/nights/program.server";
 
-export type ProgramBlockRow = {
-  id: number;
-  night: string;
-  configuration: string;
-  kind: "calibrator" | "science";
-  target: string;
-  object: string;
-  startUtc: string;
-  endUtc: string;
-  outcome: "planned" | "executed" | "weather" | "technical";
-  note: string;
-};
-
-export type ProgramHoursRow = {
-  configuration: string;
-  grantedHours: number;
-  plannedHours: number;
-  executedHours: number;
-  owedHours: number;
-};
-
-const TONE: Record<ProgramBlockRow["outcome"], BadgeTone> = {
+const TONE: Record<ProgramBlock["outcome"], BadgeTone> = {
   planned: "info",
   executed: "ok",
   weather: "caution",
   technical: "danger",
 };
-const WORDS: Record<ProgramBlockRow["outcome"], string> = {
+const WORDS: Record<ProgramBlock["outcome"], string> = {
   planned: "planned",
   executed: "executed",
   weather: "lost to weather",
@@ -42,7 +22,7 @@ const WORDS: Record<ProgramBlockRow["outcome"], string> = {
 
 const time = (iso: string) => `${iso.slice(11, 16)}`;
 
-const hourColumns: Column<ProgramHoursRow>[] = [
+const hourColumns: Column<ProgramHours>[] = [
   { key: "configuration", header: "Configuration", value: (r) => r.configuration },
   { key: "granted", header: "Granted", unit: "h", align: "right", value: (r) => r.grantedHours },
   { key: "planned", header: "Planned", unit: "h", align: "right", value: (r) => r.plannedHours },
@@ -50,7 +30,7 @@ const hourColumns: Column<ProgramHoursRow>[] = [
   { key: "owed", header: "Still owed", unit: "h", align: "right", value: (r) => r.owedHours },
 ];
 
-const blockColumns: Column<ProgramBlockRow>[] = [
+const blockColumns: Column<ProgramBlock>[] = [
   { key: "night", header: "Night", value: (b) => b.night },
   {
     key: "start",
@@ -84,7 +64,7 @@ const blockColumns: Column<ProgramBlockRow>[] = [
 ];
 
 /** Planned and executed blocks of a program, with its hours per configuration. */
-export function ProgramBlocks({ blocks, hours }: { blocks: ProgramBlockRow[]; hours: ProgramHoursRow[] }) {
+export function ProgramBlocks({ blocks, hours }: { blocks: ProgramBlock[]; hours: ProgramHours[] }) {
   return (
     <Card title="Nights: planned and executed blocks">
       <p className="mb-3 text-sm text-night-600">
