@@ -11,14 +11,6 @@ import type { RegistryEntity } from "./queries.server";
 /** What happened to a registry record. */
 export type RegistryChange = "created" | "updated" | "deleted";
 
-/** The action names registry rows carry in audit_log, "registry.<change>" or "registry.imported". */
-export const REGISTRY_ACTIONS = [
-  "registry.created",
-  "registry.updated",
-  "registry.deleted",
-  "registry.imported",
-] as const;
-
 /** One record of the registry changed by `actorId`: its kind, id and name go in the row's detail. */
 export async function auditRegistryChange(
   tx: DbOrTx,
