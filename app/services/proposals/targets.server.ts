@@ -11,10 +11,13 @@ import { proposalNotFound } from "./access.server";
 import { editDraft, type ProposalRef, ProposalRefusal } from "./lock.server";
 import { PROPOSAL_LIMITS } from "./schemas";
 
-/** What a proposal says of one target: its own copy of the coordinates, model and magnitudes, and the constraints. */
+/**
+ * What a proposal says of one target: its own copy of the coordinates, model and magnitudes, and the
+ * constraints (the closure triangle is chosen apart, in the Triangle finder: `chooseTriangle`).
+ */
 export type TargetFields = Omit<
   typeof proposalTargets.$inferSelect,
-  "id" | "proposalId" | "position" | "sourceTargetId"
+  "id" | "proposalId" | "position" | "sourceTargetId" | "closureTriangle"
 >;
 
 type TargetRef = ProposalRef & { targetId: number };
