@@ -3,6 +3,7 @@
  * add it to one of her drafts through the dialog, remove it after a dialog that Escape cancels; the
  * edit page links back to the list; the list fits 360 px.
  */
+import type { Page } from "playwright-core";
 import { describe, expect, inject, it } from "vitest";
 import { screenshot, signedInPage, useBrowser } from "./browser";
 
@@ -11,16 +12,21 @@ const browser = useBrowser();
 const PERSON = "Amara Okafor";
 const DRAFT = "A dust ring around Altiplano Halo 5";
 
+/** Adds a point source to My targets through the page's form. */
+async function addTarget(page: Page, name: string, ra: string, dec: string) {
+  await page.goto(`${baseUrl}/targets`);
+  await page.getByLabel("Name").fill(name);
+  await page.getByLabel("Right ascension").fill(ra);
+  await page.getByLabel("Declination").fill(dec);
+  await page.getByLabel("Model").selectOption("point");
+  await page.getByRole("button", { name: "Add target" }).click();
+  await page.getByText(`${name} added to My targets.`).waitFor();
+}
+
 describe("My targets' row actions", () => {
   it("open in the Sketchpad and back, add to a draft, remove after confirming", async () => {
     const { context, page, seen } = await signedInPage(browser, PERSON, { viewport: { width: 1366, height: 900 } });
-    await page.goto(`${baseUrl}/targets`);
-    await page.getByLabel("Name").fill("Harmattan Veil 3");
-    await page.getByLabel("Right ascension").fill("10:01:00");
-    await page.getByLabel("Declination").fill("-30:30:00");
-    await page.getByLabel("Model").selectOption("point");
-    await page.getByRole("button", { name: "Add target" }).click();
-    await page.getByText("Harmattan Veil 3 added to My targets.").waitFor();
+    await addTarget(page, "Harmattan Veil 3", "10:01:00", "-30:30:00");
     const row = () =>
       page.getByRole("table", { name: "My targets" }).locator("tbody tr", { hasText: "Harmattan Veil 3" });
     await screenshot(page, "targets-row-actions");
@@ -28,6 +34,8 @@ describe("My targets' row actions", () => {
     // The Sketchpad opens on the target and links back.
     await row().getByRole("link", { name: "Open Harmattan Veil 3 in Sketchpad" }).click();
     await page.waitForURL(/\/sketchpad\?/);
+    // The list's own form (with the same text typed) is gone once the Sketchpad's heading shows.
+    await page.getByRole("heading", { level: 1, name: "Sketchpad" }).waitFor();
     await expect(page.getByLabel("Name").inputValue()).resolves.toBe("Harmattan Veil 3");
     await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("10:01:00.00");
     await page.getByText(/^Up to date/).waitFor({ timeout: 30_000 });
@@ -65,13 +73,7 @@ describe("My targets' row actions", () => {
 
   it("the edit page links back to the list, and the list fits a 360 px wide screen", async () => {
     const { context, page, seen } = await signedInPage(browser, PERSON, { viewport: { width: 360, height: 780 } });
-    await page.goto(`${baseUrl}/targets`);
-    await page.getByLabel("Name").fill("Harmattan Veil 4");
-    await page.getByLabel("Right ascension").fill("11:00:00");
-    await page.getByLabel("Declination").fill("-36:00:00");
-    await page.getByLabel("Model").selectOption("point");
-    await page.getByRole("button", { name: "Add target" }).click();
-    await page.getByText("Harmattan Veil 4 added to My targets.").waitFor();
+    await addTarget(page, "Harmattan Veil 4", "11:00:00", "-36:00:00");
     const overflow = await page.evaluate(
       () => document.documentElement.scrollWidth - document.documentElement.clientWidth,
     );

@@ -39,6 +39,9 @@ beforeAll(async () => {
 
 const post = (fields: Record<string, string>) =>
   settle(() => listAction(routeArgs("/targets", formPost(fields, { Cookie: ines }))));
+/** The confirmed "Add to a proposal" of the target, to Inés's draft. */
+const addToDraft = (targetId: number) =>
+  post({ intent: "add-to-proposal", confirm: "yes", targetId: String(targetId), proposalId: String(draftId) });
 const newTarget = (name: string) =>
   createTarget(testDb(), inesId, {
     name,
@@ -80,12 +83,7 @@ describe("My targets' row actions", () => {
 
   it("add a target to one of the person's drafts, as the proposal editor's “From my targets” does", async () => {
     const mine = await newTarget("Brasa Field 4");
-    const res = await post({
-      intent: "add-to-proposal",
-      confirm: "yes",
-      targetId: String(mine.id),
-      proposalId: String(draftId),
-    });
+    const res = await addToDraft(mine.id);
     expect(res.status).toBe(302);
     const [copy] = await copiesIn(draftId, "Brasa Field 4");
     expect(copy).toMatchObject({
@@ -95,12 +93,7 @@ describe("My targets' row actions", () => {
       closureTriangle: null,
     });
     // A second copy of the same name is refused on the proposal's own rule.
-    const again = await post({
-      intent: "add-to-proposal",
-      confirm: "yes",
-      targetId: String(mine.id),
-      proposalId: String(draftId),
-    });
+    const again = await addToDraft(mine.id);
     expect(again.status).toBe(400);
     expect((await again.json()).rowError).toBe(
       'Proposal: Name: the proposal already has a target called "Brasa Field 4".',
