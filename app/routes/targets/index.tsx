@@ -110,7 +110,15 @@ export default function Targets({ loaderData, actionData }: Route.ComponentProps
         {loaderData.targets.length === 0 ? (
           <EmptyState title="No targets yet">Add one below or import a CSV list.</EmptyState>
         ) : (
-          <DataTable caption="My targets" columns={columns} rows={loaderData.targets} rowKey={(t) => t.id} />
+          <>
+            <DataTable caption="My targets" columns={columns} rows={loaderData.targets} rowKey={(t) => t.id} />
+            {loaderData.drafts.length === 0 ? (
+              <p className="mt-3 text-sm text-night-600">
+                “Add to a proposal” needs a draft of yours whose cycle's deadline is still ahead; start one under
+                Proposals.
+              </p>
+            ) : null}
+          </>
         )}
       </Card>
       <TargetEditor
