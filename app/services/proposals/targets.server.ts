@@ -12,10 +12,13 @@ import { editDraft, type ProposalRef, ProposalRefusal } from "./lock.server";
 import { type ObservingPeriod, observingPeriodText, windowInsidePeriod } from "./period";
 import { PROPOSAL_LIMITS } from "./schemas";
 
-/** What a proposal says of one target: its own copy of the coordinates, model and magnitudes, and the constraints. */
+/**
+ * What a proposal says of one target: its own copy of the coordinates, model and magnitudes, and the
+ * constraints (the closure triangle is chosen apart, in the Triangle finder: `chooseTriangle`).
+ */
 export type TargetFields = Omit<
   typeof proposalTargets.$inferSelect,
-  "id" | "proposalId" | "position" | "sourceTargetId"
+  "id" | "proposalId" | "position" | "sourceTargetId" | "closureTriangle"
 >;
 
 type TargetRef = ProposalRef & { targetId: number };

@@ -37,13 +37,18 @@ const readConfiguration = (form: FormData): editor.FormValues => ({
   offered: form.get("offered") === "on" ? "on" : "off",
 });
 
-function save(db: Database, values: editor.FormValues, siteId: number, configuration: Configuration | null) {
+function save(
+  { db, actorId }: editor.Admin,
+  values: editor.FormValues,
+  siteId: number,
+  configuration: Configuration | null,
+) {
   return editor.saveRecord(db, values, {
     schema: ConfigurationSchema,
     unique: { entity: "configuration", scopeId: siteId, exceptId: configuration?.id },
     taken: async (name) => `${name} is already a configuration at ${await editor.siteName(db, siteId)}`,
     write: async (record) => {
-      const saved = await saveConfiguration(db, { siteId, id: configuration?.id, values: record });
+      const saved = await saveConfiguration(db, { actorId, siteId, id: configuration?.id, values: record });
       if (!saved.ok) {
         const unknown = saved.unknownStations;
         const are = unknown.length > 1 ? "are not stations" : "is not a station";
@@ -62,9 +67,9 @@ function save(db: Database, values: editor.FormValues, siteId: number, configura
 }
 
 /** Deletes the configuration; its stations stay. Refused while proposals or cycles refer to it. */
-const removeConfiguration = ({ db, row }: editor.Post<Configuration>) =>
+const removeConfiguration = ({ form: _form, row, ...who }: editor.Post<Configuration>) =>
   editor.deleteUnlessReferenced(
-    db,
+    who,
     { entity: "configuration", id: row.id },
     `${row.name} is still referred to elsewhere (for example by proposals or a cycle); withdraw it from those first, or untick “Offered” instead`,
     { to: overviewHref(row.siteId), text: `Configuration ${row.name} deleted.` },

@@ -26,14 +26,19 @@ export async function editStationLoader(args: LoaderFunctionArgs) {
   return { station, siteName: map.siteName, usedBy, stations: map.stations };
 }
 
-function saveStation(db: Database, values: editor.FormValues, siteId: number, station: Station | null) {
+function saveStation(
+  { db, actorId }: editor.Admin,
+  values: editor.FormValues,
+  siteId: number,
+  station: Station | null,
+) {
   return editor.saveRecord(db, values, {
     schema: StationSchema,
     unique: { entity: "station", scopeId: siteId, exceptId: station?.id },
     taken: async (name) => `${name} is already a station at ${await editor.siteName(db, siteId)}`,
     write: async (record) => {
-      if (!station) await insertRecord(db, { entity: "station", values: { ...record, siteId } });
-      else await updateRecord(db, { entity: "station", id: station.id, values: record });
+      if (!station) await insertRecord(db, { actorId, entity: "station", values: { ...record, siteId } });
+      else await updateRecord(db, { actorId, entity: "station", id: station.id, values: record });
       const text = `Station ${record.name} ${station ? "saved" : "added"}.`;
       return { to: station ? stationHref(station.id) : overviewHref(siteId), text };
     },
@@ -41,8 +46,8 @@ function saveStation(db: Database, values: editor.FormValues, siteId: number, st
 }
 
 /** Deletes the station, unless a configuration uses it: then says which, and deletes nothing. */
-async function removeStation({ db, row: station }: { db: Database; row: Station }) {
-  const result = await deleteStation(db, { stationId: station.id });
+async function removeStation({ db, actorId, row: station }: editor.Post<Station>) {
+  const result = await deleteStation(db, { actorId, stationId: station.id });
   if (result.deleted)
     return editor.sendOn({ to: overviewHref(station.siteId), text: `Station ${station.name} deleted.` });
   const many = result.usedBy.length > 1;
