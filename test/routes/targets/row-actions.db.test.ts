@@ -92,12 +92,10 @@ describe("My targets' row actions", () => {
       notes: "from the list",
       closureTriangle: null,
     });
-    // A second copy of the same name is refused on the proposal's own rule.
+    // A second copy of the same target is refused on the proposal editor's own rule.
     const again = await addToDraft(mine.id);
     expect(again.status).toBe(400);
-    expect((await again.json()).rowError).toBe(
-      'Proposal: Name: the proposal already has a target called "Brasa Field 4".',
-    );
+    expect((await again.json()).rowError).toBe("Proposal: From my targets: Brasa Field 4 is already on the proposal.");
     expect(await copiesIn(draftId, "Brasa Field 4")).toHaveLength(1);
   });
 
