@@ -1,6 +1,4 @@
-import { sql } from "drizzle-orm";
 import {
-  check,
   doublePrecision,
   index,
   integer,
@@ -13,9 +11,9 @@ import {
   timestamp,
   uniqueIndex,
 } from "drizzle-orm/pg-core";
-import { configurations, sites } from "./array";
+import { sites } from "./array";
 import { optionalRefTo, refTo, timestamps } from "./columns";
-import { cycles, proposals } from "./proposals";
+import { cycles, hoursPerConfiguration, proposals } from "./proposals";
 import { users } from "./users";
 
 /**
@@ -150,18 +148,7 @@ export const proposalDecisions = pgTable(
  * Hours granted to an accepted proposal per configuration: the input of the night plans (each target of
  * the proposal owes its share of its configuration's hours).
  */
-export const allocatedHours = pgTable(
-  "allocated_hours",
-  {
-    proposalId: refTo(() => proposals.id),
-    configurationId: refTo(() => configurations.id, "restrict"),
-    hours: doublePrecision("hours").notNull(),
-  },
-  (t) => [
-    primaryKey({ columns: [t.proposalId, t.configurationId] }),
-    check("allocated_hours_positive", sql`${t.hours} > 0`),
-  ],
-);
+export const allocatedHours = hoursPerConfiguration("allocated_hours");
 
 /**
  * The darkness of a cycle's period at one site, as the engine computed it (every night, 24 LST bins),

@@ -167,19 +167,24 @@ export const proposalMembers = pgTable(
   (t) => [uniqueIndex("proposal_members_email_key").on(t.proposalId, sql`lower(${t.email})`)],
 );
 
+/**
+ * Hours of a proposal per configuration (one row a configuration, more than 0 h): what it requests
+ * (proposal_hours) or what the committee grants it (allocated_hours).
+ */
+export function hoursPerConfiguration<TName extends string>(name: TName) {
+  return pgTable(
+    name,
+    {
+      proposalId: refTo(() => proposals.id),
+      configurationId: refTo(() => configurations.id, "restrict"),
+      hours: doublePrecision("hours").notNull(),
+    },
+    (t) => [primaryKey({ columns: [t.proposalId, t.configurationId] }), check(`${name}_positive`, sql`${t.hours} > 0`)],
+  );
+}
+
 /** Hours requested per configuration. */
-export const proposalHours = pgTable(
-  "proposal_hours",
-  {
-    proposalId: refTo(() => proposals.id),
-    configurationId: refTo(() => configurations.id, "restrict"),
-    hours: doublePrecision("hours").notNull(),
-  },
-  (t) => [
-    primaryKey({ columns: [t.proposalId, t.configurationId] }),
-    check("proposal_hours_positive", sql`${t.hours} > 0`),
-  ],
-);
+export const proposalHours = hoursPerConfiguration("proposal_hours");
 
 /**
  * The targets of a proposal. Coordinates, model and magnitudes are copied in (from "My targets" or
