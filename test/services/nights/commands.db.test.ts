@@ -1,3 +1,4 @@
+import { nightSettings } from "@test/nights";
 import { testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -174,13 +175,7 @@ describe("building a night", () => {
     const saved = await savePlanSettings(testDb(), {
       date: NIGHT,
       userId: null,
-      settings: {
-        minElevationDeg: 30,
-        moonMinSeparationDeg: 10,
-        sunMinSeparationDeg: 45,
-        scienceBlockMin: 40,
-        calibratorBlockMin: 15,
-      },
+      settings: nightSettings(),
     });
     expect(saved.ok).toBe(true);
     expect(await run(NIGHT, NIGHT, fx.configurationIds.compact)).toMatchObject({ ok: false, status: 409 });
