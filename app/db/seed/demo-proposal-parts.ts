@@ -131,3 +131,21 @@ export function inCycle(
 ): DemoProposal[] {
   return entries.map((e) => ({ instrument: "Brasa", ...defaults, ...e, cycle }));
 }
+
+/** Who writes a demo proposal: its title, PI, co-investigators (e-mails) and science category. */
+type Heading = [title: string, pi: string, coInvestigators: string[], scienceCategory: string];
+/** What it asks for: the band and the hours per configuration. */
+type Ask = [band: string, hours: Record<string, number>];
+type Outcome = Partial<Pick<DemoProposal, "instrument" | "pdf" | "status">> &
+  Pick<DemoProposal, "submittedDaysBeforeDeadline" | "quality" | "decision">;
+
+/** One entry of a cycle's list: heading, abstract, request, targets, then what differs from the cycle's defaults. */
+export function entry(
+  [title, pi, coInvestigators, scienceCategory]: Heading,
+  abstract: string,
+  [band, hours]: Ask,
+  targets: DemoProposalTarget[],
+  outcome: Outcome = {},
+): DemoEntry {
+  return { title, pi, coInvestigators, scienceCategory, abstract, band, hours, targets, ...outcome };
+}
