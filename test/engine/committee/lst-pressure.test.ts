@@ -1,3 +1,4 @@
+import { skyPositionArbitraries } from "@test/random";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
@@ -143,8 +144,7 @@ describe("LST pressure", () => {
       fc.property(
         fc.array(
           fc.record({
-            raDeg: fc.double({ min: 0, max: 359.9, noNaN: true }),
-            decDeg: fc.double({ min: -89, max: 60, noNaN: true }),
+            ...skyPositionArbitraries(),
             hours: fc.double({ min: 0, max: 50, noNaN: true }),
             configuration: fc.constantFrom("compact", "wide"),
           }),

@@ -33,7 +33,17 @@ const { response, bytes, hdus } = build();
 const byName = (name: string) => hdus.find((h) => h.get("EXTNAME") === name) as Hdu;
 
 /** Expects the columns of an OIFITS 2 table with their TFORM letter, repeat and unit. */
-function expectColumns(hdu: Hdu, spec: [string, string, number | "NWAVE", string?][], nwave: number) {
+type ColumnSpec = [string, string, number | "NWAVE", string?];
+
+/** The columns every data table (OI_VIS2, OI_T3) begins with: which target, and when (Tables 6 and 8). */
+const WHEN_COLUMNS: ColumnSpec[] = [
+  ["TARGET_ID", "I", 1],
+  ["TIME", "D", 1, "s"],
+  ["MJD", "D", 1, "day"],
+  ["INT_TIME", "D", 1, "s"],
+];
+
+function expectColumns(hdu: Hdu, spec: ColumnSpec[], nwave: number) {
   const cols = columns(hdu);
   for (const [name, code, repeat, unit] of spec) {
     const c = cols.find((x) => x.name === name);
@@ -216,10 +226,7 @@ describe("OIFITS 2 layout (Duvert, Young & Hummel 2017, A&A 597, A8)", () => {
     expectColumns(
       byName("OI_VIS2"),
       [
-        ["TARGET_ID", "I", 1],
-        ["TIME", "D", 1, "s"],
-        ["MJD", "D", 1, "day"],
-        ["INT_TIME", "D", 1, "s"],
+        ...WHEN_COLUMNS,
         ["VIS2DATA", "D", "NWAVE"],
         ["VIS2ERR", "D", "NWAVE"],
         ["UCOORD", "D", 1, "m"],
@@ -233,10 +240,7 @@ describe("OIFITS 2 layout (Duvert, Young & Hummel 2017, A&A 597, A8)", () => {
     expectColumns(
       byName("OI_T3"),
       [
-        ["TARGET_ID", "I", 1],
-        ["TIME", "D", 1, "s"],
-        ["MJD", "D", 1, "day"],
-        ["INT_TIME", "D", 1, "s"],
+        ...WHEN_COLUMNS,
         ["T3AMP", "D", "NWAVE"],
         ["T3AMPERR", "D", "NWAVE"],
         ["T3PHI", "D", "NWAVE", "deg"],
