@@ -5,6 +5,7 @@
  * added; bad settings get their field's message. Screenshots at 1366 and 360 px.
  */
 import { and, eq } from "drizzle-orm";
+import type { Locator, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDatabase } from "~/db/client.server";
 import { proposals, proposalTargets } from "~/db/schema/proposals";
@@ -38,6 +39,21 @@ async function demoDraftTarget() {
   return { ...row, path: `/proposals/${row.proposalId}/targets/${row.targetId}` };
 }
 
+/**
+ * Picks Betelgeuse from the name field's suggestions with the keyboard, checks the coordinates it fills
+ * in, and gives the field's status line (the star's designations and magnitudes).
+ */
+async function pickBetelgeuse(page: Page, name: Locator) {
+  await name.press("ArrowDown");
+  await name.press("Enter");
+  await expect(name.inputValue()).resolves.toBe("Betelgeuse");
+  // stars.8.json, HIP 27989: RA 88.7929° = 05h55m10.30s, Dec +7.4071° = +07°24′25.6″.
+  await page.getByText("Coordinates filled in.").waitFor();
+  await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("05:55:10.30");
+  await expect(page.getByLabel("Declination").inputValue()).resolves.toBe("+07:24:25.6");
+  return page.locator(`#${await name.getAttribute("id")}-status`);
+}
+
 describe("star catalogue", () => {
   it("a proposer types a star's name in My targets, picks the suggestion and sees the star resolved", async () => {
     const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", WIDE);
@@ -48,14 +64,7 @@ describe("star catalogue", () => {
     await option.waitFor();
     await screenshot(page, "catalogue-name-suggestions-1366");
     // Keyboard: down to the first suggestion, Enter picks it.
-    await name.press("ArrowDown");
-    await name.press("Enter");
-    await expect(name.inputValue()).resolves.toBe("Betelgeuse");
-    // stars.8.json, HIP 27989: RA 88.7929° = 05h55m10.30s, Dec +7.4071° = +07°24′25.6″.
-    await page.getByText("Coordinates filled in.").waitFor();
-    await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("05:55:10.30");
-    await expect(page.getByLabel("Declination").inputValue()).resolves.toBe("+07:24:25.6");
-    const facts = page.locator(`#${await name.getAttribute("id")}-status`);
+    const facts = await pickBetelgeuse(page, name);
     await expect(facts.textContent()).resolves.toMatch(/α Ori · 58 Ori · HD 39801 · HIP 27989/);
     await expect(facts.textContent()).resolves.toMatch(/V 0\.45 · B−V 1\.50/);
     await screenshot(page, "catalogue-name-resolved-1366");
@@ -92,14 +101,7 @@ describe("star catalogue", () => {
       .getByRole("option", { name: /Betelgeuse/ })
       .first()
       .waitFor();
-    await name.press("ArrowDown");
-    await name.press("Enter");
-    await expect(name.inputValue()).resolves.toBe("Betelgeuse");
-    // stars.8.json, HIP 27989: RA 88.7929° = 05h55m10.30s, Dec +7.4071° = +07°24′25.6″ (as in My targets).
-    await page.getByText("Coordinates filled in.").waitFor();
-    await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("05:55:10.30");
-    await expect(page.getByLabel("Declination").inputValue()).resolves.toBe("+07:24:25.6");
-    const facts = page.locator(`#${await name.getAttribute("id")}-status`);
+    const facts = await pickBetelgeuse(page, name);
     await expect(facts.textContent()).resolves.toMatch(/HD 39801/);
     // The sketch follows the star, and its top calibrators are listed with a link to the full shortlist.
     await page.getByText(/^Up to date/).waitFor({ timeout: 30_000 });
