@@ -4,6 +4,7 @@ import type { Role } from "~/db/schema/users";
 import { ensureUser } from "~/db/seed/factories.server";
 import type { Viewer } from "~/lib/guards.server";
 import { permissionsFor } from "~/lib/permissions";
+import { startPreviews } from "~/services/imaging/commands.server";
 import { binaryTarget, demoSite } from "./demo-array";
 
 /** Six stations on two rings (invented), 15 baselines of 20–110 m in many directions. */
@@ -48,4 +49,14 @@ export async function viewerWith(db: Database, email: string, roles: Role[]): Pr
     via: "session",
     scopes: null,
   };
+}
+
+/** `viewer` asks for an imaging preview of a Sketchpad coverage (the test one unless given), with `settings` if any. */
+export function startSketchPreview(
+  db: Database,
+  viewer: Viewer,
+  settings?: Record<string, unknown>,
+  coverage = imagingCoverage(),
+) {
+  return startPreviews(db, { viewer, json: { source: { kind: "sketch", coverage }, ...(settings && { settings }) } });
 }
