@@ -13,6 +13,7 @@ import { cpus, loadavg } from "node:os";
 import { fileURLToPath } from "node:url";
 import { RouterContextProvider } from "react-router";
 import { adminQuery, clusterUrl, dropDatabase, ensureCluster, uniqueName, withDatabase } from "../test/setup/pg";
+import { rng as generator } from "../test/support/random";
 
 const N_PROPOSALS = 300;
 const N_REVIEWERS = 25;
@@ -20,17 +21,6 @@ const REVIEWS_PER_PROPOSAL = 5;
 const FIRST_NIGHT = "2027-03-01";
 const LAST_NIGHT = "2027-08-27"; // 180 nights
 const CATEGORIES = ["Stellar surfaces and diameters", "Binary and multiple stars", "Circumstellar environments"];
-
-function generator(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const median = (t: number[]) => {
   const s = [...t].sort((a, b) => a - b);

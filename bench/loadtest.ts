@@ -9,7 +9,7 @@
  * Bounded: 20 s of load and at most 20 000 requests; everything it started is stopped and its database
  * dropped at the end. Writes docs/benchmarks-load.md. Needs a production build (made when missing).
  */
-import { type ChildProcess, execFileSync, spawn } from "node:child_process";
+import { type ChildProcess, execFileSync } from "node:child_process";
 import { existsSync, readdirSync, readFileSync, statSync, writeFileSync } from "node:fs";
 import { cpus, loadavg } from "node:os";
 import { join } from "node:path";
@@ -21,7 +21,7 @@ import { createDatabase } from "~/db/client.server";
 import { migrateDatabase } from "~/db/migrate.server";
 import { ensureUser, seedDemoScenario } from "~/db/seed/factories.server";
 import { createApiToken } from "~/services/auth/api-tokens.server";
-import { freePort } from "../e2e/setup/global";
+import { startAppServer } from "../e2e/setup/app-server";
 import { adminQuery, clusterUrl, dropDatabase, ensureCluster, uniqueName, withDatabase } from "../test/setup/pg";
 
 const CLIENTS = 50;
@@ -41,20 +41,6 @@ function percentile(values: number[], p: number): number {
   return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 }
 const ms = (x: number) => `${x.toFixed(0)} ms`;
-
-async function waitForHttp(url: string, server: ChildProcess, timeoutMs = 60_000) {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    if (server.exitCode !== null) throw new Error(`the app server exited with code ${server.exitCode}`);
-    try {
-      if ((await fetch(url)).status < 500) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`the app server did not answer at ${url} within ${timeoutMs} ms`);
-}
 
 /**
  * The `GET /` probe, run on a thread of its own so that the load generator's work on this thread does
@@ -187,34 +173,9 @@ async function main() {
     }
     await client.end();
 
-    const [port, idpPort, smtpPort] = [await freePort(), await freePort(), await freePort()];
-    const baseUrl = `http://127.0.0.1:${port}`;
-    const env: NodeJS.ProcessEnv = {
-      ...process.env,
-      NODE_ENV: "production",
-      DATABASE_URL: databaseUrl,
-      PORT: String(port),
-      HOST: "127.0.0.1",
-      APP_ORIGIN: baseUrl,
-      FAKE_IDP_PORT: String(idpPort),
-      SMTP_PORT: String(smtpPort),
-      DEMO_MODE: "1",
-    };
-    delete env.OIDC_ISSUER;
-    delete env.SMTP_HOST;
-    server = spawn(process.execPath, ["--import", "tsx", "scripts/serve.ts"], {
-      cwd: root,
-      env,
-      stdio: ["ignore", "pipe", "pipe"],
-    });
-    const log: string[] = [];
-    server.stdout?.on("data", (d) => log.push(String(d)));
-    server.stderr?.on("data", (d) => log.push(String(d)));
-    try {
-      await waitForHttp(baseUrl, server);
-    } catch (e) {
-      throw new Error(`${(e as Error).message}\n${log.join("")}`);
-    }
+    const started = await startAppServer(databaseUrl, { timeoutMs: 60_000 });
+    server = started.server;
+    const { baseUrl } = started;
     console.log(`[load] production server on ${baseUrl}`);
 
     // Warm up: the worker threads start, the page is rendered once.

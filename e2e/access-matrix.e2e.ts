@@ -30,6 +30,8 @@ const all = (o: Outcome): Record<Who, Outcome> => ({
   admin: o,
 });
 const signedIn = (o: Outcome): Record<Who, Outcome> => ({ ...all(o), anonymous: "sign-in" });
+/** A JSON API call: `o` for everyone signed in (or with a token), 401 without. */
+const apiCall = (o: Outcome): Record<Who, Outcome> => ({ ...all(o), anonymous: "unauthorized" });
 const proposerOnly: Record<Who, Outcome> = {
   anonymous: "sign-in",
   proposer: "ok",
@@ -181,15 +183,10 @@ const MATRIX: Row[] = [
   // Every signed-in person reads their own mail there (administrators everyone's); demo mode or not.
   get("/mailbox", "/mailbox", signedIn("ok")),
   get("/mailbox/:messageId", "/mailbox/999999", signedIn(404)),
-  post("/api/coverage", "/api/coverage", coverageBody, { ...all("ok"), anonymous: "unauthorized" }),
-  post(
-    "/api/ephemeris",
-    "/api/ephemeris",
-    { site: coverageBody.site, date: "2027-03-15" },
-    { ...all("ok"), anonymous: "unauthorized" },
-  ),
-  post("/api/triangles", "/api/triangles", {}, { ...all(400), anonymous: "unauthorized" }),
-  post("/api/resolve", "/api/resolve", { name: "HD 39801" }, { ...all("ok"), anonymous: "unauthorized" }),
+  post("/api/coverage", "/api/coverage", coverageBody, apiCall("ok")),
+  post("/api/ephemeris", "/api/ephemeris", { site: coverageBody.site, date: "2027-03-15" }, apiCall("ok")),
+  post("/api/triangles", "/api/triangles", {}, apiCall(400)),
+  post("/api/resolve", "/api/resolve", { name: "HD 39801" }, apiCall("ok")),
   post(
     "/api/calibrators",
     "/api/calibrators",
@@ -200,33 +197,24 @@ const MATRIX: Row[] = [
       site: coverageBody.site,
       date: "2027-01-10",
     },
-    { ...all("ok"), anonymous: "unauthorized" },
+    apiCall("ok"),
   ),
-  get("/api/stars", "/api/stars?q=betel", { ...all("ok"), anonymous: "unauthorized" }),
-  post("/api/plan", "/api/plan", {}, { ...all(400), anonymous: "unauthorized" }),
-  get("/api/nights/:date/plan", "/api/nights/2027-03-15/plan?format=csv", { ...all(404), anonymous: "unauthorized" }),
+  get("/api/stars", "/api/stars?q=betel", apiCall("ok")),
+  post("/api/plan", "/api/plan", {}, apiCall(400)),
+  get("/api/nights/:date/plan", "/api/nights/2027-03-15/plan?format=csv", apiCall(404)),
   post(
     "/api/rank",
     "/api/rank",
     { scale: { best: 1, worst: 5 }, reviews: [{ reviewer: "r1", proposal: "P1", score: 2 }] },
-    { ...all("ok"), anonymous: "unauthorized" },
+    apiCall("ok"),
   ),
-  get("/api/cycles/:cycleId/board", "/api/cycles/2/board?format=json", {
-    ...all("forbidden"),
-    anonymous: "unauthorized",
-    chair: "ok",
-  }),
+  get("/api/cycles/:cycleId/board", "/api/cycles/2/board?format=json", { ...apiCall("forbidden"), chair: "ok" }),
   // Imaging previews: everyone's own; a preview nobody may read is the same 404 as a missing one.
-  get("/api/imaging/jobs", "/api/imaging/jobs", { ...all("ok"), anonymous: "unauthorized" }),
-  post("/api/imaging/jobs", "/api/imaging/jobs", {}, { ...all(400), anonymous: "unauthorized" }),
-  get("/api/imaging/jobs/:id", "/api/imaging/jobs/999999", { ...all(404), anonymous: "unauthorized" }),
-  post(
-    "/api/imaging/jobs/:id/cancel",
-    "/api/imaging/jobs/999999/cancel",
-    {},
-    { ...all(404), anonymous: "unauthorized" },
-  ),
-  get("/api/imaging/jobs/:id/oifits", "/api/imaging/jobs/999999/oifits", { ...all(404), anonymous: "unauthorized" }),
+  get("/api/imaging/jobs", "/api/imaging/jobs", apiCall("ok")),
+  post("/api/imaging/jobs", "/api/imaging/jobs", {}, apiCall(400)),
+  get("/api/imaging/jobs/:id", "/api/imaging/jobs/999999", apiCall(404)),
+  post("/api/imaging/jobs/:id/cancel", "/api/imaging/jobs/999999/cancel", {}, apiCall(404)),
+  get("/api/imaging/jobs/:id/oifits", "/api/imaging/jobs/999999/oifits", apiCall(404)),
   get("/*", "/no/such/page", all(404)),
 ];
 

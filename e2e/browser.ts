@@ -1,8 +1,8 @@
 import { mkdirSync } from "node:fs";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
-import { type Browser, type BrowserContextOptions, chromium, type Page } from "playwright-core";
-import { afterAll, beforeAll, inject } from "vitest";
+import { type Browser, type BrowserContext, type BrowserContextOptions, chromium, type Page } from "playwright-core";
+import { afterAll, beforeAll, expect, inject } from "vitest";
 
 export const ARTIFACTS = fileURLToPath(new URL("./artifacts", import.meta.url));
 
@@ -102,4 +102,13 @@ export async function signedInPage(
   const seen = watchPage(page);
   await signInAs(page, name);
   return { context, page, seen };
+}
+
+/** The desktop viewport most browser tests use. */
+export const DESKTOP = { viewport: { width: 1366, height: 900 } };
+
+/** Ends a test on a signed-in page: no console error or failed request was seen, then its context closes. */
+export async function closeWithoutErrors({ context, seen }: { context: BrowserContext; seen: { errors: string[] } }) {
+  expect(seen.errors).toEqual([]);
+  await context.close();
 }

@@ -5,14 +5,14 @@
  * added; bad settings get their field's message. Screenshots at 1366 and 360 px.
  */
 import { and, eq } from "drizzle-orm";
+import type { Locator, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDatabase } from "~/db/client.server";
 import { proposals, proposalTargets } from "~/db/schema/proposals";
-import { screenshot, signedInPage, useBrowser } from "./browser";
+import { closeWithoutErrors, DESKTOP, screenshot, signedInPage, useBrowser } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const browser = useBrowser();
-const WIDE = { viewport: { width: 1366, height: 900 } };
 const NARROW = { viewport: { width: 360, height: 800 }, isMobile: true };
 
 let db: ReturnType<typeof createDatabase>["db"];
@@ -38,9 +38,24 @@ async function demoDraftTarget() {
   return { ...row, path: `/proposals/${row.proposalId}/targets/${row.targetId}` };
 }
 
+/**
+ * Picks Betelgeuse from the name field's suggestions with the keyboard, checks the coordinates it fills
+ * in, and gives the field's status line (the star's designations and magnitudes).
+ */
+async function pickBetelgeuse(page: Page, name: Locator) {
+  await name.press("ArrowDown");
+  await name.press("Enter");
+  await expect(name.inputValue()).resolves.toBe("Betelgeuse");
+  // stars.8.json, HIP 27989: RA 88.7929° = 05h55m10.30s, Dec +7.4071° = +07°24′25.6″.
+  await page.getByText("Coordinates filled in.").waitFor();
+  await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("05:55:10.30");
+  await expect(page.getByLabel("Declination").inputValue()).resolves.toBe("+07:24:25.6");
+  return page.locator(`#${await name.getAttribute("id")}-status`);
+}
+
 describe("star catalogue", () => {
   it("a proposer types a star's name in My targets, picks the suggestion and sees the star resolved", async () => {
-    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", WIDE);
+    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", DESKTOP);
     await page.goto(`${baseUrl}/targets`);
     const name = page.getByRole("combobox", { name: "Name" });
     await name.pressSequentially("betelg", { delay: 30 });
@@ -48,14 +63,7 @@ describe("star catalogue", () => {
     await option.waitFor();
     await screenshot(page, "catalogue-name-suggestions-1366");
     // Keyboard: down to the first suggestion, Enter picks it.
-    await name.press("ArrowDown");
-    await name.press("Enter");
-    await expect(name.inputValue()).resolves.toBe("Betelgeuse");
-    // stars.8.json, HIP 27989: RA 88.7929° = 05h55m10.30s, Dec +7.4071° = +07°24′25.6″.
-    await page.getByText("Coordinates filled in.").waitFor();
-    await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("05:55:10.30");
-    await expect(page.getByLabel("Declination").inputValue()).resolves.toBe("+07:24:25.6");
-    const facts = page.locator(`#${await name.getAttribute("id")}-status`);
+    const facts = await pickBetelgeuse(page, name);
     await expect(facts.textContent()).resolves.toMatch(/α Ori · 58 Ori · HD 39801 · HIP 27989/);
     await expect(facts.textContent()).resolves.toMatch(/V 0\.45 · B−V 1\.50/);
     await screenshot(page, "catalogue-name-resolved-1366");
@@ -77,12 +85,11 @@ describe("star catalogue", () => {
       .waitFor();
     await expect(page.getByRole("combobox", { name: "Name" }).inputValue()).resolves.toBe("Lumbre Nova 99");
     await screenshot(page, "catalogue-name-unknown-1366");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("a proposer types a star's name in the Sketchpad, sees it resolved and its best calibrators", async () => {
-    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", WIDE);
+    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", DESKTOP);
     await page.goto(`${baseUrl}/sketchpad`);
     const name = page.getByRole("combobox", { name: "Name" });
     await name.pressSequentially("betelg", { delay: 30 });
@@ -92,14 +99,7 @@ describe("star catalogue", () => {
       .getByRole("option", { name: /Betelgeuse/ })
       .first()
       .waitFor();
-    await name.press("ArrowDown");
-    await name.press("Enter");
-    await expect(name.inputValue()).resolves.toBe("Betelgeuse");
-    // stars.8.json, HIP 27989: RA 88.7929° = 05h55m10.30s, Dec +7.4071° = +07°24′25.6″ (as in My targets).
-    await page.getByText("Coordinates filled in.").waitFor();
-    await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("05:55:10.30");
-    await expect(page.getByLabel("Declination").inputValue()).resolves.toBe("+07:24:25.6");
-    const facts = page.locator(`#${await name.getAttribute("id")}-status`);
+    const facts = await pickBetelgeuse(page, name);
     await expect(facts.textContent()).resolves.toMatch(/HD 39801/);
     // The sketch follows the star, and its top calibrators are listed with a link to the full shortlist.
     await page.getByText(/^Up to date/).waitFor({ timeout: 30_000 });
@@ -109,13 +109,12 @@ describe("star catalogue", () => {
       .poll(async () => (await peek.locator("li").count()) > 0 || (await peek.getByText(/No catalogue star/).count()))
       .toBeTruthy();
     await screenshot(page, "catalogue-sketchpad-1366");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("a proposer opens the Calibrator shortlist of a proposal's target and adds a calibrator", async () => {
     const target = await demoDraftTarget();
-    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", WIDE);
+    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", DESKTOP);
     await page.goto(`${baseUrl}${target.path}`);
     await page.getByRole("link", { name: "Find calibrators" }).click();
     await page.getByRole("heading", { level: 1, name: "Calibrators for Lumbre Nova 12" }).waitFor();
@@ -156,8 +155,7 @@ describe("star catalogue", () => {
     await page.getByRole("table", { name: "Calibrator shortlist" }).waitFor();
     await page.waitForURL(/target=Sirius/);
     await screenshot(page, "catalogue-generic-1366");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("bad settings and an unknown target get their field's message; the page works at 360 px", async () => {
@@ -187,7 +185,6 @@ describe("star catalogue", () => {
     await page.getByRole("combobox", { name: "Name" }).pressSequentially("sir", { delay: 30 });
     await page.getByRole("option", { name: /Sirius/ }).waitFor();
     await screenshot(page, "catalogue-name-suggestions-360");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 });

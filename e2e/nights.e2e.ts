@@ -12,7 +12,7 @@ import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDatabase } from "~/db/client.server";
 import { addDays, createNightsFixture, type NightsFixture } from "../test/services/nights/fixture";
-import { screenshot, signedInPage, useBrowser, watchPage } from "./browser";
+import { closeWithoutErrors, DESKTOP, screenshot, signedInPage, useBrowser, watchPage } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const browser = useBrowser();
@@ -60,9 +60,7 @@ async function download(page: Page, name: string) {
 
 describe("Night builder", () => {
   it("sets the configuration calendar, builds tonight and shows a violation on a block moved by keyboard or drag", async () => {
-    const { context, page, seen } = await signedInPage(browser, "Mei-Lin Chao", {
-      viewport: { width: 1366, height: 900 },
-    });
+    const { context, page, seen } = await signedInPage(browser, "Mei-Lin Chao", DESKTOP);
     await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "Night builder" }).click();
     await page.goto(`${baseUrl}/nights?cycle=${fx.cycle.id}`);
     const run = page.getByRole("form", { name: "Install a configuration for a run of nights" });
@@ -120,14 +118,11 @@ describe("Night builder", () => {
       .first()
       .click();
     await problem.waitFor({ state: "detached" });
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("exports tonight's plan as CSV and iCalendar and publishes it; the PI's e-mail is in the mailbox", async () => {
-    const { context, page, seen } = await signedInPage(browser, "Mei-Lin Chao", {
-      viewport: { width: 1366, height: 900 },
-    });
+    const { context, page, seen } = await signedInPage(browser, "Mei-Lin Chao", DESKTOP);
     await page.goto(`${baseUrl}/nights/${today}`);
     await planRows(page).first().waitFor();
     const csv = Papa.parse<Record<string, string>>(await download(page, "CSV"), { header: true, skipEmptyLines: true });
@@ -140,8 +135,7 @@ describe("Night builder", () => {
     await page.getByRole("button", { name: "Publish to the PIs" }).click();
     await page.getByText(/is published; \d+ e-mails? to the teams of \d programs?/).waitFor();
     await page.getByText("Published", { exact: false }).first().waitFor();
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
 
     // The mailbox is each person's own: the PI reads the notice in theirs.
     const pi = await browser.newContext({ viewport: { width: 1366, height: 900 } });
@@ -161,9 +155,7 @@ describe("Night builder", () => {
   });
 
   it("marks a block of an earlier night executed, and the hours owed drop", async () => {
-    const { context, page, seen } = await signedInPage(browser, "Mei-Lin Chao", {
-      viewport: { width: 1366, height: 900 },
-    });
+    const { context, page, seen } = await signedInPage(browser, "Mei-Lin Chao", DESKTOP);
     await page.goto(`${baseUrl}/nights/${today}`);
     await expect(candidateCell(page, today, "Ardilla 1", "Owed at dusk")).resolves.toBe("1");
 
@@ -185,8 +177,7 @@ describe("Night builder", () => {
 
     await page.goto(`${baseUrl}/nights/${today}`);
     await expect(candidateCell(page, today, "Ardilla 1", "Owed at dusk")).resolves.toBe("0.33");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("works at 360 px wide", async () => {
@@ -205,7 +196,6 @@ describe("Night builder", () => {
     await screenshot(page, "night-plan-360");
     const width = await page.evaluate(() => document.documentElement.scrollWidth);
     expect(width).toBeLessThanOrEqual(360);
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 });

@@ -6,7 +6,7 @@ import { createDatabase } from "~/db/client.server";
 import { outboxMessages } from "~/db/schema/mail";
 import { DEMO_PEOPLE } from "~/db/seed/scenario";
 import { screenshot, signedInPage, useBrowser, watchPage } from "./browser";
-import { freePort } from "./setup/global";
+import { freePort } from "./setup/app-server";
 
 const baseUrl = inject("baseUrl");
 const browser = useBrowser();

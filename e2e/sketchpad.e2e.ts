@@ -90,11 +90,17 @@ async function watchStatus(page: Page) {
 
 const upToDate = (page: Page) => page.getByText(/^Up to date/).waitFor({ timeout: 30_000 });
 
+/** PERSON's Sketchpad at 1366 px on `query` (compact-3 and the test sketch unless given), its first answer shown. */
+async function openSketchpad(query = `config=compact-3&${SKETCH}`) {
+  const opened = await signedInPage(browser, PERSON, { viewport: { width: 1366, height: 900 } });
+  await opened.page.goto(`${baseUrl}/sketchpad?${query}`);
+  await upToDate(opened.page);
+  return opened;
+}
+
 describe("Sketchpad", () => {
   it("draws a shared sketch, follows a configuration change, keeps the inputs in the address and marks bad input", async () => {
-    const { context, page, seen } = await signedInPage(browser, PERSON, { viewport: { width: 1366, height: 900 } });
-    await page.goto(`${baseUrl}/sketchpad?config=compact-3&${SKETCH}`);
-    await upToDate(page);
+    const { context, page, seen } = await openSketchpad();
     // Station map, uv plane, elevation, dirty beam, dirty image, V², closure phases.
     await waitForPlots(page, 7);
     const compact = await tracesByFigure(page);
@@ -175,9 +181,7 @@ describe("Sketchpad", () => {
   });
 
   it("answers a pick at once, typing once it pauses, cancels a superseded request and says how long it took", async () => {
-    const { context, page, seen } = await signedInPage(browser, PERSON, { viewport: { width: 1366, height: 900 } });
-    await page.goto(`${baseUrl}/sketchpad?config=compact-3&${SKETCH}`);
-    await upToDate(page);
+    const { context, page, seen } = await openSketchpad();
     const status = await watchStatus(page);
 
     // A dropdown pick: no wait for typing; the time given runs from the change to the plots drawn,
@@ -225,9 +229,7 @@ describe("Sketchpad", () => {
   });
 
   it("updates the plots in place and draws the heatmaps after the other plots", async () => {
-    const { context, page, seen } = await signedInPage(browser, PERSON, { viewport: { width: 1366, height: 900 } });
-    await page.goto(`${baseUrl}/sketchpad?config=compact-3&${SKETCH}`);
-    await upToDate(page);
+    const { context, page, seen } = await openSketchpad();
     await waitForPlots(page, 7);
     // Mark each plot's element and its drawing surface; note when Plotly finishes drawing each one.
     await page.evaluate(() => {
@@ -265,9 +267,7 @@ describe("Sketchpad", () => {
   });
 
   it("gives each plot one Tab stop, with its toolbar on the arrow keys", async () => {
-    const { context, page, seen } = await signedInPage(browser, PERSON, { viewport: { width: 1366, height: 900 } });
-    await page.goto(`${baseUrl}/sketchpad?config=compact-3&${SKETCH}`);
-    await upToDate(page);
+    const { context, page, seen } = await openSketchpad();
     await waitForPlots(page, 7);
     const stops: Record<string, number> = {};
     let start = "";
@@ -308,9 +308,9 @@ describe("Sketchpad", () => {
   });
 
   it("refuses a physically absurd input with the allowed range", async () => {
-    const { context, page, seen } = await signedInPage(browser, PERSON, { viewport: { width: 1366, height: 900 } });
-    await page.goto(`${baseUrl}/sketchpad?config=compact-3&${SKETCH.replace(/model=.*$/, "model=uniformDisk&diam=2")}`);
-    await upToDate(page);
+    const { context, page, seen } = await openSketchpad(
+      `config=compact-3&${SKETCH.replace(/model=.*$/, "model=uniformDisk&diam=2")}`,
+    );
     const diameter = page.getByRole("textbox", { name: /^Diameter/ });
     expect(await describedText(page, diameter)).toBe("Above 0 and at most 1000 mas.");
     await diameter.fill("1e9");

@@ -1,4 +1,4 @@
-import { cli, requestFiles } from "@test/cli";
+import { cli, cliOk, expectRefused, requestFiles } from "@test/cli";
 import { describe, expect, it } from "vitest";
 
 const { file } = requestFiles("cli-calibrators");
@@ -34,9 +34,7 @@ const FIELDS = [
 
 describe("cli calibrators", { timeout: 60_000 }, () => {
   it("answers the contract's example, best first, never the target", () => {
-    const r = cli(["calibrators", "--input", file("ex.json", example)]);
-    expect(r.status).toBe(0);
-    expect(r.stderr).toBe("");
+    const r = cliOk(["calibrators", "--input", file("ex.json", example)]);
     const out = JSON.parse(r.stdout);
     expect(out.target).toBeTypeOf("object");
     expect(out.calibrators).toHaveLength(20);
@@ -85,11 +83,7 @@ describe("cli calibrators", { timeout: 60_000 }, () => {
   ];
   for (const [what, body, message] of bad) {
     it(`rejects ${what} with exit 2 and one line on standard error`, () => {
-      const r = cli(["calibrators", "--input", file("bad.json", body)]);
-      expect(r.status).toBe(2);
-      expect(r.stdout).toBe("");
-      expect(r.stderr.trim().split("\n")).toHaveLength(1);
-      expect(r.stderr.trim()).toMatch(message);
+      expectRefused(["calibrators", "--input", file("bad.json", body)], message);
     });
   }
 });

@@ -1,4 +1,4 @@
-import { cli, requestFiles } from "@test/cli";
+import { cli, cliOk, expectRefused, requestFiles } from "@test/cli";
 import { describe, expect, it } from "vitest";
 
 const { file } = requestFiles("cli-rank");
@@ -17,9 +17,7 @@ const request = {
 
 describe("cli rank", { timeout: 60_000 }, () => {
   it("--input FILE prints one JSON object with exactly the contract's fields", () => {
-    const r = cli(["rank", "--input", file("rank.json", request)]);
-    expect(r.status).toBe(0);
-    expect(r.stderr).toBe("");
+    const r = cliOk(["rank", "--input", file("rank.json", request)]);
     expect(r.stdout.trim().split("\n")).toHaveLength(1);
     expect(JSON.parse(r.stdout)).toEqual({
       proposals: [
@@ -55,12 +53,7 @@ describe("cli rank", { timeout: 60_000 }, () => {
   ];
   for (const [name, body, pattern] of bad) {
     it(`exits 2 with one line on stderr and nothing on stdout for ${name}`, () => {
-      const r = cli(["rank", "--input", file("bad.json", body)]);
-      expect(r.status).toBe(2);
-      expect(r.stdout).toBe("");
-      const lines = r.stderr.trimEnd().split("\n");
-      expect(lines).toHaveLength(1);
-      expect(lines[0]).toMatch(pattern);
+      expectRefused(["rank", "--input", file("bad.json", body)], pattern);
     });
   }
 });

@@ -1,4 +1,4 @@
-import { cli, requestFiles } from "@test/cli";
+import { cli, expectRefused, requestFiles } from "@test/cli";
 import { describe, expect, it } from "vitest";
 
 const { file } = requestFiles("cli-rec");
@@ -76,12 +76,7 @@ describe("cli reconstruct", { timeout: 120_000 }, () => {
   ];
   for (const [name, body, pattern] of bad) {
     it(`exits 2 with one line on stderr and nothing on stdout for ${name}`, () => {
-      const r = cli(["reconstruct", "--input", file("bad.json", body)]);
-      expect(r.status).toBe(2);
-      expect(r.stdout).toBe("");
-      const lines = r.stderr.trimEnd().split("\n");
-      expect(lines).toHaveLength(1);
-      expect(lines[0]).toMatch(pattern);
+      expectRefused(["reconstruct", "--input", file("bad.json", body)], pattern);
     });
   }
 });

@@ -1,13 +1,11 @@
-import { cli, requestFiles } from "@test/cli";
+import { cli, cliOk, expectRefused, requestFiles } from "@test/cli";
 import { describe, expect, it } from "vitest";
 
 const { file } = requestFiles("cli-resolve");
 
 describe("cli resolve", { timeout: 60_000 }, () => {
   it('resolves {"name": "HD 39801"} to Betelgeuse with the contract fields', () => {
-    const r = cli(["resolve", "--input", file("hd.json", { name: "HD 39801" })]);
-    expect(r.status).toBe(0);
-    expect(r.stderr).toBe("");
+    const r = cliOk(["resolve", "--input", file("hd.json", { name: "HD 39801" })]);
     expect(r.stdout.trim().split("\n")).toHaveLength(1);
     const out = JSON.parse(r.stdout);
     // starnames.json / stars.8.json, HIP 27989.
@@ -45,11 +43,7 @@ describe("cli resolve", { timeout: 60_000 }, () => {
   ];
   for (const [what, body, message] of bad) {
     it(`rejects ${what} with exit 2 and one line on standard error`, () => {
-      const r = cli(["resolve", "--input", file("bad.json", body)]);
-      expect(r.status).toBe(2);
-      expect(r.stdout).toBe("");
-      expect(r.stderr.trim().split("\n")).toHaveLength(1);
-      expect(r.stderr.trim()).toMatch(message);
+      expectRefused(["resolve", "--input", file("bad.json", body)], message);
     });
   }
 });

@@ -1,4 +1,4 @@
-import { cli, requestFiles } from "@test/cli";
+import { cli, cliOk, requestFiles } from "@test/cli";
 import { demoSite, demoStations } from "@test/demo-array";
 import { describe, expect, it } from "vitest";
 
@@ -17,9 +17,7 @@ const coverageRequest = {
 
 describe("command line", { timeout: 60_000 }, () => {
   it("coverage --input FILE prints one JSON object with the contract fields", () => {
-    const r = cli(["coverage", "--input", file("cov.json", coverageRequest)]);
-    expect(r.status).toBe(0);
-    expect(r.stderr).toBe("");
+    const r = cliOk(["coverage", "--input", file("cov.json", coverageRequest)]);
     expect(r.stdout.trim().split("\n")).toHaveLength(1);
     const out = JSON.parse(r.stdout);
     expect(out.samples[0]).toMatchObject({ hourAngleH: -3, observable: true, reason: null });

@@ -5,12 +5,11 @@
  */
 import { type ChildProcess, spawn } from "node:child_process";
 import { fileURLToPath } from "node:url";
-import { imagingCoverage, viewerWith } from "@test/imaging";
+import { startSketchPreview, viewerWith } from "@test/imaging";
 import { testDb } from "@test/routes";
 import { eq, sql } from "drizzle-orm";
 import { afterAll, describe, expect, it, vi } from "vitest";
 import { imagingJobs } from "~/db/schema/imaging";
-import { startPreviews } from "~/services/imaging/commands.server";
 import { stopImagingQueues } from "~/services/imaging/queue.server";
 
 // The expiry is set on each job when it is sent (here, by this process): short for the test.
@@ -67,10 +66,7 @@ afterAll(async () => {
 describe("imaging worker processes", () => {
   it("a preview whose worker is killed mid-job is retried by another worker and finishes", async () => {
     const viewer = await viewerWith(db, "killed@example.test", ["proposer"]);
-    const answer = await startPreviews(db, {
-      viewer,
-      json: { source: { kind: "sketch", coverage: imagingCoverage() }, settings: { gridSize: 64, maxIterations: 200 } },
-    });
+    const answer = await startSketchPreview(db, viewer, { gridSize: 64, maxIterations: 200 });
     if (!answer.ok) throw new Error(answer.message);
     const id = answer.jobs[0].id;
 
@@ -107,10 +103,7 @@ describe("imaging worker processes", () => {
   it("a worker stopped with SIGTERM hands its preview back at once; the next worker finishes it", async () => {
     const first = await startWorker();
     const viewer = await viewerWith(db, "stopped@example.test", ["proposer"]);
-    const answer = await startPreviews(db, {
-      viewer,
-      json: { source: { kind: "sketch", coverage: imagingCoverage() }, settings: { gridSize: 64, maxIterations: 200 } },
-    });
+    const answer = await startSketchPreview(db, viewer, { gridSize: 64, maxIterations: 200 });
     if (!answer.ok) throw new Error(answer.message);
     const id = answer.jobs[0].id;
     await until(

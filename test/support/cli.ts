@@ -7,6 +7,7 @@ import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
+import { expect } from "vitest";
 
 const ROOT = fileURLToPath(new URL("../..", import.meta.url));
 
@@ -32,4 +33,22 @@ export function requestFiles(prefix: string) {
       return p;
     },
   };
+}
+
+/** Runs the command and checks that it succeeded quietly (exit 0, nothing on standard error). */
+export function cliOk(args: string[], stdin = "") {
+  const r = cli(args, stdin);
+  expect(r.status, r.stderr).toBe(0);
+  expect(r.stderr).toBe("");
+  return r;
+}
+
+/** Runs the command on a request it must refuse: exit 2, nothing on standard output, one line on standard error. */
+export function expectRefused(args: string[], message: RegExp, stdin = "") {
+  const r = cli(args, stdin);
+  expect(r.status).toBe(2);
+  expect(r.stdout).toBe("");
+  const lines = r.stderr.trimEnd().split("\n");
+  expect(lines).toHaveLength(1);
+  expect(lines[0]).toMatch(message);
 }

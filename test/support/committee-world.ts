@@ -7,6 +7,7 @@ import { settle, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
 import { bands, configurations } from "~/db/schema/array";
+import { reviewAssignments, reviews } from "~/db/schema/committee";
 import type { CycleState } from "~/db/schema/proposals";
 import {
   cycles,
@@ -144,6 +145,20 @@ export async function submitted(
     if (status !== "submitted") await tx.update(proposals).set({ status }).where(eq(proposals.id, p.id));
     return p.id;
   });
+}
+
+/** `reviewerId` assigned to the proposal and their review of it already submitted, with `review`'s score and comments. */
+export async function submittedReview(
+  cycleId: number,
+  proposalId: number,
+  reviewerId: number,
+  review: { score: number; commentToPi: string; commentToCommittee?: string },
+) {
+  const [a] = await testDb().insert(reviewAssignments).values({ cycleId, proposalId, reviewerId }).returning();
+  await testDb()
+    .insert(reviews)
+    .values({ assignmentId: a.id, ...review, submittedAt: new Date() });
+  return a.id;
 }
 
 /** A loader's or action's answer as a Response: plain data as 200 JSON (see `settle`). */

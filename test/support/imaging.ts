@@ -4,7 +4,8 @@ import type { Role } from "~/db/schema/users";
 import { ensureUser } from "~/db/seed/factories.server";
 import type { Viewer } from "~/lib/guards.server";
 import { permissionsFor } from "~/lib/permissions";
-import { demoSite } from "./demo-array";
+import { startPreviews } from "~/services/imaging/commands.server";
+import { binaryTarget, demoSite } from "./demo-array";
 
 /** Six stations on two rings (invented), 15 baselines of 20–110 m in many directions. */
 export function sixStations() {
@@ -28,12 +29,7 @@ export function imagingCoverage(overrides: Record<string, unknown> = {}): Record
   return {
     site: demoSite(),
     stations: sixStations(),
-    target: {
-      name: "Test binary",
-      raDeg: 84.05,
-      decDeg: -30,
-      model: { type: "binary", separationMas: 4, positionAngleDeg: 60, fluxRatio: 0.5 },
-    },
+    target: binaryTarget("Test binary", { decDeg: -30, separationMas: 4, positionAngleDeg: 60 }),
     wavelengthsM: [1.6e-6, 1.65e-6, 1.7e-6],
     hourAnglesH,
     minElevationDeg: 30,
@@ -53,4 +49,14 @@ export async function viewerWith(db: Database, email: string, roles: Role[]): Pr
     via: "session",
     scopes: null,
   };
+}
+
+/** `viewer` asks for an imaging preview of a Sketchpad coverage (the test one unless given), with `settings` if any. */
+export function startSketchPreview(
+  db: Database,
+  viewer: Viewer,
+  settings?: Record<string, unknown>,
+  coverage = imagingCoverage(),
+) {
+  return startPreviews(db, { viewer, json: { source: { kind: "sketch", coverage }, ...(settings && { settings }) } });
 }

@@ -1,5 +1,5 @@
-import { boolean, doublePrecision, integer, pgTable, primaryKey, serial, text, uniqueIndex } from "drizzle-orm/pg-core";
-import { refTo, timestamps } from "./columns";
+import { boolean, doublePrecision, integer, pgTable, primaryKey, text, uniqueIndex } from "drizzle-orm/pg-core";
+import { refTo, serialId, timestamps } from "./columns";
 
 /**
  * The array registry: one or more sites, each with its stations, the named station sets
@@ -8,7 +8,7 @@ import { refTo, timestamps } from "./columns";
 export const sites = pgTable(
   "sites",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     name: text("name").notNull(),
     /** Geodetic latitude, degrees, north positive. */
     latitudeDeg: doublePrecision("latitude_deg").notNull(),
@@ -29,7 +29,7 @@ export const sites = pgTable(
 export const stations = pgTable(
   "stations",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     siteId: refTo(() => sites.id),
     name: text("name").notNull(),
     /** Local east, north, up from the array reference point, metres. */
@@ -46,7 +46,7 @@ export const stations = pgTable(
 export const configurations = pgTable(
   "configurations",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     siteId: refTo(() => sites.id),
     name: text("name").notNull(),
     description: text("description").notNull().default(""),
@@ -71,7 +71,7 @@ export const configurationStations = pgTable(
 export const instruments = pgTable(
   "instruments",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     siteId: refTo(() => sites.id),
     name: text("name").notNull(),
     description: text("description").notNull().default(""),
@@ -85,7 +85,7 @@ export const instruments = pgTable(
 export const bands = pgTable(
   "bands",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     instrumentId: refTo(() => instruments.id),
     name: text("name").notNull(),
     /** Central wavelength, metres. */

@@ -1,6 +1,6 @@
 import { sql } from "drizzle-orm";
-import { index, jsonb, pgTable, serial, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
-import { optionalRefTo, refTo } from "./columns";
+import { index, jsonb, pgTable, text, uniqueIndex } from "drizzle-orm/pg-core";
+import { instant, optionalRefTo, refTo, serialId } from "./columns";
 import { users } from "./users";
 
 /**
@@ -13,9 +13,9 @@ export const sessions = pgTable(
     /** SHA-256 of the cookie token, hex. */
     id: text("id").primaryKey(),
     userId: refTo(() => users.id),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
-    lastSeenAt: timestamp("last_seen_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: instant("created_at").notNull().defaultNow(),
+    expiresAt: instant("expires_at").notNull(),
+    lastSeenAt: instant("last_seen_at").notNull().defaultNow(),
     /** How the session began: "sso" or "email-link". */
     method: text("method").notNull(),
     userAgent: text("user_agent").notNull().default(""),
@@ -28,12 +28,12 @@ export const sessions = pgTable(
 export const emailSignInTokens = pgTable(
   "email_sign_in_tokens",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     email: text("email").notNull(),
     tokenHash: text("token_hash").notNull(),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
-    usedAt: timestamp("used_at", { withTimezone: true }),
+    createdAt: instant("created_at").notNull().defaultNow(),
+    expiresAt: instant("expires_at").notNull(),
+    usedAt: instant("used_at"),
   },
   (t) => [uniqueIndex("email_sign_in_tokens_hash_key").on(t.tokenHash)],
 );
@@ -41,22 +41,22 @@ export const emailSignInTokens = pgTable(
 export const apiTokens = pgTable(
   "api_tokens",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     userId: refTo(() => users.id),
     name: text("name").notNull(),
     tokenHash: text("token_hash").notNull(),
     /** First characters of the token, shown so a person can tell tokens apart. */
     prefix: text("prefix").notNull(),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: instant("created_at").notNull().defaultNow(),
     /**
      * What the token may do (app/lib/permissions.ts TOKEN_SCOPES): "computations:read",
      * "proposals:read", "proposals:write". A token opens the JSON API only, never a page.
      */
     scopes: text("scopes").array().$type<string[]>().notNull().default(sql`'{}'::text[]`),
     /** After this instant the token is refused (90 days after creation unless chosen otherwise). */
-    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull().default(sql`now() + interval '90 days'`),
-    lastUsedAt: timestamp("last_used_at", { withTimezone: true }),
-    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    expiresAt: instant("expires_at").notNull().default(sql`now() + interval '90 days'`),
+    lastUsedAt: instant("last_used_at"),
+    revokedAt: instant("revoked_at"),
   },
   (t) => [uniqueIndex("api_tokens_hash_key").on(t.tokenHash), index("api_tokens_user_idx").on(t.userId)],
 );
@@ -65,10 +65,10 @@ export const apiTokens = pgTable(
 export const signInAttempts = pgTable(
   "sign_in_attempts",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     /** "ip:<address>" or "email:<lower-case address>". */
     key: text("key").notNull(),
-    attemptedAt: timestamp("attempted_at", { withTimezone: true }).notNull().defaultNow(),
+    attemptedAt: instant("attempted_at").notNull().defaultNow(),
   },
   (t) => [index("sign_in_attempts_key_time_idx").on(t.key, t.attemptedAt)],
 );
@@ -77,12 +77,12 @@ export const signInAttempts = pgTable(
 export const auditLog = pgTable(
   "audit_log",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     actorId: optionalRefTo(() => users.id),
     action: text("action").notNull(),
     targetUserId: optionalRefTo(() => users.id),
     detail: jsonb("detail").$type<Record<string, unknown>>().notNull().default({}),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: instant("created_at").notNull().defaultNow(),
   },
   (t) => [index("audit_log_created_idx").on(t.createdAt)],
 );

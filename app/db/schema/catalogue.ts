@@ -1,5 +1,6 @@
 import { sql } from "drizzle-orm";
-import { doublePrecision, index, integer, pgTable, smallint, text, timestamp } from "drizzle-orm/pg-core";
+import { doublePrecision, index, integer, pgTable, smallint, text } from "drizzle-orm/pg-core";
+import { instant } from "./columns";
 
 /**
  * The bundled star catalogue as reference rows (decision 009): one row per star of the package's data
@@ -38,5 +39,5 @@ export const catalogueEditions = pgTable("catalogue_editions", {
   stars: integer("stars").notNull(),
   nameRecords: integer("name_records").notNull(),
   namedStars: integer("named_stars").notNull(),
-  loadedAt: timestamp("loaded_at", { withTimezone: true }).notNull().defaultNow(),
+  loadedAt: instant("loaded_at").notNull().defaultNow(),
 });

@@ -1,6 +1,4 @@
-import { sql } from "drizzle-orm";
 import {
-  check,
   doublePrecision,
   index,
   integer,
@@ -8,14 +6,12 @@ import {
   pgEnum,
   pgTable,
   primaryKey,
-  serial,
   text,
-  timestamp,
   uniqueIndex,
 } from "drizzle-orm/pg-core";
-import { configurations, sites } from "./array";
-import { optionalRefTo, refTo, timestamps } from "./columns";
-import { cycles, proposals } from "./proposals";
+import { sites } from "./array";
+import { instant, keyRefTo, optionalRefTo, refTo, serialId, timestamps } from "./columns";
+import { cycles, hoursPerConfiguration, proposals } from "./proposals";
 import { users } from "./users";
 
 /**
@@ -30,7 +26,7 @@ export const committeeMembers = pgTable(
   {
     cycleId: refTo(() => cycles.id),
     userId: refTo(() => users.id),
-    addedAt: timestamp("added_at", { withTimezone: true }).notNull().defaultNow(),
+    addedAt: instant("added_at").notNull().defaultNow(),
   },
   (t) => [primaryKey({ columns: [t.cycleId, t.userId] }), index("committee_members_user_idx").on(t.userId)],
 );
@@ -42,11 +38,11 @@ export const committeeMembers = pgTable(
 export const reviewConflicts = pgTable(
   "review_conflicts",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     proposalId: refTo(() => proposals.id),
     reviewerId: refTo(() => users.id),
     reason: text("reason").notNull(),
-    declaredAt: timestamp("declared_at", { withTimezone: true }).notNull().defaultNow(),
+    declaredAt: instant("declared_at").notNull().defaultNow(),
   },
   (t) => [uniqueIndex("review_conflicts_key").on(t.proposalId, t.reviewerId)],
 );
@@ -59,17 +55,17 @@ export const assignmentStatusEnum = pgEnum("assignment_status", ASSIGNMENT_STATU
 export const reviewAssignments = pgTable(
   "review_assignments",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     cycleId: refTo(() => cycles.id),
     proposalId: refTo(() => proposals.id),
     reviewerId: refTo(() => users.id),
     status: assignmentStatusEnum("status").notNull().default("active"),
     declineReason: text("decline_reason"),
-    declinedAt: timestamp("declined_at", { withTimezone: true }),
+    declinedAt: instant("declined_at"),
     assignedById: optionalRefTo(() => users.id),
-    assignedAt: timestamp("assigned_at", { withTimezone: true }).notNull().defaultNow(),
+    assignedAt: instant("assigned_at").notNull().defaultNow(),
     /** When the reviewer was last sent a reminder about this review. */
-    remindedAt: timestamp("reminded_at", { withTimezone: true }),
+    remindedAt: instant("reminded_at"),
   },
   (t) => [
     uniqueIndex("review_assignments_key").on(t.proposalId, t.reviewerId),
@@ -90,16 +86,14 @@ export const reviewConfidenceEnum = pgEnum("review_confidence", REVIEW_CONFIDENC
 export const reviews = pgTable(
   "reviews",
   {
-    id: serial("id").primaryKey(),
-    assignmentId: integer("assignment_id")
-      .notNull()
-      .references(() => reviewAssignments.id, { onDelete: "cascade" }),
+    id: serialId(),
+    assignmentId: refTo(() => reviewAssignments.id),
     /** On the cycle's scale (cycles.score_best … score_worst); null while a draft has none. */
     score: doublePrecision("score"),
     commentToPi: text("comment_to_pi").notNull().default(""),
     commentToCommittee: text("comment_to_committee").notNull().default(""),
     confidence: reviewConfidenceEnum("confidence"),
-    submittedAt: timestamp("submitted_at", { withTimezone: true }),
+    submittedAt: instant("submitted_at"),
     version: integer("version").notNull().default(1),
     ...timestamps,
   },
@@ -108,14 +102,12 @@ export const reviews = pgTable(
 
 /** The chair's settings of a cycle's Ranking board. */
 export const committeeBoards = pgTable("committee_boards", {
-  cycleId: integer("cycle_id")
-    .primaryKey()
-    .references(() => cycles.id, { onDelete: "cascade" }),
+  cycleId: keyRefTo(() => cycles.id),
   /** Proposals ranked below this position (in the board's order) are not discussed; null = no line. */
   triageAfter: integer("triage_after"),
   /** A proposal whose scores spread (population SD) more than this is flagged as a disagreement. */
   disagreementSpread: doublePrecision("disagreement_spread").notNull().default(1),
-  updatedAt: timestamp("updated_at", { withTimezone: true })
+  updatedAt: instant("updated_at")
     .notNull()
     .defaultNow()
     .$onUpdate(() => new Date()),
@@ -132,15 +124,13 @@ export const decisionEnum = pgEnum("committee_decision", DECISIONS);
 export const proposalDecisions = pgTable(
   "proposal_decisions",
   {
-    proposalId: integer("proposal_id")
-      .primaryKey()
-      .references(() => proposals.id, { onDelete: "cascade" }),
+    proposalId: keyRefTo(() => proposals.id),
     cycleId: refTo(() => cycles.id),
     finalGrade: doublePrecision("final_grade"),
     decision: decisionEnum("decision"),
     message: text("message").notNull().default(""),
     decidedById: optionalRefTo(() => users.id),
-    releasedAt: timestamp("released_at", { withTimezone: true }),
+    releasedAt: instant("released_at"),
     ...timestamps,
   },
   (t) => [index("proposal_decisions_cycle_idx").on(t.cycleId)],
@@ -150,18 +140,7 @@ export const proposalDecisions = pgTable(
  * Hours granted to an accepted proposal per configuration: the input of the night plans (each target of
  * the proposal owes its share of its configuration's hours).
  */
-export const allocatedHours = pgTable(
-  "allocated_hours",
-  {
-    proposalId: refTo(() => proposals.id),
-    configurationId: refTo(() => configurations.id, "restrict"),
-    hours: doublePrecision("hours").notNull(),
-  },
-  (t) => [
-    primaryKey({ columns: [t.proposalId, t.configurationId] }),
-    check("allocated_hours_positive", sql`${t.hours} > 0`),
-  ],
-);
+export const allocatedHours = hoursPerConfiguration("allocated_hours");
 
 /**
  * The darkness of a cycle's period at one site, as the engine computed it (every night, 24 LST bins),
@@ -175,7 +154,7 @@ export const cycleDarkTime = pgTable(
     siteId: refTo(() => sites.id),
     fingerprint: text("fingerprint").notNull(),
     darkTime: jsonb("dark_time").$type<Record<string, unknown>>().notNull(),
-    computedAt: timestamp("computed_at", { withTimezone: true }).notNull().defaultNow(),
+    computedAt: instant("computed_at").notNull().defaultNow(),
   },
   (t) => [primaryKey({ columns: [t.cycleId, t.siteId] })],
 );

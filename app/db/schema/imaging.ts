@@ -5,19 +5,8 @@
  * the OIFITS 2 file of the simulated data, or the error.
  */
 import { sql } from "drizzle-orm";
-import {
-  customType,
-  doublePrecision,
-  index,
-  integer,
-  jsonb,
-  pgEnum,
-  pgTable,
-  serial,
-  text,
-  timestamp,
-} from "drizzle-orm/pg-core";
-import { optionalRefTo, refTo } from "./columns";
+import { customType, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text } from "drizzle-orm/pg-core";
+import { instant, optionalRefTo, refTo, serialId } from "./columns";
 import { cycles, proposalTargets } from "./proposals";
 import { users } from "./users";
 
@@ -34,7 +23,7 @@ export type ImagingSource = (typeof IMAGING_SOURCES)[number];
 export const imagingJobs = pgTable(
   "imaging_jobs",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     ownerId: refTo(() => users.id),
     source: text("source").$type<ImagingSource>().notNull(),
     /** The proposal target it was made from (source "proposalTarget"). */
@@ -58,10 +47,10 @@ export const imagingJobs = pgTable(
     /** The pg-boss job that runs it, and how many times a worker has started it. */
     queueJobId: text("queue_job_id"),
     attempts: integer("attempts").notNull().default(0),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-    startedAt: timestamp("started_at", { withTimezone: true }),
-    finishedAt: timestamp("finished_at", { withTimezone: true }),
-    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: instant("created_at").notNull().defaultNow(),
+    startedAt: instant("started_at"),
+    finishedAt: instant("finished_at"),
+    updatedAt: instant("updated_at").notNull().defaultNow(),
   },
   (t) => [
     index("imaging_jobs_owner_idx").on(t.ownerId, t.createdAt),

@@ -1,6 +1,6 @@
 import { sql } from "drizzle-orm";
-import { index, integer, pgTable, serial, text, timestamp } from "drizzle-orm/pg-core";
-import { optionalRefTo } from "./columns";
+import { index, integer, pgTable, text } from "drizzle-orm/pg-core";
+import { instant, optionalRefTo, serialId } from "./columns";
 import { users } from "./users";
 
 /**
@@ -30,7 +30,7 @@ export type MailKind = (typeof MAIL_KINDS)[number];
 export const outboxMessages = pgTable(
   "outbox_messages",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     kind: text("kind").$type<MailKind>().notNull(),
     toAddress: text("to_address").notNull(),
     subject: text("subject").notNull(),
@@ -42,20 +42,20 @@ export const outboxMessages = pgTable(
     userId: optionalRefTo(() => users.id),
     /** The page the message points to (a proposal, a night plan, a sign-in link). */
     relatedUrl: text("related_url"),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: instant("created_at").notNull().defaultNow(),
     /** Delivery attempts that failed so far. */
     attempts: integer("attempts").notNull().default(0),
     /** The sender picks the message up at or after this instant. */
-    nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+    nextAttemptAt: instant("next_attempt_at").notNull().defaultNow(),
     lastError: text("last_error"),
     /**
      * A message that has not gone out by then is not sent at all (a sign-in link that would arrive
      * dead); null for messages that keep their use.
      */
-    deliverBy: timestamp("deliver_by", { withTimezone: true }),
+    deliverBy: instant("deliver_by"),
     /** Set when the sender gave the message up (past `deliverBy`); it is never sent after that. */
-    abandonedAt: timestamp("abandoned_at", { withTimezone: true }),
-    sentAt: timestamp("sent_at", { withTimezone: true }),
+    abandonedAt: instant("abandoned_at"),
+    sentAt: instant("sent_at"),
     /** The Message-ID the message was sent with. */
     smtpMessageId: text("smtp_message_id"),
   },

@@ -1,7 +1,7 @@
 import { sql } from "drizzle-orm";
-import { check, date, index, integer, jsonb, pgEnum, pgTable, serial, text, timestamp } from "drizzle-orm/pg-core";
+import { check, date, index, integer, jsonb, pgEnum, pgTable, text } from "drizzle-orm/pg-core";
 import { configurations } from "./array";
-import { optionalRefTo, refTo, timestamps } from "./columns";
+import { instant, optionalRefTo, refTo, serialId, timestamps } from "./columns";
 import { cycles, proposals, proposalTargets } from "./proposals";
 import { users } from "./users";
 
@@ -57,7 +57,7 @@ export const nightConfigurations = pgTable(
 export const nightPlans = pgTable(
   "night_plans",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     nightDate: date("night_date").notNull().unique("night_plans_night_key"),
     cycleId: refTo(() => cycles.id),
     configurationId: refTo(() => configurations.id, "restrict"),
@@ -65,7 +65,7 @@ export const nightPlans = pgTable(
     settings: jsonb("settings").$type<NightPlanSettingsJson>().notNull(),
     report: jsonb("report").$type<NightPlanReportJson>().notNull().default({ unplaced: [], warnings: [] }),
     createdById: optionalRefTo(() => users.id),
-    publishedAt: timestamp("published_at", { withTimezone: true }),
+    publishedAt: instant("published_at"),
     publishedById: optionalRefTo(() => users.id),
     ...timestamps,
   },
@@ -80,7 +80,7 @@ export const nightPlans = pgTable(
 export const nightPlanBlocks = pgTable(
   "night_plan_blocks",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     planId: refTo(() => nightPlans.id),
     position: integer("position").notNull(),
     kind: blockKindEnum("kind").notNull(),
@@ -88,11 +88,11 @@ export const nightPlanBlocks = pgTable(
     object: text("object").notNull(),
     proposalId: optionalRefTo(() => proposals.id),
     proposalTargetId: optionalRefTo(() => proposalTargets.id),
-    startUtc: timestamp("start_utc", { withTimezone: true }).notNull(),
-    endUtc: timestamp("end_utc", { withTimezone: true }).notNull(),
+    startUtc: instant("start_utc").notNull(),
+    endUtc: instant("end_utc").notNull(),
     outcome: blockOutcomeEnum("outcome").notNull().default("planned"),
     note: text("note").notNull().default(""),
-    markedAt: timestamp("marked_at", { withTimezone: true }),
+    markedAt: instant("marked_at"),
     markedById: optionalRefTo(() => users.id),
   },
   (t) => [

@@ -10,13 +10,11 @@ import {
   pgEnum,
   pgTable,
   primaryKey,
-  serial,
   text,
-  timestamp,
   uniqueIndex,
 } from "drizzle-orm/pg-core";
 import { bands, configurations, instruments } from "./array";
-import { optionalRefTo, refTo, timestamps } from "./columns";
+import { instant, keyRefTo, optionalRefTo, refTo, serialId, timestamps } from "./columns";
 import { users } from "./users";
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({
@@ -67,17 +65,17 @@ export const cycleStateEnum = pgEnum("cycle_state", CYCLE_STATES);
 export const cycles = pgTable(
   "cycles",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     name: text("name").notNull(),
     description: text("description").notNull().default(""),
     /** First and last night of the observing period (nights of date D begin on the evening of D). */
     observingStart: date("observing_start").notNull(),
     observingEnd: date("observing_end").notNull(),
-    submissionDeadline: timestamp("submission_deadline", { withTimezone: true }).notNull(),
+    submissionDeadline: instant("submission_deadline").notNull(),
     /** The committee's season; cycles that existed before it default to taking proposals. */
     state: cycleStateEnum("state").notNull().default("open"),
     /** Reviews must be submitted before this instant (the chair may reopen scoring by moving it). */
-    reviewDeadline: timestamp("review_deadline", { withTimezone: true }),
+    reviewDeadline: instant("review_deadline"),
     /** The day the committee's decisions are due to be sent. */
     decisionDate: date("decision_date"),
     /** The score scale's two ends: `scoreBest` the best score, `scoreWorst` the poorest (default 1 … 5). */
@@ -108,7 +106,7 @@ export const cycleConfigurations = pgTable(
 export const targets = pgTable(
   "targets",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     ownerId: refTo(() => users.id),
     name: text("name").notNull(),
     /** J2000 right ascension and declination, degrees. */
@@ -149,7 +147,7 @@ export const SCIENCE_CATEGORIES = [
 export const proposals = pgTable(
   "proposals",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     cycleId: refTo(() => cycles.id, "restrict"),
     piId: refTo(() => users.id, "restrict"),
     title: text("title").notNull().default(""),
@@ -159,7 +157,7 @@ export const proposals = pgTable(
     bandId: optionalRefTo(() => bands.id, "restrict"),
     status: proposalStatusEnum("status").notNull().default("draft"),
     /** When the latest version was submitted (null while a draft). */
-    submittedAt: timestamp("submitted_at", { withTimezone: true }),
+    submittedAt: instant("submitted_at"),
     /** Number of the latest frozen version; 0 while never submitted. */
     currentVersion: integer("current_version").notNull().default(0),
     ...timestamps,
@@ -171,28 +169,33 @@ export const proposals = pgTable(
 export const proposalMembers = pgTable(
   "proposal_members",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     proposalId: refTo(() => proposals.id),
     email: text("email").notNull(),
     userId: optionalRefTo(() => users.id),
-    invitedAt: timestamp("invited_at", { withTimezone: true }).notNull().defaultNow(),
+    invitedAt: instant("invited_at").notNull().defaultNow(),
   },
   (t) => [uniqueIndex("proposal_members_email_key").on(t.proposalId, sql`lower(${t.email})`)],
 );
 
+/**
+ * Hours of a proposal per configuration (one row a configuration, more than 0 h): what it requests
+ * (proposal_hours) or what the committee grants it (allocated_hours).
+ */
+export function hoursPerConfiguration<TName extends string>(name: TName) {
+  return pgTable(
+    name,
+    {
+      proposalId: refTo(() => proposals.id),
+      configurationId: refTo(() => configurations.id, "restrict"),
+      hours: doublePrecision("hours").notNull(),
+    },
+    (t) => [primaryKey({ columns: [t.proposalId, t.configurationId] }), check(`${name}_positive`, sql`${t.hours} > 0`)],
+  );
+}
+
 /** Hours requested per configuration. */
-export const proposalHours = pgTable(
-  "proposal_hours",
-  {
-    proposalId: refTo(() => proposals.id),
-    configurationId: refTo(() => configurations.id, "restrict"),
-    hours: doublePrecision("hours").notNull(),
-  },
-  (t) => [
-    primaryKey({ columns: [t.proposalId, t.configurationId] }),
-    check("proposal_hours_positive", sql`${t.hours} > 0`),
-  ],
-);
+export const proposalHours = hoursPerConfiguration("proposal_hours");
 
 /**
  * The targets of a proposal. Coordinates, model and magnitudes are copied in (from "My targets" or
@@ -201,7 +204,7 @@ export const proposalHours = pgTable(
 export const proposalTargets = pgTable(
   "proposal_targets",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     proposalId: refTo(() => proposals.id),
     position: integer("position").notNull().default(0),
     sourceTargetId: optionalRefTo(() => targets.id),
@@ -223,26 +226,24 @@ export const proposalTargets = pgTable(
 
 /** The science case, a PDF stored in the database (one per proposal). */
 export const proposalDocuments = pgTable("proposal_documents", {
-  proposalId: integer("proposal_id")
-    .primaryKey()
-    .references(() => proposals.id, { onDelete: "cascade" }),
+  proposalId: keyRefTo(() => proposals.id),
   filename: text("filename").notNull(),
   contentType: text("content_type").notNull(),
   sizeBytes: integer("size_bytes").notNull(),
   sha256: text("sha256").notNull(),
   data: bytea("data").notNull(),
   uploadedById: optionalRefTo(() => users.id),
-  uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
+  uploadedAt: instant("uploaded_at").notNull().defaultNow(),
 });
 
 /** A frozen copy of a proposal at submission: what the committee reviews. */
 export const proposalVersions = pgTable(
   "proposal_versions",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     proposalId: refTo(() => proposals.id),
     version: integer("version").notNull(),
-    submittedAt: timestamp("submitted_at", { withTimezone: true }).notNull().defaultNow(),
+    submittedAt: instant("submitted_at").notNull().defaultNow(),
     submittedById: optionalRefTo(() => users.id),
     /** Everything the proposal said, with its feasibility report, as JSON. */
     snapshot: jsonb("snapshot").$type<Record<string, unknown>>().notNull(),

@@ -1,6 +1,6 @@
 import { sql } from "drizzle-orm";
-import { boolean, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
-import { refTo, timestamps } from "./columns";
+import { boolean, pgEnum, pgTable, primaryKey, text, uniqueIndex } from "drizzle-orm/pg-core";
+import { instant, refTo, serialId, timestamps } from "./columns";
 
 /** The roles of PRODUCT.md; one person may hold several. Keep in step with app/services/permissions.ts. */
 export const ROLES = ["proposer", "reviewer", "chair", "scheduler", "admin"] as const;
@@ -10,14 +10,14 @@ export const roleEnum = pgEnum("role", ROLES);
 export const users = pgTable(
   "users",
   {
-    id: serial("id").primaryKey(),
+    id: serialId(),
     email: text("email").notNull(),
     name: text("name").notNull(),
     institute: text("institute").notNull().default(""),
     active: boolean("active").notNull().default(true),
     /** "<issuer> <subject>" of the single sign-on identity linked to this account, if any. */
     ssoSubject: text("sso_subject"),
-    lastSignInAt: timestamp("last_sign_in_at", { withTimezone: true }),
+    lastSignInAt: instant("last_sign_in_at"),
     ...timestamps,
   },
   (t) => [
@@ -31,7 +31,7 @@ export const userRoles = pgTable(
   {
     userId: refTo(() => users.id),
     role: roleEnum("role").notNull(),
-    grantedAt: timestamp("granted_at", { withTimezone: true }).notNull().defaultNow(),
+    grantedAt: instant("granted_at").notNull().defaultNow(),
   },
   (t) => [primaryKey({ columns: [t.userId, t.role] })],
 );

@@ -40,11 +40,14 @@ describe("ProgramBlocks", () => {
     ).replaceAll("<!-- -->", "");
     expect(html).toContain("Nights: planned and executed blocks");
     expect(html).toMatch(/medium-4<\/td><td[^>]*>3<\/td><td[^>]*>1.33<\/td><td[^>]*>0.67<\/td><td[^>]*>2.33<\/td>/);
-    expect(html).toContain("Science: Ardilla 1");
-    expect(html).toContain("Calibrator Ardilla 1 cal A for Ardilla 1");
-    expect(html).toContain("01:15 UTC");
-    expect(html).toContain("fringes stable");
-    expect(html).toContain("lost to weather");
+    for (const shown of [
+      "Science: Ardilla 1",
+      "Calibrator Ardilla 1 cal A for Ardilla 1",
+      "01:15 UTC",
+      "fringes stable",
+      "lost to weather",
+    ])
+      expect(html).toContain(shown);
   });
 
   it("says so when no published plan holds a block yet", () => {

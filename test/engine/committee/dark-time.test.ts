@@ -1,3 +1,5 @@
+import { rad } from "@test/angles";
+import { demoSite } from "@test/demo-array";
 import { describe, expect, it } from "vitest";
 import {
   addDarkIntervalToLst,
@@ -8,8 +10,7 @@ import {
   sunPosition,
 } from "~/engine";
 
-const site = { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 }; // demo site (invented)
-const rad = (d: number) => (d * Math.PI) / 180;
+const site = demoSite();
 const sum = (a: ArrayLike<number>) => Array.from(a).reduce((s, x) => s + x, 0);
 
 /** LMST in hours from Meeus eq. 12.4 (IAU 1982), written out here as an independent second method. */

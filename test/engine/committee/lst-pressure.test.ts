@@ -1,3 +1,6 @@
+import { rad } from "@test/angles";
+import { demoSite } from "@test/demo-array";
+import { skyPositionArbitraries } from "@test/random";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
@@ -14,8 +17,7 @@ import {
   stationsToEquatorial,
 } from "~/engine";
 
-const site = { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 }; // demo site (invented)
-const rad = (d: number) => (d * Math.PI) / 180;
+const site = demoSite();
 const sum = (a: ArrayLike<number>) => Array.from(a).reduce((s, x) => s + x, 0);
 
 const STATIONS = [
@@ -143,8 +145,7 @@ describe("LST pressure", () => {
       fc.property(
         fc.array(
           fc.record({
-            raDeg: fc.double({ min: 0, max: 359.9, noNaN: true }),
-            decDeg: fc.double({ min: -89, max: 60, noNaN: true }),
+            ...skyPositionArbitraries(),
             hours: fc.double({ min: 0, max: 50, noNaN: true }),
             configuration: fc.constantFrom("compact", "wide"),
           }),

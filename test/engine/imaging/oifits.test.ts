@@ -1,3 +1,4 @@
+import { binaryTarget, demoSite, demoStations } from "@test/demo-array";
 import { describe, expect, it } from "vitest";
 import {
   enuToEcefOffset,
@@ -13,19 +14,9 @@ import {
 import { columns, columnValues, type Hdu, parseCard, readFits } from "./fits-reader";
 
 const request = {
-  site: { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 },
-  stations: [
-    { name: "C01", eastM: 0, northM: 0, upM: 0, pathOffsetM: 0 },
-    { name: "C02", eastM: 16, northM: 0, upM: 0, pathOffsetM: 5 },
-    { name: "W1", eastM: -182, northM: 64, upM: 1.2, pathOffsetM: 40 },
-    { name: "N2", eastM: 35, northM: 228, upM: 2.1, pathOffsetM: 55 },
-  ],
-  target: {
-    name: "Demo's binary",
-    raDeg: 84.05,
-    decDeg: -1.2,
-    model: { type: "binary", separationMas: 3, positionAngleDeg: 40, fluxRatio: 0.5 },
-  },
+  site: demoSite(),
+  stations: demoStations("C01", "C02", "W1", "N2"),
+  target: binaryTarget("Demo's binary"),
   wavelengthsM: [1.6e-6, 1.7e-6, 1.8e-6],
   hourAnglesH: [-3, -2, -1, 0, 1, 2],
 };
@@ -42,7 +33,17 @@ const { response, bytes, hdus } = build();
 const byName = (name: string) => hdus.find((h) => h.get("EXTNAME") === name) as Hdu;
 
 /** Expects the columns of an OIFITS 2 table with their TFORM letter, repeat and unit. */
-function expectColumns(hdu: Hdu, spec: [string, string, number | "NWAVE", string?][], nwave: number) {
+type ColumnSpec = [string, string, number | "NWAVE", string?];
+
+/** The columns every data table (OI_VIS2, OI_T3) begins with: which target, and when (Tables 6 and 8). */
+const WHEN_COLUMNS: ColumnSpec[] = [
+  ["TARGET_ID", "I", 1],
+  ["TIME", "D", 1, "s"],
+  ["MJD", "D", 1, "day"],
+  ["INT_TIME", "D", 1, "s"],
+];
+
+function expectColumns(hdu: Hdu, spec: ColumnSpec[], nwave: number) {
   const cols = columns(hdu);
   for (const [name, code, repeat, unit] of spec) {
     const c = cols.find((x) => x.name === name);
@@ -142,6 +143,69 @@ describe("FITS structure (FITS Standard 4.0)", () => {
   });
 });
 
+/** Every mandatory column of the five tables, by the standard's table: name, data type, repeat, unit. */
+const MANDATORY_COLUMNS: Record<string, ColumnSpec[]> = {
+  // Table 3 (OI_TARGET)
+  OI_TARGET: [
+    ["TARGET_ID", "I", 1],
+    ["TARGET", "A", 16],
+    ["RAEP0", "D", 1, "deg"],
+    ["DECEP0", "D", 1, "deg"],
+    ["EQUINOX", "E", 1, "yr"],
+    ["RA_ERR", "D", 1, "deg"],
+    ["DEC_ERR", "D", 1, "deg"],
+    ["SYSVEL", "D", 1, "m/s"],
+    ["VELTYP", "A", 8],
+    ["VELDEF", "A", 8],
+    ["PMRA", "D", 1, "deg/yr"],
+    ["PMDEC", "D", 1, "deg/yr"],
+    ["PMRA_ERR", "D", 1, "deg/yr"],
+    ["PMDEC_ERR", "D", 1, "deg/yr"],
+    ["PARALLAX", "E", 1, "deg"],
+    ["PARA_ERR", "E", 1, "deg"],
+    ["SPECTYP", "A", 16],
+  ],
+  // Table 4 (OI_ARRAY)
+  OI_ARRAY: [
+    ["TEL_NAME", "A", 16],
+    ["STA_NAME", "A", 16],
+    ["STA_INDEX", "I", 1],
+    ["DIAMETER", "E", 1, "m"],
+    ["STAXYZ", "D", 3, "m"],
+    ["FOV", "D", 1, "arcsec"],
+    ["FOVTYPE", "A", 6],
+  ],
+  // Table 5 (OI_WAVELENGTH, from memory: EFF_WAVE and EFF_BAND, E, metres)
+  OI_WAVELENGTH: [
+    ["EFF_WAVE", "E", 1, "m"],
+    ["EFF_BAND", "E", 1, "m"],
+  ],
+  // Table 6 (OI_VIS2)
+  OI_VIS2: [
+    ...WHEN_COLUMNS,
+    ["VIS2DATA", "D", "NWAVE"],
+    ["VIS2ERR", "D", "NWAVE"],
+    ["UCOORD", "D", 1, "m"],
+    ["VCOORD", "D", 1, "m"],
+    ["STA_INDEX", "I", 2],
+    ["FLAG", "L", "NWAVE"],
+  ],
+  // Table 8 (OI_T3)
+  OI_T3: [
+    ...WHEN_COLUMNS,
+    ["T3AMP", "D", "NWAVE"],
+    ["T3AMPERR", "D", "NWAVE"],
+    ["T3PHI", "D", "NWAVE", "deg"],
+    ["T3PHIERR", "D", "NWAVE", "deg"],
+    ["U1COORD", "D", 1, "m"],
+    ["V1COORD", "D", 1, "m"],
+    ["U2COORD", "D", 1, "m"],
+    ["V2COORD", "D", 1, "m"],
+    ["STA_INDEX", "I", 3],
+    ["FLAG", "L", "NWAVE"],
+  ],
+};
+
 describe("OIFITS 2 layout (Duvert, Young & Hummel 2017, A&A 597, A8)", () => {
   it("has the main header's mandatory keywords (Table 2)", () => {
     const h = hdus[0];
@@ -173,92 +237,8 @@ describe("OIFITS 2 layout (Duvert, Young & Hummel 2017, A&A 597, A8)", () => {
   });
 
   it("has every mandatory column with the data type of the standard's tables", () => {
-    const nwave = 3;
-    // Table 3 (OI_TARGET)
-    expectColumns(
-      byName("OI_TARGET"),
-      [
-        ["TARGET_ID", "I", 1],
-        ["TARGET", "A", 16],
-        ["RAEP0", "D", 1, "deg"],
-        ["DECEP0", "D", 1, "deg"],
-        ["EQUINOX", "E", 1, "yr"],
-        ["RA_ERR", "D", 1, "deg"],
-        ["DEC_ERR", "D", 1, "deg"],
-        ["SYSVEL", "D", 1, "m/s"],
-        ["VELTYP", "A", 8],
-        ["VELDEF", "A", 8],
-        ["PMRA", "D", 1, "deg/yr"],
-        ["PMDEC", "D", 1, "deg/yr"],
-        ["PMRA_ERR", "D", 1, "deg/yr"],
-        ["PMDEC_ERR", "D", 1, "deg/yr"],
-        ["PARALLAX", "E", 1, "deg"],
-        ["PARA_ERR", "E", 1, "deg"],
-        ["SPECTYP", "A", 16],
-      ],
-      nwave,
-    );
-    // Table 4 (OI_ARRAY)
-    expectColumns(
-      byName("OI_ARRAY"),
-      [
-        ["TEL_NAME", "A", 16],
-        ["STA_NAME", "A", 16],
-        ["STA_INDEX", "I", 1],
-        ["DIAMETER", "E", 1, "m"],
-        ["STAXYZ", "D", 3, "m"],
-        ["FOV", "D", 1, "arcsec"],
-        ["FOVTYPE", "A", 6],
-      ],
-      nwave,
-    );
-    // Table 5 (OI_WAVELENGTH, from memory: EFF_WAVE and EFF_BAND, E, metres)
-    expectColumns(
-      byName("OI_WAVELENGTH"),
-      [
-        ["EFF_WAVE", "E", 1, "m"],
-        ["EFF_BAND", "E", 1, "m"],
-      ],
-      nwave,
-    );
-    // Table 6 (OI_VIS2)
-    expectColumns(
-      byName("OI_VIS2"),
-      [
-        ["TARGET_ID", "I", 1],
-        ["TIME", "D", 1, "s"],
-        ["MJD", "D", 1, "day"],
-        ["INT_TIME", "D", 1, "s"],
-        ["VIS2DATA", "D", "NWAVE"],
-        ["VIS2ERR", "D", "NWAVE"],
-        ["UCOORD", "D", 1, "m"],
-        ["VCOORD", "D", 1, "m"],
-        ["STA_INDEX", "I", 2],
-        ["FLAG", "L", "NWAVE"],
-      ],
-      nwave,
-    );
-    // Table 8 (OI_T3)
-    expectColumns(
-      byName("OI_T3"),
-      [
-        ["TARGET_ID", "I", 1],
-        ["TIME", "D", 1, "s"],
-        ["MJD", "D", 1, "day"],
-        ["INT_TIME", "D", 1, "s"],
-        ["T3AMP", "D", "NWAVE"],
-        ["T3AMPERR", "D", "NWAVE"],
-        ["T3PHI", "D", "NWAVE", "deg"],
-        ["T3PHIERR", "D", "NWAVE", "deg"],
-        ["U1COORD", "D", 1, "m"],
-        ["V1COORD", "D", 1, "m"],
-        ["U2COORD", "D", 1, "m"],
-        ["V2COORD", "D", 1, "m"],
-        ["STA_INDEX", "I", 3],
-        ["FLAG", "L", "NWAVE"],
-      ],
-      nwave,
-    );
+    const nwave = 3; // the request's three channels
+    for (const [extname, spec] of Object.entries(MANDATORY_COLUMNS)) expectColumns(byName(extname), spec, nwave);
   });
 
   it("reads back the simulated values", () => {

@@ -30,15 +30,13 @@ function knownQuadratic(n: number, seed: number) {
   return { fg, xStar };
 }
 
+/** Non-negative variables, iterated until the gradient (not the objective) says the solution is reached. */
+const TO_THE_BOUND = { lower: 0, maxIterations: 2000, objectiveTolerance: 0, gradientTolerance: 1e-9 };
+
 describe("projected L-BFGS (bounds)", () => {
   it("finds the known solution of a bound-constrained quadratic", () => {
     const { fg, xStar } = knownQuadratic(40, 7);
-    const r = minimizeBounded(fg, new Float64Array(40).fill(1), {
-      lower: 0,
-      maxIterations: 2000,
-      objectiveTolerance: 0,
-      gradientTolerance: 1e-9,
-    });
+    const r = minimizeBounded(fg, new Float64Array(40).fill(1), TO_THE_BOUND);
     expect(r.converged).toBe(true);
     for (let i = 0; i < 40; i++) expect(Math.abs(r.x[i] - xStar[i])).toBeLessThan(1e-6);
     // active set identified exactly: the bound variables sit on the bound
@@ -48,10 +46,7 @@ describe("projected L-BFGS (bounds)", () => {
   it("reaches the same solution with a diagonal metric", () => {
     const { fg, xStar } = knownQuadratic(30, 3);
     const r = minimizeBounded(fg, new Float64Array(30).fill(0.5), {
-      lower: 0,
-      maxIterations: 2000,
-      objectiveTolerance: 0,
-      gradientTolerance: 1e-9,
+      ...TO_THE_BOUND,
       metric: (x, out) => {
         for (let i = 0; i < x.length; i++) out[i] = x[i] + 0.01;
       },

@@ -2,32 +2,24 @@
  * The reconstruction's progress callback (used by the imaging-preview worker): called once per
  * optimizer iteration with the running count and the reduced χ², and a `true` answer stops the run.
  */
+import { reconstructionRequest } from "@test/reconstruction";
 import { SIX_STATIONS as SIX } from "@test/six-stations";
 import { describe, expect, it } from "vitest";
-import {
-  computeReconstruction,
-  parseReconstructRequest,
-  parseSimulateRequest,
-  simulateData,
-  simulateResponse,
-  type TargetModel,
-} from "~/engine";
+import { computeReconstruction, type TargetModel } from "~/engine";
 
 const model: TargetModel = { type: "binary", separationMas: 2.5, positionAngleDeg: 56, fluxRatio: 0.5 };
 
 function request(image: Record<string, unknown>) {
-  const sim = parseSimulateRequest({
-    site: { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 },
-    stations: SIX,
-    target: { raDeg: 201.37, decDeg: -30.2, model },
-    wavelengthsM: [1.6e-6, 1.7e-6],
-    hourAnglesH: Array.from({ length: 12 }, (_, i) => -3 + (6 * i) / 11),
-    noise: { vis2Relative: 0.05, closurePhaseDeg: 2, seed: 5 },
-  });
-  if (!sim.ok) throw new Error(sim.message);
-  const parsed = parseReconstructRequest({ data: simulateResponse(simulateData(sim.value)), image, model });
-  if (!parsed.ok) throw new Error(parsed.message);
-  return parsed.value;
+  return reconstructionRequest(
+    model,
+    {
+      stations: SIX,
+      wavelengthsM: [1.6e-6, 1.7e-6],
+      hourAnglesH: Array.from({ length: 12 }, (_, i) => -3 + (6 * i) / 11),
+      noise: { vis2Relative: 0.05, closurePhaseDeg: 2, seed: 5 },
+    },
+    image,
+  );
 }
 
 describe("reconstruction progress", { timeout: 60_000 }, () => {

@@ -1,13 +1,7 @@
+import { reconstructionRequest } from "@test/reconstruction";
 import { SIX_STATIONS as SIX } from "@test/six-stations";
 import { describe, expect, it } from "vitest";
-import {
-  computeReconstruction,
-  parseReconstructRequest,
-  parseSimulateRequest,
-  simulateData,
-  simulateResponse,
-  type TargetModel,
-} from "~/engine";
+import { computeReconstruction, type TargetModel } from "~/engine";
 
 // Thresholds of the imaging preview (issue 14): binary separation within one pixel and position angle
 // within 5°; disk diameter within 10 %; a sparse coverage clearly below a rich one in fidelity.
@@ -18,24 +12,15 @@ const RICH_FIDELITY_AT_LEAST = 0.9;
 const SPARSE_FIDELITY_GAP_AT_LEAST = 0.3;
 
 /** A good coverage: 6 stations × 30 hour angles × 8 channels; a sparse one: 3 stations × 3 × 1. */
-function simulated(model: TargetModel, sparse = false) {
-  const parsed = parseSimulateRequest({
-    site: { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 },
+function reconstruct(model: TargetModel, sparse = false, image: Record<string, unknown> = {}) {
+  const observing = {
     stations: sparse ? [SIX[0], SIX[3], SIX[4]] : SIX,
-    target: { raDeg: 201.37, decDeg: -30.2, model },
     wavelengthsM: sparse ? [1.65e-6] : Array.from({ length: 8 }, (_, i) => 1.5e-6 + (0.9e-6 * i) / 7),
     hourAnglesH: sparse ? [-1, 0, 1] : Array.from({ length: 30 }, (_, i) => -4 + (8 * i) / 29),
     closurePhaseTriangles: "independent",
     noise: { vis2Relative: 0.05, closurePhaseDeg: 2, seed: 3 },
-  });
-  if (!parsed.ok) throw new Error(parsed.message);
-  return simulateResponse(simulateData(parsed.value));
-}
-
-function reconstruct(model: TargetModel, sparse = false, image: Record<string, unknown> = {}) {
-  const parsed = parseReconstructRequest({ data: simulated(model, sparse), image, model });
-  if (!parsed.ok) throw new Error(parsed.message);
-  return computeReconstruction(parsed.value);
+  };
+  return computeReconstruction(reconstructionRequest(model, observing, image));
 }
 
 describe("reconstruction of synthetic targets from a good coverage", { timeout: 120_000 }, () => {

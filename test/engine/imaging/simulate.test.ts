@@ -1,21 +1,11 @@
+import { binaryTarget, demoSite, demoStations } from "@test/demo-array";
 import { describe, expect, it } from "vitest";
 import { computeCoverage, parseCoverageRequest, parseSimulateRequest, simulateData, simulateResponse } from "~/engine";
 
 const base = {
-  site: { latitudeDeg: -31.4, longitudeDeg: -68.9, altitudeM: 2450 },
-  stations: [
-    { name: "C01", eastM: 0, northM: 0, upM: 0, pathOffsetM: 0 },
-    { name: "C02", eastM: 16, northM: 0, upM: 0, pathOffsetM: 5 },
-    { name: "W1", eastM: -182, northM: 64, upM: 1.2, pathOffsetM: 40 },
-    { name: "N2", eastM: 35, northM: 228, upM: 2.1, pathOffsetM: 55 },
-    { name: "E3", eastM: 301, northM: -117, upM: -0.9, pathOffsetM: 70 },
-  ],
-  target: {
-    name: "Test binary",
-    raDeg: 84.05,
-    decDeg: -1.2,
-    model: { type: "binary", separationMas: 3, positionAngleDeg: 40, fluxRatio: 0.5 },
-  },
+  site: demoSite(),
+  stations: demoStations("C01", "C02", "W1", "N2", "E3"),
+  target: binaryTarget("Test binary"),
   wavelengthsM: [1.6e-6, 1.8e-6, 2.0e-6],
   hourAnglesH: [-4, -3, -2, -1, 0, 1, 2, 3, 4],
   minElevationDeg: 30,

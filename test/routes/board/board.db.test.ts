@@ -1,8 +1,7 @@
-import { answer, committeeCycle, person, registry, submitted } from "@test/committee-world";
+import { answer, committeeCycle, person, registry, submitted, submittedReview } from "@test/committee-world";
 import { formPost, routeArgs, settle, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { reviewAssignments, reviews } from "~/db/schema/committee";
 import { outboxMessages } from "~/db/schema/mail";
 import { cycles } from "~/db/schema/proposals";
 import { loader as boardApi } from "~/routes/api/cycle-board";
@@ -43,13 +42,7 @@ beforeAll(async () => {
     });
     w.ids.push(id);
     for (const [k, who] of [w.r1, w.r2].entries()) {
-      const [a] = await testDb()
-        .insert(reviewAssignments)
-        .values({ cycleId: cycle.id, proposalId: id, reviewerId: who.id })
-        .returning();
-      await testDb()
-        .insert(reviews)
-        .values({ assignmentId: a.id, score: 1 + i + k, commentToPi: `To PI ${i}${k}`, submittedAt: new Date() });
+      await submittedReview(cycle.id, id, who.id, { score: 1 + i + k, commentToPi: `To PI ${i}${k}` });
     }
   }
   w.chairToken = (await createApiToken(testDb(), w.chair.id, "board")).token;

@@ -95,15 +95,16 @@ describe("mailbox reads", () => {
   });
 });
 
-describe("mailbox pages", () => {
-  async function signedIn(email: string, role: "admin" | "proposer" = "admin") {
-    const db = testDb();
-    const [user] = await db.insert(users).values({ email, name: "Mara Oyarzún" }).returning();
-    await db.insert(userRoles).values({ userId: user.id, role });
-    const { token } = await createSession(db, user.id, { method: "sso" });
-    return { headers: { Cookie: `${SESSION_COOKIE}=${token}` } };
-  }
+/** A new person `email` holding `role`, signed in: the request headers that carry their session cookie. */
+async function signedIn(email: string, role: "admin" | "proposer" = "admin", name = email.split("@")[0]) {
+  const db = testDb();
+  const [user] = await db.insert(users).values({ email, name }).returning();
+  await db.insert(userRoles).values({ userId: user.id, role });
+  const { token } = await createSession(db, user.id, { method: "sso" });
+  return { headers: { Cookie: `${SESSION_COOKIE}=${token}` } };
+}
 
+describe("mailbox pages", () => {
   async function thrownBy(fn: () => Promise<unknown>) {
     try {
       await fn();
@@ -123,7 +124,7 @@ describe("mailbox pages", () => {
 
   it("lists and shows messages, treats a bad page as page 1 and a bad number as 404", async () => {
     const db = testDb();
-    const init = await signedIn("mara@example.org");
+    const init = await signedIn("mara@example.org", "admin", "Mara Oyarzún");
     const mine = await enqueueMail(db, signInMail("MARA@example.org", "For the viewer"));
     await enqueueMail(db, signInMail("other@example.org", "For someone else"));
 
@@ -154,17 +155,6 @@ describe("mailbox pages", () => {
 });
 
 describe("whose mail a signed-in person reads", () => {
-  async function person(email: string, role: "admin" | "proposer") {
-    const db = testDb();
-    const [user] = await db
-      .insert(users)
-      .values({ email, name: email.split("@")[0] })
-      .returning();
-    await db.insert(userRoles).values({ userId: user.id, role });
-    const { token } = await createSession(db, user.id, { method: "sso" });
-    return { headers: { Cookie: `${SESSION_COOKIE}=${token}` } };
-  }
-
   async function statusOf(fn: () => Promise<unknown>) {
     try {
       await fn();
@@ -177,7 +167,7 @@ describe("whose mail a signed-in person reads", () => {
   it("shows a person only their own messages, whatever the demo mode says", async () => {
     const db = testDb();
     process.env.DEMO_MODE = "1";
-    const ines = await person("ines@valle-alto.example", "proposer");
+    const ines = await signedIn("ines@valle-alto.example", "proposer");
     const hers = await enqueueMail(db, signInMail("ines@valle-alto.example", "Ines's link"));
     const admins = await sendSignInLink(db, "root@lumbre.example", "/");
     const [adminRow] = await db
@@ -203,7 +193,7 @@ describe("whose mail a signed-in person reads", () => {
 
   it("shows an administrator everything, with a live one-time link hidden until it is used", async () => {
     const db = testDb();
-    const admin = await person("root@lumbre.example", "admin");
+    const admin = await signedIn("root@lumbre.example", "admin");
     const link = await sendSignInLink(db, "kenji@tidewater.example", "/proposals");
     const token = new URL(link).searchParams.get("token")!;
     const [row] = await db.select().from(outboxMessages).where(eq(outboxMessages.toAddress, "kenji@tidewater.example"));

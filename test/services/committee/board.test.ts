@@ -1,3 +1,4 @@
+import { skyPositionArbitraries } from "@test/random";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { DEMO_CONFIGURATIONS, DEMO_SITE, DEMO_STATIONS } from "~/db/seed/scenario";
@@ -173,8 +174,7 @@ describe("the Ranking board", () => {
       fc.property(
         fc.array(
           fc.record({
-            raDeg: fc.double({ min: 0, max: 359.9, noNaN: true }),
-            decDeg: fc.double({ min: -89, max: 60, noNaN: true }),
+            ...skyPositionArbitraries(),
             config: fc.integer({ min: 1, max: 3 }),
             hours: fc.integer({ min: 1, max: 40 }),
             targets: fc.integer({ min: 1, max: 3 }),

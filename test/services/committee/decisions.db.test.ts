@@ -1,9 +1,9 @@
-import { committeeCycle, person, registry, submitted } from "@test/committee-world";
+import { committeeCycle, person, registry, submitted, submittedReview } from "@test/committee-world";
 import { testDb } from "@test/routes";
 import { eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { auditLog } from "~/db/schema/auth";
-import { cycleDarkTime, reviewAssignments, reviews } from "~/db/schema/committee";
+import { cycleDarkTime } from "~/db/schema/committee";
 import { outboxMessages } from "~/db/schema/mail";
 import { cycles, proposals } from "~/db/schema/proposals";
 import { loadBoard } from "~/services/committee/board.server";
@@ -38,19 +38,11 @@ beforeAll(async () => {
   w.ids = [await mk("Alpha", { [w.compact]: 4, [w.medium]: 2 }, 150), await mk("Beta", { [w.medium]: 6 }, 200)];
   for (const [i, pid] of w.ids.entries()) {
     for (const [k, rev] of [r1, r2].entries()) {
-      const [a] = await testDb()
-        .insert(reviewAssignments)
-        .values({ cycleId: cycle.id, proposalId: pid, reviewerId: rev.id })
-        .returning();
-      await testDb()
-        .insert(reviews)
-        .values({
-          assignmentId: a.id,
-          score: 1 + i + k,
-          commentToPi: `Comment ${i}${k} for the team.`,
-          commentToCommittee: "internal",
-          submittedAt: new Date(),
-        });
+      await submittedReview(cycle.id, pid, rev.id, {
+        score: 1 + i + k,
+        commentToPi: `Comment ${i}${k} for the team.`,
+        commentToCommittee: "internal",
+      });
     }
   }
 });

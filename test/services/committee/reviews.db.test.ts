@@ -20,6 +20,27 @@ const fields = (commentToPi: string, score: number | null = 2) => ({
   confidence: "medium" as const,
 });
 
+/**
+ * Reviewer `who` saves (or, with `submit`, sends) the review of their assignment through `db`, from
+ * `baseVersion`; `by` names another reviewer posting on that assignment.
+ */
+function saveAs(
+  who: "r1" | "r2",
+  db: Database,
+  baseVersion: number,
+  reviewFields: ReturnType<typeof fields>,
+  submit = false,
+  by: "r1" | "r2" = who,
+) {
+  return saveReview(db, {
+    assignmentId: ids[who],
+    reviewerId: ids[`${by}user`],
+    baseVersion,
+    fields: reviewFields,
+    submit,
+  });
+}
+
 beforeAll(async () => {
   a = createDatabase(process.env.DATABASE_URL!, { max: 2 }) as never;
   b = createDatabase(process.env.DATABASE_URL!, { max: 2 }) as never;
@@ -56,20 +77,8 @@ afterAll(async () => {
 describe("saving reviews", () => {
   it("two first saves of one review at the same moment from two connections: one kept, one refused with it", async () => {
     const [x, y] = await Promise.all([
-      saveReview(a.db, {
-        assignmentId: ids.r1,
-        reviewerId: ids.r1user,
-        baseVersion: 0,
-        fields: fields("from tab A"),
-        submit: false,
-      }),
-      saveReview(b.db, {
-        assignmentId: ids.r1,
-        reviewerId: ids.r1user,
-        baseVersion: 0,
-        fields: fields("from tab B"),
-        submit: false,
-      }),
+      saveAs("r1", a.db, 0, fields("from tab A")),
+      saveAs("r1", b.db, 0, fields("from tab B")),
     ]);
     const outcomes = [x, y];
     const kept = outcomes.filter((o) => o.ok);
@@ -87,20 +96,8 @@ describe("saving reviews", () => {
 
   it("two saves from the same version: the later one is refused with the newer text; saving from it succeeds", async () => {
     const [x, y] = await Promise.all([
-      saveReview(a.db, {
-        assignmentId: ids.r1,
-        reviewerId: ids.r1user,
-        baseVersion: 1,
-        fields: fields("second A"),
-        submit: false,
-      }),
-      saveReview(b.db, {
-        assignmentId: ids.r1,
-        reviewerId: ids.r1user,
-        baseVersion: 1,
-        fields: fields("second B"),
-        submit: false,
-      }),
+      saveAs("r1", a.db, 1, fields("second A")),
+      saveAs("r1", b.db, 1, fields("second B")),
     ]);
     const kept = [x, y].filter((o) => o.ok);
     expect(kept).toHaveLength(1);
@@ -110,32 +107,14 @@ describe("saving reviews", () => {
     expect(stored.version).toBe(2);
     expect(refused.ok === false && refused.kind === "stale" && refused.current.commentToPi).toBe(stored.commentToPi);
     // The reviewer merges and saves again from the version shown: accepted.
-    const again = await saveReview(a.db, {
-      assignmentId: ids.r1,
-      reviewerId: ids.r1user,
-      baseVersion: 2,
-      fields: fields("merged text"),
-      submit: false,
-    });
+    const again = await saveAs("r1", a.db, 2, fields("merged text"));
     expect(again).toEqual({ ok: true, version: 3, submitted: false });
   });
 
   it("two reviewers saving their own reviews at the same moment both keep what they wrote", async () => {
     const [x, y] = await Promise.all([
-      saveReview(a.db, {
-        assignmentId: ids.r1,
-        reviewerId: ids.r1user,
-        baseVersion: 3,
-        fields: fields("r1 text", 1),
-        submit: false,
-      }),
-      saveReview(b.db, {
-        assignmentId: ids.r2,
-        reviewerId: ids.r2user,
-        baseVersion: 0,
-        fields: fields("r2 text", 4),
-        submit: false,
-      }),
+      saveAs("r1", a.db, 3, fields("r1 text", 1)),
+      saveAs("r2", b.db, 0, fields("r2 text", 4)),
     ]);
     expect([x.ok, y.ok]).toEqual([true, true]);
     const rows = await testDb().select().from(reviews);
@@ -143,53 +122,29 @@ describe("saving reviews", () => {
   });
 
   it("refuses another reviewer's assignment, a score off the scale, and any change after submission", async () => {
-    expect(
-      await saveReview(testDb(), {
-        assignmentId: ids.r1,
-        reviewerId: ids.r2user,
-        baseVersion: 4,
-        fields: fields("x"),
-        submit: false,
-      }),
-    ).toEqual({ ok: false, kind: "refused", message: "Not your assignment." });
-    expect(
-      await saveReview(testDb(), {
-        assignmentId: ids.r1,
-        reviewerId: ids.r1user,
-        baseVersion: 4,
-        fields: fields("x", 9),
-        submit: false,
-      }),
-    ).toMatchObject({ ok: false, kind: "refused", message: "Score: not on the cycle's scale." });
-    const sent = await saveReview(testDb(), {
-      assignmentId: ids.r1,
-      reviewerId: ids.r1user,
-      baseVersion: 4,
-      fields: fields("final"),
-      submit: true,
+    expect(await saveAs("r1", testDb(), 4, fields("x"), false, "r2")).toEqual({
+      ok: false,
+      kind: "refused",
+      message: "Not your assignment.",
     });
+    expect(await saveAs("r1", testDb(), 4, fields("x", 9))).toMatchObject({
+      ok: false,
+      kind: "refused",
+      message: "Score: not on the cycle's scale.",
+    });
+    const sent = await saveAs("r1", testDb(), 4, fields("final"), true);
     expect(sent).toEqual({ ok: true, version: 5, submitted: true });
-    expect(
-      await saveReview(testDb(), {
-        assignmentId: ids.r1,
-        reviewerId: ids.r1user,
-        baseVersion: 5,
-        fields: fields("later"),
-        submit: false,
-      }),
-    ).toMatchObject({ ok: false, kind: "refused", message: /submitted/ });
+    expect(await saveAs("r1", testDb(), 5, fields("later"))).toMatchObject({
+      ok: false,
+      kind: "refused",
+      message: /submitted/,
+    });
   });
 
   it("refuses scoring after the review deadline until the chair reopens, and in the deciding state", async () => {
     const past = new Date(Date.now() - 60_000);
     await testDb().update(cycles).set({ reviewDeadline: past }).where(eq(cycles.id, cycleId));
-    const late = await saveReview(testDb(), {
-      assignmentId: ids.r2,
-      reviewerId: ids.r2user,
-      baseVersion: 1,
-      fields: fields("late"),
-      submit: false,
-    });
+    const late = await saveAs("r2", testDb(), 1, fields("late"));
     expect(late).toEqual({
       ok: false,
       kind: "refused",
@@ -199,24 +154,8 @@ describe("saving reviews", () => {
       .update(cycles)
       .set({ reviewDeadline: new Date(Date.now() + 86_400_000), state: "deciding" })
       .where(eq(cycles.id, cycleId));
-    expect(
-      await saveReview(testDb(), {
-        assignmentId: ids.r2,
-        reviewerId: ids.r2user,
-        baseVersion: 1,
-        fields: fields("x"),
-        submit: false,
-      }),
-    ).toMatchObject({ ok: false, message: /review is closed/ });
+    expect(await saveAs("r2", testDb(), 1, fields("x"))).toMatchObject({ ok: false, message: /review is closed/ });
     await testDb().update(cycles).set({ state: "reviewing" }).where(eq(cycles.id, cycleId));
-    expect(
-      await saveReview(testDb(), {
-        assignmentId: ids.r2,
-        reviewerId: ids.r2user,
-        baseVersion: 1,
-        fields: fields("reopened"),
-        submit: false,
-      }),
-    ).toEqual({ ok: true, version: 2, submitted: false });
+    expect(await saveAs("r2", testDb(), 1, fields("reopened"))).toEqual({ ok: true, version: 2, submitted: false });
   });
 });

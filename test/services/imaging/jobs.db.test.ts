@@ -4,7 +4,7 @@
  * the per-person limit, cancellation and a failure's error.
  */
 
-import { imagingCoverage, viewerWith } from "@test/imaging";
+import { imagingCoverage, startSketchPreview, viewerWith } from "@test/imaging";
 import { testDb } from "@test/routes";
 import { eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -36,17 +36,11 @@ describe("imaging previews without a worker", () => {
     const viewer = await viewerWith(db, "limit@example.test", ["proposer"]);
     const ids: number[] = [];
     for (let i = 0; i < 3; i++) {
-      const a = await startPreviews(db, {
-        viewer,
-        json: { source: { kind: "sketch", coverage: imagingCoverage() }, settings: small },
-      });
+      const a = await startSketchPreview(db, viewer, small);
       expect(a.ok).toBe(true);
       if (a.ok) ids.push(a.jobs[0].id);
     }
-    const fourth = await startPreviews(db, {
-      viewer,
-      json: { source: { kind: "sketch", coverage: imagingCoverage() } },
-    });
+    const fourth = await startSketchPreview(db, viewer);
     expect(fourth).toMatchObject({ ok: false, status: 429 });
     expect(!fourth.ok && fourth.message).toMatch(/at most 3 at a time/);
     expect(await cancelPreview(db, { viewer, jobId: ids[0] })).toBe(true);
@@ -55,10 +49,7 @@ describe("imaging previews without a worker", () => {
     const other = await viewerWith(db, "other@example.test", ["proposer"]);
     expect(await cancelPreview(db, { viewer: other, jobId: ids[1] })).toBe(false);
     expect(await readJob(db, { viewer: other, jobId: ids[1] })).toBeNull();
-    const again = await startPreviews(db, {
-      viewer,
-      json: { source: { kind: "sketch", coverage: imagingCoverage() } },
-    });
+    const again = await startSketchPreview(db, viewer);
     expect(again.ok).toBe(true);
     for (const id of ids.slice(1)) await cancelPreview(db, { viewer, jobId: id });
     if (again.ok) await cancelPreview(db, { viewer, jobId: again.jobs[0].id });
@@ -66,16 +57,10 @@ describe("imaging previews without a worker", () => {
 
   it("names the field of a bad request", async () => {
     const viewer = await viewerWith(db, "bad@example.test", ["proposer"]);
-    const grid = await startPreviews(db, {
-      viewer,
-      json: { source: { kind: "sketch", coverage: imagingCoverage() }, settings: { gridSize: 16 } },
-    });
+    const grid = await startSketchPreview(db, viewer, { gridSize: 16 });
     expect(grid).toMatchObject({ ok: false, status: 400, field: "settings.gridSize" });
     expect(!grid.ok && grid.message).toMatch(/between 32 and 128/);
-    const coverage = await startPreviews(db, {
-      viewer,
-      json: { source: { kind: "sketch", coverage: imagingCoverage({ wavelengthsM: "x" }) } },
-    });
+    const coverage = await startSketchPreview(db, viewer, undefined, imagingCoverage({ wavelengthsM: "x" }));
     expect(coverage).toMatchObject({ ok: false, status: 400 });
     expect(!coverage.ok && coverage.message).toMatch(/wavelengthsM/);
     const kind = await startPreviews(db, { viewer, json: { source: { kind: "nothing" } } });
@@ -88,10 +73,7 @@ describe("imaging previews without a worker", () => {
 describe("a preview pg-boss gives up on", () => {
   it("ends failed with the reason, not running forever", async () => {
     const viewer = await viewerWith(db, "lost@example.test", ["proposer"]);
-    const a = await startPreviews(db, {
-      viewer,
-      json: { source: { kind: "sketch", coverage: imagingCoverage() }, settings: small },
-    });
+    const a = await startSketchPreview(db, viewer, small);
     if (!a.ok) throw new Error(a.message);
     const boss = await imagingQueue("sender", process.env.DATABASE_URL);
     // As if a worker had taken it and every retry had been used up, then it failed once more.
@@ -121,10 +103,7 @@ describe("imaging previews with a worker", () => {
 
   it("runs a preview to the end: progress, images, χ² per observable, fidelity, verdict and OIFITS", async () => {
     const viewer = await viewerWith(db, "runner@example.test", ["proposer"]);
-    const a = await startPreviews(db, {
-      viewer,
-      json: { source: { kind: "sketch", coverage: imagingCoverage() }, settings: small },
-    });
+    const a = await startSketchPreview(db, viewer, small);
     if (!a.ok) throw new Error(a.message);
     const row = await waitFor(a.jobs[0].id, ["done", "failed"]);
     expect(row.error).toBeNull();
@@ -152,7 +131,7 @@ describe("imaging previews with a worker", () => {
     const coverage = imagingCoverage({
       target: { name: "Far north", raDeg: 10, decDeg: 75, model: { type: "uniformDisk", diameterMas: 2 } },
     });
-    const a = await startPreviews(db, { viewer, json: { source: { kind: "sketch", coverage }, settings: small } });
+    const a = await startSketchPreview(db, viewer, small, coverage);
     if (!a.ok) throw new Error(a.message);
     const row = await waitFor(a.jobs[0].id, ["done", "failed"]);
     expect(row.state).toBe("failed");
@@ -161,13 +140,7 @@ describe("imaging previews with a worker", () => {
 
   it("stops a running preview that is cancelled and leaves it cancelled", async () => {
     const viewer = await viewerWith(db, "cancels@example.test", ["proposer"]);
-    const a = await startPreviews(db, {
-      viewer,
-      json: {
-        source: { kind: "sketch", coverage: imagingCoverage() },
-        settings: { gridSize: 128, maxIterations: 1000 },
-      },
-    });
+    const a = await startSketchPreview(db, viewer, { gridSize: 128, maxIterations: 1000 });
     if (!a.ok) throw new Error(a.message);
     const id = a.jobs[0].id;
     await waitFor(id, ["running"]);

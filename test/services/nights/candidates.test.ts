@@ -1,3 +1,4 @@
+import { nightSettings } from "@test/nights";
 import { describe, expect, it } from "vitest";
 import { validatePlan } from "~/engine";
 import {
@@ -36,13 +37,7 @@ const setting = {
     { name: "X01", eastM: 32.161, northM: 105.193, upM: 1.2, pathOffsetM: 14.5 },
   ],
   delayLineStrokeM: 90,
-  settings: {
-    minElevationDeg: 30,
-    moonMinSeparationDeg: 10,
-    sunMinSeparationDeg: 45,
-    scienceBlockMin: 40,
-    calibratorBlockMin: 15,
-  },
+  settings: nightSettings(),
 };
 
 describe("candidates", () => {

@@ -1,3 +1,4 @@
+import { nightSettings } from "@test/nights";
 import { testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -174,13 +175,7 @@ describe("building a night", () => {
     const saved = await savePlanSettings(testDb(), {
       date: NIGHT,
       userId: null,
-      settings: {
-        minElevationDeg: 30,
-        moonMinSeparationDeg: 10,
-        sunMinSeparationDeg: 45,
-        scienceBlockMin: 40,
-        calibratorBlockMin: 15,
-      },
+      settings: nightSettings(),
     });
     expect(saved.ok).toBe(true);
     expect(await run(NIGHT, NIGHT, fx.configurationIds.compact)).toMatchObject({ ok: false, status: 409 });
@@ -216,32 +211,24 @@ describe("publication and after the night", () => {
     expect(await discardDraft(testDb(), { date: NIGHT })).toMatchObject({ ok: false, status: 409 });
   });
 
+  /** The night's export as a proposer who is not a scheduler sees it. */
+  const exportFor = (user: { id: number; email: string }) =>
+    planExport(testDb(), { date: NIGHT, viewer: { user, roles: ["proposer"], scheduler: false } });
+
   it("exports the whole plan to the scheduler and only their own blocks to a program's team", async () => {
     const all = await planExport(testDb(), {
       date: NIGHT,
       viewer: { user: fx.people.scheduler, roles: ["scheduler"], scheduler: true },
     });
-    const pi = await planExport(testDb(), {
-      date: NIGHT,
-      viewer: { user: fx.people.pi, roles: ["proposer"], scheduler: false },
-    });
-    const coi = await planExport(testDb(), {
-      date: NIGHT,
-      viewer: { user: fx.people.coi, roles: ["proposer"], scheduler: false },
-    });
-    const other = await planExport(testDb(), {
-      date: NIGHT,
-      viewer: { user: fx.people.other, roles: ["proposer"], scheduler: false },
-    });
+    const pi = await exportFor(fx.people.pi);
+    const coi = await exportFor(fx.people.coi);
+    const other = await exportFor(fx.people.other);
     expect(all?.filtered).toBe(false);
     expect(pi?.blocks.every((b) => b.program?.proposalId === fx.programs.first.id)).toBe(true);
     expect(coi?.blocks.length).toBe(pi?.blocks.length);
     expect(other?.blocks.every((b) => b.target === "Zorzal 7")).toBe(true);
     expect((pi?.blocks.length ?? 0) + (other?.blocks.length ?? 0)).toBe(all?.blocks.length);
-    const stranger = await planExport(testDb(), {
-      date: NIGHT,
-      viewer: { user: { id: 999_999, email: "nobody@nights.example" }, roles: ["proposer"], scheduler: false },
-    });
+    const stranger = await exportFor({ id: 999_999, email: "nobody@nights.example" });
     expect(stranger).toBeNull();
   });
 

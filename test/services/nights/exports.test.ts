@@ -1,3 +1,4 @@
+import { nightSettings } from "@test/nights";
 import ICAL from "ical.js";
 import Papa from "papaparse";
 import * as v from "valibot";
@@ -38,14 +39,7 @@ const plan: NightPlanExport = {
     astronomicalDawnUtc: result.night.astronomicalDawnUtc,
     moonIlluminatedFraction: result.night.moonIlluminatedFraction,
   },
-  settings: {
-    minElevationDeg: 30,
-    moonMinSeparationDeg: 10,
-    sunMinSeparationDeg: 45,
-    scienceBlockMin: 40,
-    calibratorBlockMin: 15,
-    delayLineStrokeM: 90,
-  },
+  settings: nightSettings({ delayLineStrokeM: 90 }),
   filtered: false,
   blocks: result.blocks.map((b, i) => ({
     position: i + 1,

@@ -94,26 +94,12 @@ export async function createNightsFixture(
     })),
   );
   const tag = name.toLowerCase().replace(/[^a-z0-9]+/g, "-");
-  const pi = await ensureUser(db, {
-    email: `pi-${tag}@nights.example`,
-    name: `Noor Quillay (${name})`,
-    roles: ["proposer"],
-  });
-  const coi = await ensureUser(db, {
-    email: `coi-${tag}@nights.example`,
-    name: `Ilan Varga (${name})`,
-    roles: ["proposer"],
-  });
-  const other = await ensureUser(db, {
-    email: `other-${tag}@nights.example`,
-    name: `Rosa Tarn (${name})`,
-    roles: ["proposer"],
-  });
-  const scheduler = await ensureUser(db, {
-    email: `sched-${tag}@nights.example`,
-    name: `Sami Oyelaran (${name})`,
-    roles: ["scheduler"],
-  });
+  const person = (prefix: string, fullName: string, role: "proposer" | "scheduler" = "proposer") =>
+    ensureUser(db, { email: `${prefix}-${tag}@nights.example`, name: `${fullName} (${name})`, roles: [role] });
+  const pi = await person("pi", "Noor Quillay");
+  const coi = await person("coi", "Ilan Varga");
+  const other = await person("other", "Rosa Tarn");
+  const scheduler = await person("sched", "Sami Oyelaran", "scheduler");
   const targets = fixtureTargets(night);
   const program = async (piId: number, title: string, hours: number, list: typeof targets.first, submitted: string) => {
     const [p] = await db
