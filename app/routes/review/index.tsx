@@ -67,7 +67,7 @@ export default function ReviewDesk({ loaderData: d }: Route.ComponentProps) {
           The chair puts reviewers on a cycle's committee; your assignments appear here.
         </EmptyState>
       ) : null}
-      <div className="grid gap-6">
+      <div className="page-stack">
         {d.seats.map((s) => (
           <Card
             key={s.cycle.id}
