@@ -155,7 +155,8 @@ type RowKeyProp<Row> = Row extends { id: string | number }
   ? { rowKey?: (row: Row) => string | number }
   : { rowKey: (row: Row) => string | number };
 
-function download(filename: string, text: string, type = "text/csv") {
+/** Hands text to the browser as a file download (CSV unless `type` says otherwise). */
+export function download(filename: string, text: string, type = "text/csv") {
   const url = URL.createObjectURL(new Blob([text], { type: `${type};charset=utf-8` }));
   const a = document.createElement("a");
   a.href = url;

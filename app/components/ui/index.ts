@@ -5,4 +5,5 @@ export { cx } from "./cx";
 export { type Column, DataTable, fixedColumn, namedColumn, tableToCsv } from "./DataTable";
 export { type Detail, DetailList } from "./DetailList";
 export { FormErrors, SelectField, TextArea, TextField } from "./Field";
+export { IntentButton } from "./IntentButton";
 export { type FlashMessage, Toast } from "./Toast";
