@@ -9,7 +9,7 @@ import { redirectWithFlash } from "~/lib/flash.server";
 import { fieldErrors } from "~/lib/form-errors";
 import { plural } from "~/lib/format";
 import { requirePermission } from "~/lib/guards.server";
-import { invariantResponse, toId } from "~/lib/not-found";
+import { rowOfParam } from "~/lib/not-found";
 import { boardPage } from "~/services/committee/board-page.server";
 import { releaseDecisions, saveBoardSettings, saveDecisions } from "~/services/committee/decisions.server";
 import { parseDecisionsForm } from "~/services/committee/decisions-form";
@@ -21,11 +21,8 @@ import { RankingTable } from "./+shared/RankingTable";
 import { SettingsCard } from "./+shared/SettingsCard";
 import type { Route } from "./+types/cycle";
 
-async function pageOf(db: Parameters<typeof boardPage>[0], raw: string | undefined) {
-  const cycleId = toId(raw);
-  const page = cycleId === null ? null : await boardPage(db, { cycleId });
-  invariantResponse(page, "No cycle with this number.");
-  return page;
+function pageOf(db: Parameters<typeof boardPage>[0], raw: string | undefined) {
+  return rowOfParam(raw, (cycleId) => boardPage(db, { cycleId }), "No cycle with this number.");
 }
 
 export async function loader({ request, params, context }: Route.LoaderArgs) {

@@ -9,7 +9,7 @@ import { requireFormBody } from "~/lib/body.server";
 import { redirectWithFlash } from "~/lib/flash.server";
 import { plural } from "~/lib/format";
 import { requirePermission } from "~/lib/guards.server";
-import { invariantResponse, toId } from "~/lib/not-found";
+import { rowOfParam, toId } from "~/lib/not-found";
 import {
   assignmentOverview,
   DEFAULT_REVIEWERS_PER_PROPOSAL,
@@ -35,11 +35,8 @@ const PairList = v.pipe(
   ),
 );
 
-async function cycleOf(db: Parameters<typeof assignmentOverview>[0], raw: string | undefined) {
-  const cycleId = toId(raw);
-  const page = cycleId === null ? null : await assignmentOverview(db, { cycleId });
-  invariantResponse(page, "No cycle with this number.");
-  return page;
+function cycleOf(db: Parameters<typeof assignmentOverview>[0], raw: string | undefined) {
+  return rowOfParam(raw, (cycleId) => assignmentOverview(db, { cycleId }), "No cycle with this number.");
 }
 
 export async function loader({ request, params, context }: Route.LoaderArgs) {
