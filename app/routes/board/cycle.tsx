@@ -1,8 +1,9 @@
 import { data, href } from "react-router";
 import * as v from "valibot";
+import { CycleLinks } from "~/components/committee/CycleLinks";
 import { StateBadge } from "~/components/committee/StateBadge";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Alert, ButtonLink, PageHeader } from "~/components/ui";
+import { Alert, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
 import { requireFormBody } from "~/lib/body.server";
 import { redirectWithFlash } from "~/lib/flash.server";
@@ -112,12 +113,7 @@ export default function Board({ loaderData: d, actionData }: Route.ComponentProp
         back={{ to: href("/board"), label: "All boards" }}
         actions={
           <>
-            <ButtonLink to={href("/cycles/:cycleId", { cycleId: id })} variant="secondary">
-              Cycle
-            </ButtonLink>
-            <ButtonLink to={href("/cycles/:cycleId/assignments", { cycleId: id })} variant="secondary">
-              Assignments
-            </ButtonLink>
+            <CycleLinks cycleId={id} pages={["cycle", "assignments"]} />
             <a
               className="inline-flex h-10 items-center rounded-lg px-4 font-medium text-night-700 hover:bg-night-100"
               href={`${api}?format=csv`}
