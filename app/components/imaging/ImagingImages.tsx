@@ -4,15 +4,7 @@
  * to its own peak, so their shapes compare directly.
  */
 import { useMemo } from "react";
-import { Plot, plotLayout } from "~/components/plots/Plot";
-
-const HEAT = [
-  [0, "#0d1220"],
-  [0.3, "#313a52"],
-  [0.55, "#a03611"],
-  [0.78, "#f27a3a"],
-  [1, "#fff5ee"],
-];
+import { HEAT, Plot, plotLayout } from "~/components/plots/Plot";
 
 function grid(values: readonly number[], n: number) {
   let peak = 0;

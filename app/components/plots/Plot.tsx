@@ -77,6 +77,15 @@ export function plotLayout(own: LayoutObject): LayoutObject {
   return out;
 }
 
+/** The colour scale of every image (dirty beam, model, reconstruction): dark to ember to white, the peak lightest. */
+export const HEAT: [number, string][] = [
+  [0, "#0d1220"],
+  [0.3, "#313a52"],
+  [0.55, "#a03611"],
+  [0.78, "#f27a3a"],
+  [1, "#fff5ee"],
+];
+
 /** One colour per series, chosen for contrast on white and told apart by people with common colour-vision deficiencies. */
 export const SERIES_COLOURS = [
   "#a03611",
