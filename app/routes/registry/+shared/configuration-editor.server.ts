@@ -38,10 +38,10 @@ const readConfiguration = (form: FormData): editor.FormValues => ({
 });
 
 function save(db: Database, values: editor.FormValues, siteId: number, configuration: Configuration | null) {
-  return editor.saveRecord(db, values, {
+  return editor.saveAtSite(db, values, siteId, {
     schema: ConfigurationSchema,
-    unique: { entity: "configuration", scopeId: siteId, exceptId: configuration?.id },
-    taken: async (name) => `${name} is already a configuration at ${await editor.siteName(db, siteId)}`,
+    entity: "configuration",
+    exceptId: configuration?.id,
     write: async (record) => {
       const saved = await saveConfiguration(db, { siteId, id: configuration?.id, values: record });
       if (!saved.ok) {

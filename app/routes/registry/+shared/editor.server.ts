@@ -179,6 +179,24 @@ export async function saveRecord<T extends { name: string }>(
 }
 
 /**
+ * The save step of a station or a configuration: its name unique at the site (the refusal names the
+ * site), `exceptId` the record itself when it is edited.
+ */
+export function saveAtSite<T extends { name: string }>(
+  db: Database,
+  values: FormValues,
+  siteId: number,
+  spec: Pick<SaveSpec<T>, "schema" | "write"> & { entity: "station" | "configuration"; exceptId?: number },
+): Promise<Answer> {
+  return saveRecord(db, values, {
+    schema: spec.schema,
+    unique: { entity: spec.entity, scopeId: siteId, exceptId: spec.exceptId },
+    taken: async (name) => `${name} is already a ${spec.entity} at ${await siteName(db, siteId)}`,
+    write: spec.write,
+  });
+}
+
+/**
  * Deletes a configuration, an instrument or a band unless other records still refer to it: then
  * `refusal` stands on the form (status 409) and nothing goes.
  */

@@ -27,10 +27,10 @@ export async function editStationLoader(args: LoaderFunctionArgs) {
 }
 
 function saveStation(db: Database, values: editor.FormValues, siteId: number, station: Station | null) {
-  return editor.saveRecord(db, values, {
+  return editor.saveAtSite(db, values, siteId, {
     schema: StationSchema,
-    unique: { entity: "station", scopeId: siteId, exceptId: station?.id },
-    taken: async (name) => `${name} is already a station at ${await editor.siteName(db, siteId)}`,
+    entity: "station",
+    exceptId: station?.id,
     write: async (record) => {
       if (!station) await insertRecord(db, { entity: "station", values: { ...record, siteId } });
       else await updateRecord(db, { entity: "station", id: station.id, values: record });
