@@ -4,7 +4,7 @@
  * to its own peak, so their shapes compare directly.
  */
 import { useMemo } from "react";
-import { HEAT, Plot, plotLayout } from "~/components/plots/Plot";
+import { HEAT, Plot, plotLayout, skyAxes } from "~/components/plots/Plot";
 
 function grid(values: readonly number[], n: number) {
   let peak = 0;
@@ -60,14 +60,7 @@ export function ImagingImages({
   const layout = useMemo(
     () =>
       plotLayout({
-        xaxis: { title: { text: "Offset (mas), east ←" }, autorange: "reversed", zeroline: false, constrain: "domain" },
-        yaxis: {
-          title: { text: "north ↑ (mas)" },
-          scaleanchor: "x",
-          scaleratio: 1,
-          zeroline: false,
-          constrain: "domain",
-        },
+        ...skyAxes("north ↑ (mas)"),
         margin: { l: 48, r: 8, t: 8, b: 44 },
       }),
     [],

@@ -86,6 +86,14 @@ export const HEAT: [number, string][] = [
   [1, "#fff5ee"],
 ];
 
+/** Axes of an image on the sky: offsets in mas, east to the left as on the sky, north up, square pixels. */
+export function skyAxes(northTitle = "Offset (mas), north ↑"): Record<string, unknown> {
+  return {
+    xaxis: { title: { text: "Offset (mas), east ←" }, autorange: "reversed", zeroline: false, constrain: "domain" },
+    yaxis: { title: { text: northTitle }, scaleanchor: "x", scaleratio: 1, zeroline: false, constrain: "domain" },
+  };
+}
+
 /** One colour per series, chosen for contrast on white and told apart by people with common colour-vision deficiencies. */
 export const SERIES_COLOURS = [
   "#a03611",

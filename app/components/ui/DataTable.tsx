@@ -145,13 +145,14 @@ function Cells<Row>({
   });
 }
 
-/** The key of a row that has an `id`; rows without one must be given `rowKey`. */
+/** The key of a row that has an `id` (else a `key`); rows with neither must be given `rowKey`. */
 function idOf(row: unknown): string | number {
-  return (row as { id: string | number }).id;
+  const r = row as { id?: string | number; key?: string | number };
+  return r.id ?? (r.key as string | number);
 }
 
-/** `rowKey` may be left out when every row has an `id`. */
-type RowKeyProp<Row> = Row extends { id: string | number }
+/** `rowKey` may be left out when every row has an `id` or a `key`. */
+type RowKeyProp<Row> = Row extends { id: string | number } | { key: string | number }
   ? { rowKey?: (row: Row) => string | number }
   : { rowKey: (row: Row) => string | number };
 

@@ -51,7 +51,6 @@ export function CalibrationCard({
         columns={columns}
         rows={reviewers}
         footer={[committee]}
-        rowKey={(r) => r.key}
         caption="Mean and spread of each reviewer's scores"
         exportName="reviewer-calibration"
         density="compact"

@@ -62,7 +62,6 @@ export function SkyCard({
       <DataTable
         columns={columns}
         rows={sky.events}
-        rowKey={(e) => e.key}
         caption="Sun events of the night in UT, local time and local sidereal time"
         exportName={`sun-events-${sky.date}`}
         density="compact"

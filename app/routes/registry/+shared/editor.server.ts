@@ -180,17 +180,17 @@ export async function saveRecord<T extends { name: string }>(
 
 /**
  * The save step of a station or a configuration: its name unique at the site (the refusal names the
- * site), `exceptId` the record itself when it is edited.
+ * site) among the others than `existing`, the record edited (null when new).
  */
 export function saveAtSite<T extends { name: string }>(
   db: Database,
   values: FormValues,
-  siteId: number,
-  spec: Pick<SaveSpec<T>, "schema" | "write"> & { entity: "station" | "configuration"; exceptId?: number },
+  { siteId, existing }: { siteId: number; existing: { id: number } | null },
+  spec: Pick<SaveSpec<T>, "schema" | "write"> & { entity: "station" | "configuration" },
 ): Promise<Answer> {
   return saveRecord(db, values, {
     schema: spec.schema,
-    unique: { entity: spec.entity, scopeId: siteId, exceptId: spec.exceptId },
+    unique: { entity: spec.entity, scopeId: siteId, exceptId: existing?.id },
     taken: async (name) => `${name} is already a ${spec.entity} at ${await siteName(db, siteId)}`,
     write: spec.write,
   });

@@ -27,17 +27,21 @@ export async function editStationLoader(args: LoaderFunctionArgs) {
 }
 
 function saveStation(db: Database, values: editor.FormValues, siteId: number, station: Station | null) {
-  return editor.saveAtSite(db, values, siteId, {
-    schema: StationSchema,
-    entity: "station",
-    exceptId: station?.id,
-    write: async (record) => {
-      if (!station) await insertRecord(db, { entity: "station", values: { ...record, siteId } });
-      else await updateRecord(db, { entity: "station", id: station.id, values: record });
-      const text = `Station ${record.name} ${station ? "saved" : "added"}.`;
-      return { to: station ? stationHref(station.id) : overviewHref(siteId), text };
+  return editor.saveAtSite(
+    db,
+    values,
+    { siteId, existing: station },
+    {
+      schema: StationSchema,
+      entity: "station",
+      write: async (record) => {
+        if (!station) await insertRecord(db, { entity: "station", values: { ...record, siteId } });
+        else await updateRecord(db, { entity: "station", id: station.id, values: record });
+        const text = `Station ${record.name} ${station ? "saved" : "added"}.`;
+        return { to: station ? stationHref(station.id) : overviewHref(siteId), text };
+      },
     },
-  });
+  );
 }
 
 /** Deletes the station, unless a configuration uses it: then says which, and deletes nothing. */
