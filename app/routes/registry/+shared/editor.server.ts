@@ -179,21 +179,21 @@ export async function saveRecord<T extends { name: string }>(
 }
 
 /**
- * The save step of a station or a configuration: its name unique at the site (the refusal names the
- * site) among the others than `existing`, the record edited (null when new).
+ * The save step of a station or a configuration, as `atSiteActions` takes it: the name unique at the
+ * site (the refusal names the site) among the others than the record edited (null when new).
  */
-export function saveAtSite<T extends { name: string }>(
-  db: Database,
-  values: FormValues,
-  { siteId, existing }: { siteId: number; existing: { id: number } | null },
-  spec: Pick<SaveSpec<T>, "schema" | "write"> & { entity: "station" | "configuration" },
-): Promise<Answer> {
-  return saveRecord(db, values, {
-    schema: spec.schema,
-    unique: { entity: spec.entity, scopeId: siteId, exceptId: existing?.id },
-    taken: async (name) => `${name} is already a ${spec.entity} at ${await siteName(db, siteId)}`,
-    write: spec.write,
-  });
+export function siteSaver<Row extends { id: number }, T extends { name: string }>(spec: {
+  schema: v.GenericSchema<unknown, T>;
+  entity: "station" | "configuration";
+  write: (db: Database, record: T, siteId: number, existing: Row | null) => ReturnType<SaveSpec<T>["write"]>;
+}) {
+  return (db: Database, values: FormValues, siteId: number, existing: Row | null): Promise<Answer> =>
+    saveRecord(db, values, {
+      schema: spec.schema,
+      unique: { entity: spec.entity, scopeId: siteId, exceptId: existing?.id },
+      taken: async (name) => `${name} is already a ${spec.entity} at ${await siteName(db, siteId)}`,
+      write: (record) => spec.write(db, record, siteId, existing),
+    });
 }
 
 /**

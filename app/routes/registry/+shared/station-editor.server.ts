@@ -26,23 +26,16 @@ export async function editStationLoader(args: LoaderFunctionArgs) {
   return { station, siteName: map.siteName, usedBy, stations: map.stations };
 }
 
-function saveStation(db: Database, values: editor.FormValues, siteId: number, station: Station | null) {
-  return editor.saveAtSite(
-    db,
-    values,
-    { siteId, existing: station },
-    {
-      schema: StationSchema,
-      entity: "station",
-      write: async (record) => {
-        if (!station) await insertRecord(db, { entity: "station", values: { ...record, siteId } });
-        else await updateRecord(db, { entity: "station", id: station.id, values: record });
-        const text = `Station ${record.name} ${station ? "saved" : "added"}.`;
-        return { to: station ? stationHref(station.id) : overviewHref(siteId), text };
-      },
-    },
-  );
-}
+const saveStation = editor.siteSaver({
+  schema: StationSchema,
+  entity: "station",
+  write: async (db, record, siteId, station: Station | null) => {
+    if (!station) await insertRecord(db, { entity: "station", values: { ...record, siteId } });
+    else await updateRecord(db, { entity: "station", id: station.id, values: record });
+    const text = `Station ${record.name} ${station ? "saved" : "added"}.`;
+    return { to: station ? stationHref(station.id) : overviewHref(siteId), text };
+  },
+});
 
 /** Deletes the station, unless a configuration uses it: then says which, and deletes nothing. */
 async function removeStation({ db, row: station }: { db: Database; row: Station }) {
