@@ -4,7 +4,9 @@
  * `programNights(db, { proposalId })` (app/services/nights/program.server.ts) returns, after the page's
  * own check that the viewer may see the proposal.
  */
-import { Badge, type BadgeTone, Card, type Column, DataTable } from "~/components/ui";
+import { Card, type Column, DataTable } from "~/components/ui";
+import type { BlockOutcome } from "~/db/schema/nights";
+import { OutcomeBadge } from "./OutcomeBadge";
 
 export type ProgramBlockRow = {
   id: number;
@@ -15,7 +17,7 @@ export type ProgramBlockRow = {
   object: string;
   startUtc: string;
   endUtc: string;
-  outcome: "planned" | "executed" | "weather" | "technical";
+  outcome: BlockOutcome;
   note: string;
 };
 
@@ -25,19 +27,6 @@ export type ProgramHoursRow = {
   plannedHours: number;
   executedHours: number;
   owedHours: number;
-};
-
-const TONE: Record<ProgramBlockRow["outcome"], BadgeTone> = {
-  planned: "info",
-  executed: "ok",
-  weather: "caution",
-  technical: "danger",
-};
-const WORDS: Record<ProgramBlockRow["outcome"], string> = {
-  planned: "planned",
-  executed: "executed",
-  weather: "lost to weather",
-  technical: "lost to a technical fault",
 };
 
 const time = (iso: string) => `${iso.slice(11, 16)}`;
@@ -76,7 +65,7 @@ const blockColumns: Column<ProgramBlockRow>[] = [
     value: (b) => b.outcome,
     render: (b) => (
       <span>
-        <Badge tone={TONE[b.outcome]}>{WORDS[b.outcome]}</Badge>
+        <OutcomeBadge outcome={b.outcome} />
         {b.note ? <span className="block text-xs text-night-600">{b.note}</span> : null}
       </span>
     ),

@@ -1,28 +1,24 @@
-import { type DragEvent, useEffect, useRef, useState } from "react";
+import { type DragEvent, type ReactNode, useEffect, useRef, useState } from "react";
 import { useFetcher } from "react-router";
-import { Badge, type BadgeTone, Button, type Column, cx, DataTable, fixedColumn } from "~/components/ui";
-import type { BlockOutcome } from "~/db/schema/nights";
+import { OutcomeBadge, outcomeWords } from "~/components/nights/OutcomeBadge";
+import { Badge, Button, type Column, cx, DataTable, fixedColumn } from "~/components/ui";
 import { lstText, utcTime } from "~/services/nights/sky";
 import type { BlockView } from "~/services/nights/view";
 import { FetcherResult } from "./FetcherResult";
 import type { NightActionData } from "./intents.server";
 
-const OUTCOME_TONE: Record<BlockOutcome, BadgeTone> = {
-  planned: "neutral",
-  executed: "ok",
-  weather: "caution",
-  technical: "danger",
-};
-const OUTCOME_WORDS: Record<BlockOutcome, string> = {
-  planned: "planned",
-  executed: "executed",
-  weather: "lost to weather",
-  technical: "lost to a technical fault",
-};
-
 const f1 = (x: number | null | undefined, digits = 1) => (x === null || x === undefined ? "—" : x.toFixed(digits));
 const minutes = (b: BlockView) => Math.round((Date.parse(b.endUtc) - Date.parse(b.startUtc)) / 60_000);
 const describe = (b: BlockView) => `block ${b.position} (${b.kind} ${b.object})`;
+
+/** The label of a control whose column header says what it is: read by screen readers only. */
+function HiddenLabel({ htmlFor, children }: { htmlFor: string; children: ReactNode }) {
+  return (
+    <label className="sr-only" htmlFor={htmlFor}>
+      {children}
+    </label>
+  );
+}
 
 function EditControls({
   b,
@@ -56,9 +52,7 @@ function EditControls({
       >
         ↓
       </Button>
-      <label className="sr-only" htmlFor={`length-${b.id}`}>
-        Length of {describe(b)} in minutes
-      </label>
+      <HiddenLabel htmlFor={`length-${b.id}`}>Length of {describe(b)} in minutes</HiddenLabel>
       <input
         id={`length-${b.id}`}
         type="number"
@@ -101,9 +95,7 @@ function MarkControls({ b }: { b: BlockView }) {
       <div className="flex items-center gap-1 whitespace-nowrap">
         <input type="hidden" name="intent" value="mark" />
         <input type="hidden" name="blockId" value={b.id} />
-        <label className="sr-only" htmlFor={`outcome-${b.id}`}>
-          Outcome of {describe(b)}
-        </label>
+        <HiddenLabel htmlFor={`outcome-${b.id}`}>Outcome of {describe(b)}</HiddenLabel>
         <select
           id={`outcome-${b.id}`}
           name="outcome"
@@ -115,9 +107,7 @@ function MarkControls({ b }: { b: BlockView }) {
           <option value="technical">technical fault</option>
           <option value="planned">back to planned</option>
         </select>
-        <label className="sr-only" htmlFor={`note-${b.id}`}>
-          Note on {describe(b)}
-        </label>
+        <HiddenLabel htmlFor={`note-${b.id}`}>Note on {describe(b)}</HiddenLabel>
         <input
           id={`note-${b.id}`}
           name="note"
@@ -140,7 +130,7 @@ function MarkControls({ b }: { b: BlockView }) {
 function Checks({ b }: { b: BlockView }) {
   return (
     <>
-      {b.outcome !== "planned" ? <Badge tone={OUTCOME_TONE[b.outcome]}>{OUTCOME_WORDS[b.outcome]}</Badge> : null}
+      {b.outcome !== "planned" ? <OutcomeBadge outcome={b.outcome} /> : null}
       {b.note ? <span className="block text-xs text-night-600">{b.note}</span> : null}
       {b.violations.length ? (
         <ul className="space-y-0.5 text-xs font-medium text-danger-700" aria-label={`Problems of ${describe(b)}`}>
@@ -251,7 +241,7 @@ function planColumns(
     {
       key: "checks",
       header: "Checks and outcome",
-      value: (b) => b.violations.map((v) => v.rule).join(", ") || OUTCOME_WORDS[b.outcome],
+      value: (b) => b.violations.map((v) => v.rule).join(", ") || outcomeWords(b.outcome),
       render: (b) => <Checks b={b} />,
     },
   ];
