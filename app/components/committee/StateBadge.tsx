@@ -25,17 +25,9 @@ export function StateBadge({ state }: { state: CycleState }) {
 }
 
 /** A card title naming a cycle: its name (a link when `to` is given), its state, and any further badges. */
-export function CycleTitle({
-  name,
-  state,
-  to,
-  children,
-}: {
-  name: ReactNode;
-  state: CycleState;
-  to?: string;
-  children?: ReactNode;
-}) {
+type CycleTitleProps = { name: ReactNode; state: CycleState; to?: string; children?: ReactNode };
+
+export function CycleTitle({ name, state, to, children }: CycleTitleProps) {
   return (
     <span className="flex flex-wrap items-center gap-2">
       {to ? (
