@@ -95,6 +95,10 @@ describe("proposals", () => {
     // Submit.
     await page.getByRole("link", { name: "Back to the proposal" }).click();
     await page.getByRole("button", { name: "Submit the proposal" }).click();
+    await page
+      .getByRole("dialog", { name: "Submit the proposal?" })
+      .getByRole("button", { name: "Yes, submit" })
+      .click();
     await page.getByText(/^Submitted\. Version 1 is frozen/).waitFor();
     await page.getByRole("link", { name: "Version 1" }).waitFor();
     await screenshot(page, "proposal-submitted");

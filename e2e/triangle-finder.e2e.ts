@@ -1,7 +1,8 @@
 /**
  * The Triangle finder in Chromium, signed in as a proposer: a shared link ranks as it opens, the
  * counts read in proper plurals, a ranked triangle opens in the Sketchpad, and the Sketchpad hands its
- * target and model over.
+ * target and model over; "Use this triangle" stores a ranked triangle on a draft's target, whose page
+ * shows it; opened from My targets, the page links back.
  */
 import { describe, expect, inject, it } from "vitest";
 import { screenshot, signedInPage, useBrowser } from "./browser";
@@ -95,6 +96,36 @@ describe("Triangle finder", () => {
     );
     expect(overflow).toBeLessThanOrEqual(0);
     await screenshot(page, "triangle-finder-360px");
+    expect(seen.errors).toEqual([]);
+    await context.close();
+  });
+
+  it("stores a ranked triangle on a draft's target, and the target's page shows it", async () => {
+    const { context, page, seen } = await signedInPage(browser, "Amara Okafor", {
+      viewport: { width: 1366, height: 900 },
+    });
+    await page.goto(`${baseUrl}/triangles?pool=medium-4&from=targets&${SKETCH}`);
+    await page.getByRole("heading", { name: "Ranked triangles" }).waitFor({ timeout: 30_000 });
+    await page.getByRole("link", { name: "← Back to My targets" }).waitFor();
+    const table = page.getByRole("table", { name: "Station triangles ranked for the target" });
+    const first = table.locator("tbody tr").first();
+    const triangle = (await first.locator("td").nth(1).textContent())!;
+    await first.getByRole("button", { name: `Use ${triangle} for a proposal target` }).click();
+    const dialog = page.getByRole("dialog", { name: `Use the triangle ${triangle}` });
+    await dialog.waitFor();
+    await expect(dialog.textContent()).resolves.toMatch(/on configuration medium-4 at /);
+    // Nothing chosen yet: the server names the field.
+    await dialog.getByRole("button", { name: "Use this triangle" }).click();
+    await page.getByText("Not stored: Proposal target: choose one.").waitFor();
+    await first.getByRole("button", { name: `Use ${triangle} for a proposal target` }).click();
+    const target = await dialog.locator("option", { hasText: "Altiplano Halo 5" }).getAttribute("value");
+    await dialog.getByLabel("Proposal target").selectOption(target!);
+    await screenshot(page, "triangle-finder-use");
+    await dialog.getByRole("button", { name: "Use this triangle" }).click();
+    await page.waitForURL(/\/proposals\/\d+\/targets\/\d+$/);
+    await page.getByText(`Closure triangle ${triangle} stored for Altiplano Halo 5.`).waitFor();
+    await page.getByText(`Closure triangle: ${triangle}`).waitFor();
+    await screenshot(page, "proposal-target-triangle");
     expect(seen.errors).toEqual([]);
     await context.close();
   });

@@ -207,7 +207,7 @@ export type {
   TrianglesInput,
 } from "./inputs";
 // Interferometry
-export { baselineCount, baselineIndex, buildBaselines } from "./interferometry/baselines";
+export { baselineCount, baselineIndex, buildBaselines, longestBaselineM } from "./interferometry/baselines";
 export { besselJ0, besselJ1, sphericalJ1OverX } from "./interferometry/bessel";
 export type { BandLike } from "./interferometry/channels";
 export { channelWavelengthsM, describeChannels } from "./interferometry/channels";

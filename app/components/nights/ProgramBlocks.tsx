@@ -5,33 +5,12 @@
  * own check that the viewer may see the proposal.
  */
 import { Card, type Column, DataTable } from "~/components/ui";
-import type { BlockOutcome } from "~/db/schema/nights";
+import type { ProgramBlock, ProgramHours } from "~/services/nights/program.server";
 import { OutcomeBadge } from "./OutcomeBadge";
-
-export type ProgramBlockRow = {
-  id: number;
-  night: string;
-  configuration: string;
-  kind: "calibrator" | "science";
-  target: string;
-  object: string;
-  startUtc: string;
-  endUtc: string;
-  outcome: BlockOutcome;
-  note: string;
-};
-
-export type ProgramHoursRow = {
-  configuration: string;
-  grantedHours: number;
-  plannedHours: number;
-  executedHours: number;
-  owedHours: number;
-};
 
 const time = (iso: string) => `${iso.slice(11, 16)}`;
 
-const hourColumns: Column<ProgramHoursRow>[] = [
+const hourColumns: Column<ProgramHours>[] = [
   { key: "configuration", header: "Configuration", value: (r) => r.configuration },
   { key: "granted", header: "Granted", unit: "h", align: "right", value: (r) => r.grantedHours },
   { key: "planned", header: "Planned", unit: "h", align: "right", value: (r) => r.plannedHours },
@@ -39,7 +18,7 @@ const hourColumns: Column<ProgramHoursRow>[] = [
   { key: "owed", header: "Still owed", unit: "h", align: "right", value: (r) => r.owedHours },
 ];
 
-const blockColumns: Column<ProgramBlockRow>[] = [
+const blockColumns: Column<ProgramBlock>[] = [
   { key: "night", header: "Night", value: (b) => b.night },
   {
     key: "start",
@@ -73,7 +52,7 @@ const blockColumns: Column<ProgramBlockRow>[] = [
 ];
 
 /** Planned and executed blocks of a program, with its hours per configuration. */
-export function ProgramBlocks({ blocks, hours }: { blocks: ProgramBlockRow[]; hours: ProgramHoursRow[] }) {
+export function ProgramBlocks({ blocks, hours }: { blocks: ProgramBlock[]; hours: ProgramHours[] }) {
   return (
     <Card title="Nights: planned and executed blocks">
       <p className="mb-3 text-sm text-night-600">

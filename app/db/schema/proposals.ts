@@ -30,6 +30,19 @@ const bytea = customType<{ data: Buffer; driverData: Buffer }>({
 export type TargetModelJson = { type: string; [key: string]: unknown };
 /** Magnitude per band name, e.g. `{ "H": 4.2, "K": 3.9 }`. */
 export type MagnitudesJson = Record<string, number>;
+/**
+ * The closure triangle chosen for a target in the Triangle finder: its three stations in the order
+ * ranked, and what it was ranked for (the site, an instrument's band, and a configuration or null for
+ * every station of the site).
+ */
+export type ClosureTriangleJson = {
+  stations: [string, string, string];
+  site: string;
+  instrument: string;
+  band: string;
+  configuration: string | null;
+};
+
 /** A time-critical window, ISO-8601 UTC instants. */
 export type TimeWindowJson = { startUtc: string; endUtc: string; note?: string };
 export type CalibratorJson = {
@@ -202,6 +215,8 @@ export const proposalTargets = pgTable(
     timeWindows: jsonb("time_windows").$type<TimeWindowJson[]>().notNull().default([]),
     calibrators: jsonb("calibrators").$type<CalibratorJson[]>().notNull().default([]),
     notes: text("notes").notNull().default(""),
+    /** The closure triangle chosen in the Triangle finder; null until one is. */
+    closureTriangle: jsonb("closure_triangle").$type<ClosureTriangleJson>(),
   },
   (t) => [index("proposal_targets_proposal_idx").on(t.proposalId)],
 );

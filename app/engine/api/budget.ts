@@ -142,8 +142,10 @@ const samplingField = (req: ObservationInput) => (req.night ? "night.stepMin" : 
 /** Why a validated coverage request is over budget (the first figure over its limit), or null. */
 export function coverageBudgetFailure(req: CoverageInput): BudgetFailure | null {
   const c = coverageCost(req);
-  const evaluations = evaluationFailure(c);
-  if (evaluations) return evaluations;
+  return evaluationFailure(c) ?? coverageResponseFailure(req, c);
+}
+
+function coverageResponseFailure(req: CoverageInput, c: CostEstimate): BudgetFailure | null {
   if (c.responseBytes > MAX_RESPONSE_BYTES) {
     return failure(
       samplingField(req),
@@ -159,8 +161,10 @@ export function coverageBudgetFailure(req: CoverageInput): BudgetFailure | null 
 /** Why a validated triangle-finder request is over budget (the first figure over its limit), or null. */
 export function trianglesBudgetFailure(req: TrianglesInput): BudgetFailure | null {
   const c = trianglesCost(req);
-  const evaluations = evaluationFailure(c);
-  if (evaluations) return evaluations;
+  return evaluationFailure(c) ?? rankingFailure(c);
+}
+
+function rankingFailure(c: CostEstimate): BudgetFailure | null {
   if (c.closurePhases > MAX_RANKED_CLOSURE_PHASES) {
     return failure(
       "stations",

@@ -6,8 +6,9 @@
  */
 import * as v from "valibot";
 import type { CalibratorsInput, CalibratorTarget } from "../catalogue/types";
-import { DEFAULT_MIN_ELEVATION_DEG } from "./limits";
-import { formatIssues, IsoDateSchema, type ParseResult, SiteSchema } from "./requests";
+import { between, countUpTo, type ParseResult, parseRequest, positive, positiveUpTo, wavelengthUpTo } from "./blocks";
+import { DEFAULT_MIN_ELEVATION_DEG, MAX_WAVELENGTH_M } from "./limits";
+import { IsoDateSchema, SiteSchema } from "./requests";
 import { StarNameSchema } from "./resolve";
 
 export const DEFAULT_MAX_DISTANCE_DEG = 10;
@@ -16,14 +17,6 @@ export const DEFAULT_CALIBRATOR_LIMIT = 20;
 /** Most calibrators one request may ask for. */
 export const MAX_CALIBRATOR_LIMIT = 500;
 
-const numberMsg = "must be a number";
-const between = (min: number, max: number) =>
-  v.pipe(
-    v.number(numberMsg),
-    v.finite("must be a finite number"),
-    v.minValue(min, `must be between ${min} and ${max}`),
-    v.maxValue(max, `must be between ${min} and ${max}`),
-  );
 const magnitude = () => v.optional(v.nullable(between(-30, 30)), null);
 
 const TargetSchema = v.pipe(
@@ -55,58 +48,21 @@ const TargetSchema = v.pipe(
 export const CalibratorsRequestSchema = v.object(
   {
     target: TargetSchema,
-    wavelengthM: v.pipe(
-      v.number(numberMsg),
-      v.finite("must be a finite number"),
-      v.gtValue(0, "must be positive"),
-      v.maxValue(1e-3, "must be at most 0.001 (wavelengths are in metres)"),
-    ),
-    longestBaselineM: v.pipe(
-      v.number(numberMsg),
-      v.finite("must be a finite number"),
-      v.gtValue(0, "must be positive"),
-      v.maxValue(100_000, "must be at most 100000 (metres)"),
-    ),
+    wavelengthM: wavelengthUpTo(MAX_WAVELENGTH_M),
+    longestBaselineM: positiveUpTo(100_000, "must be at most 100000 (metres)"),
     site: SiteSchema,
     date: IsoDateSchema,
     minElevationDeg: v.optional(between(0, 90), DEFAULT_MIN_ELEVATION_DEG),
-    maxDistanceDeg: v.optional(
-      v.pipe(
-        v.number(numberMsg),
-        v.finite("must be a finite number"),
-        v.gtValue(0, "must be positive"),
-        v.maxValue(90, "must be at most 90"),
-      ),
-      DEFAULT_MAX_DISTANCE_DEG,
-    ),
+    maxDistanceDeg: v.optional(positiveUpTo(90), DEFAULT_MAX_DISTANCE_DEG),
     minVis2: v.optional(between(0, 1), DEFAULT_MIN_VIS2),
-    limit: v.optional(
-      v.pipe(
-        v.number(numberMsg),
-        v.integer("must be a whole number"),
-        v.minValue(1, "must be at least 1"),
-        v.maxValue(MAX_CALIBRATOR_LIMIT, `must be at most ${MAX_CALIBRATOR_LIMIT}`),
-      ),
-      DEFAULT_CALIBRATOR_LIMIT,
-    ),
-    maxMagDifference: v.optional(
-      v.nullable(v.pipe(v.number(numberMsg), v.finite("must be a finite number"), v.gtValue(0, "must be positive"))),
-      null,
-    ),
+    limit: v.optional(countUpTo(MAX_CALIBRATOR_LIMIT), DEFAULT_CALIBRATOR_LIMIT),
+    maxMagDifference: v.optional(v.nullable(positive()), null),
     bandLimitMag: magnitude(),
   },
   "request must be a JSON object",
 );
 
-type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-const schemaMatchesInput: Same<v.InferOutput<typeof CalibratorsRequestSchema>, CalibratorsInput> = true;
-void schemaMatchesInput;
-
 /** Validates a calibrators request (already parsed from JSON). */
 export function parseCalibratorsRequest(json: unknown): ParseResult<CalibratorsInput> {
-  if (typeof json !== "object" || json === null || Array.isArray(json)) {
-    return { ok: false, message: "request must be a JSON object", field: null };
-  }
-  const result = v.safeParse(CalibratorsRequestSchema, json);
-  return result.success ? { ok: true, value: result.output } : { ok: false, ...formatIssues(result.issues) };
+  return parseRequest(CalibratorsRequestSchema, json);
 }

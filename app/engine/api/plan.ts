@@ -6,7 +6,8 @@
 import * as v from "valibot";
 import type { PlanBlockRef, PlanCalibratorInput, PlanInput, PlanTargetInput } from "../planning/inputs";
 import { PLAN_DEFAULTS } from "../planning/inputs";
-import { formatIssues, IsoDateSchema, type ParseResult, SiteSchema, StationSchema } from "./requests";
+import { between, finiteNumber, type ParseResult, parseRequest, parseValue, positive, trimmedName } from "./blocks";
+import { IsoDateSchema, SiteSchema, StationSchema } from "./requests";
 
 /** Most targets in one request. */
 export const MAX_PLAN_TARGETS = 300;
@@ -19,21 +20,7 @@ export const MAX_PLAN_STATIONS = 64;
 /** Most (objects × baselines) a request with a delay-line stroke may ask to track. */
 export const MAX_PLAN_DELAY_WORK = 200_000;
 
-const numberMsg = "must be a number";
-const finiteNumber = () => v.pipe(v.number(numberMsg), v.finite("must be a finite number"));
-const between = (min: number, max: number) =>
-  v.pipe(
-    finiteNumber(),
-    v.minValue(min, `must be between ${min} and ${max}`),
-    v.maxValue(max, `must be between ${min} and ${max}`),
-  );
-const name = () =>
-  v.pipe(
-    v.string("must be a string"),
-    v.trim(),
-    v.minLength(1, "must not be empty"),
-    v.maxLength(200, "must be at most 200 characters"),
-  );
+const name = () => trimmedName(200);
 
 const ISO_INSTANT = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})$/;
 const isoInstant = (wholeSecond: boolean) =>
@@ -95,10 +82,7 @@ export const PlanRequestSchema = v.object(
       ),
       [],
     ),
-    delayLineStrokeM: v.optional(
-      v.nullable(v.pipe(finiteNumber(), v.gtValue(0, "must be positive"))),
-      PLAN_DEFAULTS.delayLineStrokeM,
-    ),
+    delayLineStrokeM: v.optional(v.nullable(positive()), PLAN_DEFAULTS.delayLineStrokeM),
     minElevationDeg: v.optional(between(0, 90), PLAN_DEFAULTS.minElevationDeg),
     moonMinSeparationDeg: v.optional(between(0, 180), PLAN_DEFAULTS.moonMinSeparationDeg),
     sunMinSeparationDeg: v.optional(between(0, 180), PLAN_DEFAULTS.sunMinSeparationDeg),
@@ -164,32 +148,11 @@ function planRuleFailure(r: PlanInput): { field: string; message: string } | nul
   return null;
 }
 
-type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-const schemaMatchesInputs: [
-  Same<v.InferOutput<typeof PlanRequestSchema>, PlanInput>,
-  Same<v.InferOutput<typeof PlanTargetSchema>, PlanTargetInput>,
-  Same<v.InferOutput<typeof PlanBlockRefSchema>, PlanBlockRef>,
-] = [true, true, true];
-void schemaMatchesInputs;
-
 export type PlanRequest = PlanInput;
-
-function parse<T>(schema: v.GenericSchema<unknown, T>, json: unknown): ParseResult<T> {
-  const result = v.safeParse(schema, json);
-  if (!result.success) return { ok: false, ...formatIssues(result.issues) };
-  return { ok: true, value: result.output };
-}
 
 /** Validates a plan request (already parsed from JSON). */
 export function parsePlanRequest(json: unknown): ParseResult<PlanRequest> {
-  if (typeof json !== "object" || json === null || Array.isArray(json)) {
-    return { ok: false, message: "request must be a JSON object", field: null };
-  }
-  const parsed = parse(PlanRequestSchema, json);
-  if (!parsed.ok) return parsed;
-  const failure = planRuleFailure(parsed.value);
-  if (failure) return { ok: false, message: `${failure.field}: ${failure.message}`, field: failure.field };
-  return parsed;
+  return parseRequest(PlanRequestSchema, json, planRuleFailure);
 }
 
 const BlocksBodySchema = v.object({ blocks: BlocksSchema });
@@ -199,6 +162,6 @@ const BlocksBodySchema = v.object({ blocks: BlocksSchema });
  * targets and calibrators are left to the validator, which reports them per block.
  */
 export function parsePlanBlocks(json: unknown): ParseResult<PlanBlockRef[]> {
-  const parsed = parse(BlocksBodySchema, { blocks: json });
+  const parsed = parseValue(BlocksBodySchema, { blocks: json });
   return parsed.ok ? { ok: true, value: parsed.value.blocks } : parsed;
 }

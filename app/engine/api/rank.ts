@@ -4,16 +4,15 @@
  * `reviews[3].score: must lie within the scale 1–5` or `scale: is required`.
  */
 import * as v from "valibot";
-import type { RankInput, ReviewScore, ScoreScale } from "../committee/inputs";
+import type { RankInput, ScoreScale } from "../committee/inputs";
 import { findDuplicateReview } from "../committee/rank";
-import { formatIssues, type ParseResult } from "./requests";
+import { finiteNumber, type ParseResult, parseRequest } from "./blocks";
 
 /** Most reviews one request may carry. */
 export const MAX_RANK_REVIEWS = 100_000;
 /** Longest reviewer or proposal id, characters. */
 export const MAX_RANK_ID_LENGTH = 200;
 
-const finiteNumber = () => v.pipe(v.number("must be a number"), v.finite("must be a finite number"));
 const id = () =>
   v.pipe(
     v.string("must be a string"),
@@ -41,15 +40,6 @@ export const RankRequestSchema = v.object(
   },
   "request must be a JSON object",
 );
-
-// The schema produces the engine's own input types; these checks fail to compile when they drift apart.
-type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-const schemaMatchesInputs: [
-  Same<v.InferOutput<typeof ScoreScaleSchema>, ScoreScale>,
-  Same<v.InferOutput<typeof ReviewScoreSchema>, ReviewScore>,
-  Same<v.InferOutput<typeof RankRequestSchema>, RankInput>,
-] = [true, true, true];
-void schemaMatchesInputs;
 
 /** "1–5" for either order of the ends. */
 function scaleText(scale: ScoreScale): string {
@@ -80,12 +70,5 @@ export function rankRuleFailure(r: RankInput): { field: string; message: string 
 
 /** Validates a `rank` request (already parsed from JSON). */
 export function parseRankRequest(json: unknown): ParseResult<RankInput> {
-  if (typeof json !== "object" || json === null || Array.isArray(json)) {
-    return { ok: false, message: "request must be a JSON object", field: null };
-  }
-  const result = v.safeParse(RankRequestSchema, json);
-  if (!result.success) return { ok: false, ...formatIssues(result.issues) };
-  const failure = rankRuleFailure(result.output);
-  if (failure) return { ok: false, message: `${failure.field}: ${failure.message}`, field: failure.field };
-  return { ok: true, value: result.output };
+  return parseRequest(RankRequestSchema, json, rankRuleFailure);
 }

@@ -5,18 +5,20 @@
  * response can be passed as `data`).
  */
 import * as v from "valibot";
-import type {
-  ClosurePhaseDatum,
-  ImageOptions,
-  ImagingData,
-  PriorInput,
-  ReconstructInput,
-  StartInput,
-  Vis2Datum,
-} from "../imaging/inputs";
-import type { TargetModel } from "../inputs";
+import type { PriorInput, ReconstructInput, StartInput } from "../imaging/inputs";
+import {
+  between,
+  finiteNumber,
+  nonNegative,
+  type ParseResult,
+  parseRequest,
+  positive,
+  positiveUpTo,
+  wavelengthUpTo,
+  wholeBetween,
+} from "./blocks";
 import { MAX_WAVELENGTH_M } from "./limits";
-import { formatIssues, type ParseResult, TargetModelSchema } from "./requests";
+import { TargetModelSchema } from "./requests";
 
 /** Most V² and closure-phase values one reconstruction accepts. */
 export const MAX_RECONSTRUCT_VIS2 = 100_000;
@@ -25,36 +27,18 @@ export const DEFAULT_IMAGE_GRID = 64;
 export const DEFAULT_MAX_ITERATIONS = 500;
 export const DEFAULT_TOLERANCE = 1e-8;
 
-const finite = () => v.pipe(v.number("must be a number"), v.finite("must be a finite number"));
-const range = (min: number, max: number) =>
-  v.pipe(
-    finite(),
-    v.minValue(min, `must be between ${min} and ${max}`),
-    v.maxValue(max, `must be between ${min} and ${max}`),
-  );
-const integer = (min: number, max: number) =>
-  v.pipe(
-    v.number("must be a number"),
-    v.integer("must be a whole number"),
-    v.minValue(min, `must be between ${min} and ${max}`),
-    v.maxValue(max, `must be between ${min} and ${max}`),
-  );
-const positive = () => v.pipe(finite(), v.gtValue(0, "must be positive"));
-const wavelength = v.pipe(
-  positive(),
-  v.maxValue(MAX_WAVELENGTH_M, `must be at most ${MAX_WAVELENGTH_M} (wavelengths are in metres)`),
-);
-const error = v.pipe(finite(), v.minValue(0, "must be zero or positive"));
+const wavelength = wavelengthUpTo(MAX_WAVELENGTH_M);
+const error = nonNegative();
 const stations = v.optional(v.array(v.string("must be a string"), "must be an array of station names"));
 
 export const Vis2DatumSchema = v.object(
   {
     stations,
-    hourAngleH: v.optional(finite()),
-    uM: finite(),
-    vM: finite(),
+    hourAngleH: v.optional(finiteNumber()),
+    uM: finiteNumber(),
+    vM: finiteNumber(),
     wavelengthM: wavelength,
-    vis2: finite(),
+    vis2: finiteNumber(),
     vis2Err: error,
   },
   "must be an object",
@@ -63,13 +47,13 @@ export const Vis2DatumSchema = v.object(
 export const ClosurePhaseDatumSchema = v.object(
   {
     stations,
-    hourAngleH: v.optional(finite()),
+    hourAngleH: v.optional(finiteNumber()),
     wavelengthM: wavelength,
-    u1M: finite(),
-    v1M: finite(),
-    u2M: finite(),
-    v2M: finite(),
-    closurePhaseDeg: finite(),
+    u1M: finiteNumber(),
+    v1M: finiteNumber(),
+    u2M: finiteNumber(),
+    v2M: finiteNumber(),
+    closurePhaseDeg: finiteNumber(),
     closurePhaseErrDeg: error,
   },
   "must be an object",
@@ -111,21 +95,21 @@ const StartSchema: v.GenericSchema<unknown, StartInput> = v.variant(
 
 export const ImageOptionsSchema = v.object(
   {
-    gridSize: v.optional(integer(32, 128), DEFAULT_IMAGE_GRID),
+    gridSize: v.optional(wholeBetween(32, 128), DEFAULT_IMAGE_GRID),
     pixelMas: v.optional(v.nullable(positive()), null),
     regularizer: v.optional(
       v.picklist(["entropy", "totalVariation", "compactness"], "must be entropy, totalVariation or compactness"),
       "entropy",
     ),
     weight: v.optional(
-      v.union([v.literal("auto"), range(0, 1e6)], 'must be a number between 0 and 1000000 or "auto"'),
+      v.union([v.literal("auto"), between(0, 1e6)], 'must be a number between 0 and 1000000 or "auto"'),
       "auto",
     ),
-    maxIterations: v.optional(integer(1, 10_000), DEFAULT_MAX_ITERATIONS),
-    seed: v.optional(integer(0, 4294967295), 1),
+    maxIterations: v.optional(wholeBetween(1, 10_000), DEFAULT_MAX_ITERATIONS),
+    seed: v.optional(wholeBetween(0, 4294967295), 1),
     prior: v.optional(PriorSchema, { type: "flat" }),
     start: v.optional(StartSchema, { type: "gaussian", fwhmMas: null }),
-    tolerance: v.optional(v.pipe(positive(), v.maxValue(0.01, "must be at most 0.01")), DEFAULT_TOLERANCE),
+    tolerance: v.optional(positiveUpTo(0.01), DEFAULT_TOLERANCE),
     closurePhaseWeighting: v.optional(v.picklist(["amplitude", "given"], "must be amplitude or given"), "amplitude"),
   },
   "must be an object",
@@ -140,30 +124,15 @@ export const ReconstructRequestSchema = v.object(
   "request must be a JSON object",
 );
 
-type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-const schemaMatchesInputs: [
-  Same<v.InferOutput<typeof Vis2DatumSchema>, Vis2Datum>,
-  Same<v.InferOutput<typeof ClosurePhaseDatumSchema>, ClosurePhaseDatum>,
-  Same<v.InferOutput<typeof ImagingDataSchema>, ImagingData>,
-  Same<v.InferOutput<typeof ImageOptionsSchema>, ImageOptions>,
-  Same<v.InferOutput<typeof ReconstructRequestSchema>, ReconstructInput>,
-  Same<v.InferOutput<typeof TargetModelSchema>, TargetModel>,
-] = [true, true, true, true, true, true];
-void schemaMatchesInputs;
-
 export type ReconstructRequest = ReconstructInput;
 
 /** Validates a reconstruct request (already parsed from JSON). */
 export function parseReconstructRequest(json: unknown): ParseResult<ReconstructRequest> {
-  if (typeof json !== "object" || json === null || Array.isArray(json)) {
-    return { ok: false, message: "request must be a JSON object", field: null };
-  }
-  const result = v.safeParse(ReconstructRequestSchema, json);
-  if (!result.success) return { ok: false, ...formatIssues(result.issues) };
-  const value = result.output;
+  return parseRequest(ReconstructRequestSchema, json, imageScaleFailure);
+}
+
+/** The image scale comes from the longest baseline: the data need one of non-zero length. */
+function imageScaleFailure(value: ReconstructInput): { field: string; message: string } | null {
   const longest = value.data.vis2.reduce((m, d) => Math.max(m, Math.hypot(d.uM, d.vM)), 0);
-  if (!(longest > 0)) {
-    return { ok: false, message: "data.vis2: every baseline has zero length: no image scale", field: "data.vis2" };
-  }
-  return { ok: true, value };
+  return longest > 0 ? null : { field: "data.vis2", message: "every baseline has zero length: no image scale" };
 }

@@ -9,18 +9,21 @@
  * `target.decDeg: must be between -90 and 90`.
  */
 import * as v from "valibot";
-import type {
-  BeamOptions,
-  CoverageInput,
-  EphemerisInput,
-  NightSampling,
-  SiteInput,
-  StationInput,
-  TargetInput,
-  TargetModel,
-  TrianglesInput,
-} from "../inputs";
+import type { CoverageInput, EphemerisInput, TargetModel, TrianglesInput } from "../inputs";
 import { isPowerOfTwo } from "../math";
+import {
+  between,
+  countUpTo,
+  finiteNumber,
+  nonNegative,
+  numberMsg,
+  type ParseResult,
+  parseRequest,
+  positive,
+  positiveUpTo,
+  trimmedName,
+  wavelengthUpTo,
+} from "./blocks";
 import {
   coverageRuleFailure,
   DEFAULT_GRID_SIZE,
@@ -35,22 +38,6 @@ import {
 } from "./limits";
 import { withModelRanges } from "./model-ranges";
 import { modelShapeFailure } from "./model-shape";
-
-// ---------------------------------------------------------------- building blocks
-
-const numberMsg = "must be a number";
-const finiteNumber = () => v.pipe(v.number(numberMsg), v.finite("must be a finite number"));
-const between = (min: number, max: number) =>
-  v.pipe(
-    v.number(numberMsg),
-    v.finite("must be a finite number"),
-    v.minValue(min, `must be between ${min} and ${max}`),
-    v.maxValue(max, `must be between ${min} and ${max}`),
-  );
-const positive = () =>
-  v.pipe(v.number(numberMsg), v.finite("must be a finite number"), v.gtValue(0, "must be positive"));
-const nonNegative = () =>
-  v.pipe(v.number(numberMsg), v.finite("must be a finite number"), v.minValue(0, "must be zero or positive"));
 
 /** A date "YYYY-MM-DD" that exists in the Gregorian calendar, years 1900–2200. */
 export const IsoDateSchema = v.pipe(
@@ -79,12 +66,7 @@ export const SiteSchema = v.object(
 
 export const StationSchema = v.object(
   {
-    name: v.pipe(
-      v.string("must be a string"),
-      v.trim(),
-      v.minLength(1, "must not be empty"),
-      v.maxLength(64, "must be at most 64 characters"),
-    ),
+    name: trimmedName(64),
     eastM: finiteNumber(),
     northM: finiteNumber(),
     upM: v.optional(finiteNumber(), 0),
@@ -189,15 +171,7 @@ export const TargetSchema = v.object(
 // ---------------------------------------------------------------- sampling and beam
 
 const WavelengthsSchema = v.pipe(
-  v.array(
-    v.pipe(
-      v.number(numberMsg),
-      v.finite("must be a finite number"),
-      v.gtValue(0, "must be positive"),
-      v.maxValue(MAX_WAVELENGTH_M, `must be at most ${MAX_WAVELENGTH_M} (wavelengths are in metres)`),
-    ),
-    "must be an array of wavelengths in metres",
-  ),
+  v.array(wavelengthUpTo(MAX_WAVELENGTH_M), "must be an array of wavelengths in metres"),
   v.minLength(1, "must list at least one wavelength"),
   v.maxLength(MAX_WAVELENGTHS, `must list at most ${MAX_WAVELENGTHS} wavelengths`),
 );
@@ -212,10 +186,7 @@ export const NightSamplingSchema = v.object(
   {
     date: IsoDateSchema,
     stepMin: v.pipe(
-      v.number(numberMsg),
-      v.finite("must be a finite number"),
-      v.gtValue(0, "must be positive"),
-      v.maxValue(720, "must be at most 720 minutes"),
+      positiveUpTo(720, "must be at most 720 minutes"),
       v.check(
         (step) => maxNightSamples(step) <= MAX_SAMPLES,
         `is too small: a night could need more than ${MAX_SAMPLES} samples (use at least 0.073 minutes)`,
@@ -273,15 +244,7 @@ export const TrianglesRequestSchema = v.object(
   {
     ...commonEntries,
     stations: v.pipe(StationsSchema, v.minLength(3, "needs at least 3 stations to form a triangle")),
-    maxTriangles: v.optional(
-      v.pipe(
-        v.number(numberMsg),
-        v.integer("must be a whole number"),
-        v.minValue(1, "must be at least 1"),
-        v.maxValue(100_000, "must be at most 100000"),
-      ),
-      DEFAULT_MAX_TRIANGLES,
-    ),
+    maxTriangles: v.optional(countUpTo(100_000), DEFAULT_MAX_TRIANGLES),
   },
   "request must be a JSON object",
 );
@@ -294,84 +257,25 @@ export const EphemerisRequestSchema = v.object(
   "request must be a JSON object",
 );
 
-// The schemas produce the engine's own input types (engine/inputs.ts); these checks fail to compile
-// when a schema and its type drift apart.
-type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-const schemaMatchesInputs: [
-  Same<v.InferOutput<typeof SiteSchema>, SiteInput>,
-  Same<v.InferOutput<typeof StationSchema>, StationInput>,
-  Same<v.InferOutput<typeof TargetSchema>, TargetInput>,
-  Same<v.InferOutput<typeof BeamOptionsSchema>, BeamOptions>,
-  Same<v.InferOutput<typeof NightSamplingSchema>, NightSampling>,
-  Same<v.InferOutput<typeof CoverageRequestSchema>, CoverageInput>,
-  Same<v.InferOutput<typeof TrianglesRequestSchema>, TrianglesInput>,
-  Same<v.InferOutput<typeof EphemerisRequestSchema>, EphemerisInput>,
-] = [true, true, true, true, true, true, true, true];
-void schemaMatchesInputs;
-
 export type CoverageRequest = CoverageInput;
 export type TrianglesRequest = TrianglesInput;
 export type EphemerisRequest = EphemerisInput;
 
-// ---------------------------------------------------------------- issue formatting
+// ---------------------------------------------------------------- parsing
 
-export type ParseResult<T> = { ok: true; value: T } | { ok: false; message: string; field: string | null };
-
-/**
- * Dotted path of an issue: object keys joined by ".", array indices in
- * brackets, e.g. `stations[2].name` or `target.model.components[0].flux`;
- * null for the request itself.
- */
-export function issuePath(issue: v.BaseIssue<unknown>): string | null {
-  if (!issue.path || issue.path.length === 0) return null;
-  let out = "";
-  for (const item of issue.path) {
-    const key = item.key as unknown;
-    if (typeof key === "number") out += `[${key}]`;
-    else out += out === "" ? String(key) : `.${String(key)}`;
-  }
-  return out === "" ? null : out;
-}
-
-/**
- * One-line message for the first issue of a failed parse:
- * `field.path: message`. A missing required field reads `x: is required`.
- */
-export function formatIssues(issues: readonly v.BaseIssue<unknown>[]): { message: string; field: string | null } {
-  const issue = issues[0];
-  const field = issuePath(issue);
-  const missing = issue.input === undefined && issue.kind === "schema" && field !== null;
-  const text = (missing ? "is required" : issue.message).replace(/\s+/g, " ");
-  return { message: field ? `${field}: ${text}` : text, field };
-}
-
-function parseWith<S extends v.GenericSchema<unknown, unknown>>(
-  schema: S,
-  input: unknown,
-  crossField?: (value: v.InferOutput<S>) => { message: string; field: string } | null,
-): ParseResult<v.InferOutput<S>> {
-  if (typeof input !== "object" || input === null || Array.isArray(input)) {
-    return { ok: false, message: "request must be a JSON object", field: null };
-  }
-  const result = v.safeParse(schema, input);
-  if (!result.success) return { ok: false, ...formatIssues(result.issues) };
-  const value = result.output as v.InferOutput<S>;
-  const failure = crossField?.(value);
-  if (failure) return { ok: false, message: `${failure.field}: ${failure.message}`, field: failure.field };
-  return { ok: true, value };
-}
+export type { ParseResult };
 
 /** Validates a coverage request (already parsed from JSON). */
 export function parseCoverageRequest(json: unknown): ParseResult<CoverageRequest> {
-  return parseWith(CoverageRequestSchema, json, coverageRuleFailure);
+  return parseRequest(CoverageRequestSchema, json, coverageRuleFailure);
 }
 
 /** Validates a triangle-finder request (already parsed from JSON). */
 export function parseTrianglesRequest(json: unknown): ParseResult<TrianglesRequest> {
-  return parseWith(TrianglesRequestSchema, json, samplingRuleFailure);
+  return parseRequest(TrianglesRequestSchema, json, samplingRuleFailure);
 }
 
 /** Validates an ephemeris request (already parsed from JSON). */
 export function parseEphemerisRequest(json: unknown): ParseResult<EphemerisRequest> {
-  return parseWith(EphemerisRequestSchema, json);
+  return parseRequest(EphemerisRequestSchema, json);
 }

@@ -5,8 +5,9 @@
  */
 import * as v from "valibot";
 import type { ClosurePhaseTriangles, NoiseInput, OifitsOptions, SimulateInput } from "../imaging/inputs";
+import { between, type ParseResult, parseRequest, trimmedName, wholeBetween } from "./blocks";
 import { coverageRuleFailure, sampleCountBound } from "./limits";
-import { CoverageRequestSchema, formatIssues, type ParseResult } from "./requests";
+import { CoverageRequestSchema } from "./requests";
 
 /** Most V² values a simulation may produce (baselines × samples × channels). */
 export const MAX_SIMULATED_VIS2 = 100_000;
@@ -22,35 +23,13 @@ export const DEFAULT_OIFITS: OifitsOptions = {
   telescopeDiameterM: 1.0,
 };
 
-const num = (min: number, max: number) =>
-  v.pipe(
-    v.number("must be a number"),
-    v.finite("must be a finite number"),
-    v.minValue(min, `must be between ${min} and ${max}`),
-    v.maxValue(max, `must be between ${min} and ${max}`),
-  );
-
-const fitsText = v.pipe(
-  v.string("must be a string"),
-  v.trim(),
-  v.minLength(1, "must not be empty"),
-  v.maxLength(68, "must be at most 68 characters"),
-  v.regex(/^[\x20-\x7e]*$/, "must be printable ASCII"),
-);
+const fitsText = v.pipe(trimmedName(68), v.regex(/^[\x20-\x7e]*$/, "must be printable ASCII"));
 
 export const NoiseSchema = v.object(
   {
-    vis2Relative: v.optional(num(0, 10), DEFAULT_NOISE.vis2Relative),
-    closurePhaseDeg: v.optional(num(0, 180), DEFAULT_NOISE.closurePhaseDeg),
-    seed: v.optional(
-      v.pipe(
-        v.number("must be a number"),
-        v.integer("must be a whole number"),
-        v.minValue(0, "must be between 0 and 4294967295"),
-        v.maxValue(4294967295, "must be between 0 and 4294967295"),
-      ),
-      DEFAULT_NOISE.seed,
-    ),
+    vis2Relative: v.optional(between(0, 10), DEFAULT_NOISE.vis2Relative),
+    closurePhaseDeg: v.optional(between(0, 180), DEFAULT_NOISE.closurePhaseDeg),
+    seed: v.optional(wholeBetween(0, 4294967295), DEFAULT_NOISE.seed),
   },
   "must be an object",
 );
@@ -59,7 +38,7 @@ export const OifitsOptionsSchema = v.object(
   {
     arrayName: v.optional(fitsText, DEFAULT_OIFITS.arrayName),
     instrumentName: v.optional(fitsText, DEFAULT_OIFITS.instrumentName),
-    telescopeDiameterM: v.optional(num(0.01, 100), DEFAULT_OIFITS.telescopeDiameterM),
+    telescopeDiameterM: v.optional(between(0.01, 100), DEFAULT_OIFITS.telescopeDiameterM),
   },
   "must be an object",
 );
@@ -78,27 +57,15 @@ export const SimulateRequestSchema = v.object(
   "request must be a JSON object",
 );
 
-type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-const schemaMatchesInputs: [
-  Same<v.InferOutput<typeof NoiseSchema>, NoiseInput>,
-  Same<v.InferOutput<typeof OifitsOptionsSchema>, OifitsOptions>,
-  Same<v.InferOutput<typeof SimulateRequestSchema>, SimulateInput>,
-] = [true, true, true];
-void schemaMatchesInputs;
-
 export type SimulateRequest = SimulateInput;
 
 /** Validates a simulate request (already parsed from JSON). */
 export function parseSimulateRequest(json: unknown): ParseResult<SimulateRequest> {
-  if (typeof json !== "object" || json === null || Array.isArray(json)) {
-    return { ok: false, message: "request must be a JSON object", field: null };
-  }
-  const result = v.safeParse(SimulateRequestSchema, json);
-  if (!result.success) return { ok: false, ...formatIssues(result.issues) };
-  const value = result.output;
-  const failure = coverageRuleFailure(value) ?? simulationSizeFailure(value);
-  if (failure) return { ok: false, message: `${failure.field}: ${failure.message}`, field: failure.field };
-  return { ok: true, value };
+  return parseRequest(
+    SimulateRequestSchema,
+    json,
+    (value) => coverageRuleFailure(value) ?? simulationSizeFailure(value),
+  );
 }
 
 /** The simulation's own size limits (the response lists every value). */

@@ -107,6 +107,15 @@ export interface BinaryColumn {
 
 const WIDTH: Record<ColumnCode, number> = { I: 2, J: 4, E: 4, D: 8, L: 1, A: 1 };
 
+/** How one value of each non-text column code is written (big-endian, as FITS stores numbers; L as "T"/"F"). */
+const WRITE: Record<Exclude<ColumnCode, "A">, (view: DataView, at: number, x: number | boolean) => void> = {
+  L: (view, at, x) => view.setUint8(at, x ? 0x54 : 0x46),
+  I: (view, at, x) => view.setInt16(at, Number(x), false),
+  J: (view, at, x) => view.setInt32(at, Number(x), false),
+  E: (view, at, x) => view.setFloat32(at, Number(x), false),
+  D: (view, at, x) => view.setFloat64(at, Number(x), false),
+};
+
 /** A binary-table extension (header and data) named `extname`, with extra header cards after the columns. */
 export function binaryTableHdu(
   extname: string,
@@ -152,25 +161,9 @@ export function binaryTableHdu(
         p += c.repeat;
         continue;
       }
+      const write = WRITE[c.code];
       for (let i = 0; i < c.repeat; i++) {
-        const x = c.values[r * c.repeat + i] as number | boolean;
-        switch (c.code) {
-          case "L":
-            view.setUint8(p, x ? 0x54 : 0x46);
-            break;
-          case "I":
-            view.setInt16(p, Number(x), false);
-            break;
-          case "J":
-            view.setInt32(p, Number(x), false);
-            break;
-          case "E":
-            view.setFloat32(p, Number(x), false);
-            break;
-          case "D":
-            view.setFloat64(p, Number(x), false);
-            break;
-        }
+        write(view, p, c.values[r * c.repeat + i] as number | boolean);
         p += WIDTH[c.code];
       }
     }

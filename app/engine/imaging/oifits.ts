@@ -90,6 +90,15 @@ export function oifitsBytes(data: SimulatedData, request: SimulateInput, written
     primary.push({ key: "COMMENT", comment: "No date was given (hour-angle list): instants are nominal, 2000-01-01." });
   }
 
+  /** A one-value column of OI_TARGET that the format requires and the preview has no figure for: zero. */
+  const noFigure = (name: string, code: "D" | "E", unit: string): BinaryColumn => ({
+    name,
+    code,
+    repeat: 1,
+    unit,
+    values: [0],
+  });
+
   const revn = { key: "OI_REVN", value: int(2), comment: "revision of the table definition" };
   const target = binaryTableHdu(
     "OI_TARGET",
@@ -100,17 +109,17 @@ export function oifitsBytes(data: SimulatedData, request: SimulateInput, written
       { name: "RAEP0", code: "D", repeat: 1, unit: "deg", values: [request.target.raDeg] },
       { name: "DECEP0", code: "D", repeat: 1, unit: "deg", values: [request.target.decDeg] },
       { name: "EQUINOX", code: "E", repeat: 1, unit: "yr", values: [2000] },
-      { name: "RA_ERR", code: "D", repeat: 1, unit: "deg", values: [0] },
-      { name: "DEC_ERR", code: "D", repeat: 1, unit: "deg", values: [0] },
-      { name: "SYSVEL", code: "D", repeat: 1, unit: "m/s", values: [0] },
+      noFigure("RA_ERR", "D", "deg"),
+      noFigure("DEC_ERR", "D", "deg"),
+      noFigure("SYSVEL", "D", "m/s"),
       { name: "VELTYP", code: "A", repeat: 8, values: ["UNKNOWN"] },
       { name: "VELDEF", code: "A", repeat: 8, values: ["OPTICAL"] },
-      { name: "PMRA", code: "D", repeat: 1, unit: "deg/yr", values: [0] },
-      { name: "PMDEC", code: "D", repeat: 1, unit: "deg/yr", values: [0] },
-      { name: "PMRA_ERR", code: "D", repeat: 1, unit: "deg/yr", values: [0] },
-      { name: "PMDEC_ERR", code: "D", repeat: 1, unit: "deg/yr", values: [0] },
-      { name: "PARALLAX", code: "E", repeat: 1, unit: "deg", values: [0] },
-      { name: "PARA_ERR", code: "E", repeat: 1, unit: "deg", values: [0] },
+      noFigure("PMRA", "D", "deg/yr"),
+      noFigure("PMDEC", "D", "deg/yr"),
+      noFigure("PMRA_ERR", "D", "deg/yr"),
+      noFigure("PMDEC_ERR", "D", "deg/yr"),
+      noFigure("PARALLAX", "E", "deg"),
+      noFigure("PARA_ERR", "E", "deg"),
       { name: "SPECTYP", code: "A", repeat: 16, values: ["UNKNOWN"] },
       { name: "CATEGORY", code: "A", repeat: 3, values: ["SCI"] },
     ],

@@ -19,7 +19,7 @@ import { lmstHours } from "../astro/sidereal";
 import { isoUtcFromJulianDay, julianDay } from "../astro/time";
 import { computeCoverageArrays } from "../interferometry/coverage";
 import { RAD_TO_DEG, RAD_TO_HOUR, roundTo, wrapHours24, wrapPi } from "../math";
-import type { ClosurePhaseTriangles, NoiseInput, SimulateInput } from "./inputs";
+import type { ClosurePhaseDatum, ClosurePhaseTriangles, NoiseInput, SimulateInput, Vis2Datum } from "./inputs";
 import { Mt19937 } from "./random";
 
 /** Ratio of sidereal to solar time, 360.98564736629° / 360° per day (Meeus 1998, eq. 12.4). */
@@ -155,26 +155,16 @@ export function simulateData(request: SimulateInput): SimulatedData {
   };
 }
 
-export interface SimulatedVis2 {
+/** A simulated V² value: a datum of the wire format, always with its stations and hour angle. */
+export interface SimulatedVis2 extends Vis2Datum {
   stations: [string, string];
   hourAngleH: number;
-  uM: number;
-  vM: number;
-  wavelengthM: number;
-  vis2: number;
-  vis2Err: number;
 }
 
-export interface SimulatedClosurePhase {
+/** A simulated closure phase: a datum of the wire format, always with its stations and hour angle. */
+export interface SimulatedClosurePhase extends ClosurePhaseDatum {
   stations: [string, string, string];
   hourAngleH: number;
-  wavelengthM: number;
-  u1M: number;
-  v1M: number;
-  u2M: number;
-  v2M: number;
-  closurePhaseDeg: number;
-  closurePhaseErrDeg: number;
 }
 
 export interface SimulateResponse {

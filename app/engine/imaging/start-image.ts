@@ -16,6 +16,7 @@
 import type { PreparedData } from "./data";
 import type { ImageTransform } from "./nufft";
 import { Mt19937 } from "./random";
+import { scanMinimum } from "./scan-minimum";
 
 const FLOOR = 1e-6;
 
@@ -85,24 +86,5 @@ export function fitGaussianFwhmRad(data: PreparedData): number {
   };
   const unit = data.maxRadiusW > 0 ? 1 / data.maxRadiusW : 1;
   const steps = 200;
-  const at = (k: number) => unit * 0.1 * 200 ** (k / (steps - 1));
-  let best = 0;
-  let bestCost = Number.POSITIVE_INFINITY;
-  for (let k = 0; k < steps; k++) {
-    const c = cost(at(k));
-    if (c < bestCost) {
-      bestCost = c;
-      best = k;
-    }
-  }
-  let a = at(Math.max(0, best - 1));
-  let b = at(Math.min(steps - 1, best + 1));
-  const phi = (Math.sqrt(5) - 1) / 2;
-  for (let it = 0; it < 40; it++) {
-    const c = b - phi * (b - a);
-    const d = a + phi * (b - a);
-    if (cost(c) < cost(d)) b = d;
-    else a = c;
-  }
-  return 0.5 * (a + b);
+  return scanMinimum(cost, (k) => unit * 0.1 * 200 ** (k / (steps - 1)), steps, 40);
 }

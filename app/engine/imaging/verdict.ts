@@ -19,6 +19,7 @@ import { besselJ1OverX } from "../interferometry/bessel";
 import { MAS_TO_RAD, RAD_TO_DEG, RAD_TO_MAS } from "../math";
 import { beamTransform, type GaussianBeam } from "./fidelity";
 import { GridDft } from "./grid-dft";
+import { scanMinimum } from "./scan-minimum";
 
 export interface BinaryMeasurement {
   separationMas: number;
@@ -128,26 +129,7 @@ export function fitDiskDiameterRad(image: Float64Array, n: number, pixelRad: num
   const lo = pixelRad;
   const hi = 0.9 * n * pixelRad;
   const steps = 48;
-  let best = 0;
-  let bestCost = Number.POSITIVE_INFINITY;
-  const at = (k: number) => lo * (hi / lo) ** (k / (steps - 1));
-  for (let k = 0; k < steps; k++) {
-    const v = cost(at(k));
-    if (v < bestCost) {
-      bestCost = v;
-      best = k;
-    }
-  }
-  let a = at(Math.max(0, best - 1));
-  let b = at(Math.min(steps - 1, best + 1));
-  const g = (Math.sqrt(5) - 1) / 2;
-  for (let it = 0; it < 30; it++) {
-    const x1 = b - g * (b - a);
-    const x2 = a + g * (b - a);
-    if (cost(x1) < cost(x2)) b = x2;
-    else a = x1;
-  }
-  return 0.5 * (a + b);
+  return scanMinimum(cost, (k) => lo * (hi / lo) ** (k / (steps - 1)), steps, 30);
 }
 
 /** The verdict for a reconstruction of `model` with fidelity `ncc`. */

@@ -15,6 +15,19 @@ export function baselineIndex(nStations: number, i: number, j: number): number {
   return i * nStations - (i * (i + 1)) / 2 + (j - i - 1);
 }
 
+/** Longest distance between two stations (east, north, up), metres; 0 for fewer than two. */
+export function longestBaselineM(stations: readonly { eastM: number; northM: number; upM: number }[]): number {
+  let longest = 0;
+  for (let i = 0; i < stations.length; i++) {
+    for (let j = i + 1; j < stations.length; j++) {
+      const a = stations[i];
+      const b = stations[j];
+      longest = Math.max(longest, Math.hypot(b.eastM - a.eastM, b.northM - a.northM, b.upM - a.upM));
+    }
+  }
+  return longest;
+}
+
 export interface BaselineSet {
   nStations: number;
   count: number;

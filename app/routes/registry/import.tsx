@@ -35,7 +35,7 @@ export async function loader({ request, url, context }: Route.LoaderArgs) {
 }
 
 export async function action({ request, context }: Route.ActionArgs) {
-  await requirePermission(request, "registry:edit");
+  const viewer = await requirePermission(request, "registry:edit");
   const body = await readFormBody(request, {
     maxBytes: MAX_IMPORT_BYTES + FORM_OVERHEAD_BYTES,
     tooLargeMessage: `The file is larger than the limit of ${MAX_IMPORT_TEXT}; split it into smaller files.`,
@@ -52,7 +52,7 @@ export async function action({ request, context }: Route.ActionArgs) {
   if (!kind.success) return fail(result, [kind.issues[0].message]);
   const read = await importText(form, intent.output, result);
   if ("error" in read) return fail(result, [read.error]);
-  const post = { db: context.get(dbContext), intent: intent.output, result, text: read.text };
+  const post = { db: context.get(dbContext), actorId: viewer.user.id, intent: intent.output, result, text: read.text };
   return result.kind === "stations" ? importStations(post) : importRegistry(post);
 }
 

@@ -5,7 +5,7 @@ import { SketchPage } from "./+shared/SketchPage";
 import { Sketchpad } from "./+shared/Sketchpad";
 import type { Route } from "./+types/sketchpad";
 
-export const loader = sketchLoader("anything can be sketched");
+export const loader = sketchLoader({ purpose: "anything can be sketched" });
 
 export const shouldRevalidate = sketchShouldRevalidate;
 

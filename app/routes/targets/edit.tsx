@@ -23,7 +23,7 @@ export async function action({ request, params, context }: Route.ActionArgs) {
   const form = await requireFormBody(request);
   switch (form.get("intent")) {
     case "delete":
-      return removeTarget(db, viewer.user.id, target);
+      return removeTarget(db, viewer.user.id, target, form);
     default:
       return saveTarget(db, form, { ownerId: viewer.user.id, target });
   }
@@ -35,9 +35,17 @@ export const meta: Route.MetaFunction = ({ data: d }) => [
 
 export default function EditTarget({ loaderData, actionData }: Route.ComponentProps) {
   return (
-    <TargetsPage title={loaderData.name} lead="Edit the target; proposals keep their own copy of it.">
-      <TargetEditor intent="update" values={loaderData.values} bands={loaderData.bands} retry={actionData} />
-      <RemoveTargetCard name={loaderData.name} />
+    <TargetsPage title={loaderData.name} lead="Edit the target; proposals keep their own copy of it." back>
+      <TargetEditor
+        intent="update"
+        values={loaderData.values}
+        bands={loaderData.bands}
+        retry={actionData && "values" in actionData ? actionData : undefined}
+      />
+      <RemoveTargetCard
+        name={loaderData.name}
+        refused={actionData && "removeError" in actionData ? actionData.removeError : null}
+      />
     </TargetsPage>
   );
 }

@@ -1,4 +1,4 @@
-import { data, href, Link, useNavigation } from "react-router";
+import { data, href, useNavigation } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import { dbContext } from "~/context";
 import { redirectWithFlash } from "~/lib/flash.server";
@@ -50,19 +50,11 @@ const PAGE = {
 
 export const meta: Route.MetaFunction = () => [{ title: `${PAGE.title} — Fringe Docket` }];
 
-function BackToList() {
-  return (
-    <Link to={href("/targets")} className="font-medium text-ember-700 underline">
-      Back to My targets
-    </Link>
-  );
-}
-
 export default function ImportTargets({ loaderData, actionData }: Route.ComponentProps) {
   const busy = useNavigation().state === "submitting";
   const preview = actionData?.preview ?? null;
   return (
-    <TargetsPage {...PAGE} actions={<BackToList />}>
+    <TargetsPage {...PAGE} back>
       <ListCard
         maxKb={loaderData.maxKb}
         pasted={preview?.csv ?? ""}

@@ -1,13 +1,17 @@
 import { href } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import { describeModel } from "~/components/targets/describe-model";
-import { ButtonLink, Card, type Column, DataTable, EmptyState } from "~/components/ui";
+import { Alert, ButtonLink, Card, type Column, DataTable, EmptyState } from "~/components/ui";
 import { dbContext } from "~/context";
 import { requireFormBody } from "~/lib/body.server";
 import { requirePermission } from "~/lib/guards.server";
+import { targetSketchpadHref } from "~/services/sketch/state";
+import { draftsToAddTo } from "~/services/targets/proposals.server";
 import { bandNames, listTargets } from "~/services/targets/targets.server";
 import { coordinateColumns, coordinateText, TargetLink } from "./+shared/columns";
 import { saveTarget } from "./+shared/editor.server";
+import { RowActions } from "./+shared/RowActions";
+import { addRowToProposal, removeRow } from "./+shared/row-actions.server";
 import { TargetEditor } from "./+shared/TargetEditor";
 import { TargetsPage } from "./+shared/TargetsPage";
 import type { Route } from "./+types/index";
@@ -15,9 +19,14 @@ import type { Route } from "./+types/index";
 export async function loader({ request, context }: Route.LoaderArgs) {
   const viewer = await requirePermission(request, "proposals:own");
   const db = context.get(dbContext);
-  const [list, bands] = await Promise.all([listTargets(db, viewer.user.id), bandNames(db)]);
+  const [list, bands, drafts] = await Promise.all([
+    listTargets(db, viewer.user.id),
+    bandNames(db),
+    draftsToAddTo(db, { viewer, now: new Date() }),
+  ]);
   return {
     bands,
+    drafts,
     targets: list.map((t) => ({
       id: t.id,
       name: t.name,
@@ -26,15 +35,24 @@ export async function loader({ request, context }: Route.LoaderArgs) {
       ...coordinateText(t),
       model: describeModel(t.model),
       magnitudes: t.magnitudes,
+      sketchpadHref: targetSketchpadHref(t),
     })),
   };
 }
 
-/** The "Add a target" card's post. */
+/** The "Add a target" card's post, and the rows' "Add to a proposal" and "Remove". */
 export async function action({ request, context }: Route.ActionArgs) {
   const viewer = await requirePermission(request, "proposals:own");
   const form = await requireFormBody(request);
-  return saveTarget(context.get(dbContext), form, { ownerId: viewer.user.id, target: null });
+  const db = context.get(dbContext);
+  switch (form.get("intent")) {
+    case "add-to-proposal":
+      return addRowToProposal(db, viewer, form);
+    case "remove":
+      return removeRow(db, viewer, form);
+    default:
+      return saveTarget(db, form, { ownerId: viewer.user.id, target: null });
+  }
 }
 
 /** The page's title and lead, for the header and the browser tab. */
@@ -77,17 +95,38 @@ export default function Targets({ loaderData, actionData }: Route.ComponentProps
       align: "right",
       value: (t) => t.magnitudes[b] ?? null,
     })),
+    {
+      key: "actions",
+      header: "Actions",
+      value: () => "",
+      render: (t) => <RowActions target={t} sketchpadHref={t.sketchpadHref} drafts={loaderData.drafts} />,
+    },
   ];
+  const refusal = actionData && "rowError" in actionData ? actionData.rowError : null;
   return (
     <TargetsPage {...PAGE} actions={<ListActions />}>
       <Card title="Targets">
+        {refusal ? <Alert className="mb-4">{refusal}</Alert> : null}
         {loaderData.targets.length === 0 ? (
           <EmptyState title="No targets yet">Add one below or import a CSV list.</EmptyState>
         ) : (
-          <DataTable caption="My targets" columns={columns} rows={loaderData.targets} rowKey={(t) => t.id} />
+          <>
+            <DataTable caption="My targets" columns={columns} rows={loaderData.targets} rowKey={(t) => t.id} />
+            {loaderData.drafts.length === 0 ? (
+              <p className="mt-3 text-sm text-night-600">
+                “Add to a proposal” needs a draft of yours whose cycle's deadline is still ahead; start one under
+                Proposals.
+              </p>
+            ) : null}
+          </>
         )}
       </Card>
-      <TargetEditor intent="create" values={{}} bands={loaderData.bands} retry={actionData} />
+      <TargetEditor
+        intent="create"
+        values={{}}
+        bands={loaderData.bands}
+        retry={actionData && "values" in actionData ? actionData : undefined}
+      />
     </TargetsPage>
   );
 }

@@ -2,18 +2,17 @@ import * as v from "valibot";
 import { sentField } from "~/lib/form-errors";
 import { strictNumber } from "~/lib/numbers";
 import { TOKEN_LIFETIMES_DAYS, TOKEN_SCOPES } from "~/lib/permissions";
+import { requiredText } from "~/lib/text-fields";
 
 /** A session's id as the account page posts it: the SHA-256 of its cookie token, hex. */
 const SessionId = v.pipe(v.string(), v.regex(/^[0-9a-f]{64}$/, "Unknown session."));
 
 export const TOKEN_NAME_MAX = 80;
 
-export const TokenName = v.pipe(
-  v.string(),
-  v.trim(),
-  v.nonEmpty("Give the token a name, e.g. the script that will use it."),
-  v.maxLength(TOKEN_NAME_MAX, `Keep the name to ${TOKEN_NAME_MAX} characters or fewer.`),
-);
+export const TokenName = requiredText(TOKEN_NAME_MAX, {
+  empty: "Give the token a name, e.g. the script that will use it.",
+  tooLong: `Keep the name to ${TOKEN_NAME_MAX} characters or fewer.`,
+});
 
 /** The scopes ticked on the form: at least one, each one of TOKEN_SCOPES. */
 const TokenScopes = v.pipe(

@@ -4,23 +4,15 @@
  */
 import { availableParallelism } from "node:os";
 import * as v from "valibot";
-
-const count = (min: number, max: number) =>
-  v.pipe(
-    v.string(),
-    v.regex(/^\d+$/, "must be a whole number"),
-    v.transform(Number),
-    v.minValue(min, `must be at least ${min}`),
-    v.maxValue(max, `must be at most ${max}`),
-  );
+import { envWholeNumber } from "~/lib/env-values";
 
 export const COMPUTE_ENV_ENTRIES = {
   /** Worker threads computing coverage, triangles and ephemerides; "auto" = one per core. */
-  COMPUTE_THREADS: v.optional(v.union([v.literal("auto"), count(1, 64)], 'must be "auto" or 1 to 64'), "auto"),
+  COMPUTE_THREADS: v.optional(v.union([v.literal("auto"), envWholeNumber(1, 64)], 'must be "auto" or 1 to 64'), "auto"),
   /** Computations that may wait for a thread; one more is answered 503 with Retry-After. */
-  COMPUTE_QUEUE: v.optional(count(0, 10_000), "64"),
+  COMPUTE_QUEUE: v.optional(envWholeNumber(0, 10_000), "64"),
   /** Computations one person may have running or waiting; one more is answered 429 with Retry-After. */
-  COMPUTE_PER_PERSON: v.optional(count(1, 1000), "4"),
+  COMPUTE_PER_PERSON: v.optional(envWholeNumber(1, 1000), "4"),
 };
 
 export interface PoolSettings {

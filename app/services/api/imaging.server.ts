@@ -48,18 +48,26 @@ export async function listResponse(db: Database, { viewer, url }: { viewer: View
   return jsonResponse({ jobs });
 }
 
-export async function jobResponse(db: Database, { viewer, idParam }: { viewer: Viewer; idParam: string | undefined }) {
+/** What a job's URL names: who asks, and the `:id` as written. */
+type JobAddress = { viewer: Viewer; idParam: string | undefined };
+
+/** The id in the URL and what `read` finds under it; null when the id is malformed or nothing of the viewer's has it. */
+async function lookUp<T>(
+  idParam: string | undefined,
+  read: (jobId: number) => Promise<T | null>,
+): Promise<{ jobId: number; found: T } | null> {
   const jobId = toId(idParam);
-  const job = jobId === null ? null : await readJob(db, { viewer, jobId });
-  return job ? jsonResponse(job) : noJob();
+  const found = jobId === null ? null : await read(jobId);
+  return jobId === null || found === null ? null : { jobId, found };
 }
 
-export async function cancelResponse(
-  db: Database,
-  { viewer, idParam }: { viewer: Viewer; idParam: string | undefined },
-) {
-  const jobId = toId(idParam);
-  const job = jobId === null ? null : await readJob(db, { viewer, jobId });
+export async function jobResponse(db: Database, { viewer, idParam }: JobAddress) {
+  const job = await lookUp(idParam, (jobId) => readJob(db, { viewer, jobId }));
+  return job ? jsonResponse(job.found) : noJob();
+}
+
+export async function cancelResponse(db: Database, { viewer, idParam }: JobAddress) {
+  const job = (await lookUp(idParam, (jobId) => readJob(db, { viewer, jobId })))?.found;
   if (!job) return noJob();
   if (job.readOnly)
     return jsonResponse({ error: "Only the person who started a preview can cancel it.", field: null }, 403);
@@ -72,13 +80,10 @@ export async function cancelResponse(
   return jsonResponse(await readJob(db, { viewer, jobId: job.id }));
 }
 
-export async function oifitsResponse(
-  db: Database,
-  { viewer, idParam }: { viewer: Viewer; idParam: string | undefined },
-) {
-  const jobId = toId(idParam);
-  const file = jobId === null ? null : await readOifits(db, { viewer, jobId });
-  if (!file) return noJob();
+export async function oifitsResponse(db: Database, { viewer, idParam }: JobAddress) {
+  const hit = await lookUp(idParam, (jobId) => readOifits(db, { viewer, jobId }));
+  if (!hit) return noJob();
+  const { jobId, found: file } = hit;
   if (file.state !== "done" || !file.oifits) {
     return jsonResponse(
       { error: `This preview is ${file.state}: its data are written when it is done.`, field: null },

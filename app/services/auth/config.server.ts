@@ -1,5 +1,6 @@
 import * as v from "valibot";
 import { env } from "~/env.server";
+import { envPort } from "~/lib/env-values";
 
 /**
  * Sign-in settings. Without OIDC_ISSUER the app uses the local fake identity provider that
@@ -9,16 +10,7 @@ const AuthEnvSchema = v.object({
   OIDC_ISSUER: v.optional(v.pipe(v.string(), v.url("must be a URL"))),
   OIDC_CLIENT_ID: v.optional(v.pipe(v.string(), v.minLength(1)), "fringe-docket"),
   OIDC_CLIENT_SECRET: v.optional(v.pipe(v.string(), v.minLength(1)), "fringe-docket-local-secret"),
-  FAKE_IDP_PORT: v.optional(
-    v.pipe(
-      v.string(),
-      v.regex(/^\d{1,5}$/, "must be a port number"),
-      v.transform(Number),
-      v.minValue(1, "must be a port number"),
-      v.maxValue(65535, "must be a port number"),
-    ),
-    "9411",
-  ),
+  FAKE_IDP_PORT: envPort("9411"),
   /** Label of the sign-in button. */
   OIDC_PROVIDER_NAME: v.optional(v.string(), "Observatory single sign-on"),
 });

@@ -12,6 +12,7 @@ import {
   DEG_TO_RAD,
   julianDay,
   lmstHours,
+  longestBaselineM,
   parseIsoDate,
   shortlistCalibrators,
 } from "~/engine";
@@ -26,19 +27,6 @@ export type Refusal = { ok: false; field: string; message: string };
 /** `cli calibrators` on the server's catalogue (the API's computation). */
 export function shortlistForRequest(input: CalibratorsInput): { ok: true; value: CalibratorsResponse } | Refusal {
   return shortlistCalibrators(loadCatalogue(), input);
-}
-
-/** Longest distance between two stations (east, north, up), metres; 0 for fewer than two. */
-export function longestBaselineM(stations: readonly { eastM: number; northM: number; upM: number }[]): number {
-  let longest = 0;
-  for (let i = 0; i < stations.length; i++) {
-    for (let j = i + 1; j < stations.length; j++) {
-      const a = stations[i];
-      const b = stations[j];
-      longest = Math.max(longest, Math.hypot(b.eastM - a.eastM, b.northM - a.northM, b.upM - a.upM));
-    }
-  }
-  return longest;
 }
 
 export type BandChoice = {

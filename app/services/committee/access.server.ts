@@ -11,6 +11,7 @@ import type { DbOrTx } from "~/db/client.server";
 import { reviewAssignments, reviews } from "~/db/schema/committee";
 import { cycles, proposals } from "~/db/schema/proposals";
 import type { Role } from "~/db/schema/users";
+import { reviewOfAssignment } from "~/lib/joins.server";
 import { invariantResponse, notFound, toId } from "~/lib/not-found";
 import type { Permission } from "~/lib/permissions";
 import { conflictsOf } from "./conflicts.server";
@@ -57,7 +58,7 @@ export async function loadProposalForCommittee(
   const [mine] = await db
     .select({ assignment: reviewAssignments, review: reviews })
     .from(reviewAssignments)
-    .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+    .leftJoin(reviews, reviewOfAssignment)
     .where(and(eq(reviewAssignments.proposalId, proposalId), eq(reviewAssignments.reviewerId, viewer.user.id)));
   const conflicts = await conflictsOf(db, {
     proposals: [{ id: proposalId, category: row.proposal.scienceCategory }],

@@ -5,13 +5,14 @@
  * declared a conflict, is never picked for it. The preview is computed without writing; saving checks
  * every pair again in one transaction and sends each reviewer one notice.
  */
-import { and, asc, eq, inArray } from "drizzle-orm";
+import { and, asc, eq, inArray, type SQL } from "drizzle-orm";
 import type { Database, DbOrTx } from "~/db/client.server";
 import { auditLog } from "~/db/schema/auth";
 import { committeeMembers, reviewAssignments, reviews } from "~/db/schema/committee";
 import { cycles, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { autoAssign, DEFAULT_REVIEWERS_PER_PROPOSAL } from "~/engine";
+import { piOfProposal, reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 import { BOARD_STATUSES } from "./board.server";
 import {
@@ -42,14 +43,14 @@ async function cycleWork(db: DbOrTx, cycleId: number) {
     db
       .select({ id: proposals.id, title: proposals.title, category: proposals.scienceCategory, pi: users.name })
       .from(proposals)
-      .innerJoin(users, eq(users.id, proposals.piId))
+      .innerJoin(users, piOfProposal)
       .where(and(eq(proposals.cycleId, cycleId), inArray(proposals.status, BOARD_STATUSES)))
       .orderBy(asc(proposals.id)),
     db
       .select({ assignment: reviewAssignments, reviewer: users.name, review: reviews })
       .from(reviewAssignments)
-      .innerJoin(users, eq(users.id, reviewAssignments.reviewerId))
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+      .innerJoin(users, reviewerOfAssignment)
+      .leftJoin(reviews, reviewOfAssignment)
       .where(eq(reviewAssignments.cycleId, cycleId))
       .orderBy(asc(reviewAssignments.id)),
   ]);
@@ -231,18 +232,26 @@ export async function saveAssignments(
   return out;
 }
 
+/** The assignments `where` picks with their reviews (if written), locked until the transaction ends. */
+export function lockAssignments(tx: DbOrTx, where: SQL | undefined) {
+  return tx
+    .select({ a: reviewAssignments, review: reviews })
+    .from(reviewAssignments)
+    .leftJoin(reviews, reviewOfAssignment)
+    .where(where)
+    .for("update", { of: reviewAssignments });
+}
+
 /** Takes an assignment back, while nothing has been written in its review. */
 export async function removeAssignment(
   db: Database,
   { cycleId, assignmentId, actorId }: { cycleId: number; assignmentId: number; actorId: number },
 ): Promise<{ ok: true } | { ok: false; message: string }> {
   return db.transaction(async (tx) => {
-    const [row] = await tx
-      .select({ a: reviewAssignments, review: reviews })
-      .from(reviewAssignments)
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
-      .where(and(eq(reviewAssignments.id, assignmentId), eq(reviewAssignments.cycleId, cycleId)))
-      .for("update", { of: reviewAssignments });
+    const [row] = await lockAssignments(
+      tx,
+      and(eq(reviewAssignments.id, assignmentId), eq(reviewAssignments.cycleId, cycleId)),
+    );
     if (!row) return { ok: false, message: "No such assignment in this cycle." };
     if (row.review) return { ok: false, message: "The reviewer has started this review; it stays." };
     await tx.delete(reviewAssignments).where(eq(reviewAssignments.id, assignmentId));
@@ -271,7 +280,7 @@ export async function declineAssignment(
       .select({ a: reviewAssignments, review: reviews, cycle: cycles })
       .from(reviewAssignments)
       .innerJoin(cycles, eq(cycles.id, reviewAssignments.cycleId))
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+      .leftJoin(reviews, reviewOfAssignment)
       .where(eq(reviewAssignments.id, assignmentId))
       .for("update", { of: reviewAssignments });
     if (!row || row.a.reviewerId !== reviewerId) return { ok: false, message: "Not your assignment." };

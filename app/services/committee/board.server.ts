@@ -5,7 +5,7 @@
  */
 import { and, asc, eq, inArray, isNotNull, sql } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
-import { configurationStations, configurations, sites, stations } from "~/db/schema/array";
+import { configurationStations, stations } from "~/db/schema/array";
 import {
   allocatedHours,
   committeeBoards,
@@ -14,15 +14,11 @@ import {
   reviewAssignments,
   reviews,
 } from "~/db/schema/committee";
-import {
-  cycleConfigurations,
-  cycles,
-  type ProposalStatus,
-  proposalHours,
-  proposals,
-  proposalTargets,
-} from "~/db/schema/proposals";
+import { cycles, type ProposalStatus, proposalHours, proposals, proposalTargets } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { activeAssignment, submittedReview } from "~/lib/conditions.server";
+import { piOfProposal, proposalOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
+import { offersWithSites } from "~/services/cycles/queries.server";
 import { type Board, computeBoard } from "./board";
 import type { BoardRecords, HoursByConfiguration } from "./board-records";
 import { cycleDarkness } from "./dark-time.server";
@@ -51,18 +47,7 @@ function hoursMap(rows: { proposalId: number; configurationId: number; hours: nu
 
 /** The cycle's offered configurations with their stations and site, in name order. */
 async function offeredConfigurations(db: DbOrTx, cycleId: number) {
-  const offers = await db
-    .select({
-      id: configurations.id,
-      name: configurations.name,
-      nights: cycleConfigurations.nightsAvailable,
-      site: sites,
-    })
-    .from(cycleConfigurations)
-    .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
-    .innerJoin(sites, eq(sites.id, configurations.siteId))
-    .where(eq(cycleConfigurations.cycleId, cycleId))
-    .orderBy(asc(configurations.name));
+  const offers = await offersWithSites(db, { cycleId: cycleId });
   const ids = offers.map((o) => o.id);
   const members = ids.length
     ? await db
@@ -111,7 +96,7 @@ export async function loadBoardRecords(db: DbOrTx, { cycleId }: { cycleId: numbe
         pi: users.name,
       })
       .from(proposals)
-      .innerJoin(users, eq(users.id, proposals.piId))
+      .innerJoin(users, piOfProposal)
       .where(inCycle),
     db
       .select({
@@ -141,8 +126,8 @@ export async function loadBoardRecords(db: DbOrTx, { cycleId }: { cycleId: numbe
         submitted: sql<number>`count(${reviews.submittedAt})::int`,
       })
       .from(reviewAssignments)
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
-      .where(and(eq(reviewAssignments.cycleId, cycleId), eq(reviewAssignments.status, "active")))
+      .leftJoin(reviews, reviewOfAssignment)
+      .where(and(eq(reviewAssignments.cycleId, cycleId), activeAssignment))
       .groupBy(reviewAssignments.proposalId),
     db
       .select({
@@ -151,9 +136,9 @@ export async function loadBoardRecords(db: DbOrTx, { cycleId }: { cycleId: numbe
         score: reviews.score,
       })
       .from(reviews)
-      .innerJoin(reviewAssignments, eq(reviewAssignments.id, reviews.assignmentId))
-      .innerJoin(proposals, eq(proposals.id, reviewAssignments.proposalId))
-      .where(and(inCycle, isNotNull(reviews.submittedAt), isNotNull(reviews.score)))
+      .innerJoin(reviewAssignments, reviewOfAssignment)
+      .innerJoin(proposals, proposalOfAssignment)
+      .where(and(inCycle, submittedReview, isNotNull(reviews.score)))
       .orderBy(asc(reviewAssignments.id)),
     db.select().from(proposalDecisions).where(eq(proposalDecisions.cycleId, cycleId)),
     db

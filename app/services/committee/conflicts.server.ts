@@ -10,6 +10,7 @@ import { reviewAssignments, reviewConflicts } from "~/db/schema/committee";
 import { proposalMembers, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { type AssignmentProposal, type Conflict, findConflicts } from "~/engine";
+import { piOfProposal } from "~/lib/joins.server";
 
 export type Team = { team: number[]; institutes: string[] };
 
@@ -21,7 +22,7 @@ export async function proposalTeams(db: DbOrTx, proposalIds: readonly number[]):
     db
       .select({ proposalId: proposals.id, userId: users.id, institute: users.institute })
       .from(proposals)
-      .innerJoin(users, eq(users.id, proposals.piId))
+      .innerJoin(users, piOfProposal)
       .where(inArray(proposals.id, [...proposalIds])),
     db
       .select({ proposalId: proposalMembers.proposalId, userId: users.id, institute: users.institute })

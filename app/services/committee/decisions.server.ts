@@ -4,12 +4,14 @@
  * sends every decision to every team, changes the proposals' statuses and closes the cycle — each in
  * one transaction with its audit entries.
  */
-import { and, asc, eq, inArray, isNotNull } from "drizzle-orm";
+import { and, asc, eq, inArray } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
 import { configurations } from "~/db/schema/array";
 import { auditLog } from "~/db/schema/auth";
 import { allocatedHours, committeeBoards, proposalDecisions, reviewAssignments, reviews } from "~/db/schema/committee";
 import { cycles, type ProposalStatus, proposals } from "~/db/schema/proposals";
+import { activeAssignment, submittedReview } from "~/lib/conditions.server";
+import { configurationOf, reviewOfAssignment } from "~/lib/joins.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 import type { DecisionEntry } from "./decisions-form";
 import { queueDecisionNotices } from "./notices.server";
@@ -147,20 +149,14 @@ export async function releaseDecisions(
               hours: allocatedHours.hours,
             })
             .from(allocatedHours)
-            .innerJoin(configurations, eq(configurations.id, allocatedHours.configurationId))
+            .innerJoin(configurations, configurationOf(allocatedHours.configurationId))
             .where(inArray(allocatedHours.proposalId, ids))
             .orderBy(asc(configurations.name)),
           tx
             .select({ proposalId: reviewAssignments.proposalId, text: reviews.commentToPi })
             .from(reviews)
-            .innerJoin(reviewAssignments, eq(reviewAssignments.id, reviews.assignmentId))
-            .where(
-              and(
-                inArray(reviewAssignments.proposalId, ids),
-                isNotNull(reviews.submittedAt),
-                eq(reviewAssignments.status, "active"),
-              ),
-            )
+            .innerJoin(reviewAssignments, reviewOfAssignment)
+            .where(and(inArray(reviewAssignments.proposalId, ids), submittedReview, activeAssignment))
             .orderBy(asc(reviewAssignments.id)),
         ])
       : [[], []];

@@ -9,8 +9,10 @@ import { auditLog } from "~/db/schema/auth";
 import { committeeMembers, reviewAssignments, reviewConflicts, reviews } from "~/db/schema/committee";
 import { cycles, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { activeAssignment } from "~/lib/conditions.server";
+import { proposalOfAssignment, reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
-import { reviewProgress } from "./assignments.server";
+import { lockAssignments, reviewProgress } from "./assignments.server";
 import { BOARD_STATUSES } from "./board.server";
 import { conflictsOf, conflictText } from "./conflicts.server";
 import { queueReminder } from "./notices.server";
@@ -31,8 +33,8 @@ export async function myDesk(db: DbOrTx, { userId }: { userId: number }) {
       category: proposals.scienceCategory,
     })
     .from(reviewAssignments)
-    .innerJoin(proposals, eq(proposals.id, reviewAssignments.proposalId))
-    .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+    .innerJoin(proposals, proposalOfAssignment)
+    .leftJoin(reviews, reviewOfAssignment)
     .where(eq(reviewAssignments.reviewerId, userId))
     .orderBy(asc(proposals.title));
   return seats.reverse().map(({ cycle }) => ({
@@ -142,12 +144,10 @@ export async function declareConflict(
       return { ok: false, message: "Proposal: not one of this cycle's submitted proposals." };
     if (!CONFLICT_STATES.has(row.cycle.state))
       return { ok: false, message: "Conflicts are declared until the review closes." };
-    const [a] = await tx
-      .select({ a: reviewAssignments, review: reviews })
-      .from(reviewAssignments)
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
-      .where(and(eq(reviewAssignments.proposalId, proposalId), eq(reviewAssignments.reviewerId, reviewerId)))
-      .for("update", { of: reviewAssignments });
+    const [a] = await lockAssignments(
+      tx,
+      and(eq(reviewAssignments.proposalId, proposalId), eq(reviewAssignments.reviewerId, reviewerId)),
+    );
     if (a?.review?.submittedAt)
       return { ok: false, message: "You have submitted a review of this proposal; tell the chair about the conflict." };
     await tx
@@ -205,16 +205,10 @@ export async function sendReminders(
     const pending = await tx
       .select({ a: reviewAssignments, review: reviews, title: proposals.title, reviewer: users })
       .from(reviewAssignments)
-      .innerJoin(proposals, eq(proposals.id, reviewAssignments.proposalId))
-      .innerJoin(users, eq(users.id, reviewAssignments.reviewerId))
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
-      .where(
-        and(
-          eq(reviewAssignments.cycleId, cycleId),
-          eq(reviewAssignments.status, "active"),
-          isNull(reviews.submittedAt),
-        ),
-      )
+      .innerJoin(proposals, proposalOfAssignment)
+      .innerJoin(users, reviewerOfAssignment)
+      .leftJoin(reviews, reviewOfAssignment)
+      .where(and(eq(reviewAssignments.cycleId, cycleId), activeAssignment, isNull(reviews.submittedAt)))
       .orderBy(asc(users.id), asc(proposals.title));
     const byReviewer = new Map<number, typeof pending>();
     for (const p of pending) byReviewer.set(p.reviewer.id, [...(byReviewer.get(p.reviewer.id) ?? []), p]);

@@ -12,6 +12,8 @@ import { configurations } from "~/db/schema/array";
 import { allocatedHours, proposalDecisions, reviewAssignments, reviews } from "~/db/schema/committee";
 import { type CalibratorJson, cycles, proposals, proposalTargets } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { activeAssignment, submittedReview } from "~/lib/conditions.server";
+import { configurationOf, piOfProposal, reviewOfAssignment } from "~/lib/joins.server";
 
 export const DECISION_WORDS = { accept: "Accepted", waitlist: "Waiting list", decline: "Not accepted" } as const;
 
@@ -44,20 +46,14 @@ export async function decisionForTeam(
     db
       .select({ configuration: configurations.name, hours: allocatedHours.hours })
       .from(allocatedHours)
-      .innerJoin(configurations, eq(configurations.id, allocatedHours.configurationId))
+      .innerJoin(configurations, configurationOf(allocatedHours.configurationId))
       .where(eq(allocatedHours.proposalId, proposalId))
       .orderBy(asc(configurations.name)),
     db
       .select({ text: reviews.commentToPi })
       .from(reviews)
-      .innerJoin(reviewAssignments, eq(reviewAssignments.id, reviews.assignmentId))
-      .where(
-        and(
-          eq(reviewAssignments.proposalId, proposalId),
-          eq(reviewAssignments.status, "active"),
-          isNotNull(reviews.submittedAt),
-        ),
-      )
+      .innerJoin(reviewAssignments, reviewOfAssignment)
+      .where(and(eq(reviewAssignments.proposalId, proposalId), activeAssignment, submittedReview))
       .orderBy(asc(reviewAssignments.id)),
   ]);
   const kind = row.decision.decision;
@@ -112,9 +108,9 @@ export async function acceptedPrograms(db: DbOrTx, { cycleId }: { cycleId: numbe
     })
     .from(proposalDecisions)
     .innerJoin(proposals, eq(proposals.id, proposalDecisions.proposalId))
-    .innerJoin(users, eq(users.id, proposals.piId))
+    .innerJoin(users, piOfProposal)
     .innerJoin(allocatedHours, eq(allocatedHours.proposalId, proposals.id))
-    .innerJoin(configurations, eq(configurations.id, allocatedHours.configurationId))
+    .innerJoin(configurations, configurationOf(allocatedHours.configurationId))
     .where(
       and(
         eq(proposalDecisions.cycleId, cycleId),

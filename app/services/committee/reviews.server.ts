@@ -7,12 +7,14 @@
  * instead of overwriting it. The first save inserts with ON CONFLICT DO NOTHING, so two first saves at
  * once also end with one stored and one refused. Saves of different reviews never wait on each other.
  */
-import { and, asc, eq, isNotNull, ne } from "drizzle-orm";
+import { and, asc, eq, ne } from "drizzle-orm";
 import type { Database, DbOrTx } from "~/db/client.server";
 import { auditLog } from "~/db/schema/auth";
 import { reviewAssignments, reviews } from "~/db/schema/committee";
 import { cycles } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { activeAssignment, submittedReview } from "~/lib/conditions.server";
+import { reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import { scoringClosedBecause } from "~/services/cycles/states";
 import { onScale } from "./scale";
 import type { ReviewFields } from "./schemas";
@@ -126,13 +128,13 @@ export async function othersReviews(
   const rows = await db
     .select({ score: reviews.score, confidence: reviews.confidence, commentToCommittee: reviews.commentToCommittee })
     .from(reviews)
-    .innerJoin(reviewAssignments, eq(reviewAssignments.id, reviews.assignmentId))
+    .innerJoin(reviewAssignments, reviewOfAssignment)
     .where(
       and(
         eq(reviewAssignments.proposalId, proposalId),
         ne(reviewAssignments.reviewerId, reviewerId),
-        eq(reviewAssignments.status, "active"),
-        isNotNull(reviews.submittedAt),
+        activeAssignment,
+        submittedReview,
       ),
     )
     .orderBy(asc(reviewAssignments.id));
@@ -153,8 +155,8 @@ export async function allReviews(db: DbOrTx, { proposalId }: { proposalId: numbe
       submittedAt: reviews.submittedAt,
     })
     .from(reviewAssignments)
-    .innerJoin(users, eq(users.id, reviewAssignments.reviewerId))
-    .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
+    .innerJoin(users, reviewerOfAssignment)
+    .leftJoin(reviews, reviewOfAssignment)
     .where(eq(reviewAssignments.proposalId, proposalId))
     .orderBy(asc(reviewAssignments.id));
 }

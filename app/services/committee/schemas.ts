@@ -5,14 +5,12 @@
  */
 import * as v from "valibot";
 import { type FieldErrors, fieldErrors } from "~/lib/form-errors";
+import { labelledText } from "~/lib/text-fields";
 import { onScale, type Scale, scaleText } from "./scale";
 
 export const COMMENT_MAX_CHARS = 5000;
 export const REASON_MAX_CHARS = 500;
 export const MESSAGE_MAX_CHARS = 2000;
-
-const text = (label: string, max: number) =>
-  v.pipe(v.string(), v.trim(), v.maxLength(max, `${label}: at most ${max} characters`));
 
 /** A reason someone gives (a conflict, a declined assignment): a few words at least. */
 export const Reason = (label: string) =>
@@ -48,8 +46,8 @@ export const CONFIDENCE_WORDS = { low: "Low", medium: "Medium", high: "High" } a
 export const ReviewFormSchema = (scale: Scale) =>
   v.object({
     score: ScaleScore("Score", scale),
-    commentToPi: text("Comment to the PI", COMMENT_MAX_CHARS),
-    commentToCommittee: text("Comment to the committee", COMMENT_MAX_CHARS),
+    commentToPi: labelledText("Comment to the PI", COMMENT_MAX_CHARS),
+    commentToCommittee: labelledText("Comment to the committee", COMMENT_MAX_CHARS),
     confidence: v.picklist(["", "low", "medium", "high"], "Confidence: choose low, medium or high"),
     version: WholeNumber("Version", 0, 1_000_000),
   });
@@ -141,4 +139,4 @@ export const GrantedHours = (label: string) =>
 
 export const DecisionKind = v.picklist(["", "accept", "waitlist", "decline"], "Decision: accept, waitlist or decline");
 
-export const Message = text("Message", MESSAGE_MAX_CHARS);
+export const Message = labelledText("Message", MESSAGE_MAX_CHARS);

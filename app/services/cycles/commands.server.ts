@@ -1,11 +1,13 @@
 /** Writing observing cycles with their offers and committee, each change in one transaction. */
-import { and, eq, isNotNull, notInArray, sql } from "drizzle-orm";
+import { and, eq, isNotNull, sql } from "drizzle-orm";
 import type { Database, Transaction } from "~/db/client.server";
 import { configurations } from "~/db/schema/array";
 import { committeeMembers, reviewAssignments, reviews } from "~/db/schema/committee";
 import { type CycleState, cycleConfigurations, cycles, proposalHours, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { activeAssignment, scopeExcept } from "~/lib/conditions.server";
 import type { FieldErrors } from "~/lib/form-errors";
+import { configurationOf, reviewerOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
 import type { CycleInput } from "./schemas";
 
 /** The cycle's own columns of a checked input (committee fields only where given). */
@@ -38,11 +40,7 @@ async function writeCommittee(tx: Transaction, cycleId: number, committee: numbe
   if (committee === undefined) return;
   await tx
     .delete(committeeMembers)
-    .where(
-      committee.length
-        ? and(eq(committeeMembers.cycleId, cycleId), notInArray(committeeMembers.userId, committee))
-        : eq(committeeMembers.cycleId, cycleId),
-    );
+    .where(scopeExcept(eq(committeeMembers.cycleId, cycleId), committeeMembers.userId, committee));
   if (committee.length)
     await tx
       .insert(committeeMembers)
@@ -92,7 +90,7 @@ async function committeeRefusals(tx: Transaction, cycleId: number, input: CycleI
     const [scored] = await tx
       .select({ n: sql<number>`count(*)::int` })
       .from(reviews)
-      .innerJoin(reviewAssignments, eq(reviewAssignments.id, reviews.assignmentId))
+      .innerJoin(reviewAssignments, reviewOfAssignment)
       .where(and(eq(reviewAssignments.cycleId, cycleId), isNotNull(reviews.score)));
     if (scored.n > 0)
       errors.scoreWorst = `Score scale: ${scored.n} review${scored.n === 1 ? " has" : "s have"} a score on the current scale; it can no longer change`;
@@ -101,8 +99,8 @@ async function committeeRefusals(tx: Transaction, cycleId: number, input: CycleI
     const busy = await tx
       .selectDistinct({ id: users.id, name: users.name })
       .from(reviewAssignments)
-      .innerJoin(users, eq(users.id, reviewAssignments.reviewerId))
-      .where(and(eq(reviewAssignments.cycleId, cycleId), eq(reviewAssignments.status, "active")));
+      .innerJoin(users, reviewerOfAssignment)
+      .where(and(eq(reviewAssignments.cycleId, cycleId), activeAssignment));
     const leaving = busy.filter((b) => !input.committee!.includes(b.id));
     if (leaving.length)
       errors.committee = `Committee: ${leaving.map((l) => l.name).join(", ")} still ${leaving.length === 1 ? "has" : "have"} assignments; reassign them first`;
@@ -121,7 +119,7 @@ export async function updateCycle(db: Database, { cycleId, input }: { cycleId: n
       .selectDistinct({ configurationId: proposalHours.configurationId, name: configurations.name })
       .from(proposalHours)
       .innerJoin(proposals, eq(proposals.id, proposalHours.proposalId))
-      .innerJoin(configurations, eq(configurations.id, proposalHours.configurationId))
+      .innerJoin(configurations, configurationOf(proposalHours.configurationId))
       .where(eq(proposals.cycleId, cycleId));
     const offered = new Set(input.offers.map((o) => o.configurationId));
     const blocked = requested.filter((r) => !offered.has(r.configurationId)).map((r) => r.name);

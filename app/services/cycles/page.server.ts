@@ -5,32 +5,22 @@
  */
 import { and, desc, eq, sql } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
-import { configurations, sites } from "~/db/schema/array";
 import { auditLog } from "~/db/schema/auth";
 import { reviewAssignments, reviews } from "~/db/schema/committee";
-import { cycleConfigurations, type cycles, proposals } from "~/db/schema/proposals";
+import { type cycles, proposals } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { activeAssignment } from "~/lib/conditions.server";
 import { formatUtc } from "~/lib/format";
+import { reviewOfAssignment } from "~/lib/joins.server";
 import { cycleDarkness } from "~/services/committee/dark-time.server";
 import { scaleText } from "~/services/committee/scale";
-import { committeeOf } from "./queries.server";
+import { committeeOf, offersWithSites } from "./queries.server";
 import { availableTransitions, STATE_WORDS } from "./states";
 import { guardFacts } from "./transitions.server";
 
 /** Darkness of the period per offered configuration: nights × mean dark hours per night (Sun below −18°). */
 export async function cycleDarknessSummary(db: DbOrTx, cycle: typeof cycles.$inferSelect) {
-  const offers = await db
-    .select({
-      id: configurations.id,
-      name: configurations.name,
-      nights: cycleConfigurations.nightsAvailable,
-      site: sites,
-    })
-    .from(cycleConfigurations)
-    .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
-    .innerJoin(sites, eq(sites.id, configurations.siteId))
-    .where(eq(cycleConfigurations.cycleId, cycle.id))
-    .orderBy(configurations.name);
+  const offers = await offersWithSites(db, { cycleId: cycle.id });
   const siteList = [...new Map(offers.map((o) => [o.site.id, o.site])).values()];
   const dark = await cycleDarkness(db, {
     cycleId: cycle.id,
@@ -94,8 +84,8 @@ export async function cyclePage(db: DbOrTx, { cycle, now }: { cycle: typeof cycl
     db
       .select({ assigned: sql<number>`count(*)::int`, submitted: sql<number>`count(${reviews.submittedAt})::int` })
       .from(reviewAssignments)
-      .leftJoin(reviews, eq(reviews.assignmentId, reviewAssignments.id))
-      .where(and(eq(reviewAssignments.cycleId, cycle.id), eq(reviewAssignments.status, "active"))),
+      .leftJoin(reviews, reviewOfAssignment)
+      .where(and(eq(reviewAssignments.cycleId, cycle.id), activeAssignment)),
     cycleLog(db, { cycleId: cycle.id }),
   ]);
   return {

@@ -1,10 +1,11 @@
 /** Reading observing cycles: their period, deadline and the configurations on offer (with nights). */
 import { and, asc, desc, eq, gt, inArray, type SQL } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
-import { configurations } from "~/db/schema/array";
+import { configurations, sites } from "~/db/schema/array";
 import { committeeMembers } from "~/db/schema/committee";
 import { cycleConfigurations, cycles } from "~/db/schema/proposals";
 import { userRoles, users } from "~/db/schema/users";
+import { configurationOf } from "~/lib/joins.server";
 
 /** What a cycle offers: a configuration (and its name) with the nights it is available. */
 const offerColumns = {
@@ -14,6 +15,22 @@ const offerColumns = {
   name: configurations.name,
 };
 
+/** The configurations a cycle offers, with the nights each is available and its site, in name order. */
+export async function offersWithSites(db: DbOrTx, { cycleId }: { cycleId: number }) {
+  return db
+    .select({
+      id: configurations.id,
+      name: configurations.name,
+      nights: cycleConfigurations.nightsAvailable,
+      site: sites,
+    })
+    .from(cycleConfigurations)
+    .innerJoin(configurations, configurationOf(cycleConfigurations.configurationId))
+    .innerJoin(sites, eq(sites.id, configurations.siteId))
+    .where(eq(cycleConfigurations.cycleId, cycleId))
+    .orderBy(asc(configurations.name));
+}
+
 /** The cycles `where` picks (every cycle without), latest observing period first, with their offers by name. */
 async function cyclesWithOffers(db: DbOrTx, where?: SQL) {
   const rows = await db.select().from(cycles).where(where).orderBy(desc(cycles.observingStart));
@@ -22,7 +39,7 @@ async function cyclesWithOffers(db: DbOrTx, where?: SQL) {
     ? await db
         .select(offerColumns)
         .from(cycleConfigurations)
-        .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
+        .innerJoin(configurations, configurationOf(cycleConfigurations.configurationId))
         .where(inArray(cycleConfigurations.cycleId, ids))
         .orderBy(asc(configurations.name))
     : [];

@@ -4,6 +4,7 @@
  * the deadline is given and shown in UTC.
  */
 import * as v from "valibot";
+import { labelledText, requiredText } from "~/lib/text-fields";
 
 /** A calendar date that exists ("2027-02-30" does not). */
 export const IsoDate = (label: string) =>
@@ -16,14 +17,12 @@ export const IsoDate = (label: string) =>
     ),
   );
 
-export const CycleName = v.pipe(
-  v.string(),
-  v.trim(),
-  v.nonEmpty("Name: give the cycle a name, e.g. 2027B"),
-  v.maxLength(40, "Name: at most 40 characters"),
-);
+export const CycleName = requiredText(40, {
+  empty: "Name: give the cycle a name, e.g. 2027B",
+  tooLong: "Name: at most 40 characters",
+});
 
-export const CycleDescription = v.pipe(v.string(), v.trim(), v.maxLength(500, "Description: at most 500 characters"));
+export const CycleDescription = labelledText("Description", 500);
 
 /** The `datetime-local` value of the deadline, read as UTC. */
 export const SubmissionDeadline = v.pipe(

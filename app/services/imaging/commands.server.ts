@@ -30,6 +30,14 @@ export type StartAnswer =
   | { ok: true; jobs: { id: number; label: string }[] }
   | { ok: false; status: number; message: string; field: string | null };
 
+/** A refused start: the HTTP status, the reason, and the field to change (null for the request as a whole). */
+const refusal = (status: number, message: string, field: string | null): StartAnswer => ({
+  ok: false,
+  status,
+  message,
+  field,
+});
+
 function issueText(issues: v.BaseIssue<unknown>[]) {
   const issue = issues[0];
   const path = issue.path?.map((p) => String(p.key)).join(".") ?? null;
@@ -108,29 +116,19 @@ export async function startPreviews(
       jobs = [{ ...sketchSource(source.coverage, settings), proposalTargetId: null, cycleBatchId: null }];
     } else if (source.kind === "proposalTarget") {
       if (!(await mayPreviewProposal(db, viewer, source.proposalId))) {
-        return { ok: false, status: 404, message: "No proposal of yours has this number.", field: "source.proposalId" };
+        return refusal(404, "No proposal of yours has this number.", "source.proposalId");
       }
       const built = await proposalTargetSource(db, { ...source, settings });
       jobs = [{ ...built, proposalTargetId: source.targetId, cycleBatchId: null }];
     } else {
       if (!viewer.permissions.has("cycles:manage")) {
-        return {
-          ok: false,
-          status: 403,
-          message: "Only the chair queues the previews of a whole cycle.",
-          field: "source",
-        };
+        return refusal(403, "Only the chair queues the previews of a whole cycle.", "source");
       }
       const [cycle] = await db.select({ id: cycles.id }).from(cycles).where(eq(cycles.id, source.cycleId));
-      if (!cycle) return { ok: false, status: 404, message: "No cycle has this number.", field: "source.cycleId" };
+      if (!cycle) return refusal(404, "No cycle has this number.", "source.cycleId");
       const targets = await imagingTargetsOfCycle(db, { cycleId: source.cycleId });
       if (targets.length === 0) {
-        return {
-          ok: false,
-          status: 409,
-          message: "No submitted proposal of this cycle has an imaging target.",
-          field: "source",
-        };
+        return refusal(409, "No submitted proposal of this cycle has an imaging target.", "source");
       }
       jobs = [];
       for (const t of targets) {
@@ -142,20 +140,15 @@ export async function startPreviews(
         }
       }
       if (jobs.length === 0) {
-        return {
-          ok: false,
-          status: 409,
-          message: "None of the cycle's imaging targets can be previewed.",
-          field: "source",
-        };
+        return refusal(409, "None of the cycle's imaging targets can be previewed.", "source");
       }
     }
   } catch (e) {
-    if (e instanceof PreviewSourceError) return { ok: false, status: e.status, message: e.message, field: e.field };
+    if (e instanceof PreviewSourceError) return refusal(e.status, e.message, e.field);
     throw e;
   }
   const written = await insertJobs(db, viewer, jobs, settings, source.kind === "cycle");
-  if ("refused" in written) return { ok: false, status: 429, message: written.refused ?? "", field: null };
+  if ("refused" in written) return refusal(429, written.refused ?? "", null);
   await enqueue(db, written.rows);
   return { ok: true, jobs: written.rows };
 }

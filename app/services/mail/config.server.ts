@@ -1,16 +1,5 @@
 import * as v from "valibot";
-
-const port = (fallback: string) =>
-  v.optional(
-    v.pipe(
-      v.string(),
-      v.regex(/^\d{1,5}$/, "must be a port number"),
-      v.transform(Number),
-      v.minValue(1, "must be a port number"),
-      v.maxValue(65535, "must be a port number"),
-    ),
-    fallback,
-  );
+import { envPort, envWholeNumber } from "~/lib/env-values";
 
 /** `Name <address>` or a bare address; the address must look like one. */
 const fromAddress = v.pipe(
@@ -29,7 +18,7 @@ const fromAddress = v.pipe(
 export const MAIL_ENV_ENTRIES = {
   /** SMTP server; the local fake (scripts/fakes/smtp.ts) listens on 127.0.0.1:2525. */
   SMTP_HOST: v.optional(v.pipe(v.string(), v.trim(), v.nonEmpty("must not be empty")), "127.0.0.1"),
-  SMTP_PORT: port("2525"),
+  SMTP_PORT: envPort("2525"),
   /** "1" = TLS from the first byte (port 465); "0" = plain, upgraded with STARTTLS when offered. */
   SMTP_SECURE: v.optional(
     v.pipe(
@@ -45,16 +34,7 @@ export const MAIL_ENV_ENTRIES = {
   /** "0" keeps the app server from running the outbox sender (when another process runs it). */
   MAIL_SENDER: v.optional(v.picklist(["0", "1"], "must be 0 or 1"), "1"),
   /** How often the sender looks for due messages, milliseconds. */
-  MAIL_SENDER_INTERVAL_MS: v.optional(
-    v.pipe(
-      v.string(),
-      v.regex(/^\d+$/, "must be a whole number of milliseconds"),
-      v.transform(Number),
-      v.minValue(100, "must be at least 100"),
-      v.maxValue(3_600_000, "must be at most 3600000"),
-    ),
-    "5000",
-  ),
+  MAIL_SENDER_INTERVAL_MS: v.optional(envWholeNumber(100, 3_600_000, "of milliseconds"), "5000"),
 };
 
 export const MailEnvSchema = v.pipe(

@@ -9,6 +9,8 @@ import { configurations, sites } from "~/db/schema/array";
 import { type NightPlanState, nightConfigurations, nightPlans } from "~/db/schema/nights";
 import { cycleConfigurations, cycles } from "~/db/schema/proposals";
 import { darkTimeOverPeriod, jdeFromJd, moonIlluminatedFraction, roundTo } from "~/engine";
+import { configurationOf } from "~/lib/joins.server";
+import { offersWithSites } from "~/services/cycles/queries.server";
 import { type CommandResult, done, refuse } from "./result";
 import type { RunInput } from "./schemas";
 import { windowStartJd } from "./sky";
@@ -59,20 +61,8 @@ export async function defaultCycleId(db: DbOrTx, { today }: { today: string }): 
 export async function cycleCalendar(db: Database, { cycleId }: { cycleId: number }) {
   const [cycle] = await db.select().from(cycles).where(eq(cycles.id, cycleId));
   if (!cycle) return null;
-  const offers = await db
-    .select({
-      configurationId: configurations.id,
-      name: configurations.name,
-      siteId: configurations.siteId,
-      nightsOffered: cycleConfigurations.nightsAvailable,
-    })
-    .from(cycleConfigurations)
-    .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
-    .where(eq(cycleConfigurations.cycleId, cycleId))
-    .orderBy(asc(configurations.name));
-  const [site] = offers.length
-    ? await db.select().from(sites).where(eq(sites.id, offers[0].siteId))
-    : await db.select().from(sites).orderBy(asc(sites.id)).limit(1);
+  const offers = await offersWithSites(db, { cycleId });
+  const site = offers[0]?.site ?? (await db.select().from(sites).orderBy(asc(sites.id)).limit(1))[0];
   const installed = await db
     .select({
       date: nightConfigurations.nightDate,
@@ -80,7 +70,7 @@ export async function cycleCalendar(db: Database, { cycleId }: { cycleId: number
       name: configurations.name,
     })
     .from(nightConfigurations)
-    .innerJoin(configurations, eq(configurations.id, nightConfigurations.configurationId))
+    .innerJoin(configurations, configurationOf(nightConfigurations.configurationId))
     .where(
       and(
         eq(nightConfigurations.cycleId, cycleId),
@@ -123,10 +113,10 @@ export async function cycleCalendar(db: Database, { cycleId }: { cycleId: number
     cycle: { id: cycle.id, name: cycle.name, observingStart: cycle.observingStart, observingEnd: cycle.observingEnd },
     site: site ? { name: site.name, timeZone: site.timeZone, latitudeDeg: site.latitudeDeg } : null,
     offers: offers.map((o) => ({
-      configurationId: o.configurationId,
+      configurationId: o.id,
       name: o.name,
-      nightsOffered: o.nightsOffered,
-      nightsInstalled: counts.get(o.configurationId) ?? 0,
+      nightsOffered: o.nights,
+      nightsInstalled: counts.get(o.id) ?? 0,
     })),
     nights,
   };
@@ -178,7 +168,7 @@ export async function installRun(
       const [offer] = await tx
         .select({ name: configurations.name })
         .from(cycleConfigurations)
-        .innerJoin(configurations, eq(configurations.id, cycleConfigurations.configurationId))
+        .innerJoin(configurations, configurationOf(cycleConfigurations.configurationId))
         .where(and(eq(cycleConfigurations.cycleId, cycleId), eq(cycleConfigurations.configurationId, configurationId)));
       if (!offer) return refuse(400, `Configuration: ${cycle.name} does not offer it.`, "configurationId");
       configName = offer.name;

@@ -6,10 +6,11 @@
  * State guards: a draft is built and edited; a published (or executed) plan is marked block by block
  * and may be re-planned from a given time, which makes it a draft again (to be published anew).
  */
-import { and, eq, notInArray } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import type { Database, Transaction } from "~/db/client.server";
 import { type BlockOutcome, type NightPlanSettingsJson, nightPlanBlocks, nightPlans } from "~/db/schema/nights";
 import { computePlan, type PlanBlockRef } from "~/engine";
+import { scopeExcept } from "~/lib/conditions.server";
 import { planContext, planRequest } from "./candidates";
 import { type EditBlock, insertBlock, moveBlock, removeBlock, resizeBlock } from "./edits";
 import { defaultSettings, type LoadedNight, loadNight } from "./night.server";
@@ -55,13 +56,7 @@ const refused = (x: LoadedNight | Refusal): x is Refusal => "ok" in x && x.ok ==
 /** Writes an edited block list: rows not in it deleted, kept rows moved, new rows inserted; positions in order. */
 async function writeBlocks(tx: Transaction, planId: number, blocks: readonly EditBlock[]) {
   const keep = blocks.map((b) => b.id).filter((id): id is number => id !== null);
-  await tx
-    .delete(nightPlanBlocks)
-    .where(
-      keep.length
-        ? and(eq(nightPlanBlocks.planId, planId), notInArray(nightPlanBlocks.id, keep))
-        : eq(nightPlanBlocks.planId, planId),
-    );
+  await tx.delete(nightPlanBlocks).where(scopeExcept(eq(nightPlanBlocks.planId, planId), nightPlanBlocks.id, keep));
   const fresh = [];
   for (const [i, b] of blocks.entries()) {
     const values = { position: i + 1, startUtc: new Date(b.startSec * 1000), endUtc: new Date(b.endSec * 1000) };

@@ -15,6 +15,7 @@ import {
 } from "~/db/schema/nights";
 import { cycles } from "~/db/schema/proposals";
 import { PLAN_DEFAULTS } from "~/engine";
+import { configurationOf } from "~/lib/joins.server";
 import { type Candidate, makeCandidates, type PlanSetting } from "./candidates";
 import { programTargets } from "./programs.server";
 import type { StoredBlock } from "./view";
@@ -66,7 +67,7 @@ export async function installationOf(db: DbOrTx, { date }: { date: string }): Pr
     })
     .from(nightConfigurations)
     .innerJoin(cycles, eq(cycles.id, nightConfigurations.cycleId))
-    .innerJoin(configurations, eq(configurations.id, nightConfigurations.configurationId))
+    .innerJoin(configurations, configurationOf(nightConfigurations.configurationId))
     .where(eq(nightConfigurations.nightDate, date));
   return row ?? null;
 }

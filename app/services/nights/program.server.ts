@@ -6,21 +6,12 @@
 import { and, asc, eq, inArray } from "drizzle-orm";
 import type { DbOrTx } from "~/db/client.server";
 import { configurations } from "~/db/schema/array";
-import { type BlockOutcome, nightPlanBlocks, nightPlans } from "~/db/schema/nights";
+import { nightPlanBlocks, nightPlans } from "~/db/schema/nights";
+import { configurationOf, planOfBlock } from "~/lib/joins.server";
 import { grantedHours } from "./programs.server";
+import type { BlockFields } from "./timeline";
 
-export type ProgramBlock = {
-  id: number;
-  night: string;
-  configuration: string;
-  kind: "calibrator" | "science";
-  target: string;
-  object: string;
-  startUtc: string;
-  endUtc: string;
-  outcome: BlockOutcome;
-  note: string;
-};
+export type ProgramBlock = BlockFields & { id: number; night: string; configuration: string; note: string };
 
 export type ProgramHours = {
   configuration: string;
@@ -36,6 +27,8 @@ export type ProgramNights = { blocks: ProgramBlock[]; hours: ProgramHours[] };
 
 const hoursOf = (b: { startUtc: Date; endUtc: Date }) => (b.endUtc.getTime() - b.startUtc.getTime()) / 3_600_000;
 const round = (x: number) => Math.round(x * 100) / 100;
+/** ISO-8601 UTC, without the milliseconds when there are none. */
+const isoSecond = (d: Date) => d.toISOString().replace(".000Z", "Z");
 
 /** The planned and executed blocks of a proposal and its hours per configuration. */
 export async function programNights(db: DbOrTx, { proposalId }: { proposalId: number }): Promise<ProgramNights> {
@@ -54,8 +47,8 @@ export async function programNights(db: DbOrTx, { proposalId }: { proposalId: nu
       note: nightPlanBlocks.note,
     })
     .from(nightPlanBlocks)
-    .innerJoin(nightPlans, eq(nightPlans.id, nightPlanBlocks.planId))
-    .innerJoin(configurations, eq(configurations.id, nightPlans.configurationId))
+    .innerJoin(nightPlans, planOfBlock)
+    .innerJoin(configurations, configurationOf(nightPlans.configurationId))
     .where(and(eq(nightPlanBlocks.proposalId, proposalId), inArray(nightPlans.state, ["published", "executed"])))
     .orderBy(asc(nightPlanBlocks.startUtc));
   const granted = (await grantedHours(db, { proposalIds: [proposalId] })).get(proposalId) ?? new Map<number, number>();
@@ -82,17 +75,10 @@ export async function programNights(db: DbOrTx, { proposalId }: { proposalId: nu
     })
     .sort((a, b) => a.configuration.localeCompare(b.configuration));
   return {
-    blocks: rows.map((r) => ({
-      id: r.id,
-      night: r.night,
-      configuration: r.configuration,
-      kind: r.kind,
-      target: r.target,
-      object: r.object,
-      startUtc: r.startUtc.toISOString().replace(".000Z", "Z"),
-      endUtc: r.endUtc.toISOString().replace(".000Z", "Z"),
-      outcome: r.outcome,
-      note: r.note,
+    blocks: rows.map(({ configurationId, startUtc, endUtc, ...block }) => ({
+      ...block,
+      startUtc: isoSecond(startUtc),
+      endUtc: isoSecond(endUtc),
     })),
     hours,
   };

@@ -8,6 +8,7 @@ import type { DbOrTx } from "~/db/client.server";
 import { nightPlanBlocks, nightPlans } from "~/db/schema/nights";
 import { type ProposalStatus, proposalHours, proposals, proposalTargets } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
+import { piOfProposal, planOfBlock } from "~/lib/joins.server";
 import type { ProgramTarget } from "./candidates";
 
 /** Proposal statuses whose targets the Night builder plans. */
@@ -66,7 +67,7 @@ export async function executedScienceHours(
       hours: sql<number>`sum(extract(epoch from (${nightPlanBlocks.endUtc} - ${nightPlanBlocks.startUtc}))) / 3600.0`,
     })
     .from(nightPlanBlocks)
-    .innerJoin(nightPlans, eq(nightPlans.id, nightPlanBlocks.planId))
+    .innerJoin(nightPlans, planOfBlock)
     .where(and(...conditions))
     .groupBy(nightPlanBlocks.proposalTargetId);
   const out = new Map<number, number>();
@@ -86,7 +87,7 @@ export async function programTargets(
   const programs = await db
     .select({ id: proposals.id, title: proposals.title, piName: users.name })
     .from(proposals)
-    .innerJoin(users, eq(users.id, proposals.piId))
+    .innerJoin(users, piOfProposal)
     .where(and(eq(proposals.cycleId, cycleId), inArray(proposals.status, [...PLANNED_STATUSES])));
   if (programs.length === 0) return [];
   const ids = programs.map((p) => p.id);

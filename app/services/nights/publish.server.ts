@@ -13,6 +13,7 @@ import { users } from "~/db/schema/users";
 import { NightPlanPublishedEmail } from "~/emails/NightPlanPublishedEmail";
 import { PLAN_SAFETY_WARNING } from "~/engine";
 import { env } from "~/env.server";
+import { piOfProposal } from "~/lib/joins.server";
 import { enqueueMail } from "~/services/mail/outbox.server";
 import { wakeOutboxSender } from "~/services/mail/sender.server";
 import { planContext, planRequest } from "./candidates";
@@ -55,12 +56,11 @@ export async function publishPlan(
           .select({
             id: proposals.id,
             title: proposals.title,
-            piId: users.id,
-            piName: users.name,
-            piEmail: users.email,
+            /** The PI as a recipient of the notice. */
+            pi: { name: users.name, userId: users.id, email: users.email },
           })
           .from(proposals)
-          .innerJoin(users, eq(users.id, proposals.piId))
+          .innerJoin(users, piOfProposal)
           .where(inArray(proposals.id, ids))
       : [];
     const members = ids.length
@@ -84,7 +84,7 @@ export async function publishPlan(
         .reduce((h, b) => h + (Date.parse(b.endUtc) - Date.parse(b.startUtc)) / 3_600_000, 0);
       const title = p.title || `Proposal ${p.id}`;
       const recipients = new Map<string, { name: string | null; userId: number | null; email: string }>();
-      recipients.set(p.piEmail.toLowerCase(), { name: p.piName, userId: p.piId, email: p.piEmail });
+      recipients.set(p.pi.email.toLowerCase(), p.pi);
       for (const m of members.filter((x) => x.proposalId === p.id)) {
         if (!recipients.has(m.email.toLowerCase())) {
           recipients.set(m.email.toLowerCase(), { name: m.name, userId: m.userId, email: m.email });

@@ -4,6 +4,7 @@
  */
 import * as v from "valibot";
 import { BLOCK_OUTCOMES, NIGHT_PLAN_STATES } from "~/db/schema/nights";
+import { labelledText } from "~/lib/text-fields";
 import { IsoDate } from "~/services/cycles/schemas";
 import { MAX_BLOCK_MIN } from "./edits";
 
@@ -89,7 +90,7 @@ export const NightActionSchema = v.variant(
       intent: v.literal("mark"),
       blockId: id("Block"),
       outcome: v.picklist(BLOCK_OUTCOMES, "Outcome: executed, weather, technical or planned"),
-      note: v.optional(v.pipe(v.string(), v.trim(), v.maxLength(500, "Note: at most 500 characters")), ""),
+      note: v.optional(labelledText("Note", 500), ""),
     }),
     v.object({
       intent: v.literal("replan"),

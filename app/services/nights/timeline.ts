@@ -4,29 +4,27 @@
  * breaks a rule outlined in red, twilight shaded from sunset to astronomical dusk and from
  * astronomical dawn to sunrise, and the Moon's altitude on a second axis.
  */
+import type { TwilightTimesUtc } from "~/engine";
 
-export type TimelineBlock = {
-  id: number;
-  position: number;
+/** What every view of a night-plan block shows: its kind, what it points at, when, and what became of it. */
+export type BlockFields = {
   kind: "calibrator" | "science";
   target: string;
   object: string;
+  /** ISO-8601 UTC instants. */
   startUtc: string;
   endUtc: string;
   outcome: "planned" | "executed" | "weather" | "technical";
+};
+
+export type TimelineBlock = BlockFields & {
+  id: number;
+  position: number;
   violations: readonly { reason: string }[];
 };
 
-export type TimelineSky = {
-  sunsetUtc: string | null;
-  civilDuskUtc: string | null;
-  nauticalDuskUtc: string | null;
-  astronomicalDuskUtc: string | null;
-  astronomicalDawnUtc: string | null;
-  nauticalDawnUtc: string | null;
-  civilDawnUtc: string | null;
-  sunriseUtc: string | null;
-};
+/** The Sun's events of the night (the ephemeris's twilight times), ISO-8601 UTC; null when one does not occur. */
+export type TimelineSky = TwilightTimesUtc;
 
 export const KIND_COLOURS = {
   science: "#a03611",

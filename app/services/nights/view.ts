@@ -21,8 +21,8 @@ import {
 import type { Candidate } from "./candidates";
 import type { EditBlock } from "./edits";
 
-/** A block row as stored. */
-export type StoredBlock = {
+/** What a block is in the plan, stored or shown: its place, what it serves, what became of it. */
+type BlockBase = {
   id: number;
   position: number;
   kind: "calibrator" | "science";
@@ -30,25 +30,19 @@ export type StoredBlock = {
   object: string;
   proposalId: number | null;
   proposalTargetId: number | null;
-  startUtc: Date;
-  endUtc: Date;
   outcome: BlockOutcome;
   note: string;
 };
 
-export type BlockView = {
-  id: number;
-  position: number;
-  kind: "calibrator" | "science";
+/** A block row as stored. */
+export type StoredBlock = BlockBase & { startUtc: Date; endUtc: Date };
+
+export type BlockView = BlockBase & {
   /** The request name of the target served (the candidate's key when it is still a candidate). */
   target: string;
-  object: string;
-  proposalId: number | null;
-  proposalTargetId: number | null;
+  /** ISO-8601 UTC instants. */
   startUtc: string;
   endUtc: string;
-  outcome: BlockOutcome;
-  note: string;
   /** The planner's fields of the block; null when its target or object is no longer known. */
   fields: PlanBlock | null;
   /** Local mean sidereal time at the end, hours [0, 24). */

@@ -15,6 +15,8 @@
  *    decided yet); allowed after the deadline too.
  *  - Reopening a withdrawn proposal as a draft: the PI, before the deadline. A later submission
  *    freezes a new version; the earlier versions stay.
+ *  - Deleting: the PI, a draft (before or after the deadline); one that was ever submitted is
+ *    refused by the deletion itself, as its versions belong to the committee's record.
  */
 import { and, asc, eq, isNull, sql } from "drizzle-orm";
 import type { Database, DbOrTx } from "~/db/client.server";
@@ -75,6 +77,8 @@ export type ProposalAbilities = {
   canSubmit: boolean;
   canWithdraw: boolean;
   canReopen: boolean;
+  /** Delete the draft with everything hanging off it. */
+  canDelete: boolean;
   deadlinePassed: boolean;
   /** Why the proposal cannot be edited, in plain words; null when it can. */
   lockedBecause: string | null;
@@ -105,6 +109,7 @@ export function abilitiesFor(
     canSubmit: canEdit,
     canWithdraw: relation === "pi" && WITHDRAWABLE.includes(proposal.status),
     canReopen: relation === "pi" && proposal.status === "withdrawn" && !deadlinePassed,
+    canDelete: relation === "pi" && draft,
     deadlinePassed,
     lockedBecause,
   };

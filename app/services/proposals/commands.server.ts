@@ -1,5 +1,6 @@
 /**
- * Changing a proposal: creating it, its text and hours, and its course (submit, withdraw, reopen).
+ * Changing a proposal: creating it, its text and hours, and its course (submit, withdraw, reopen,
+ * delete a draft).
  * Each change runs through `changeProposal` (lock.server.ts); inputs arrive validated by schemas.ts,
  * and the limits they are checked against live there. The team is in team.server.ts, the targets in
  * targets.server.ts, the science case in science-case.server.ts.
@@ -9,16 +10,19 @@ import { eq } from "drizzle-orm";
 import { createElement } from "react";
 import type { Database } from "~/db/client.server";
 import { bands } from "~/db/schema/array";
+import { auditLog } from "~/db/schema/auth";
 import { cycles, proposalHours, proposals } from "~/db/schema/proposals";
 import { ProposalSubmittedEmail } from "~/emails/ProposalSubmittedEmail";
 import { ProposalWithdrawnEmail } from "~/emails/ProposalWithdrawnEmail";
-import { formatUtc } from "~/lib/format";
+import { formatUtc, plural } from "~/lib/format";
 import type { ProposalViewer } from "./access.server";
+import { computeProposalFeasibility } from "./feasibility.server";
 import { changeProposal, editDraft, type ProposalRef, ProposalRefusal } from "./lock.server";
 import { NOTICE_KIND, noticeTeam, proposalSubject, proposalUrl, thenSend } from "./notices.server";
 import { missingForSubmission, offeredConfigurations } from "./queries.server";
 import type { DetailsInput } from "./schemas";
 import { freezeVersion } from "./versions.server";
+import { type FeasibilityAcknowledgement, failingLines } from "./warnings";
 import { listWords } from "./words";
 
 /** Someone who writes to the team: their name goes into the notices. */
@@ -93,14 +97,46 @@ export async function saveHours(
  * Submits the proposal: checks the deadline and completeness, freezes a new version with the
  * feasibility report and the PDF, marks it submitted and queues a notice to the whole team, all
  * in one transaction; then wakes the sender. Returns the version number and the report.
+ * When lines of the report fail, it submits only with `acknowledged` ("submit anyway"): the
+ * acknowledgement is frozen with the version and written to the audit log.
  */
-export async function submitProposal(db: Database, ref: NamedRef) {
+export async function submitProposal(
+  db: Database,
+  { acknowledged = false, ...ref }: NamedRef & { acknowledged?: boolean },
+) {
   const submitted = changeProposal(db, ref, "canSubmit", async ({ tx, proposal, cycle, now }) => {
     const missing = await missingForSubmission(tx, { proposal });
     if (missing.length > 0)
       throw new ProposalRefusal(400, `The proposal is not complete yet. It still needs ${listWords(missing)}.`);
-    const frozen = await freezeVersion(tx, { proposal, cycle, submittedById: ref.viewer.user.id, now });
-    const { version, report, snapshot, documentSha256 } = frozen;
+    const report = await computeProposalFeasibility(tx, { proposalId: proposal.id, now });
+    const failing = failingLines(report);
+    if (failing.length > 0 && !acknowledged) {
+      throw new ProposalRefusal(
+        400,
+        `${plural(failing.length, "feasibility line")} ${failing.length === 1 ? "fails" : "fail"}: read the report, then confirm "Submit anyway" to submit with ${failing.length === 1 ? "it" : "them"}.`,
+      );
+    }
+    const user = ref.viewer.user;
+    const acknowledgement: FeasibilityAcknowledgement | undefined = failing.length
+      ? {
+          failingLines: failing.length,
+          lines: failing.map((l) => `${l.where} — ${l.label}`),
+          byId: user.id,
+          byName: user.name,
+          at: now.toISOString(),
+        }
+      : undefined;
+    const frozen = await freezeVersion(tx, { proposal, cycle, submittedById: user.id, now, report, acknowledgement });
+    if (acknowledgement) {
+      const { failingLines: count, lines } = acknowledgement;
+      await tx.insert(auditLog).values({
+        actorId: user.id,
+        action: "proposal.submitted-with-warnings",
+        detail: { proposalId: proposal.id, title: proposal.title, version: frozen.version, failingLines: count, lines },
+        createdAt: now,
+      });
+    }
+    const { version, snapshot, documentSha256 } = frozen;
     await noticeTeam(tx, {
       proposal,
       kind: NOTICE_KIND.submitted,
@@ -153,5 +189,29 @@ export async function withdrawProposal(db: Database, ref: NamedRef) {
 export async function reopenProposal(db: Database, ref: ProposalRef) {
   return changeProposal(db, ref, "canReopen", async ({ tx, proposalId, now }) => {
     await tx.update(proposals).set({ status: "draft", updatedAt: now }).where(eq(proposals.id, proposalId));
+  });
+}
+
+/**
+ * The PI deletes a draft with everything hanging off it (team, hours, targets, science case, previews),
+ * and the audit log keeps its title. A draft that was ever submitted is refused: its versions belong
+ * to the committee's record. Returns the title.
+ */
+export async function deleteDraft(db: Database, ref: ProposalRef) {
+  return changeProposal(db, ref, "canDelete", async ({ tx, proposal, now }) => {
+    if (proposal.currentVersion > 0) {
+      throw new ProposalRefusal(
+        409,
+        `This draft was submitted before (${plural(proposal.currentVersion, "version")}); it stays on record and cannot be deleted.`,
+      );
+    }
+    await tx.delete(proposals).where(eq(proposals.id, proposal.id));
+    await tx.insert(auditLog).values({
+      actorId: ref.viewer.user.id,
+      action: "proposal.deleted",
+      detail: { proposalId: proposal.id, title: proposal.title, cycleId: proposal.cycleId },
+      createdAt: now,
+    });
+    return { title: proposal.title };
   });
 }

@@ -1,14 +1,17 @@
 /** What the proposal editor shows besides the proposal row and its cycle: one read of everything else. */
-import { asc, desc, eq, getTableColumns } from "drizzle-orm";
+import { asc, desc, eq, getTableColumns, sql } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
 import { bands, instruments } from "~/db/schema/array";
 import { proposalDocuments, type proposals, proposalVersions, targets } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { teamMembers } from "./access.server";
 import { offeredConfigurations, proposalTargetRows, requestedHours } from "./queries.server";
+import type { FeasibilityAcknowledgement } from "./warnings";
 
 const { data: _bytes, ...documentColumns } = getTableColumns(proposalDocuments);
-const { version, submittedAt, documentSha256 } = getTableColumns(proposalVersions);
+const { version, submittedAt, documentSha256, snapshot } = getTableColumns(proposalVersions);
+/** The "submit anyway" of a version, frozen in its snapshot (null when none was needed). */
+const acknowledgement = sql<FeasibilityAcknowledgement | null>`${snapshot}->'acknowledgement'`;
 
 export async function loadEditorDetails(
   db: Database,
@@ -24,7 +27,7 @@ export async function loadEditorDetails(
       .where(eq(proposalDocuments.proposalId, proposal.id))
       .then((r) => r[0] ?? null),
     db
-      .select({ version, submittedAt, submittedBy: users.name, documentSha256 })
+      .select({ version, submittedAt, submittedBy: users.name, documentSha256, acknowledgement })
       .from(proposalVersions)
       .leftJoin(users, eq(users.id, proposalVersions.submittedById))
       .where(eq(proposalVersions.proposalId, proposal.id))

@@ -36,7 +36,7 @@ export class ProposalRefusal extends Error {
 export type ProposalRef = { viewer: ProposalViewer; proposalId: number; now?: Date };
 
 /** What a change needs the viewer to be able to do. */
-export type Need = "canEdit" | "canManageTeam" | "canSubmit" | "canWithdraw" | "canReopen";
+export type Need = "canEdit" | "canManageTeam" | "canSubmit" | "canWithdraw" | "canReopen" | "canDelete";
 
 function refusalFor(
   need: Need,
@@ -58,6 +58,12 @@ function refusalFor(
       if (status !== "withdrawn")
         return new ProposalRefusal(409, "Only a withdrawn proposal can be reopened as a draft.");
       return new ProposalRefusal(409, `The ${deadline} has passed: the proposal can no longer be reopened.`);
+    case "canDelete":
+      if (abilities.relation !== "pi") return new ProposalRefusal(403, "Only the PI can delete the proposal.");
+      return new ProposalRefusal(
+        409,
+        `Only a draft can be deleted; this proposal is ${STATUS_WORDS[status].toLowerCase()}.`,
+      );
     case "canSubmit":
       if (status !== "draft")
         return new ProposalRefusal(409, "This proposal has already been submitted; withdraw it first to change it.");

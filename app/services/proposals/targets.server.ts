@@ -9,12 +9,16 @@ import { type CalibratorJson, proposalTargets, targets } from "~/db/schema/propo
 import { bandNames } from "~/services/targets/targets.server";
 import { proposalNotFound } from "./access.server";
 import { editDraft, type ProposalRef, ProposalRefusal } from "./lock.server";
+import { type ObservingPeriod, observingPeriodText, windowInsidePeriod } from "./period";
 import { PROPOSAL_LIMITS } from "./schemas";
 
-/** What a proposal says of one target: its own copy of the coordinates, model and magnitudes, and the constraints. */
+/**
+ * What a proposal says of one target: its own copy of the coordinates, model and magnitudes, and the
+ * constraints (the closure triangle is chosen apart, in the Triangle finder: `chooseTriangle`).
+ */
 export type TargetFields = Omit<
   typeof proposalTargets.$inferSelect,
-  "id" | "proposalId" | "position" | "sourceTargetId"
+  "id" | "proposalId" | "position" | "sourceTargetId" | "closureTriangle"
 >;
 
 type TargetRef = ProposalRef & { targetId: number };
@@ -93,12 +97,24 @@ async function appendTarget(tx: Transaction, proposalId: number, values: TargetF
   return row;
 }
 
+/** Refuses the first time window that does not lie wholly inside the cycle's observing period. */
+function refuseWindowsOutside(windows: TargetFields["timeWindows"], cycle: ObservingPeriod & { name: string }) {
+  const at = windows.findIndex((w) => !windowInsidePeriod(w, cycle));
+  if (at < 0) return;
+  throw new ProposalRefusal(
+    400,
+    `Time window ${at + 1}: must lie inside the ${cycle.name} observing period, ${observingPeriodText(cycle)}.`,
+    `window-${at}`,
+  );
+}
+
 /** Creates (targetId null) or updates a target of the proposal. Returns its id. */
 export async function saveTarget(
   db: Database,
   { targetId, input, ...ref }: ProposalRef & { targetId: number | null; input: TargetFields },
 ) {
-  return editDraft(db, ref, async ({ tx, proposalId }) => {
+  return editDraft(db, ref, async ({ tx, proposalId, cycle }) => {
+    refuseWindowsOutside(input.timeWindows, cycle);
     if (targetId === null) return (await appendTarget(tx, proposalId, input)).id;
     await refuseDuplicateName(tx, proposalId, input.name, targetId);
     const rows = await tx
@@ -119,6 +135,17 @@ export async function addTargetFromMine(db: Database, { myTargetId, ...ref }: Pr
       .from(targets)
       .where(and(eq(targets.id, myTargetId), eq(targets.ownerId, ref.viewer.user.id)));
     if (!mine) throw new ProposalRefusal(400, "From my targets: choose one of your own targets.", "myTargetId");
+    const [already] = await tx
+      .select({ id: proposalTargets.id })
+      .from(proposalTargets)
+      .where(
+        and(
+          eq(proposalTargets.proposalId, proposalId),
+          sql`(${proposalTargets.sourceTargetId} = ${mine.id} or lower(${proposalTargets.name}) = lower(${mine.name}))`,
+        ),
+      );
+    if (already)
+      throw new ProposalRefusal(400, `From my targets: ${mine.name} is already on the proposal.`, "myTargetId");
     return appendTarget(tx, proposalId, { sourceTargetId: mine.id, ...targetFieldsOf(mine) });
   });
 }

@@ -9,10 +9,11 @@ import { bands, instruments } from "~/db/schema/array";
 import { type cycles, proposalDocuments, proposals, proposalVersions } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { teamMembers } from "./access.server";
-import { computeFeasibility, type FeasibilityReport } from "./feasibility";
-import { loadFeasibilityInput } from "./feasibility.server";
+import type { FeasibilityReport } from "./feasibility";
+import { computeProposalFeasibility } from "./feasibility.server";
 import { proposalTargetRows, requestedHours } from "./queries.server";
 import { type TargetFields, targetFieldsOf } from "./targets.server";
+import type { FeasibilityAcknowledgement } from "./warnings";
 
 export type ProposalSnapshot = {
   id: number;
@@ -33,6 +34,8 @@ export type ProposalSnapshot = {
   targets: TargetFields[];
   document: { filename: string; sizeBytes: number; sha256: string } | null;
   feasibility: FeasibilityReport;
+  /** Present when the version was submitted with failing feasibility lines ("submit anyway"). */
+  acknowledgement?: FeasibilityAcknowledgement;
 };
 
 type ProposalRow = typeof proposals.$inferSelect;
@@ -96,14 +99,31 @@ async function buildSnapshot(tx: Transaction, proposal: ProposalRow, cycle: Cycl
 /**
  * Freezes the proposal as it stands into a new version (snapshot with the feasibility report, the
  * PDF bytes and their SHA-256) and marks it submitted. Runs inside the caller's transaction, which
- * must hold the proposal's row lock.
+ * must hold the proposal's row lock. The report is computed here unless the caller has it already;
+ * an acknowledgement of failing lines is frozen with the snapshot.
  */
 export async function freezeVersion(
   tx: Transaction,
-  { proposal, cycle, submittedById, now }: { proposal: ProposalRow; cycle: CycleRow; submittedById: number; now: Date },
+  {
+    proposal,
+    cycle,
+    submittedById,
+    now,
+    report: given,
+    acknowledgement,
+  }: {
+    proposal: ProposalRow;
+    cycle: CycleRow;
+    submittedById: number;
+    now: Date;
+    report?: FeasibilityReport;
+    acknowledgement?: FeasibilityAcknowledgement;
+  },
 ) {
-  const report = computeFeasibility(await loadFeasibilityInput(tx, { proposalId: proposal.id }), now);
-  const { snapshot, documentData, documentSha256 } = await buildSnapshot(tx, proposal, cycle, report);
+  const report = given ?? (await computeProposalFeasibility(tx, { proposalId: proposal.id, now }));
+  const built = await buildSnapshot(tx, proposal, cycle, report);
+  const { documentData, documentSha256 } = built;
+  const snapshot: ProposalSnapshot = acknowledgement ? { ...built.snapshot, acknowledgement } : built.snapshot;
   const version = proposal.currentVersion + 1;
   await tx.insert(proposalVersions).values({
     proposalId: proposal.id,

@@ -1,11 +1,12 @@
 /**
  * Changes to the array registry (administrators only; the routes guard with "registry:edit"):
- * sites, stations, configurations, instruments and bands. Every function that writes more than one
- * statement runs in one transaction.
+ * sites, stations, configurations, instruments and bands. Every change runs in one transaction with
+ * its audit_log row (audit.server.ts), `actorId` being the administrator who makes it.
  */
 import { and, eq, inArray } from "drizzle-orm";
 import type { Database, DbOrTx } from "~/db/client.server";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "~/db/schema/array";
+import { auditRegistryChange } from "./audit.server";
 import { configurationsUsingStation, type RegistryEntity } from "./queries.server";
 import type { ConfigurationRecord } from "./schemas";
 
@@ -16,56 +17,71 @@ const tableOf = (entity: RegistryEntity) => TABLES[entity] as unknown as typeof 
 
 /** Adds a site, station, instrument or band (configurations: `saveConfiguration`); its id. */
 export async function insertRecord<E extends Exclude<RegistryEntity, "configuration">>(
-  db: DbOrTx,
-  { entity, values }: { entity: E; values: Insert<E> },
+  db: Database,
+  { actorId, entity, values }: { actorId: number; entity: E; values: Insert<E> },
 ): Promise<number> {
   const table = tableOf(entity);
-  const [row] = await db
-    .insert(table)
-    .values(values as Insert<"site">)
-    .returning({ id: table.id });
-  return row.id;
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .insert(table)
+      .values(values as Insert<"site">)
+      .returning({ id: table.id, name: table.name });
+    await auditRegistryChange(tx, { actorId, change: "created", entity, ...row });
+    return row.id;
+  });
 }
 
 /** Changes the values of a site, station, instrument or band. */
 export async function updateRecord<E extends Exclude<RegistryEntity, "configuration">>(
-  db: DbOrTx,
-  { entity, id, values }: { entity: E; id: number; values: Partial<Insert<E>> },
+  db: Database,
+  { actorId, entity, id, values }: { actorId: number; entity: E; id: number; values: Partial<Insert<E>> },
 ) {
   const table = tableOf(entity);
-  await db
-    .update(table)
-    .set(values as Partial<Insert<"site">>)
-    .where(eq(table.id, id));
+  await db.transaction(async (tx) => {
+    const rows = await tx
+      .update(table)
+      .set(values as Partial<Insert<"site">>)
+      .where(eq(table.id, id))
+      .returning({ id: table.id, name: table.name });
+    for (const row of rows) await auditRegistryChange(tx, { actorId, change: "updated", entity, ...row });
+  });
 }
 
 /** Deletes a configuration, an instrument with its bands, or a band (sites and stations have their own). */
 export async function deleteRecord(
-  db: DbOrTx,
-  { entity, id }: { entity: "configuration" | "instrument" | "band"; id: number },
+  db: Database,
+  { actorId, entity, id }: { actorId: number; entity: "configuration" | "instrument" | "band"; id: number },
 ) {
   const table = tableOf(entity);
-  await db.delete(table).where(eq(table.id, id));
+  await db.transaction(async (tx) => {
+    const rows = await tx.delete(table).where(eq(table.id, id)).returning({ id: table.id, name: table.name });
+    for (const row of rows) await auditRegistryChange(tx, { actorId, change: "deleted", entity, ...row });
+  });
 }
 
 /** Deletes a site with its configurations, stations, instruments and bands. */
-export async function deleteSite(db: Database, { siteId }: { siteId: number }) {
+export async function deleteSite(db: Database, { actorId, siteId }: { actorId: number; siteId: number }) {
   await db.transaction(async (tx) => {
     // Configurations first: their station lists hold on to the stations.
     await tx.delete(configurations).where(eq(configurations.siteId, siteId));
-    await tx.delete(sites).where(eq(sites.id, siteId));
+    const rows = await tx.delete(sites).where(eq(sites.id, siteId)).returning({ id: sites.id, name: sites.name });
+    for (const row of rows) await auditRegistryChange(tx, { actorId, change: "deleted", entity: "site", ...row });
   });
 }
 
 /** Deletes a station unless a configuration uses it (then says which ones and deletes nothing). */
 export async function deleteStation(
   db: Database,
-  { stationId }: { stationId: number },
+  { actorId, stationId }: { actorId: number; stationId: number },
 ): Promise<{ deleted: true } | { deleted: false; usedBy: string[] }> {
   return db.transaction(async (tx) => {
     const usedBy = await configurationsUsingStation(tx, { stationId });
     if (usedBy.length > 0) return { deleted: false as const, usedBy };
-    await tx.delete(stations).where(eq(stations.id, stationId));
+    const rows = await tx
+      .delete(stations)
+      .where(eq(stations.id, stationId))
+      .returning({ id: stations.id, name: stations.name });
+    for (const row of rows) await auditRegistryChange(tx, { actorId, change: "deleted", entity: "station", ...row });
     return { deleted: true as const };
   });
 }
@@ -115,12 +131,15 @@ export async function writeConfiguration(
  */
 export async function saveConfiguration(
   db: Database,
-  { siteId, id, values }: { siteId: number; id?: number; values: ConfigurationRecord },
+  { actorId, siteId, id, values }: { actorId: number; siteId: number; id?: number; values: ConfigurationRecord },
 ): Promise<{ ok: true; id: number } | { ok: false; unknownStations: string[] }> {
   return db.transaction(async (tx) => {
     const stationId = await stationIds(tx, { siteId, names: values.stations });
     const unknownStations = values.stations.filter((n) => !stationId.has(n));
     if (unknownStations.length > 0) return { ok: false as const, unknownStations };
-    return { ok: true as const, id: await writeConfiguration(tx, { siteId, id, values, stationId }) };
+    const saved = await writeConfiguration(tx, { siteId, id, values, stationId });
+    const change = id === undefined ? "created" : "updated";
+    await auditRegistryChange(tx, { actorId, change, entity: "configuration", id: saved, name: values.name });
+    return { ok: true as const, id: saved };
   });
 }

@@ -5,6 +5,7 @@
 import { and, asc, eq, inArray } from "drizzle-orm";
 import type { Database, DbOrTx, Transaction } from "~/db/client.server";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "~/db/schema/array";
+import { auditRegistryImport } from "./audit.server";
 import { stationIds, writeConfiguration } from "./commands.server";
 import {
   type Change,
@@ -128,11 +129,16 @@ async function removeStations(tx: Transaction, siteId: number, lines: StationPla
     await tx.delete(stations).where(and(eq(stations.siteId, siteId), inArray(stations.name, names)));
 }
 
-/** Applies a station import plan in one transaction. */
-export async function applyStationPlan(db: Database, { siteId, plan }: { siteId: number; plan: StationPlan }) {
+/** Applies a station import plan in one transaction, with its audit_log row. */
+export async function applyStationPlan(
+  db: Database,
+  { actorId, site, plan }: { actorId: number; site: { id: number; name: string }; plan: StationPlan },
+) {
   await db.transaction(async (tx) => {
-    await writeStations(tx, siteId, plan.lines);
-    await removeStations(tx, siteId, plan.lines);
+    await writeStations(tx, site.id, plan.lines);
+    await removeStations(tx, site.id, plan.lines);
+    const summary = stationImportSummary(site.name, plan.counts);
+    await auditRegistryImport(tx, { actorId, kind: "stations", siteId: site.id, siteName: site.name, summary });
   });
 }
 
@@ -166,8 +172,14 @@ async function writeInstruments(tx: Transaction, siteId: number, lines: Registry
   }
 }
 
-/** Applies a whole-registry plan in one transaction; creates the site when the plan says it is new. Returns the site id. */
-export async function applyRegistryPlan(db: Database, { plan }: { plan: RegistryPlan }): Promise<number> {
+/**
+ * Applies a whole-registry plan in one transaction, with its audit_log row; creates the site when the
+ * plan says it is new. Returns the site id.
+ */
+export async function applyRegistryPlan(
+  db: Database,
+  { actorId, plan }: { actorId: number; plan: RegistryPlan },
+): Promise<number> {
   return db.transaction(async (tx) => {
     const site = plan.site.after!;
     const [existing] = await tx.select({ id: sites.id }).from(sites).where(eq(sites.name, site.name));
@@ -185,6 +197,8 @@ export async function applyRegistryPlan(db: Database, { plan }: { plan: Registry
       await writeConfiguration(tx, { siteId, id: configId.get(c.name), values: c.after!, stationId });
     await writeInstruments(tx, siteId, plan.instruments);
     await removeStations(tx, siteId, plan.stations);
+    const summary = registryImportSummary(plan);
+    await auditRegistryImport(tx, { actorId, kind: "registry", siteId, siteName: site.name, summary });
     return siteId;
   });
 }

@@ -3,6 +3,7 @@
  * each input an error can be shown beside, its label, the reading of a typed number, and the
  * outcome of building a request. Pure.
  */
+import { type ParamRange, rangeFailure } from "~/engine";
 import { type ModelParam, PARAM_INFO } from "./models";
 
 /** Names of the inputs an error can be shown beside. */
@@ -71,4 +72,17 @@ export function readNumber(
   if (!NUMBER.test(t))
     return { ok: false, message: `${label}: must be a number${unit ? ` in ${unit}` : ""} (got "${text.trim()}")` };
   return { ok: true, value: Number(t) };
+}
+
+/** A typed number checked against `range` (the API's own ranges, ~/engine); the message names the input. */
+export function readNumberIn(
+  text: string,
+  label: string,
+  range: ParamRange,
+  unit?: string,
+): { ok: true; value: number } | { ok: false; message: string } {
+  const read = readNumber(text, label, unit);
+  if (!read.ok) return read;
+  const failure = rangeFailure(read.value, range);
+  return failure ? { ok: false, message: `${label}: ${failure}` } : read;
 }

@@ -2,22 +2,14 @@
  * From the typed model inputs to the target model the API expects: one component, or with a second
  * component a two-component sum. Text that is not a number is reported beside its input. Pure.
  */
-import { MODEL_RANGES, type RangedParam, rangeFailure, type TargetModel } from "~/engine";
-import { type FieldErrors, INPUT_LABELS, readNumber } from "./inputs";
+import { MODEL_RANGES, type RangedParam, type TargetModel } from "~/engine";
+import { type FieldErrors, INPUT_LABELS, readNumberIn } from "./inputs";
 import { MODEL_PARAMS, type ModelParam, type ModelState, PARAM_INFO, SECOND_INFO } from "./models";
 import type { CommonState } from "./state";
 
 /** A typed number checked against the range of the model parameter `param` (the API's own, ~/engine). */
-export function readInRange(
-  text: string,
-  label: string,
-  param: RangedParam,
-  unit?: string,
-): { ok: true; value: number } | { ok: false; message: string } {
-  const read = readNumber(text, label, unit);
-  if (!read.ok) return read;
-  const failure = rangeFailure(read.value, MODEL_RANGES[param]);
-  return failure ? { ok: false, message: `${label}: ${failure}` } : read;
+export function readInRange(text: string, label: string, param: RangedParam, unit?: string) {
+  return readNumberIn(text, label, MODEL_RANGES[param], unit);
 }
 
 /** The single model (no second component) as the API expects it, or the failing inputs. */

@@ -9,16 +9,15 @@ import {
   DEG_TO_RAD,
   type EphemerisResponse,
   elevationRad,
-  gastRad,
   jdeFromJd,
   julianDayFromDate,
   lmstHours,
   lmstRad,
-  moonPosition,
   precessFromJ2000,
   RAD_TO_DEG,
   sunPosition,
 } from "~/engine";
+import { moonAltitudeAt } from "~/services/nights/sky";
 
 const MS_PER_HOUR = 3_600_000;
 /** Sidereal hours per solar hour (Meeus 12.4: 360.98564736629° per day / 360°). */
@@ -117,12 +116,8 @@ export function moonAltitudeCurve(opts: {
   stepMin: number;
 }) {
   const timesMs = timeGrid(opts.startMs, opts.endMs, opts.stepMin);
-  const altitudeDeg = timesMs.map((t) => {
-    const jd = julianDayFromDate(new Date(t));
-    const moon = moonPosition(jdeFromJd(jd));
-    const ha = gastRad(jd) + opts.lonDeg * DEG_TO_RAD - moon.raRad;
-    return elevationRad(opts.latDeg * DEG_TO_RAD, moon.decRad, ha) * RAD_TO_DEG;
-  });
+  const site = { latitudeDeg: opts.latDeg, longitudeDeg: opts.lonDeg, altitudeM: 0 };
+  const altitudeDeg = timesMs.map((t) => moonAltitudeAt(julianDayFromDate(new Date(t)), site).altitudeDeg);
   return { timesMs, altitudeDeg };
 }
 

@@ -12,6 +12,8 @@ import type { SavedTarget } from "./models";
 import { nextNightDate } from "./night";
 import type { SketchRegistry } from "./registry";
 import type { StateDefaults } from "./state";
+import type { ProposalTargetChoice } from "./triangle-choice";
+import { proposalTargetChoices } from "./triangle-choice.server";
 
 export async function loadSketchRegistry(
   db: Database,
@@ -83,12 +85,22 @@ export async function savedTargetsOf(db: Database, { viewer }: { viewer: Viewer 
  */
 export async function loadSketchPage(
   db: Database,
-  { viewer, url, purpose }: { viewer: Viewer; url: URL; purpose: string },
+  {
+    viewer,
+    url,
+    purpose,
+    withProposals = false,
+  }: { viewer: Viewer; url: URL; purpose: string; withProposals?: boolean },
 ) {
   const loaded = await loadSketchRegistry(db, { siteName: url.searchParams.get("site") });
-  if (!loaded) return { loaded: null, savedTargets: [] as SavedTarget[] };
+  const none = { savedTargets: [] as SavedTarget[], proposalTargets: [] as ProposalTargetChoice[] };
+  if (!loaded) return { loaded: null, ...none };
   if (loaded.registry.stations.length < 2 || loaded.registry.instruments.length === 0) {
     notFound(`The array registry needs at least two stations and one instrument band before ${purpose}.`);
   }
-  return { loaded, savedTargets: await savedTargetsOf(db, { viewer }) };
+  const [savedTargets, proposalTargets] = await Promise.all([
+    savedTargetsOf(db, { viewer }),
+    withProposals ? proposalTargetChoices(db, { viewer, now: new Date() }) : none.proposalTargets,
+  ]);
+  return { loaded, savedTargets, proposalTargets };
 }

@@ -14,12 +14,11 @@ import {
   MAX_SAMPLES,
   maxNightSamples,
   type ObservationInput,
-  rangeFailure,
   type TargetModel,
   type TrianglesInput,
 } from "~/engine";
 import { parseDeclination, parseRightAscension } from "~/lib/coordinates";
-import { type Built, type FieldErrors, INPUT_LABELS, readNumber } from "./inputs";
+import { type Built, type FieldErrors, INPUT_LABELS, readNumber, readNumberIn } from "./inputs";
 import {
   MAX_SKETCH_HOUR_ANGLES,
   MIN_ELEVATION_RANGE,
@@ -83,14 +82,9 @@ function sampling(s: CommonState, errors: FieldErrors): { body: Sampling; bound:
     errors.date = `${INPUT_LABELS.date}: choose a date (YYYY-MM-DD)`;
     return null;
   }
-  const step = readNumber(s.stepMin, INPUT_LABELS.step, "minutes");
+  const step = readNumberIn(s.stepMin, INPUT_LABELS.step, NIGHT_STEP_RANGE, "minutes");
   if (!step.ok) {
     errors.step = step.message;
-    return null;
-  }
-  const outside = rangeFailure(step.value, NIGHT_STEP_RANGE);
-  if (outside) {
-    errors.step = `${INPUT_LABELS.step}: ${outside}`;
     return null;
   }
   return {
@@ -111,17 +105,10 @@ function target(s: CommonState, model: TargetModel | null, errors: FieldErrors) 
 
 function minElevation(s: CommonState, r: RegistryLike, errors: FieldErrors): number | null {
   if (s.minElevation.trim() === "") return r.site.minElevationDeg;
-  const read = readNumber(s.minElevation, INPUT_LABELS.minElevation, "degrees");
-  if (!read.ok) {
-    errors.minElevation = read.message;
-    return null;
-  }
-  const outside = rangeFailure(read.value, MIN_ELEVATION_RANGE);
-  if (outside) {
-    errors.minElevation = `${INPUT_LABELS.minElevation}: ${outside}`;
-    return null;
-  }
-  return read.value;
+  const read = readNumberIn(s.minElevation, INPUT_LABELS.minElevation, MIN_ELEVATION_RANGE, "degrees");
+  if (read.ok) return read.value;
+  errors.minElevation = read.message;
+  return null;
 }
 
 function common(s: CommonState, r: RegistryLike, errors: FieldErrors) {

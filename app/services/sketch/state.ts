@@ -14,6 +14,7 @@
  *                            optional second component (the model becomes a two-component sum)
  *   step | ha=from,to,step   night sampling every `step` minutes, or an hour-angle range in hours
  *   minel, dl=off, wt, uv=m  minimum elevation, delay-line check off, beam weighting, uv plane in metres
+ *   from=targets             opened from My targets: the page links back (and hands the mark on)
  */
 
 import { href } from "react-router";
@@ -26,7 +27,9 @@ import {
   MODEL_PARAMS,
   MODEL_PARAMS_LIST,
   type ModelState,
+  modelInputsOf,
   PARAM_INFO,
+  type SavedTarget,
   type SecondComponentState,
   type SimpleModelType,
 } from "./models";
@@ -53,7 +56,12 @@ export interface CommonState {
   /** Minimum elevation in degrees as typed; "" means the site's own. */
   minElevation: string;
   delayLines: boolean;
+  /** The page this one was opened from, to link back to ("targets": My targets); absent for none. */
+  from?: typeof FROM_MY_TARGETS;
 }
+
+/** The `from` of a Sketchpad or Triangle finder opened from My targets. */
+export const FROM_MY_TARGETS = "targets";
 
 export interface SketchState extends CommonState {
   /** Configuration name, or "" for a free pick of stations. */
@@ -98,6 +106,15 @@ function writeModel(out: URLSearchParams, model: ModelState, prefix: string) {
   for (const p of MODEL_PARAMS[model.type]) out.set(prefix + PARAM_INFO[p].urlKey, model.params[p]);
 }
 
+/** The second component of a two-component model, when there is one (c2…). */
+function writeSecond(out: URLSearchParams, second: SecondComponentState | null) {
+  if (!second) return;
+  writeModel(out, second, "c2");
+  out.set("c2flux", second.flux);
+  out.set("c2east", second.east);
+  out.set("c2north", second.north);
+}
+
 function readCommon(params: URLSearchParams, defaults: StateDefaults): CommonState {
   const get = (k: string, d: string) => params.get(k) ?? d;
   const c2 = params.get("c2");
@@ -134,6 +151,7 @@ function readCommon(params: URLSearchParams, defaults: StateDefaults): CommonSta
     haStep: haParts[2],
     minElevation: get("minel", ""),
     delayLines: params.get("dl") !== "off",
+    ...(params.get("from") === FROM_MY_TARGETS ? { from: FROM_MY_TARGETS } : {}),
   };
 }
 
@@ -145,16 +163,12 @@ function writeCommon(out: URLSearchParams, s: CommonState) {
   out.set("inst", s.instrument);
   out.set("band", s.band);
   writeModel(out, s.model, "");
-  if (s.second) {
-    writeModel(out, s.second, "c2");
-    out.set("c2flux", s.second.flux);
-    out.set("c2east", s.second.east);
-    out.set("c2north", s.second.north);
-  }
+  writeSecond(out, s.second);
   if (s.sampling === "hourAngle") out.set("ha", `${s.haFrom},${s.haTo},${s.haStep}`);
   else if (s.stepMin !== DEFAULT_STEP_MIN) out.set("step", s.stepMin);
   if (s.minElevation !== "") out.set("minel", s.minElevation);
   if (!s.delayLines) out.set("dl", "off");
+  if (s.from) out.set("from", s.from);
 }
 
 /** Splits "C01, C05,X02" into distinct names in order. */
@@ -214,6 +228,23 @@ export function sketchpadHref(s: CommonState, stations: readonly string[]): stri
 export function trianglesHref(s: SketchState): string {
   const state: TriangleState = { ...s, pool: s.config !== "" ? s.config : ALL_STATIONS };
   return `${href("/triangles")}?${writeTriangleState(state).toString()}`;
+}
+
+/**
+ * The Sketchpad address of one of My targets: its name, position and model (a sum of two components
+ * as the model and its second component); every other input keeps the Sketchpad's default. The
+ * Sketchpad then links back to My targets.
+ */
+export function targetSketchpadHref(t: SavedTarget): string {
+  const out = new URLSearchParams();
+  out.set("name", t.name);
+  out.set("ra", formatRightAscension(t.raDeg, 2));
+  out.set("dec", formatDeclination(t.decDeg, 1));
+  const { model, second } = modelInputsOf(t.model);
+  writeModel(out, model, "");
+  writeSecond(out, second);
+  out.set("from", FROM_MY_TARGETS);
+  return `${href("/sketchpad")}?${out.toString()}`;
 }
 
 /**

@@ -239,7 +239,7 @@ describe("editing a draft", () => {
     const out = await fx.saveText(late.id, "ines", { title: "Changed" });
     expect(out.status).toBe(409);
     expect(out.data.errors.form).toMatch(/T-closed deadline .* has passed/);
-    expect((await fx.editor(late.id, "ines", { intent: "submit" })).data.errors.form).toMatch(
+    expect((await fx.editor(late.id, "ines", { intent: "submit", confirm: "yes" })).data.errors.form).toMatch(
       /^Too late: the T-closed deadline \(\d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC\) has passed/,
     );
     expect((await fx.upload(late.id, "ines", makeTinyPdf(["late"]), "late.pdf")).status).toBe(409);

@@ -17,7 +17,7 @@ fx.useProposalWorld();
 describe("submitting, withdrawing and reopening", () => {
   it("lists what is missing and refuses an incomplete proposal", async () => {
     const id = await fx.newDraft("ines", "Incomplete");
-    const out = await fx.editor(id, "ines", { intent: "submit" });
+    const out = await fx.editor(id, "ines", { intent: "submit", confirm: "yes" });
     expect(out.status).toBe(400);
     expect(out.data.errors.form).toBe(
       "The proposal is not complete yet. It still needs an abstract, a science category, an instrument and band, at least one target, requested hours for at least one configuration and the science case (PDF).",
@@ -29,7 +29,7 @@ describe("submitting, withdrawing and reopening", () => {
     const id = await fx.completeDraft("Ready to go");
     await fx.editor(id, "ines", { intent: "add-member", email: fx.people.tomasz });
     // A co-investigator may submit.
-    const out = await fx.editor(id, "tomasz", { intent: "submit" });
+    const out = await fx.editor(id, "tomasz", { intent: "submit", confirm: "yes" });
     expect(out.status).toBe(302);
     const row = await fx.proposalRow(id);
     expect(row).toMatchObject({ status: "submitted", currentVersion: 1 });
@@ -68,7 +68,7 @@ describe("submitting, withdrawing and reopening", () => {
     const edit = await fx.saveText(id, "ines", { title: "Changed after" });
     expect(edit.status).toBe(409);
     expect((await fx.upload(id, "ines", makeTinyPdf(["new"]), "new.pdf")).status).toBe(409);
-    expect((await fx.editor(id, "ines", { intent: "submit" })).status).toBe(409);
+    expect((await fx.editor(id, "ines", { intent: "submit", confirm: "yes" })).status).toBe(409);
     const [again] = await testDb().select().from(proposalVersions).where(eq(proposalVersions.proposalId, id));
     expect(again.snapshot).toEqual(v.snapshot);
     expect((await fx.proposalRow(id)).title).toBe("Ready to go");
@@ -102,18 +102,18 @@ describe("submitting, withdrawing and reopening", () => {
   it("lets only the PI withdraw and reopen, and a new submission adds version 2 beside the first", async () => {
     const id = await fx.completeDraft("Second thoughts");
     await fx.editor(id, "ines", { intent: "add-member", email: fx.people.tomasz });
-    expect((await fx.editor(id, "ines", { intent: "submit" })).status).toBe(302);
-    const coI = await fx.editor(id, "tomasz", { intent: "withdraw" });
+    expect((await fx.editor(id, "ines", { intent: "submit", confirm: "yes" })).status).toBe(302);
+    const coI = await fx.editor(id, "tomasz", { intent: "withdraw", confirm: "yes" });
     expect(coI.status).toBe(403);
     expect(coI.data.errors.form).toBe("Only the PI can withdraw the proposal.");
-    expect((await fx.editor(id, "ines", { intent: "withdraw" })).status).toBe(302);
+    expect((await fx.editor(id, "ines", { intent: "withdraw", confirm: "yes" })).status).toBe(302);
     expect((await fx.proposalRow(id)).status).toBe("withdrawn");
     const withdrawn = await testDb()
       .select()
       .from(outboxMessages)
       .where(eq(outboxMessages.subject, 'Proposal withdrawn: "Second thoughts" (T-open)'));
     expect(withdrawn).toHaveLength(2);
-    expect((await fx.editor(id, "ines", { intent: "withdraw" })).status).toBe(409);
+    expect((await fx.editor(id, "ines", { intent: "withdraw", confirm: "yes" })).status).toBe(409);
     expect((await fx.editor(id, "tomasz", { intent: "reopen" })).status).toBe(403);
     expect((await fx.editor(id, "ines", { intent: "reopen" })).status).toBe(302);
     expect((await fx.proposalRow(id)).status).toBe("draft");
@@ -127,7 +127,7 @@ describe("submitting, withdrawing and reopening", () => {
         })
       ).status,
     ).toBe(302);
-    expect((await fx.editor(id, "ines", { intent: "submit" })).status).toBe(302);
+    expect((await fx.editor(id, "ines", { intent: "submit", confirm: "yes" })).status).toBe(302);
     const versions = await testDb()
       .select()
       .from(proposalVersions)

@@ -3,9 +3,10 @@
  * of a station set, the settings' rules, and "already a calibrator".
  */
 import { describe, expect, it } from "vitest";
+import { longestBaselineM } from "~/engine";
 import { alreadyCalibrator } from "~/services/catalogue/proposal.server";
 import { readShortlistSettings, shortlistValues } from "~/services/catalogue/schemas";
-import { bestNightIn, longestBaselineM } from "~/services/catalogue/shortlist.server";
+import { bestNightIn } from "~/services/catalogue/shortlist.server";
 
 const GOOD = {
   target: "Vega",

@@ -1,7 +1,37 @@
 import { Card } from "~/components/ui";
 import type { AuditRow } from "~/services/admin/people.server";
 
-/** The latest changes of roles and accounts, newest first. */
+const text = (x: unknown) => (typeof x === "string" ? x : null);
+
+/** What an entry did, after the actor's name: a registry change names its record, a role change its person. */
+function AuditWhat({ entry }: { entry: AuditRow }) {
+  const { action, detail } = entry;
+  if (action.startsWith("registry.")) {
+    const change = action.slice("registry.".length);
+    const entity = text(detail.entity) ?? "record";
+    if (change === "imported")
+      return (
+        <>
+          imported {detail.kind === "stations" ? "stations" : "a registry file"} into{" "}
+          <span className="font-medium">{text(detail.name) ?? "a site"}</span>
+          {text(detail.summary) ? `: ${detail.summary}` : ""}
+        </>
+      );
+    return (
+      <>
+        {change} {entity} <span className="font-medium">{text(detail.name) ?? "—"}</span> in the array registry
+      </>
+    );
+  }
+  return (
+    <>
+      {action.replace(".", " ")}
+      {text(detail.role) ? ` (${detail.role})` : ""} for <span className="font-medium">{entry.target ?? "—"}</span>
+    </>
+  );
+}
+
+/** The latest changes of roles, accounts and the array registry, newest first. */
 export function AuditLogCard({ audit }: { audit: AuditRow[] }) {
   return (
     <Card title="Audit log" className="mt-8">
@@ -12,9 +42,7 @@ export function AuditLogCard({ audit }: { audit: AuditRow[] }) {
           {audit.map((a) => (
             <li key={a.id} className="py-2">
               <span className="num text-night-600">{a.at}</span> —{" "}
-              <span className="font-medium">{a.actor ?? "someone"}</span> {a.action.replace(".", " ")}
-              {typeof a.detail.role === "string" ? ` (${a.detail.role})` : ""} for{" "}
-              <span className="font-medium">{a.target ?? "—"}</span>
+              <span className="font-medium">{a.actor ?? "someone"}</span> <AuditWhat entry={a} />
             </li>
           ))}
         </ol>

@@ -7,10 +7,12 @@ import { formatBytes, formatUtc } from "~/lib/format";
 import { requirePermission } from "~/lib/guards.server";
 import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/access.server";
 import { loadEditorDetails } from "~/services/proposals/editor.server";
+import { computeProposalFeasibility } from "~/services/proposals/feasibility.server";
 import { MAX_PDF_BYTES } from "~/services/proposals/pdf";
 import { missingForSubmission } from "~/services/proposals/queries.server";
 import { PROPOSAL_LIMITS } from "~/services/proposals/schemas";
 import { readProposalPost } from "~/services/proposals/upload.server";
+import { acknowledgementText, failingLines, failingLineText } from "~/services/proposals/warnings";
 import { deadlineCountdown, STATUS_WORDS } from "~/services/proposals/words";
 import { StatusBadge } from "../+shared/Badges";
 import { DetailsCard, type DetailsCardProps } from "../+shared/editor/DetailsCard";
@@ -22,7 +24,7 @@ import { saveHoursIntent } from "../+shared/editor/hours.server";
 import { fail, type IntentArgs, refusalAnswer, textOf } from "../+shared/editor/intent.server";
 import { type ActionResult, resultFor } from "../+shared/editor/result";
 import { COURSE_INTENTS, SubmitCard, type SubmitCardProps } from "../+shared/editor/SubmitCard";
-import { reopenIntent, submitIntent, withdrawIntent } from "../+shared/editor/submission.server";
+import { deleteIntent, reopenIntent, submitIntent, withdrawIntent } from "../+shared/editor/submission.server";
 import { TargetsCard, type TargetsCardProps } from "../+shared/editor/TargetsCard";
 import { TeamCard, type TeamCardProps } from "../+shared/editor/TeamCard";
 import { addMyTargetIntent, moveTargetIntent, removeTargetIntent } from "../+shared/editor/targets.server";
@@ -47,6 +49,13 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   const countdown = deadlineCountdown(cycle.submissionDeadline, now);
   const hoursBy = new Map(details.hours.map((h) => [h.configuration.id, h.hours]));
   const doc = details.document;
+  // The lines a submission would have to acknowledge: only worth computing once nothing is missing.
+  const failing =
+    abilities.canSubmit && missing.length === 0
+      ? failingLines(await computeProposalFeasibility(db, { proposalId: id, now })).map(failingLineText)
+      : [];
+  const onProposal = new Set(details.targets.map((t) => t.sourceTargetId));
+  const namesOnProposal = new Set(details.targets.map((t) => t.name.toLowerCase()));
   return {
     proposal: { id: proposal.id, title: proposal.title, status: proposal.status, statusLabel },
     cycle: { name: cycle.name, observing: `${cycle.observingStart} to ${cycle.observingEnd}`, deadline, countdown },
@@ -82,7 +91,11 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
     targets: {
       proposalId: id,
       targets: details.targets.map((t) => ({ id: t.id, ...targetSummary(t), windows: t.timeWindows.length })),
-      myTargets: details.myTargets.map((t) => ({ id: t.id, name: t.name })),
+      myTargets: details.myTargets.map((t) => ({
+        id: t.id,
+        name: t.name,
+        added: onProposal.has(t.id) || namesOnProposal.has(t.name.toLowerCase()),
+      })),
       editable,
     } satisfies Omit<TargetsCardProps, "result">,
     submission: {
@@ -97,10 +110,12 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
         canSubmit: abilities.canSubmit,
         canWithdraw: abilities.canWithdraw,
         canReopen: abilities.canReopen,
+        canDelete: abilities.canDelete && proposal.currentVersion === 0,
       },
       deadline,
       countdown,
       missing,
+      failing,
     } satisfies Omit<SubmitCardProps, "result">,
     team: {
       pi: details.pi ?? { name: "?", email: "" },
@@ -122,7 +137,11 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
     } satisfies Omit<DocumentCardProps, "result">,
     versions: {
       proposalId: id,
-      versions: details.versions.map((x) => ({ ...x, submittedAt: x.submittedAt.toISOString() })),
+      versions: details.versions.map(({ acknowledgement: ack, ...x }) => ({
+        ...x,
+        submittedAt: x.submittedAt.toISOString(),
+        acknowledged: ack ? acknowledgementText(ack) : null,
+      })),
     } satisfies VersionsCardProps,
   };
 }
@@ -169,6 +188,8 @@ export async function action({ request, params, context }: Route.ActionArgs) {
         return await withdrawIntent(args);
       case "reopen":
         return await reopenIntent(args);
+      case "delete":
+        return await deleteIntent(args);
       default:
         return fail(intent, { form: "Unknown action." }, 400);
     }

@@ -24,7 +24,7 @@ export async function editBandLoader(args: LoaderFunctionArgs) {
 }
 
 /** Saves a band typed in micrometres; it is kept in metres. */
-function save(db: Database, form: FormData, instrument: Instrument, band: Band | null) {
+function save({ db, actorId }: editor.Admin, form: FormData, instrument: Instrument, band: Band | null) {
   return editor.saveRecord(db, editor.formValues(form, namesOf(BAND_FIELDS)), {
     schema: BandFormSchema,
     unique: { entity: "band", scopeId: instrument.id, exceptId: band?.id },
@@ -35,8 +35,8 @@ function save(db: Database, form: FormData, instrument: Instrument, band: Band |
         centralWavelengthM: micronsToMetres(centralWavelengthUm),
         bandwidthM: micronsToMetres(bandwidthUm),
       };
-      if (band) await updateRecord(db, { entity: "band", id: band.id, values });
-      else await insertRecord(db, { entity: "band", values: { ...values, instrumentId: instrument.id } });
+      if (band) await updateRecord(db, { actorId, entity: "band", id: band.id, values });
+      else await insertRecord(db, { actorId, entity: "band", values: { ...values, instrumentId: instrument.id } });
       const text = band
         ? `Band ${values.name} of ${instrument.name} saved.`
         : `Band ${values.name} added to ${instrument.name}.`;
@@ -45,13 +45,15 @@ function save(db: Database, form: FormData, instrument: Instrument, band: Band |
   });
 }
 
-export const newBandAction = editor.action(loadInstrument, { save: ({ db, form, row }) => save(db, form, row, null) });
+export const newBandAction = editor.action(loadInstrument, {
+  save: ({ form, row, ...who }) => save(who, form, row, null),
+});
 
 export const editBandAction = editor.action(loadBand, {
-  save: ({ db, form, row }) => save(db, form, row.instrument, row.band),
-  delete: ({ db, row: { band, instrument } }) =>
+  save: ({ form, row, ...who }) => save(who, form, row.instrument, row.band),
+  delete: ({ form: _form, row: { band, instrument }, ...who }) =>
     editor.deleteUnlessReferenced(
-      db,
+      who,
       { entity: "band", id: band.id },
       `band ${band.name} is still referred to elsewhere (for example by proposals); nothing was deleted`,
       { to: instrumentHref(instrument.id), text: `Band ${band.name} deleted from ${instrument.name}.` },

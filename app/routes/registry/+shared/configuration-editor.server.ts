@@ -40,8 +40,8 @@ const readConfiguration = (form: FormData): editor.FormValues => ({
 const save = editor.siteSaver({
   schema: ConfigurationSchema,
   entity: "configuration",
-  write: async (db, record, siteId, configuration: Configuration | null) => {
-    const saved = await saveConfiguration(db, { siteId, id: configuration?.id, values: record });
+  write: async ({ db, actorId }, record, siteId, configuration: Configuration | null) => {
+    const saved = await saveConfiguration(db, { actorId, siteId, id: configuration?.id, values: record });
     if (!saved.ok) {
       const unknown = saved.unknownStations;
       const are = unknown.length > 1 ? "are not stations" : "is not a station";
@@ -59,9 +59,9 @@ const save = editor.siteSaver({
 });
 
 /** Deletes the configuration; its stations stay. Refused while proposals or cycles refer to it. */
-const removeConfiguration = ({ db, row }: editor.Post<Configuration>) =>
+const removeConfiguration = ({ form: _form, row, ...who }: editor.Post<Configuration>) =>
   editor.deleteUnlessReferenced(
-    db,
+    who,
     { entity: "configuration", id: row.id },
     `${row.name} is still referred to elsewhere (for example by proposals or a cycle); withdraw it from those first, or untick “Offered” instead`,
     { to: overviewHref(row.siteId), text: `Configuration ${row.name} deleted.` },

@@ -35,10 +35,18 @@ export const sendOn = (done: Done) => redirectWithFlash(done.to, { kind: done.ki
 
 type Answer = Response | ReturnType<typeof refuse>;
 
-/** Every editor loader and action starts here: the administrator's guard, then the database. */
-export async function adminDb({ request, context }: LoaderFunctionArgs): Promise<Database> {
-  await requirePermission(request, "registry:edit");
-  return context.get(dbContext);
+/** The database, and the administrator whose changes go into the audit log. */
+export type Admin = { db: Database; actorId: number };
+
+/** Every editor action starts here: the administrator's guard, then the database and who is asking. */
+export async function admin({ request, context }: LoaderFunctionArgs): Promise<Admin> {
+  const viewer = await requirePermission(request, "registry:edit");
+  return { db: context.get(dbContext), actorId: viewer.user.id };
+}
+
+/** Every editor loader starts here: the administrator's guard, then the database. */
+export async function adminDb(args: LoaderFunctionArgs): Promise<Database> {
+  return (await admin(args)).db;
 }
 
 /** The record a route parameter names, or the 404 page "There is no {what} with that number." */
@@ -82,7 +90,7 @@ export async function siteOfPage(db: Database, url: URL) {
   return site ? { id: site.id, name: site.name } : null;
 }
 
-export type Post<T> = { db: Database; form: FormData; row: T };
+export type Post<T> = Admin & { form: FormData; row: T };
 type Handler<T> = (post: Post<T>) => Promise<Answer>;
 const Intent = v.picklist(["save", "delete"], "Unknown action.");
 
@@ -95,11 +103,11 @@ export function action<T>(
   handlers: { save: Handler<T>; delete?: Handler<T> },
 ) {
   return async (args: ActionFunctionArgs): Promise<Answer> => {
-    const db = await adminDb(args);
-    const row = await load(db, args.params);
+    const who = await admin(args);
+    const row = await load(who.db, args.params);
     const body = await readFormBody(args.request, { tooLargeMessage: "The form is too large to be a registry entry." });
     if (!body.ok) return refuse({ form: body.error }, {}, body.status);
-    const post = { db, form: body.form, row };
+    const post = { ...who, form: body.form, row };
     if (!handlers.delete) return handlers.save(post);
     const intent = v.safeParse(Intent, body.form.get("intent"));
     if (!intent.success) return refuse({ form: intent.issues[0].message });
@@ -118,15 +126,15 @@ export const nothing = async () => null;
  */
 export function newAtSiteAction(
   read: (form: FormData) => FormValues,
-  save: (db: Database, values: FormValues, siteId: number) => Promise<Answer>,
+  save: (who: Admin, values: FormValues, siteId: number) => Promise<Answer>,
 ) {
   return action(nothing, {
-    save: async ({ db, form }) => {
+    save: async ({ db, actorId, form }) => {
       const values = read(form);
       const id = toId(formText(form, "siteId"));
       const site = id === null ? null : await getSite(db, { id });
       if (!site) return refuse({ form: "the site was not found; it may have been deleted" }, values);
-      return save(db, values, site.id);
+      return save({ db, actorId }, values, site.id);
     },
   });
 }
@@ -138,12 +146,15 @@ export function newAtSiteAction(
 export function atSiteActions<T extends { siteId: number }>(
   read: (form: FormData) => FormValues,
   load: (db: Database, params: Params) => Promise<T>,
-  save: (db: Database, values: FormValues, siteId: number, row: T | null) => Promise<Answer>,
+  save: (who: Admin, values: FormValues, siteId: number, row: T | null) => Promise<Answer>,
   remove: Handler<T>,
 ) {
   return [
-    newAtSiteAction(read, (db, values, siteId) => save(db, values, siteId, null)),
-    action(load, { save: ({ db, form, row }) => save(db, read(form), row.siteId, row), delete: remove }),
+    newAtSiteAction(read, (who, values, siteId) => save(who, values, siteId, null)),
+    action(load, {
+      save: ({ db, actorId, form, row }) => save({ db, actorId }, read(form), row.siteId, row),
+      delete: remove,
+    }),
   ] as const;
 }
 
@@ -185,14 +196,14 @@ export async function saveRecord<T extends { name: string }>(
 export function siteSaver<Row extends { id: number }, T extends { name: string }>(spec: {
   schema: v.GenericSchema<unknown, T>;
   entity: "station" | "configuration";
-  write: (db: Database, record: T, siteId: number, existing: Row | null) => ReturnType<SaveSpec<T>["write"]>;
+  write: (who: Admin, record: T, siteId: number, existing: Row | null) => ReturnType<SaveSpec<T>["write"]>;
 }) {
-  return (db: Database, values: FormValues, siteId: number, existing: Row | null): Promise<Answer> =>
-    saveRecord(db, values, {
+  return (who: Admin, values: FormValues, siteId: number, existing: Row | null): Promise<Answer> =>
+    saveRecord(who.db, values, {
       schema: spec.schema,
       unique: { entity: spec.entity, scopeId: siteId, exceptId: existing?.id },
-      taken: async (name) => `${name} is already a ${spec.entity} at ${await siteName(db, siteId)}`,
-      write: (record) => spec.write(db, record, siteId, existing),
+      taken: async (name) => `${name} is already a ${spec.entity} at ${await siteName(who.db, siteId)}`,
+      write: (record) => spec.write(who, record, siteId, existing),
     });
 }
 
@@ -201,12 +212,12 @@ export function siteSaver<Row extends { id: number }, T extends { name: string }
  * `refusal` stands on the form (status 409) and nothing goes.
  */
 export async function deleteUnlessReferenced(
-  db: Database,
+  { db, actorId }: Admin,
   record: { entity: "configuration" | "instrument" | "band"; id: number },
   refusal: string,
   done: Done,
 ): Promise<Answer> {
-  return deleteOrRefuse(() => deleteRecord(db, record), { form: refusal }, done);
+  return deleteOrRefuse(() => deleteRecord(db, { actorId, ...record }), { form: refusal }, done);
 }
 
 /** Runs `remove` unless other records still refer to what it deletes: then `refusal` (status 409), nothing deleted. */

@@ -26,7 +26,7 @@ export async function editInstrumentLoader(args: LoaderFunctionArgs) {
   return { instrument, siteName: site?.name ?? "", largest };
 }
 
-function save(db: Database, values: editor.FormValues, siteId: number, instrument: Instrument | null) {
+function save({ db, actorId }: editor.Admin, values: editor.FormValues, siteId: number, instrument: Instrument | null) {
   return editor.saveRecord(db, values, {
     schema: InstrumentSchema,
     unique: { entity: "instrument", scopeId: siteId, exceptId: instrument?.id },
@@ -34,10 +34,10 @@ function save(db: Database, values: editor.FormValues, siteId: number, instrumen
       `${name} is already an instrument at ${instrument ? "this site" : await editor.siteName(db, siteId)}`,
     write: async (record) => {
       if (instrument) {
-        await updateRecord(db, { entity: "instrument", id: instrument.id, values: record });
+        await updateRecord(db, { actorId, entity: "instrument", id: instrument.id, values: record });
         return { to: overviewHref(siteId), text: `Instrument ${record.name} saved.` };
       }
-      const id = await insertRecord(db, { entity: "instrument", values: { ...record, siteId } });
+      const id = await insertRecord(db, { actorId, entity: "instrument", values: { ...record, siteId } });
       return { to: instrumentHref(id), text: `Instrument ${record.name} added. Now add its bands.` };
     },
   });
@@ -46,9 +46,9 @@ function save(db: Database, values: editor.FormValues, siteId: number, instrumen
 const readInstrument = (form: FormData) => editor.formValues(form, namesOf(INSTRUMENT_FIELDS));
 
 /** Deletes the instrument with its bands. Refused while proposals refer to one of them. */
-const removeInstrument = ({ db, row }: editor.Post<Instrument>) =>
+const removeInstrument = ({ form: _form, row, ...who }: editor.Post<Instrument>) =>
   editor.deleteUnlessReferenced(
-    db,
+    who,
     { entity: "instrument", id: row.id },
     `${row.name} or one of its bands is still referred to elsewhere (for example by proposals); nothing was deleted`,
     { to: overviewHref(row.siteId), text: `Instrument ${row.name} and its bands deleted.` },

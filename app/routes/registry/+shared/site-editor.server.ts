@@ -22,14 +22,14 @@ export async function editSiteLoader(args: LoaderFunctionArgs) {
   return { site, contents: await siteContents(db, { siteId: site.id }), timeZones: timeZones() };
 }
 
-function saveSite(db: Database, form: FormData, site: Site | null) {
+function saveSite({ db, actorId }: editor.Admin, form: FormData, site: Site | null) {
   return editor.saveRecord(db, editor.formValues(form, namesOf(SITE_FIELDS)), {
     schema: SiteSchema,
     unique: { entity: "site", exceptId: site?.id },
     taken: (name) => `a site named ${name} already exists`,
     write: async (values) => {
-      if (site) await updateRecord(db, { entity: "site", id: site.id, values });
-      const id = site?.id ?? (await insertRecord(db, { entity: "site", values }));
+      if (site) await updateRecord(db, { actorId, entity: "site", id: site.id, values });
+      const id = site?.id ?? (await insertRecord(db, { actorId, entity: "site", values }));
       return {
         to: overviewHref(id),
         text: site ? `Site ${values.name} saved.` : `Site ${values.name} added. Now add its stations.`,
@@ -39,12 +39,12 @@ function saveSite(db: Database, form: FormData, site: Site | null) {
 }
 
 /** Deletes the site with everything at it, once its name is typed to confirm. */
-async function removeSite({ db, form, row: site }: { db: Database; form: FormData; row: Site }) {
+async function removeSite({ db, actorId, form, row: site }: editor.Post<Site>) {
   const confirmName = editor.formText(form, "confirmName").trim();
   if (confirmName !== site.name)
     return editor.refuse({ confirmName: `type the site's name, ${site.name}, to confirm` }, { confirmName });
   return editor.deleteOrRefuse(
-    () => deleteSite(db, { siteId: site.id }),
+    () => deleteSite(db, { actorId, siteId: site.id }),
     {
       confirmName:
         "other records (such as proposals or cycles) still refer to this site's configurations or instruments; nothing was deleted",
@@ -54,9 +54,9 @@ async function removeSite({ db, form, row: site }: { db: Database; form: FormDat
   );
 }
 
-export const newSiteAction = editor.action(editor.nothing, { save: ({ db, form }) => saveSite(db, form, null) });
+export const newSiteAction = editor.action(editor.nothing, { save: ({ form, ...who }) => saveSite(who, form, null) });
 
 export const editSiteAction = editor.action(loadSite, {
-  save: ({ db, form, row }) => saveSite(db, form, row),
+  save: ({ form, row, ...who }) => saveSite(who, form, row),
   delete: removeSite,
 });

@@ -29,17 +29,17 @@ export async function editStationLoader(args: LoaderFunctionArgs) {
 const saveStation = editor.siteSaver({
   schema: StationSchema,
   entity: "station",
-  write: async (db, record, siteId, station: Station | null) => {
-    if (!station) await insertRecord(db, { entity: "station", values: { ...record, siteId } });
-    else await updateRecord(db, { entity: "station", id: station.id, values: record });
+  write: async ({ db, actorId }, record, siteId, station: Station | null) => {
+    if (!station) await insertRecord(db, { actorId, entity: "station", values: { ...record, siteId } });
+    else await updateRecord(db, { actorId, entity: "station", id: station.id, values: record });
     const text = `Station ${record.name} ${station ? "saved" : "added"}.`;
     return { to: station ? stationHref(station.id) : overviewHref(siteId), text };
   },
 });
 
 /** Deletes the station, unless a configuration uses it: then says which, and deletes nothing. */
-async function removeStation({ db, row: station }: { db: Database; row: Station }) {
-  const result = await deleteStation(db, { stationId: station.id });
+async function removeStation({ db, actorId, row: station }: editor.Post<Station>) {
+  const result = await deleteStation(db, { actorId, stationId: station.id });
   if (result.deleted)
     return editor.sendOn({ to: overviewHref(station.siteId), text: `Station ${station.name} deleted.` });
   const many = result.usedBy.length > 1;

@@ -5,8 +5,17 @@ import type { TrianglesResponse } from "~/engine";
 import { plural } from "~/services/sketch/words";
 import { type TriangleRow, triangleColumns } from "./triangle-columns";
 
-export function RankingTable({ result, rows }: { result: TrianglesResponse; rows: TriangleRow[] }) {
-  const cols = useMemo(triangleColumns, []);
+export function RankingTable({
+  result,
+  rows,
+  onUse,
+}: {
+  result: TrianglesResponse;
+  rows: TriangleRow[];
+  /** "Use this triangle" on each row, when the viewer has proposal targets to store it on. */
+  onUse?: (row: TriangleRow) => void;
+}) {
+  const cols = useMemo(() => triangleColumns(onUse), [onUse]);
   return (
     <Card id="ranking" title="Ranked triangles" className="space-y-3">
       <p className="text-sm text-night-700">

@@ -5,21 +5,9 @@
  */
 import { CalibratorPeek, calibratorShortlistHref } from "~/components/catalogue/CalibratorPeek";
 import { Card } from "~/components/ui";
+import { longestBaselineM } from "~/engine";
 import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
 import type { CoverageBody } from "~/services/sketch/request";
-
-/** The longest station-to-station distance of the sketch, metres (the longest baseline it can project). */
-export function longestBaselineM(stations: CoverageBody["stations"]): number {
-  let longest = 0;
-  for (let i = 0; i < stations.length; i++) {
-    for (let j = i + 1; j < stations.length; j++) {
-      const a = stations[i];
-      const b = stations[j];
-      longest = Math.max(longest, Math.hypot(a.eastM - b.eastM, a.northM - b.northM, a.upM - b.upM));
-    }
-  }
-  return longest;
-}
 
 /** The central channel's wavelength, metres. */
 const centralWavelength = (wavelengthsM: number[]) => wavelengthsM[Math.floor(wavelengthsM.length / 2)];

@@ -4,10 +4,11 @@
  * and each row opens the Sketchpad on that triangle with the same target, model, night and band.
  * A link that carries a target (shared, or from the Sketchpad) is ranked as soon as it opens; after
  * that a change of the inputs is ranked on "Rank triangles" (ranking every station takes a while).
+ * "Use this triangle" stores a ranked triangle on a target of one of the viewer's drafts.
  */
 import { useEffect, useMemo, useRef, useState } from "react";
 import { href } from "react-router";
-import { Button, EmptyState, PageHeader, SelectField } from "~/components/ui";
+import { Alert, Button, EmptyState, PageHeader, SelectField } from "~/components/ui";
 import { type TrianglesResponse, triangleCount } from "~/engine";
 import { inputErrors } from "~/services/sketch/api-errors";
 import { poolStations } from "~/services/sketch/registry";
@@ -31,6 +32,7 @@ import type { SketchPageProps } from "./SketchPage";
 import { CopyLinkButton, StatusBar } from "./StatusBar";
 import { TargetInputs } from "./TargetInputs";
 import type { TriangleRow } from "./triangle-columns";
+import { UseTriangleDialog } from "./UseTriangleDialog";
 import { useSketchState } from "./useUrlState";
 
 const CODEC = { read: readTriangleState, write: writeTriangleState };
@@ -44,7 +46,14 @@ function useRankedMs(shownFor: { at: number } | null): number | null {
   return ms && shownFor && ms.at === shownFor.at ? ms.ms : null;
 }
 
-export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [] }: SketchPageProps) {
+export function TriangleFinder({
+  registry,
+  defaults,
+  multiSite,
+  savedTargets = [],
+  proposalTargets = [],
+  refusal = null,
+}: SketchPageProps) {
   const { state, settled, pending, set, type } = useSketchState(CODEC, { defaults, multiSite });
   const field = binder(state, set);
   const built = useMemo(() => buildTrianglesRequest(settled, registry), [settled, registry]);
@@ -70,6 +79,9 @@ export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [
       result && asked ? result.triangles.map((t) => ({ ...t, href: sketchpadHref(asked.state, t.stations) })) : [],
     [result, asked],
   );
+  const [using, setUsing] = useState<readonly string[] | null>(null);
+  const canUse = proposalTargets.some((p) => p.targets.length > 0);
+  const onUse = useMemo(() => (canUse ? (r: TriangleRow) => setUsing(r.stations) : undefined), [canUse]);
   const poolSize = poolStations(state.pool, registry)?.length ?? 0;
   const triples = triangleCount(poolSize);
 
@@ -159,8 +171,9 @@ export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [
             ) : null}
           </StatusBar>
           <InputError message={formError} boxed />
+          {refusal ? <Alert>Not stored: {refusal}</Alert> : null}
           {result ? (
-            <RankingTable result={result} rows={rows} />
+            <RankingTable result={result} rows={rows} onUse={onUse} />
           ) : ranking.isValidating ? (
             <EmptyState title="Ranking…">Every triple of the pool is scored on the server.</EmptyState>
           ) : (
@@ -174,6 +187,19 @@ export function TriangleFinder({ registry, defaults, multiSite, savedTargets = [
           )}
         </div>
       </div>
+      {asked ? (
+        <UseTriangleDialog
+          stations={using}
+          rankedFor={{
+            site: registry.site.name,
+            instrument: asked.state.instrument,
+            band: asked.state.band,
+            pool: asked.state.pool,
+          }}
+          choices={proposalTargets.filter((p) => p.targets.length > 0)}
+          onClose={() => setUsing(null)}
+        />
+      ) : null}
     </>
   );
 }

@@ -1,6 +1,9 @@
-/** The columns of the Triangle finder's ranking table; each row opens its triangle in the Sketchpad. */
+/**
+ * The columns of the Triangle finder's ranking table; each row opens its triangle in the Sketchpad
+ * and, given `onUse`, offers to store it on a proposal's target.
+ */
 import { Link } from "react-router";
-import type { Column } from "~/components/ui";
+import { Button, type Column } from "~/components/ui";
 import type { TrianglesResponse } from "~/engine";
 
 export type TriangleRow = TrianglesResponse["triangles"][number] & { href: string };
@@ -19,7 +22,27 @@ function fixed(key: string, header: string, field: NumberField, digits: number, 
   };
 }
 
-export function triangleColumns(): Column<TriangleRow>[] {
+/** The "Use this triangle" column. */
+function chooseColumn(onUse: (row: TriangleRow) => void): Column<TriangleRow> {
+  return {
+    key: "use",
+    header: "Proposal",
+    value: () => "",
+    render: (r) => (
+      <Button
+        variant="secondary"
+        size="sm"
+        className="whitespace-nowrap"
+        aria-label={`Use ${r.stations.join("–")} for a proposal target`}
+        onClick={() => onUse(r)}
+      >
+        Use this triangle
+      </Button>
+    ),
+  };
+}
+
+export function triangleColumns(onUse?: (row: TriangleRow) => void): Column<TriangleRow>[] {
   return [
     { key: "rank", header: "Rank", align: "right", value: (r) => r.rank },
     {
@@ -42,6 +65,7 @@ export function triangleColumns(): Column<TriangleRow>[] {
         </Link>
       ),
     },
+    ...(onUse ? [chooseColumn(onUse)] : []),
     fixed("score", "Score", "score", 3),
     fixed("signal", "Closure-phase signal", "closurePhaseSignalDeg", 1, "° rms"),
     fixed("amplitude", "Triple amplitude", "meanTripleAmplitude", 3),

@@ -1,6 +1,6 @@
-import { Form } from "react-router";
 import { TargetForm, type TargetFormValues } from "~/components/targets/TargetForm";
-import { Button, Card } from "~/components/ui";
+import { Alert, Card } from "~/components/ui";
+import { ConfirmDialog } from "~/components/ui/ConfirmDialog";
 
 const COPY = {
   create: { title: "Add a target", submitLabel: "Add target" },
@@ -37,21 +37,20 @@ export function TargetEditor({
   );
 }
 
-/** The editor's second card: removes the target from My targets, once the person confirms. */
-export function RemoveTargetCard({ name }: { name: string }) {
+/** The editor's second card: removes the target from My targets, once the person confirms in the dialog. */
+export function RemoveTargetCard({ name, refused }: { name: string; refused: string | null }) {
   return (
     <Card title="Remove">
-      <Form
-        method="post"
-        onSubmit={(e) => {
-          if (!confirm(`Remove ${name} from My targets?`)) e.preventDefault();
-        }}
+      {refused ? <Alert className="mb-4">{refused}</Alert> : null}
+      <ConfirmDialog
+        label="Remove from My targets"
+        title={`Remove ${name}?`}
+        intent="delete"
+        confirmLabel="Remove from My targets"
+        variant="danger"
       >
-        <input type="hidden" name="intent" value="delete" />
-        <Button type="submit" variant="danger">
-          Remove from My targets
-        </Button>
-      </Form>
+        {name} leaves My targets. Proposals that took a copy of it keep theirs.
+      </ConfirmDialog>
     </Card>
   );
 }

@@ -47,8 +47,10 @@ export async function saveTarget(
   return redirectWithFlash(href("/targets"), { kind: "success", text });
 }
 
-/** The "Remove" card's post. */
-export async function removeTarget(db: Database, ownerId: number, target: StoredTarget) {
+/** The "Remove" card's post, once confirmed in its dialog. */
+export async function removeTarget(db: Database, ownerId: number, target: StoredTarget, form: FormData) {
+  if (form.get("confirm") !== "yes")
+    return data({ removeError: "Confirm the removal in the dialog." }, { status: 400 });
   await deleteTarget(db, { ownerId, targetId: target.id });
   return redirectWithFlash(href("/targets"), { kind: "success", text: `${target.name} removed from My targets.` });
 }

@@ -2,6 +2,7 @@
  * Time-critical windows: for each window of a target, the hours it is observable inside the window,
  * counted on the nights that can overlap it (every one, or an even sample of them for a long window).
  */
+import { observingPeriodMs } from "../period";
 import { lineOf } from "./lines";
 import { addDays, type CellSubject, daysBetween, observeNight, spreadNights } from "./nights";
 import { FEASIBILITY_THRESHOLDS, type FeasibilityLine } from "./types";
@@ -13,9 +14,8 @@ const jdToMs = (jd: number) => Math.round((jd - 2440587.5) * 86_400_000);
 export function windowLines(subject: CellSubject): FeasibilityLine[] {
   const { cycle } = subject.input;
   const most = FEASIBILITY_THRESHOLDS.maxWindowNights;
-  const periodStartMs = Date.parse(`${cycle.observingStart}T12:00:00Z`);
   // The last night of the period ends on the morning after observingEnd.
-  const periodEndMs = Date.parse(`${addDays(cycle.observingEnd, 1)}T18:00:00Z`);
+  const { startMs: periodStartMs, endMs: periodEndMs } = observingPeriodMs(cycle);
   return subject.target.timeWindows.map((w, idx) => {
     const line = lineOf("windows", `Time window ${idx + 1}`);
     const startMs = Date.parse(w.startUtc);

@@ -22,7 +22,8 @@ type TargetLine = {
 export type TargetsCardProps = {
   proposalId: number;
   targets: TargetLine[];
-  myTargets: { id: number; name: string }[];
+  /** The viewer's own targets; `added` when the proposal has it already (copied, or one of that name). */
+  myTargets: { id: number; name: string; added: boolean }[];
   editable: boolean;
   result?: ActionResult;
 };
@@ -94,6 +95,7 @@ function TargetItem({
 
 function CopyFromMine({ myTargets, result }: Pick<TargetsCardProps, "myTargets" | "result">) {
   const none = myTargets.length === 0;
+  const left = myTargets.filter((t) => !t.added).length;
   return (
     <Form method="post" className="mt-4 flex flex-wrap items-end gap-3" aria-label="Copy from my targets">
       <input type="hidden" name="intent" value="add-my-target" />
@@ -103,9 +105,11 @@ function CopyFromMine({ myTargets, result }: Pick<TargetsCardProps, "myTargets" 
           name="myTargetId"
           defaultValue={result?.values?.myTargetId ?? ""}
           error={result?.errors.myTargetId}
-          disabled={none}
+          disabled={none || left === 0}
           hint={
-            none ? (
+            !none && left === 0 ? (
+              "Every one of your targets is already on the proposal."
+            ) : none ? (
               <>
                 Your list is empty; targets you keep under{" "}
                 <Link className="underline" to={href("/targets")}>
@@ -116,10 +120,16 @@ function CopyFromMine({ myTargets, result }: Pick<TargetsCardProps, "myTargets" 
             ) : undefined
           }
         >
-          <Choices items={myTargets.map((t) => ({ value: t.id, label: t.name }))} />
+          <Choices
+            items={myTargets.map((t) => ({
+              value: t.id,
+              label: t.added ? `${t.name} (already added)` : t.name,
+              disabled: t.added,
+            }))}
+          />
         </SelectField>
       </div>
-      <Button type="submit" variant="secondary" disabled={none}>
+      <Button type="submit" variant="secondary" disabled={none || left === 0}>
         Copy into the proposal
       </Button>
     </Form>

@@ -36,6 +36,8 @@ export function TeamCard({ pi, members, manage, piOnlyNote, result }: TeamCardPr
       </ul>
       {manage ? (
         <Form
+          // A new team remounts the form: the address just added is cleared; a refused one stays typed.
+          key={members.map((m) => m.id).join(",")}
           method="post"
           className="mt-4 flex flex-wrap items-end gap-3"
           noValidate

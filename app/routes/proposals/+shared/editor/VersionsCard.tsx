@@ -5,7 +5,14 @@ import { shownUtc } from "../utc";
 
 export type VersionsCardProps = {
   proposalId: number;
-  versions: { version: number; submittedAt: string; submittedBy: string | null; documentSha256: string | null }[];
+  versions: {
+    version: number;
+    submittedAt: string;
+    submittedBy: string | null;
+    documentSha256: string | null;
+    /** "Submitted with 2 feasibility warnings acknowledged by …", when the version needed it. */
+    acknowledged: string | null;
+  }[];
 };
 
 export function VersionsCard({ proposalId, versions }: VersionsCardProps) {
@@ -35,6 +42,7 @@ export function VersionsCard({ proposalId, versions }: VersionsCardProps) {
                 PDF
               </a>
             ) : null}
+            {x.acknowledged ? <span className="basis-full text-caution-700">{x.acknowledged}</span> : null}
           </li>
         ))}
       </ul>

@@ -26,6 +26,14 @@ export function textOf(form: FormData, name: string): string {
   return typeof x === "string" ? x : "";
 }
 
+/**
+ * The refusal of a post that should have been confirmed in its dialog (`confirm=yes`), or null when it was.
+ * `what`: "the submission", "the deletion"…
+ */
+export function unconfirmed({ form, intent }: IntentArgs, what: string) {
+  return textOf(form, "confirm") === "yes" ? null : fail(intent, { form: `Confirm ${what} in the dialog.` }, 400);
+}
+
 /** A refused change as the answer for the card that posted it, keeping what was typed; anything else is rethrown. */
 export function refusalAnswer(error: unknown, intent: string, form: FormData) {
   if (!(error instanceof ProposalRefusal)) throw error;

@@ -1,8 +1,10 @@
 /** The page of a proposal's target, new or existing: the target and model, constraints, calibrators, notes. */
 import { Form, href, useNavigation } from "react-router";
 import { ImagingPreview } from "~/components/imaging/ImagingPreview";
+import { rankedForText, triangleText } from "~/components/targets/closure-triangle";
 import { TargetFields } from "~/components/targets/TargetForm";
 import { Button, ButtonLink, Card, FormErrors, PageHeader, TextArea } from "~/components/ui";
+import type { ClosureTriangleJson } from "~/db/schema/proposals";
 import type { TargetFormState } from "~/services/proposals/target-form.server";
 import { BackToProposal } from "../BackToProposal";
 import { bind } from "../bind";
@@ -16,6 +18,8 @@ export type TargetEditorPage = TargetFormState & {
   name: string;
   /** The stored model in words (an existing target). */
   model: string | null;
+  /** The closure triangle chosen in the Triangle finder, if any. */
+  closureTriangle: ClosureTriangleJson | null;
   editable: boolean;
   bands: string[];
   siteMinElevationDeg: number;
@@ -95,6 +99,12 @@ export function TargetEditor({
         )}
       </Form>
       {page.model ? <p className="mt-4 text-sm text-night-600">Stored model: {page.model}.</p> : null}
+      {page.closureTriangle ? (
+        <p className="mt-2 text-sm text-night-700">
+          <span className="font-medium">Closure triangle: {triangleText(page.closureTriangle)}</span> (
+          {rankedForText(page.closureTriangle)}; chosen in the Triangle finder).
+        </p>
+      ) : null}
       {page.targetId !== null ? (
         <div className="mt-6">
           <ImagingPreview

@@ -47,10 +47,17 @@ export async function loadTargetEditor(args: TargetRouteArgs) {
   };
   if (targetId === null) {
     invariantResponse(abilities.canEdit, abilities.lockedBecause ?? "The proposal cannot be changed.", 409);
-    return { ...base, targetId: null, name: "New target", model: null, ...blankTargetForm() };
+    return { ...base, targetId: null, name: "New target", model: null, closureTriangle: null, ...blankTargetForm() };
   }
   const t = await readProposalTarget(db, { proposalId, targetId });
-  return { ...base, targetId: t.id, name: t.name, model: describeModel(t.model) as string | null, ...targetFormOf(t) };
+  return {
+    ...base,
+    targetId: t.id,
+    name: t.name,
+    model: describeModel(t.model) as string | null,
+    closureTriangle: t.closureTriangle,
+    ...targetFormOf(t),
+  };
 }
 
 export type TargetEditorAnswer = TargetFormState & { errors: Record<string, string> };

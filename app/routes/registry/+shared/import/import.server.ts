@@ -87,7 +87,7 @@ export async function importText(
   return { text: typed };
 }
 
-export type ImportPost = { db: Database; intent: Intent; result: ImportResult; text: string };
+export type ImportPost = { db: Database; actorId: number; intent: Intent; result: ImportResult; text: string };
 
 /** Applies a plan; a record changed by someone else since the preview refuses it (409) and nothing is written. */
 async function applyOrRefuse(result: ImportResult, apply: () => Promise<unknown>) {
@@ -107,7 +107,7 @@ const unchanged = (siteId?: number | null) =>
   sendOn({ to: overviewHref(siteId), kind: "info", text: "The file matches the registry; nothing was changed." });
 
 /** Stations (CSV or JSON) into the chosen site. */
-export async function importStations({ db, intent, result, text }: ImportPost) {
+export async function importStations({ db, actorId, intent, result, text }: ImportPost) {
   const site = result.siteId ? await getSite(db, { id: result.siteId }) : null;
   if (!site) return fail(result, ["Choose the site the stations belong to."]);
   const planned = await planStationImport(db, { siteId: site.id, text, removeMissing: result.removeMissing });
@@ -117,12 +117,12 @@ export async function importStations({ db, intent, result, text }: ImportPost) {
   result.stations = plan;
   if (intent === "preview") return { ...result, content: text };
   if (totalChanges(plan.counts) === 0) return unchanged(site.id);
-  const refused = await applyOrRefuse(result, () => applyStationPlan(db, { siteId: site.id, plan }));
+  const refused = await applyOrRefuse(result, () => applyStationPlan(db, { actorId, site, plan }));
   return refused ?? sendOn({ to: overviewHref(site.id), text: stationImportSummary(site.name, plan.counts) });
 }
 
 /** A whole registry (JSON, as exported) into the site of its name, or a new site. */
-export async function importRegistry({ db, intent, result, text }: ImportPost) {
+export async function importRegistry({ db, actorId, intent, result, text }: ImportPost) {
   const planned = await planRegistryImport(db, { text, removeMissing: result.removeMissing });
   result.notices = planned.notices;
   if (!planned.ok) return fail(result, planned.errors);
@@ -132,7 +132,7 @@ export async function importRegistry({ db, intent, result, text }: ImportPost) {
   if (Object.values(plan.counts).reduce((n, c) => n + totalChanges(c), 0) === 0) return unchanged(planned.siteId);
   let siteId = 0;
   const refused = await applyOrRefuse(result, async () => {
-    siteId = await applyRegistryPlan(db, { plan });
+    siteId = await applyRegistryPlan(db, { actorId, plan });
   });
   return refused ?? sendOn({ to: overviewHref(siteId), text: registryImportSummary(plan) });
 }

@@ -1,0 +1,1 @@
+ALTER TABLE "proposal_targets" ADD COLUMN "closure_triangle" jsonb;
