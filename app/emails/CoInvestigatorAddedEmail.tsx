@@ -1,5 +1,5 @@
-import { Link, Text } from "@react-email/components";
-import { EmailLayout, emailStyles } from "./EmailLayout";
+import { Text } from "@react-email/components";
+import { EmailLayout, EmailLinkFallback, emailStyles } from "./EmailLayout";
 import { ProposalButton } from "./ProposalButton";
 
 export type CoInvestigatorAddedEmailProps = {
@@ -41,12 +41,7 @@ export function CoInvestigatorAddedEmail({
           sign-on or an e-mail link) and the proposal appears under “My proposals”.
         </Text>
       )}
-      <Text style={emailStyles.small}>If the button does nothing, copy this address into your browser:</Text>
-      <Text style={emailStyles.small}>
-        <Link href={url} style={emailStyles.link}>
-          {url}
-        </Link>
-      </Text>
+      <EmailLinkFallback url={url} />
       <Text style={emailStyles.small}>Not expecting this? Please tell {piName}; only the PI can change the team.</Text>
     </EmailLayout>
   );

@@ -33,3 +33,18 @@ export function idParam(raw: string | undefined, what: string): number {
   invariantResponse(id, `There is no ${what} with that number.`);
   return id;
 }
+
+/**
+ * The row a route parameter names, or the 404 page with `message` when the parameter is no id or
+ * `load` finds nothing: `await rowOfParam(params.cycleId, (cycleId) => getCycle(db, { cycleId }), "…")`.
+ */
+export async function rowOfParam<T>(
+  raw: string | undefined,
+  load: (id: number) => Promise<T | null | undefined>,
+  message: string,
+): Promise<NonNullable<T>> {
+  const id = toId(raw);
+  const row = id === null ? null : await load(id);
+  invariantResponse(row, message);
+  return row;
+}

@@ -7,18 +7,7 @@
 import type { ReactNode } from "react";
 import type { CalibratorEntry, CalibratorsResponse } from "~/engine";
 import { Button } from "../ui/Button";
-import { type Column, DataTable, tableToCsv } from "../ui/DataTable";
-
-function download(filename: string, text: string) {
-  const url = URL.createObjectURL(new Blob([text], { type: "text/csv;charset=utf-8" }));
-  const a = document.createElement("a");
-  a.href = url;
-  a.download = filename;
-  document.body.appendChild(a);
-  a.click();
-  a.remove();
-  URL.revokeObjectURL(url);
-}
+import { type Column, DataTable, download, fixedColumn, tableToCsv } from "../ui/DataTable";
 
 /** A value with its 1σ, marked as an estimate. */
 function Estimate({ value, error, digits }: { value: number | null; error: number | null; digits: number }) {
@@ -79,16 +68,9 @@ export function CalibratorTable({
         </span>
       ),
     },
-    {
-      key: "distance",
-      header: "Distance",
-      unit: "°",
-      align: "right",
-      value: (c) => c.distanceDeg,
-      render: (c) => c.distanceDeg.toFixed(2),
-    },
-    { key: "v", header: "V", unit: "mag", align: "right", value: (c) => c.vMag, render: (c) => c.vMag.toFixed(2) },
-    { key: "bv", header: "B−V", unit: "mag", align: "right", value: (c) => c.bv, render: (c) => c.bv.toFixed(3) },
+    fixedColumn({ key: "distance", header: "Distance", unit: "°", digits: 2, value: (c) => c.distanceDeg }),
+    fixedColumn({ key: "v", header: "V", unit: "mag", digits: 2, value: (c) => c.vMag }),
+    fixedColumn({ key: "bv", header: "B−V", unit: "mag", digits: 3, value: (c) => c.bv }),
     {
       key: "band",
       header: `${band} magnitude`,
@@ -105,22 +87,9 @@ export function CalibratorTable({
       value: (c) => c.diameterMas,
       render: (c) => <Estimate value={c.diameterMas} error={c.diameterErrMas} digits={3} />,
     },
-    {
-      key: "vis2",
-      header: `V² at ${baselineM} m`,
-      align: "right",
-      value: (c) => c.vis2,
-      render: (c) => c.vis2.toFixed(3),
-    },
-    {
-      key: "hours",
-      header: "Hours together",
-      unit: "h",
-      align: "right",
-      value: (c) => c.observableHours,
-      render: (c) => c.observableHours.toFixed(2),
-    },
-    { key: "score", header: "Score", align: "right", value: (c) => c.score, render: (c) => c.score.toFixed(1) },
+    fixedColumn({ key: "vis2", header: `V² at ${baselineM} m`, digits: 3, value: (c) => c.vis2 }),
+    fixedColumn({ key: "hours", header: "Hours together", unit: "h", digits: 2, value: (c) => c.observableHours }),
+    fixedColumn({ key: "score", header: "Score", digits: 1, value: (c) => c.score }),
     ...(action ? [{ key: "action", header: action.header, value: () => null, render: action.cell }] : []),
     {
       key: "why",

@@ -4,7 +4,7 @@
  * progress, fidelity and verdict — polled while any is under way.
  */
 import { useState } from "react";
-import { Alert, Badge, Button, type Column, DataTable } from "~/components/ui";
+import { Alert, Badge, Button, Card, type Column, DataTable } from "~/components/ui";
 import { formatUtc } from "~/lib/format";
 import { type ImagingJob, STATE_LABELS, startImaging, useImagingJobs } from "./api";
 
@@ -52,13 +52,7 @@ export function CycleImagingQueue({ cycleId, cycleName }: { cycleId: number; cyc
     }
   };
   return (
-    <section
-      aria-labelledby="cycle-imaging-title"
-      className="space-y-3 rounded-[var(--radius-card)] bg-white p-5 shadow-[var(--shadow-card)] ring-1 ring-night-200"
-    >
-      <h2 id="cycle-imaging-title" className="text-lg font-semibold">
-        Imaging previews
-      </h2>
+    <Card id="cycle-imaging" title="Imaging previews" className="space-y-3">
       <p className="text-sm text-night-700">
         One preview (default settings: 64² grid, maximum entropy, automatic weight, 5 % V² and 2° closure-phase errors)
         for every target of {cycleName}'s submitted proposals that asks for an image: a target with structure (not a
@@ -85,6 +79,6 @@ export function CycleImagingQueue({ cycleId, cycleName }: { cycleId: number; cyc
         exportName={`imaging-queue-${cycleName.replace(/[^\w.-]+/g, "_")}`}
         empty="No preview queued for this cycle yet."
       />
-    </section>
+    </Card>
   );
 }

@@ -4,15 +4,7 @@
  * to its own peak, so their shapes compare directly.
  */
 import { useMemo } from "react";
-import { Plot, plotLayout } from "~/components/plots/Plot";
-
-const HEAT = [
-  [0, "#0d1220"],
-  [0.3, "#313a52"],
-  [0.55, "#a03611"],
-  [0.78, "#f27a3a"],
-  [1, "#fff5ee"],
-];
+import { HEAT, Plot, plotLayout, skyAxes } from "~/components/plots/Plot";
 
 function grid(values: readonly number[], n: number) {
   let peak = 0;
@@ -68,14 +60,7 @@ export function ImagingImages({
   const layout = useMemo(
     () =>
       plotLayout({
-        xaxis: { title: { text: "Offset (mas), east ←" }, autorange: "reversed", zeroline: false, constrain: "domain" },
-        yaxis: {
-          title: { text: "north ↑ (mas)" },
-          scaleanchor: "x",
-          scaleratio: 1,
-          zeroline: false,
-          constrain: "domain",
-        },
+        ...skyAxes("north ↑ (mas)"),
         margin: { l: 48, r: 8, t: 8, b: 44 },
       }),
     [],

@@ -1,4 +1,5 @@
 /** The settings of a new imaging preview, each with its default stated. */
+import type { ChangeEvent } from "react";
 import { SelectField, TextField } from "~/components/ui";
 import { IMAGING_DEFAULTS, REGULARIZER_LABELS } from "~/services/imaging/schemas";
 
@@ -24,6 +25,11 @@ export const DEFAULT_DRAFT: SettingsDraft = {
   closurePhaseDeg: String(IMAGING_DEFAULTS.closurePhaseDeg),
   closurePhaseTriangles: IMAGING_DEFAULTS.closurePhaseTriangles,
 };
+
+/** The settings typed as numbers. */
+type NumberKey = "gridSize" | "weight" | "seed" | "vis2Percent" | "closurePhaseDeg";
+/** Where the request's field has another name than the draft's (the error comes back under it). */
+const BODY_FIELD: Partial<Record<NumberKey, string>> = { vis2Percent: "vis2Relative" };
 
 const num = (s: string) => (s.trim() === "" ? Number.NaN : Number(s));
 
@@ -52,16 +58,20 @@ export function ImagingSettingsForm({
   disabled?: boolean;
 }) {
   const set = (patch: Partial<SettingsDraft>) => onChange({ ...draft, ...patch });
+  /** A typed number field: its text, its change, and the error the server names it by. */
+  const bind = (key: NumberKey, inputMode: "numeric" | "decimal") => ({
+    inputMode,
+    value: draft[key],
+    onChange: (e: ChangeEvent<HTMLInputElement>) => set({ [key]: e.target.value }),
+    error: errors[`settings.${BODY_FIELD[key] ?? key}`],
+  });
   return (
     <fieldset disabled={disabled} className="grid gap-3 sm:grid-cols-2 xl:grid-cols-4">
       <legend className="sr-only">Imaging settings</legend>
       <TextField
         label="Grid size"
         unit="pixels per side"
-        inputMode="numeric"
-        value={draft.gridSize}
-        onChange={(e) => set({ gridSize: e.target.value })}
-        error={errors["settings.gridSize"]}
+        {...bind("gridSize", "numeric")}
         hint="32–128, default 64; pixel λ/(4 B_max)."
       />
       <SelectField
@@ -86,39 +96,19 @@ export function ImagingSettingsForm({
         <option value="fixed">Fixed</option>
       </SelectField>
       {draft.weightMode === "fixed" ? (
-        <TextField
-          label="Weight value"
-          inputMode="decimal"
-          value={draft.weight}
-          onChange={(e) => set({ weight: e.target.value })}
-          error={errors["settings.weight"]}
-          hint="0 to 1 000 000, against the reduced χ²."
-        />
+        <TextField label="Weight value" {...bind("weight", "decimal")} hint="0 to 1 000 000, against the reduced χ²." />
       ) : null}
-      <TextField
-        label="Noise seed"
-        inputMode="numeric"
-        value={draft.seed}
-        onChange={(e) => set({ seed: e.target.value })}
-        error={errors["settings.seed"]}
-        hint="The same seed gives the same data."
-      />
+      <TextField label="Noise seed" {...bind("seed", "numeric")} hint="The same seed gives the same data." />
       <TextField
         label="V² error"
         unit="% of V²"
-        inputMode="decimal"
-        value={draft.vis2Percent}
-        onChange={(e) => set({ vis2Percent: e.target.value })}
-        error={errors["settings.vis2Relative"]}
+        {...bind("vis2Percent", "decimal")}
         hint="Default 5 % (common practice for a well calibrated night)."
       />
       <TextField
         label="Closure-phase error"
         unit="degrees"
-        inputMode="decimal"
-        value={draft.closurePhaseDeg}
-        onChange={(e) => set({ closurePhaseDeg: e.target.value })}
-        error={errors["settings.closurePhaseDeg"]}
+        {...bind("closurePhaseDeg", "decimal")}
         hint="Default 2° (common practice)."
       />
       <SelectField

@@ -4,21 +4,9 @@
  * `programNights(db, { proposalId })` (app/services/nights/program.server.ts) returns, after the page's
  * own check that the viewer may see the proposal.
  */
-import { Badge, type BadgeTone, Card, type Column, DataTable } from "~/components/ui";
+import { Card, type Column, DataTable } from "~/components/ui";
 import type { ProgramBlock, ProgramHours } from "~/services/nights/program.server";
-
-const TONE: Record<ProgramBlock["outcome"], BadgeTone> = {
-  planned: "info",
-  executed: "ok",
-  weather: "caution",
-  technical: "danger",
-};
-const WORDS: Record<ProgramBlock["outcome"], string> = {
-  planned: "planned",
-  executed: "executed",
-  weather: "lost to weather",
-  technical: "lost to a technical fault",
-};
+import { OutcomeBadge } from "./OutcomeBadge";
 
 const time = (iso: string) => `${iso.slice(11, 16)}`;
 
@@ -56,7 +44,7 @@ const blockColumns: Column<ProgramBlock>[] = [
     value: (b) => b.outcome,
     render: (b) => (
       <span>
-        <Badge tone={TONE[b.outcome]}>{WORDS[b.outcome]}</Badge>
+        <OutcomeBadge outcome={b.outcome} />
         {b.note ? <span className="block text-xs text-night-600">{b.note}</span> : null}
       </span>
     ),

@@ -3,32 +3,11 @@ import type { CoverageResponse, TargetModel } from "~/engine";
 import { beamEllipse, dirtyImageHalfWidthMas, imageWindow } from "~/services/sketch/figures";
 import { plural } from "~/services/sketch/words";
 import { Panel } from "./Panel";
-import { Plot, plotLayout } from "./Plot";
+import { HEAT, Plot, plotLayout, skyAxes } from "./Plot";
 
-/** Dark to ember to white: the peak is the lightest colour. */
-const HEAT = [
-  [0, "#0d1220"],
-  [0.3, "#313a52"],
-  [0.55, "#a03611"],
-  [0.78, "#f27a3a"],
-  [1, "#fff5ee"],
-];
 const OUTLINE = "#5ad1e6";
 
 type Beam = NonNullable<CoverageResponse["beam"]>;
-
-function skyAxes(): Record<string, unknown> {
-  return {
-    xaxis: { title: { text: "Offset (mas), east ←" }, autorange: "reversed", zeroline: false, constrain: "domain" },
-    yaxis: {
-      title: { text: "Offset (mas), north ↑" },
-      scaleanchor: "x",
-      scaleratio: 1,
-      zeroline: false,
-      constrain: "domain",
-    },
-  };
-}
 
 /**
  * The dirty beam (point-spread function of the coverage) with its fitted half-power ellipse, and the

@@ -38,6 +38,16 @@ export function ElevationPanel({
     [coverage, stepMin, minElevationDeg],
   );
 
+  const shown = figure
+    ? {
+        figure,
+        height: 400,
+        label:
+          "Target elevation and air mass against UTC and local sidereal time, with twilight and the observable window",
+      }
+    : byHourAngle
+      ? { figure: byHourAngle, height: 380, label: "Target elevation and air mass against hour angle" }
+      : null;
   return (
     <Panel
       id="elevation"
@@ -48,25 +58,10 @@ export function ElevationPanel({
           : "Curves are geometric (no refraction). The Moon's altitude is geocentric. Shaded: daylight and the civil, nautical and astronomical twilights; green: the observable window above the minimum elevation."
       }
     >
-      {figure ? (
+      {shown ? (
         <>
-          <Plot
-            label="Target elevation and air mass against UTC and local sidereal time, with twilight and the observable window"
-            height={400}
-            data={figure.data}
-            layout={figure.layout}
-          />
-          <SeriesLegend label="Elevation plot legend" items={figure.legend} />
-        </>
-      ) : byHourAngle ? (
-        <>
-          <Plot
-            label="Target elevation and air mass against hour angle"
-            height={380}
-            data={byHourAngle.data}
-            layout={byHourAngle.layout}
-          />
-          <SeriesLegend label="Elevation plot legend" items={byHourAngle.legend} />
+          <Plot label={shown.label} height={shown.height} data={shown.figure.data} layout={shown.figure.layout} />
+          <SeriesLegend label="Elevation plot legend" items={shown.figure.legend} />
         </>
       ) : (
         <p className="py-16 text-center text-sm text-night-600">Waiting for the night's ephemeris…</p>

@@ -77,6 +77,23 @@ export function plotLayout(own: LayoutObject): LayoutObject {
   return out;
 }
 
+/** The colour scale of every image (dirty beam, model, reconstruction): dark to ember to white, the peak lightest. */
+export const HEAT: [number, string][] = [
+  [0, "#0d1220"],
+  [0.3, "#313a52"],
+  [0.55, "#a03611"],
+  [0.78, "#f27a3a"],
+  [1, "#fff5ee"],
+];
+
+/** Axes of an image on the sky: offsets in mas, east to the left as on the sky, north up, square pixels. */
+export function skyAxes(northTitle = "Offset (mas), north ↑"): Record<string, unknown> {
+  return {
+    xaxis: { title: { text: "Offset (mas), east ←" }, autorange: "reversed", zeroline: false, constrain: "domain" },
+    yaxis: { title: { text: northTitle }, scaleanchor: "x", scaleratio: 1, zeroline: false, constrain: "domain" },
+  };
+}
+
 /** One colour per series, chosen for contrast on white and told apart by people with common colour-vision deficiencies. */
 export const SERIES_COLOURS = [
   "#a03611",

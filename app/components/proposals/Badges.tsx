@@ -1,4 +1,5 @@
 /** The status of a proposal and the verdict of a feasibility line, as badges. */
+import type { ReactNode } from "react";
 import { Badge, type BadgeTone } from "~/components/ui";
 import type { ProposalStatus } from "~/db/schema/proposals";
 import type { Verdict } from "~/services/proposals/feasibility";
@@ -18,15 +19,24 @@ export const STATUS_STYLE: Record<ProposalStatus, { tone: BadgeTone; mark: strin
   withdrawn: { tone: "neutral", mark: "↩" },
 };
 
+/** A badge with its mark before the words; the mark is decoration, hidden from screen readers. */
+function MarkedBadge({ tone, mark, children }: { tone: BadgeTone; mark: string; children: ReactNode }) {
+  return (
+    <Badge tone={tone}>
+      <span aria-hidden="true" className="mr-1 font-semibold">
+        {mark}
+      </span>
+      {children}
+    </Badge>
+  );
+}
+
 export function StatusBadge({ status, label }: { status: ProposalStatus; label: string }) {
   const style = STATUS_STYLE[status];
   return (
-    <Badge tone={style.tone}>
-      <span aria-hidden="true" className="mr-1 font-semibold">
-        {style.mark}
-      </span>
+    <MarkedBadge tone={style.tone} mark={style.mark}>
       <span>{label}</span>
-    </Badge>
+    </MarkedBadge>
   );
 }
 
@@ -39,11 +49,8 @@ const VERDICT: Record<Verdict, { tone: BadgeTone; label: string; mark: string }>
 export function VerdictBadge({ verdict }: { verdict: Verdict }) {
   const v = VERDICT[verdict];
   return (
-    <Badge tone={v.tone}>
-      <span aria-hidden="true" className="mr-1 font-semibold">
-        {v.mark}
-      </span>
+    <MarkedBadge tone={v.tone} mark={v.mark}>
       {v.label}
-    </Badge>
+    </MarkedBadge>
   );
 }

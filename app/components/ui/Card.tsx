@@ -13,17 +13,27 @@ export function Card({
   actions,
   children,
   className,
+  id,
 }: {
   title?: ReactNode;
   actions?: ReactNode;
   children: ReactNode;
   className?: string;
+  /** Makes the card a region named by its title (the heading's id is `${id}-title`). */
+  id?: string;
 }) {
+  const titleId = id && title ? `${id}-title` : undefined;
   return (
-    <section className={cardClass(cx("p-5", className))}>
+    <section id={id} aria-labelledby={titleId} className={cardClass(cx("p-5", className))}>
       {title || actions ? (
         <header className="mb-3 flex flex-wrap items-center justify-between gap-2">
-          {title ? <h2 className="text-lg font-semibold">{title}</h2> : <span />}
+          {title ? (
+            <h2 id={titleId} className="text-lg font-semibold">
+              {title}
+            </h2>
+          ) : (
+            <span />
+          )}
           {actions ? <div className="flex gap-2">{actions}</div> : null}
         </header>
       ) : null}

@@ -75,7 +75,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         title="Your account"
         lead={`${user.name} · ${user.email}${user.institute ? ` · ${user.institute}` : ""}`}
       />
-      <div className="grid gap-6">
+      <div className="page-stack">
         <RolesCard roles={loaderData.roles} />
         {actionData?.error ? <Alert>{actionData.error}</Alert> : null}
         <SessionsCard sessions={loaderData.sessions} currentSessionId={loaderData.currentSessionId} />

@@ -1,15 +1,16 @@
 import { data, href } from "react-router";
 import * as v from "valibot";
+import { CycleLinks } from "~/components/committee/CycleLinks";
 import { StateBadge } from "~/components/committee/StateBadge";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Alert, ButtonLink, PageHeader } from "~/components/ui";
+import { Alert, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
 import { requireFormBody } from "~/lib/body.server";
 import { redirectWithFlash } from "~/lib/flash.server";
 import { fieldErrors } from "~/lib/form-errors";
 import { plural } from "~/lib/format";
 import { requirePermission } from "~/lib/guards.server";
-import { invariantResponse, toId } from "~/lib/not-found";
+import { rowOfParam } from "~/lib/not-found";
 import { boardPage } from "~/services/committee/board-page.server";
 import { releaseDecisions, saveBoardSettings, saveDecisions } from "~/services/committee/decisions.server";
 import { parseDecisionsForm } from "~/services/committee/decisions-form";
@@ -21,11 +22,8 @@ import { RankingTable } from "./+shared/RankingTable";
 import { SettingsCard } from "./+shared/SettingsCard";
 import type { Route } from "./+types/cycle";
 
-async function pageOf(db: Parameters<typeof boardPage>[0], raw: string | undefined) {
-  const cycleId = toId(raw);
-  const page = cycleId === null ? null : await boardPage(db, { cycleId });
-  invariantResponse(page, "No cycle with this number.");
-  return page;
+function pageOf(db: Parameters<typeof boardPage>[0], raw: string | undefined) {
+  return rowOfParam(raw, (cycleId) => boardPage(db, { cycleId }), "No cycle with this number.");
 }
 
 export async function loader({ request, params, context }: Route.LoaderArgs) {
@@ -115,12 +113,7 @@ export default function Board({ loaderData: d, actionData }: Route.ComponentProp
         back={{ to: href("/board"), label: "All boards" }}
         actions={
           <>
-            <ButtonLink to={href("/cycles/:cycleId", { cycleId: id })} variant="secondary">
-              Cycle
-            </ButtonLink>
-            <ButtonLink to={href("/cycles/:cycleId/assignments", { cycleId: id })} variant="secondary">
-              Assignments
-            </ButtonLink>
+            <CycleLinks cycleId={id} pages={["cycle", "assignments"]} />
             <a
               className="inline-flex h-10 items-center rounded-lg px-4 font-medium text-night-700 hover:bg-night-100"
               href={`${api}?format=csv`}

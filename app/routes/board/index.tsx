@@ -1,5 +1,5 @@
-import { href, Link } from "react-router";
-import { StateBadge } from "~/components/committee/StateBadge";
+import { href } from "react-router";
+import { CycleTitle } from "~/components/committee/StateBadge";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Card, EmptyState, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
@@ -26,14 +26,7 @@ export default function Boards({ loaderData }: Route.ComponentProps) {
         {loaderData.cycles.map((c) => (
           <Card
             key={c.id}
-            title={
-              <span className="flex flex-wrap items-center gap-2">
-                <Link to={href("/board/:cycleId", { cycleId: String(c.id) })} className="hover:underline">
-                  {c.name}
-                </Link>
-                <StateBadge state={c.state} />
-              </span>
-            }
+            title={<CycleTitle name={c.name} state={c.state} to={href("/board/:cycleId", { cycleId: String(c.id) })} />}
           >
             <p className="text-sm text-night-700">
               Nights {c.observingStart} → {c.observingEnd} · {c.proposals} proposal{c.proposals === 1 ? "" : "s"}{" "}

@@ -2,14 +2,14 @@ import { data, href } from "react-router";
 import * as v from "valibot";
 import { StateBadge } from "~/components/committee/StateBadge";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Alert, Card, PageHeader } from "~/components/ui";
+import { Alert, Card, type Column, DataTable, namedColumn, PageHeader } from "~/components/ui";
 import { ConfirmDialog } from "~/components/ui/ConfirmDialog";
 import { dbContext } from "~/context";
 import { requireFormBody } from "~/lib/body.server";
 import { redirectWithFlash } from "~/lib/flash.server";
 import { plural } from "~/lib/format";
 import { requirePermission } from "~/lib/guards.server";
-import { invariantResponse, toId } from "~/lib/not-found";
+import { rowOfParam, toId } from "~/lib/not-found";
 import {
   assignmentOverview,
   DEFAULT_REVIEWERS_PER_PROPOSAL,
@@ -35,11 +35,8 @@ const PairList = v.pipe(
   ),
 );
 
-async function cycleOf(db: Parameters<typeof assignmentOverview>[0], raw: string | undefined) {
-  const cycleId = toId(raw);
-  const page = cycleId === null ? null : await assignmentOverview(db, { cycleId });
-  invariantResponse(page, "No cycle with this number.");
-  return page;
+function cycleOf(db: Parameters<typeof assignmentOverview>[0], raw: string | undefined) {
+  return rowOfParam(raw, (cycleId) => assignmentOverview(db, { cycleId }), "No cycle with this number.");
 }
 
 export async function loader({ request, params, context }: Route.LoaderArgs) {
@@ -107,6 +104,12 @@ export async function action({ request, params, context }: Route.ActionArgs) {
   }
 }
 
+const loadColumns: Column<Route.ComponentProps["loaderData"]["members"][number]>[] = [
+  namedColumn({ key: "reviewer", header: "Reviewer", name: (m) => m.name, note: (m) => m.institute }),
+  { key: "assigned", header: "Assigned", align: "right", value: (m) => m.total },
+  { key: "submitted", header: "Submitted", align: "right", value: (m) => m.submitted },
+];
+
 export const meta: Route.MetaFunction = ({ data: d }) => [
   { title: `Assignments — ${d?.cycle.name ?? "Cycle"} — Fringe Docket` },
 ];
@@ -139,33 +142,13 @@ export default function Assignments({ loaderData: d, actionData }: Route.Compone
           disabled={!reviewing}
         />
         <Card title="Load per reviewer">
-          <table className="w-full text-sm">
-            <caption className="sr-only">Assignments and submitted reviews per reviewer</caption>
-            <thead>
-              <tr className="text-left text-night-700">
-                <th scope="col" className="py-1 font-semibold">
-                  Reviewer
-                </th>
-                <th scope="col" className="py-1 pl-3 text-right font-semibold">
-                  Assigned
-                </th>
-                <th scope="col" className="py-1 pl-3 text-right font-semibold">
-                  Submitted
-                </th>
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-night-100">
-              {d.members.map((m) => (
-                <tr key={m.id}>
-                  <th scope="row" className="py-1 text-left font-medium">
-                    {m.name} <span className="font-normal text-night-600">{m.institute}</span>
-                  </th>
-                  <td className="num py-1 text-right">{m.total}</td>
-                  <td className="num py-1 text-right">{m.submitted}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <DataTable
+            columns={loadColumns}
+            rows={d.members}
+            caption="Assignments and submitted reviews per reviewer"
+            exportName={`reviewer-load-${d.cycle.name}`}
+            density="compact"
+          />
           <div className="mt-4">
             <ConfirmDialog
               label="Send reminders"

@@ -1,9 +1,10 @@
 import { data, href, Link } from "react-router";
 import * as v from "valibot";
+import { CycleLinks } from "~/components/committee/CycleLinks";
 import { StateBadge } from "~/components/committee/StateBadge";
 import { ErrorPage } from "~/components/ErrorPage";
 import { CycleImagingQueue } from "~/components/imaging/CycleImagingQueue";
-import { Alert, ButtonLink, Card, DetailList, PageHeader, TextField } from "~/components/ui";
+import { Alert, Card, DetailList, PageHeader, TextField } from "~/components/ui";
 import { ConfirmDialog } from "~/components/ui/ConfirmDialog";
 import { dbContext } from "~/context";
 import { requireFormBody } from "~/lib/body.server";
@@ -82,17 +83,7 @@ export default function CyclePage({ loaderData: d, actionData }: Route.Component
           </>
         }
         back={{ to: href("/cycles"), label: "All cycles" }}
-        actions={
-          <>
-            <ButtonLink to={href("/cycles/:cycleId/edit", { cycleId: id })} variant="secondary">
-              Edit
-            </ButtonLink>
-            <ButtonLink to={href("/cycles/:cycleId/assignments", { cycleId: id })} variant="secondary">
-              Assignments
-            </ButtonLink>
-            <ButtonLink to={href("/board/:cycleId", { cycleId: id })}>Ranking board</ButtonLink>
-          </>
-        }
+        actions={<CycleLinks cycleId={id} pages={["edit", "assignments", "board"]} primary="board" />}
       />
       {actionData?.error ? <Alert className="mb-4">{actionData.error}</Alert> : null}
       <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-2">

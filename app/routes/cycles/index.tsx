@@ -1,5 +1,5 @@
-import { href, Link } from "react-router";
-import { StateBadge } from "~/components/committee/StateBadge";
+import { href } from "react-router";
+import { CycleTitle } from "~/components/committee/StateBadge";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, type BadgeTone, ButtonLink, Card, EmptyState, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
@@ -54,16 +54,13 @@ export default function Cycles({ loaderData }: Route.ComponentProps) {
             <Card
               key={c.id}
               title={
-                <span className="flex flex-wrap items-center gap-2">
-                  {loaderData.canManage ? (
-                    <Link to={href("/cycles/:cycleId", { cycleId: String(c.id) })} className="hover:underline">
-                      {c.name}
-                    </Link>
-                  ) : (
-                    c.name
-                  )}{" "}
-                  <StateBadge state={c.state} /> <Badge tone={phaseTone[c.phase]}>{c.phase}</Badge>
-                </span>
+                <CycleTitle
+                  name={c.name}
+                  state={c.state}
+                  to={loaderData.canManage ? href("/cycles/:cycleId", { cycleId: String(c.id) }) : undefined}
+                >
+                  <Badge tone={phaseTone[c.phase]}>{c.phase}</Badge>
+                </CycleTitle>
               }
               actions={
                 loaderData.canManage ? (

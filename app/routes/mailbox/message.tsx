@@ -100,7 +100,7 @@ export default function MailboxMessage({ loaderData }: Route.ComponentProps) {
         <span className="text-night-500"> / message {m.id}</span>
       </nav>
       <PageHeader title={m.subject} back={{ to: mailbox, label: "Back to the mailbox" }} />
-      <div className="grid gap-6">
+      <div className="page-stack">
         {m.linkHiddenUntil ? (
           <Alert tone="info">
             This message carries a one-time sign-in link that is still valid, so it is hidden here: only its recipient

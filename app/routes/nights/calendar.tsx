@@ -56,6 +56,12 @@ export async function action({ request, context }: Route.ActionArgs) {
 
 export const meta: Route.MetaFunction = () => [{ title: "Night builder — Fringe Docket" }];
 
+/** The two date fields of a run of nights, first and last (both inclusive). */
+const RUN_ENDS = [
+  ["firstNight", "First night"],
+  ["lastNight", "Last night"],
+] as const;
+
 function RunForm({
   calendar,
   retry,
@@ -73,26 +79,19 @@ function RunForm({
       className="grid gap-3 sm:grid-cols-4 sm:items-end"
     >
       <input type="hidden" name="cycleId" value={calendar.cycle.id} />
-      <TextField
-        label="First night"
-        name="firstNight"
-        type="date"
-        min={calendar.cycle.observingStart}
-        max={calendar.cycle.observingEnd}
-        defaultValue={v0?.firstNight ?? calendar.cycle.observingStart}
-        error={errors.firstNight}
-        required
-      />
-      <TextField
-        label="Last night"
-        name="lastNight"
-        type="date"
-        min={calendar.cycle.observingStart}
-        max={calendar.cycle.observingEnd}
-        defaultValue={v0?.lastNight ?? calendar.cycle.observingStart}
-        error={errors.lastNight}
-        required
-      />
+      {RUN_ENDS.map(([name, label]) => (
+        <TextField
+          key={name}
+          label={label}
+          name={name}
+          type="date"
+          min={calendar.cycle.observingStart}
+          max={calendar.cycle.observingEnd}
+          defaultValue={v0?.[name] ?? calendar.cycle.observingStart}
+          error={errors[name]}
+          required
+        />
+      ))}
       <SelectField
         label="Configuration"
         name="configurationId"

@@ -132,7 +132,6 @@ export default function MyProposals({ loaderData }: Route.ComponentProps) {
             caption="My proposals with cycle, status and deadline"
             columns={columns}
             rows={proposals}
-            rowKey={(r) => r.id}
             exportName="my-proposals"
           />
         </Card>

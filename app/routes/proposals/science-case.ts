@@ -1,4 +1,5 @@
 import { dbContext } from "~/context";
+import { pdfAttachment } from "~/lib/attachment.server";
 import { requirePermission } from "~/lib/guards.server";
 import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/access.server";
 import { readScienceCase } from "~/services/proposals/science-case.server";
@@ -16,21 +17,5 @@ export async function loader({ request, params, url, context }: Route.LoaderArgs
   const raw = url.searchParams.get("version");
   const version = raw === null ? null : proposalIdFrom(raw);
   const doc = await readScienceCase(db, { proposalId, version });
-  if (!doc)
-    throw new Response("This proposal has no science case here.", {
-      status: 404,
-      headers: { "Content-Type": "text/plain; charset=utf-8" },
-    });
-  const ascii = doc.filename.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
-  return new Response(new Uint8Array(doc.data), {
-    status: 200,
-    headers: {
-      "Content-Type": "application/pdf",
-      "Content-Length": String(doc.data.length),
-      "Content-Disposition": `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(doc.filename)}`,
-      "X-Content-Type-Options": "nosniff",
-      "Cache-Control": "private, no-store",
-      ETag: `"${doc.sha256}"`,
-    },
-  });
+  return pdfAttachment(doc, "This proposal has no science case here.");
 }

@@ -1,5 +1,6 @@
 import { href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
+import { HoursFacts, ProposalFacts, TeamFacts } from "~/components/proposals/ProposalFacts";
 import { Coordinates } from "~/components/targets/Coordinates";
 import { Badge, Card, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
@@ -10,7 +11,6 @@ import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/acce
 import { readVersion } from "~/services/proposals/versions.server";
 import { BackToProposal } from "./+shared/BackToProposal";
 import { FeasibilityView } from "./+shared/FeasibilityView";
-import { ProposalFacts } from "./+shared/ProposalFacts";
 import { targetSummary } from "./+shared/target-summary";
 import { shownUtc } from "./+shared/utc";
 import type { Route } from "./+types/version";
@@ -73,29 +73,11 @@ export default function ProposalVersion({ loaderData }: Route.ComponentProps) {
           abstract={s.abstract}
         />
         <div className="grid content-start gap-6">
-          <Card title="Team">
-            <ul className="grid gap-1 text-sm">
-              {s.pi ? (
-                <li>
-                  <Badge tone="accent">PI</Badge> {s.pi.name} <span className="text-night-600">{s.pi.email}</span>
-                </li>
-              ) : null}
-              {s.coInvestigators.map((c) => (
-                <li key={c.email}>
-                  <Badge>Co-I</Badge> {c.name ?? "(no account)"} <span className="text-night-600">{c.email}</span>
-                </li>
-              ))}
-            </ul>
-          </Card>
-          <Card title="Requested hours">
-            <ul className="num grid gap-1 text-sm">
-              {s.hours.map((h) => (
-                <li key={h.configurationId}>
-                  {h.configuration}: {h.hours} h
-                </li>
-              ))}
-            </ul>
-          </Card>
+          <TeamFacts
+            pi={s.pi ? { name: s.pi.name, detail: s.pi.email } : null}
+            coInvestigators={s.coInvestigators.map((c) => ({ name: c.name ?? "(no account)", detail: c.email }))}
+          />
+          <HoursFacts hours={s.hours} />
           <Card title="Science case">
             {s.document && d.hasDocument ? (
               <p className="text-sm">

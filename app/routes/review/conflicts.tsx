@@ -2,7 +2,7 @@ import { data, Form, href } from "react-router";
 import * as v from "valibot";
 import { StateBadge } from "~/components/committee/StateBadge";
 import { ErrorPage } from "~/components/ErrorPage";
-import { Alert, Badge, Button, Card, PageHeader, TextArea } from "~/components/ui";
+import { Alert, Badge, Button, Card, IntentButton, PageHeader, TextArea } from "~/components/ui";
 import { dbContext } from "~/context";
 import { requireFormBody } from "~/lib/body.server";
 import { redirectWithFlash } from "~/lib/flash.server";
@@ -128,18 +128,14 @@ export default function Conflicts({ loaderData: d, actionData }: Route.Component
                   {p.assignment ? <Badge tone="info">assigned to you ({p.assignment})</Badge> : null}
                 </div>
                 {d.editable && p.declared ? (
-                  <Form method="post" className="mt-3">
-                    <input type="hidden" name="intent" value="withdraw" />
-                    <input type="hidden" name="proposalId" value={p.id} />
-                    <Button
-                      type="submit"
-                      size="sm"
-                      variant="secondary"
-                      aria-label={`Withdraw the conflict on ${p.title}`}
-                    >
-                      Withdraw the declaration
-                    </Button>
-                  </Form>
+                  <IntentButton
+                    intent="withdraw"
+                    hidden={{ proposalId: p.id }}
+                    label={`Withdraw the conflict on ${p.title}`}
+                    className="mt-3"
+                  >
+                    Withdraw the declaration
+                  </IntentButton>
                 ) : null}
                 {d.editable && !p.declared && !p.automatic ? (
                   <Form method="post" className="mt-3 grid gap-2" aria-label={`Declare a conflict on ${p.title}`}>

@@ -1,5 +1,5 @@
 import { href, Link } from "react-router";
-import { StateBadge } from "~/components/committee/StateBadge";
+import { CycleTitle } from "~/components/committee/StateBadge";
 import { ErrorPage } from "~/components/ErrorPage";
 import { Badge, ButtonLink, Card, EmptyState, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
@@ -67,15 +67,11 @@ export default function ReviewDesk({ loaderData: d }: Route.ComponentProps) {
           The chair puts reviewers on a cycle's committee; your assignments appear here.
         </EmptyState>
       ) : null}
-      <div className="grid gap-6">
+      <div className="page-stack">
         {d.seats.map((s) => (
           <Card
             key={s.cycle.id}
-            title={
-              <span className="flex flex-wrap items-center gap-2">
-                Cycle {s.cycle.name} <StateBadge state={s.cycle.state} />
-              </span>
-            }
+            title={<CycleTitle name={`Cycle ${s.cycle.name}`} state={s.cycle.state} />}
             actions={
               s.cycle.state === "open" || s.cycle.state === "reviewing" ? (
                 <ButtonLink

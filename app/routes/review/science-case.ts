@@ -1,4 +1,5 @@
 import { dbContext } from "~/context";
+import { pdfAttachment } from "~/lib/attachment.server";
 import { requirePermission } from "~/lib/guards.server";
 import { committeeProposalId, loadProposalForCommittee } from "~/services/committee/access.server";
 import { frozenScienceCase } from "~/services/committee/reading.server";
@@ -14,21 +15,5 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
   const proposalId = committeeProposalId(params.proposalId);
   const { proposal } = await loadProposalForCommittee(db, { viewer, proposalId });
   const doc = await frozenScienceCase(db, { proposalId, version: proposal.currentVersion });
-  if (!doc)
-    throw new Response("This version has no science case.", {
-      status: 404,
-      headers: { "Content-Type": "text/plain; charset=utf-8" },
-    });
-  const ascii = doc.filename.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
-  return new Response(new Uint8Array(doc.data), {
-    status: 200,
-    headers: {
-      "Content-Type": "application/pdf",
-      "Content-Length": String(doc.data.length),
-      "Content-Disposition": `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(doc.filename)}`,
-      "X-Content-Type-Options": "nosniff",
-      "Cache-Control": "private, no-store",
-      ETag: `"${doc.sha256}"`,
-    },
-  });
+  return pdfAttachment(doc, "This version has no science case.");
 }

@@ -1,16 +1,11 @@
 import { ErrorPage } from "~/components/ErrorPage";
-import { dbContext } from "~/context";
-import { requirePermission } from "~/lib/guards.server";
-import { loadSketchPage } from "~/services/sketch/page.server";
+import { sketchLoader } from "./+shared/loader.server";
 import { sketchShouldRevalidate } from "./+shared/revalidate";
 import { SketchPage } from "./+shared/SketchPage";
 import { Sketchpad } from "./+shared/Sketchpad";
 import type { Route } from "./+types/sketchpad";
 
-export async function loader({ request, url, context }: Route.LoaderArgs) {
-  const viewer = await requirePermission(request, "sketch:use");
-  return loadSketchPage(context.get(dbContext), { viewer, url, purpose: "anything can be sketched" });
-}
+export const loader = sketchLoader({ purpose: "anything can be sketched" });
 
 export const shouldRevalidate = sketchShouldRevalidate;
 

@@ -1,22 +1,14 @@
 import { ErrorPage } from "~/components/ErrorPage";
 import { dbContext } from "~/context";
 import { requirePermission } from "~/lib/guards.server";
-import { loadSketchPage } from "~/services/sketch/page.server";
 import { chooseTriangleAction } from "./+shared/choose-triangle.server";
+import { sketchLoader } from "./+shared/loader.server";
 import { sketchShouldRevalidate } from "./+shared/revalidate";
 import { SketchPage } from "./+shared/SketchPage";
 import { TriangleFinder } from "./+shared/TriangleFinder";
 import type { Route } from "./+types/triangles";
 
-export async function loader({ request, url, context }: Route.LoaderArgs) {
-  const viewer = await requirePermission(request, "sketch:use");
-  return loadSketchPage(context.get(dbContext), {
-    viewer,
-    url,
-    purpose: "triangles can be ranked",
-    withProposals: true,
-  });
-}
+export const loader = sketchLoader({ purpose: "triangles can be ranked", withProposals: true });
 
 /** "Use this triangle": stores a ranked triangle on a target of one of the viewer's drafts. */
 export async function action({ request, context }: Route.ActionArgs) {

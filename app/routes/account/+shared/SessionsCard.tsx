@@ -1,5 +1,5 @@
 import { Form } from "react-router";
-import { Badge, Button, Card } from "~/components/ui";
+import { Badge, Button, Card, IntentButton } from "~/components/ui";
 import type { AccountSession } from "~/services/account/account.server";
 
 /** Where the person is signed in; every session but this browser's can be signed out from here. */
@@ -36,18 +36,13 @@ export function SessionsCard({
               </p>
             </div>
             {s.id !== currentSessionId ? (
-              <Form method="post">
-                <input type="hidden" name="intent" value="revoke-session" />
-                <input type="hidden" name="sessionId" value={s.id} />
-                <Button
-                  type="submit"
-                  variant="secondary"
-                  size="sm"
-                  aria-label={`Sign out the session started ${s.started}`}
-                >
-                  Sign out
-                </Button>
-              </Form>
+              <IntentButton
+                intent="revoke-session"
+                hidden={{ sessionId: s.id }}
+                label={`Sign out the session started ${s.started}`}
+              >
+                Sign out
+              </IntentButton>
             ) : null}
           </li>
         ))}

@@ -7,7 +7,7 @@
 
 import { useMemo, useState } from "react";
 import { Form, useNavigation } from "react-router";
-import { Badge, Button, Card, FormErrors, SelectField } from "~/components/ui";
+import { Badge, Button, Card, type Column, cx, DataTable, FormErrors, SelectField } from "~/components/ui";
 import { ConfirmDialog } from "~/components/ui/ConfirmDialog";
 import { plural } from "~/lib/format";
 import type { BoardPageData } from "~/services/committee/board-page.server";
@@ -39,6 +39,134 @@ function startOf(r: Row): Entry & { suggested: boolean } {
     hours,
     suggested: true,
   };
+}
+
+/** A row the chair can no longer change: outside the deciding state, sent, or not under review. */
+const lockedRow = (r: Row, deciding: boolean) => !deciding || r.releasedAt !== null || r.status !== "under_review";
+
+const control = "rounded border border-night-300 px-2 py-1 focus-visible:outline-3 focus-visible:outline-ember-500";
+
+/** The decision table's columns; they sort and export by what is entered in them. */
+function decisionColumns({
+  configs,
+  entries,
+  errors,
+  set,
+  locked,
+}: {
+  configs: BoardPageData["pressure"]["configurations"];
+  entries: Record<number, Entry & { suggested: boolean }>;
+  errors: Record<string, string>;
+  set: (pid: number, change: Partial<Entry>) => void;
+  locked: (r: Row) => boolean;
+}): Column<Row>[] {
+  const invalid = (field: string) => (errors[field] ? true : undefined);
+  return [
+    { key: "position", header: "#", className: "num", value: (r) => r.position },
+    {
+      key: "proposal",
+      header: "Proposal",
+      value: (r) => r.title,
+      render: (r) => (
+        <>
+          <span className="font-medium">{r.title}</span>
+          <span className="block text-xs text-night-600">
+            {r.suggestion.decision}: {r.suggestion.reason}
+          </span>
+          {entries[r.proposalId].suggested && !locked(r) ? <Badge tone="info">suggested</Badge> : null}
+          {r.releasedAt ? <Badge tone="ok">sent</Badge> : null}
+        </>
+      ),
+    },
+    {
+      key: "grade",
+      header: "Final grade",
+      unit: "score",
+      value: (r) => entries[r.proposalId].grade,
+      render: (r) => (
+        <input
+          aria-label={`Final grade of ${r.title}`}
+          name={`grade-${r.proposalId}`}
+          inputMode="decimal"
+          value={entries[r.proposalId].grade}
+          disabled={locked(r)}
+          onChange={(ev) => set(r.proposalId, { grade: ev.target.value })}
+          aria-invalid={invalid(`grade-${r.proposalId}`)}
+          className={cx("w-16", control)}
+        />
+      ),
+    },
+    {
+      key: "decision",
+      header: "Decision",
+      value: (r) => entries[r.proposalId].decision,
+      render: (r) => (
+        <select
+          aria-label={`Decision on ${r.title}`}
+          name={`decision-${r.proposalId}`}
+          value={entries[r.proposalId].decision}
+          disabled={locked(r)}
+          onChange={(ev) => set(r.proposalId, { decision: ev.target.value })}
+          aria-invalid={invalid(`decision-${r.proposalId}`)}
+          className={cx("bg-white", control)}
+        >
+          <option value="">—</option>
+          <option value="accept">accept</option>
+          <option value="waitlist">waiting list</option>
+          <option value="decline">decline</option>
+        </select>
+      ),
+    },
+    {
+      key: "hours",
+      header: "Hours granted",
+      unit: "h",
+      value: (r) => Object.values(entries[r.proposalId].hours).reduce((sum, h) => sum + (Number(h) || 0), 0),
+      render: (r) => {
+        const e = entries[r.proposalId];
+        return (
+          <div className="flex flex-wrap gap-2">
+            {Object.entries(r.hoursByConfig).map(([cid, requested]) => {
+              const name = configs.find((c) => c.configurationId === Number(cid))?.name ?? cid;
+              return (
+                <label key={cid} className="flex items-center gap-1 whitespace-nowrap">
+                  <span className="text-xs text-night-600">{name}</span>
+                  <input
+                    aria-label={`Hours of ${r.title} on ${name}`}
+                    name={`hours-${r.proposalId}-${cid}`}
+                    inputMode="decimal"
+                    value={e.hours[Number(cid)] ?? ""}
+                    disabled={locked(r) || e.decision !== "accept"}
+                    onChange={(ev) => set(r.proposalId, { hours: { ...e.hours, [Number(cid)]: ev.target.value } })}
+                    aria-invalid={invalid(`hours-${r.proposalId}-${cid}`)}
+                    className={cx("w-16", control)}
+                  />
+                  <span className="num text-xs text-night-500">/ {requested}</span>
+                </label>
+              );
+            })}
+          </div>
+        );
+      },
+    },
+    {
+      key: "message",
+      header: "Message to the team",
+      value: (r) => entries[r.proposalId].message,
+      render: (r) => (
+        <textarea
+          aria-label={`Message to the team of ${r.title}`}
+          name={`message-${r.proposalId}`}
+          value={entries[r.proposalId].message}
+          disabled={locked(r)}
+          maxLength={2000}
+          rows={1}
+          onChange={(ev) => set(r.proposalId, { message: ev.target.value })}
+          className={cx("w-56", control)}
+        />
+      ),
+    },
+  ];
 }
 
 export function AllocationWorkbench({
@@ -133,117 +261,15 @@ export function AllocationWorkbench({
             Rows marked “suggested” start from the suggested allocation (the ranking walked while the LST bins have
             room; half of the request at least, else waiting list). Grades use the scale {d.cycle.scaleText}.
           </p>
-          <div className="overflow-x-auto rounded-lg ring-1 ring-night-200">
-            <table className="min-w-full text-sm">
-              <caption className="sr-only">Grades, decisions and hours per proposal</caption>
-              <thead className="bg-night-100/70 text-left">
-                <tr>
-                  <th scope="col" className="px-2 py-1 font-semibold">
-                    #
-                  </th>
-                  <th scope="col" className="px-2 py-1 font-semibold">
-                    Proposal
-                  </th>
-                  <th scope="col" className="px-2 py-1 font-semibold">
-                    Final grade (score)
-                  </th>
-                  <th scope="col" className="px-2 py-1 font-semibold">
-                    Decision
-                  </th>
-                  <th scope="col" className="px-2 py-1 font-semibold">
-                    Hours granted (h)
-                  </th>
-                  <th scope="col" className="px-2 py-1 font-semibold">
-                    Message to the team
-                  </th>
-                </tr>
-              </thead>
-              <tbody className="divide-y divide-night-100">
-                {d.rows.map((r) => {
-                  const e = entries[r.proposalId];
-                  const locked = !deciding || r.releasedAt !== null || r.status !== "under_review";
-                  return (
-                    <tr key={r.proposalId} className={r.belowTriage ? "bg-night-50" : undefined}>
-                      <td className="num px-2 py-1 align-top">{r.position}</td>
-                      <td className="px-2 py-1 align-top">
-                        <span className="font-medium">{r.title}</span>
-                        <span className="block text-xs text-night-600">
-                          {r.suggestion.decision}: {r.suggestion.reason}
-                        </span>
-                        {e.suggested && !locked ? <Badge tone="info">suggested</Badge> : null}
-                        {r.releasedAt ? <Badge tone="ok">sent</Badge> : null}
-                      </td>
-                      <td className="px-2 py-1 align-top">
-                        <input
-                          aria-label={`Final grade of ${r.title}`}
-                          name={`grade-${r.proposalId}`}
-                          inputMode="decimal"
-                          value={e.grade}
-                          disabled={locked}
-                          onChange={(ev) => set(r.proposalId, { grade: ev.target.value })}
-                          aria-invalid={errors[`grade-${r.proposalId}`] ? true : undefined}
-                          className="w-16 rounded border border-night-300 px-2 py-1 focus-visible:outline-3 focus-visible:outline-ember-500"
-                        />
-                      </td>
-                      <td className="px-2 py-1 align-top">
-                        <select
-                          aria-label={`Decision on ${r.title}`}
-                          name={`decision-${r.proposalId}`}
-                          value={e.decision}
-                          disabled={locked}
-                          onChange={(ev) => set(r.proposalId, { decision: ev.target.value })}
-                          aria-invalid={errors[`decision-${r.proposalId}`] ? true : undefined}
-                          className="rounded border border-night-300 bg-white px-2 py-1 focus-visible:outline-3 focus-visible:outline-ember-500"
-                        >
-                          <option value="">—</option>
-                          <option value="accept">accept</option>
-                          <option value="waitlist">waiting list</option>
-                          <option value="decline">decline</option>
-                        </select>
-                      </td>
-                      <td className="px-2 py-1 align-top">
-                        <div className="flex flex-wrap gap-2">
-                          {Object.entries(r.hoursByConfig).map(([cid, requested]) => {
-                            const name = configs.find((c) => c.configurationId === Number(cid))?.name ?? cid;
-                            return (
-                              <label key={cid} className="flex items-center gap-1 whitespace-nowrap">
-                                <span className="text-xs text-night-600">{name}</span>
-                                <input
-                                  aria-label={`Hours of ${r.title} on ${name}`}
-                                  name={`hours-${r.proposalId}-${cid}`}
-                                  inputMode="decimal"
-                                  value={e.hours[Number(cid)] ?? ""}
-                                  disabled={locked || e.decision !== "accept"}
-                                  onChange={(ev) =>
-                                    set(r.proposalId, { hours: { ...e.hours, [Number(cid)]: ev.target.value } })
-                                  }
-                                  aria-invalid={errors[`hours-${r.proposalId}-${cid}`] ? true : undefined}
-                                  className="w-16 rounded border border-night-300 px-2 py-1 focus-visible:outline-3 focus-visible:outline-ember-500"
-                                />
-                                <span className="num text-xs text-night-500">/ {requested}</span>
-                              </label>
-                            );
-                          })}
-                        </div>
-                      </td>
-                      <td className="px-2 py-1 align-top">
-                        <textarea
-                          aria-label={`Message to the team of ${r.title}`}
-                          name={`message-${r.proposalId}`}
-                          value={e.message}
-                          disabled={locked}
-                          maxLength={2000}
-                          rows={1}
-                          onChange={(ev) => set(r.proposalId, { message: ev.target.value })}
-                          className="w-56 rounded border border-night-300 px-2 py-1 focus-visible:outline-3 focus-visible:outline-ember-500"
-                        />
-                      </td>
-                    </tr>
-                  );
-                })}
-              </tbody>
-            </table>
-          </div>
+          <DataTable
+            columns={decisionColumns({ configs, entries, errors, set, locked: (r) => lockedRow(r, deciding) })}
+            rows={d.rows}
+            rowKey={(r) => r.proposalId}
+            caption="Grades, decisions and hours per proposal"
+            exportName={`decisions-${d.cycle.name}`}
+            density="compact"
+            rowProps={(r) => ({ className: cx("*:align-top", r.belowTriage && "bg-night-50") })}
+          />
           {deciding ? (
             <div className="mt-4 flex flex-wrap gap-2">
               <Button type="submit" disabled={busy || open.length === 0}>

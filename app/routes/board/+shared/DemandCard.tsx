@@ -1,6 +1,18 @@
 /** Demand per configuration: hours requested against hours available, and the oversubscription. */
-import { Card } from "~/components/ui";
+import { Card, type Column, DataTable, fixedColumn } from "~/components/ui";
 import type { BoardPageData } from "~/services/committee/board-page.server";
+
+type Demand = BoardPageData["pressure"]["configurations"][number];
+
+const columns: Column<Demand>[] = [
+  { key: "configuration", header: "Configuration", rowHeader: true, value: (c) => c.name },
+  fixedColumn({ key: "nights", header: "Nights", digits: 0, missing: "not fixed", value: (c) => c.nights }),
+  fixedColumn({ key: "available", header: "Available", unit: "h", digits: 1, value: (c) => c.capacityTotalH }),
+  fixedColumn({ key: "requested", header: "Requested", unit: "h", digits: 1, value: (c) => c.requestedTotalH }),
+  fixedColumn({ key: "unplaceable", header: "Not placeable", unit: "h", digits: 1, value: (c) => c.unplaceableH }),
+  fixedColumn({ key: "over", header: "Oversubscription", unit: "×", digits: 2, value: (c) => c.oversubscription }),
+  fixedColumn({ key: "suggested", header: "Suggested", unit: "h", digits: 1, value: (c) => c.suggestedTotalH }),
+];
 
 export function DemandCard({ pressure }: { pressure: BoardPageData["pressure"] }) {
   return (
@@ -9,53 +21,14 @@ export function DemandCard({ pressure }: { pressure: BoardPageData["pressure"] }
         Available = nights on offer × mean hours of astronomical darkness per night over the {pressure.periodNights}{" "}
         nights of the period. Oversubscription = requested ÷ available.
       </p>
-      <div className="overflow-x-auto">
-        <table className="min-w-full text-sm">
-          <caption className="sr-only">Hours requested and available per configuration</caption>
-          <thead>
-            <tr className="text-left text-night-700">
-              <th scope="col" className="py-1 pr-3 font-semibold">
-                Configuration
-              </th>
-              <th scope="col" className="py-1 pr-3 text-right font-semibold">
-                Nights
-              </th>
-              <th scope="col" className="py-1 pr-3 text-right font-semibold">
-                Available (h)
-              </th>
-              <th scope="col" className="py-1 pr-3 text-right font-semibold">
-                Requested (h)
-              </th>
-              <th scope="col" className="py-1 pr-3 text-right font-semibold">
-                Not placeable (h)
-              </th>
-              <th scope="col" className="py-1 pr-3 text-right font-semibold">
-                Oversubscription (×)
-              </th>
-              <th scope="col" className="py-1 text-right font-semibold">
-                Suggested (h)
-              </th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-night-100">
-            {pressure.configurations.map((c) => (
-              <tr key={c.configurationId}>
-                <th scope="row" className="py-1 pr-3 text-left font-medium">
-                  {c.name}
-                </th>
-                <td className="num py-1 pr-3 text-right">{c.nights ?? "not fixed"}</td>
-                <td className="num py-1 pr-3 text-right">{c.capacityTotalH.toFixed(1)}</td>
-                <td className="num py-1 pr-3 text-right">{c.requestedTotalH.toFixed(1)}</td>
-                <td className="num py-1 pr-3 text-right">{c.unplaceableH.toFixed(1)}</td>
-                <td className="num py-1 pr-3 text-right">
-                  {c.oversubscription === null ? "—" : c.oversubscription.toFixed(2)}
-                </td>
-                <td className="num py-1 text-right">{c.suggestedTotalH.toFixed(1)}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        columns={columns}
+        rows={pressure.configurations}
+        rowKey={(c) => c.configurationId}
+        caption="Hours requested and available per configuration"
+        exportName="demand-per-configuration"
+        density="compact"
+      />
       {pressure.unplaceable.length ? (
         <ul className="mt-3 grid gap-1 text-sm text-caution-700">
           {pressure.unplaceable.map((u) => (

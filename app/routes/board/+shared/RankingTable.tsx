@@ -141,33 +141,23 @@ export function RankingTable({
           ))}
         </SelectField>
         <div className="grid content-end gap-1 text-sm">
-          <label className="flex items-center gap-2">
-            <input
-              type="checkbox"
-              checked={disagreementOnly}
-              onChange={(e) => setDisagreementOnly(e.target.checked)}
-              className="h-4 w-4 accent-ember-700"
-            />
-            Disagreements only
-          </label>
-          <label className="flex items-center gap-2">
-            <input
-              type="checkbox"
-              checked={aboveOnly}
-              onChange={(e) => setAboveOnly(e.target.checked)}
-              className="h-4 w-4 accent-ember-700"
-            />
-            Above the triage line only
-          </label>
-          <label className="flex items-center gap-2">
-            <input
-              type="checkbox"
-              checked={names}
-              onChange={(e) => setNames(e.target.checked)}
-              className="h-4 w-4 accent-ember-700"
-            />
-            Show reviewer names (chair only)
-          </label>
+          {(
+            [
+              ["Disagreements only", disagreementOnly, setDisagreementOnly],
+              ["Above the triage line only", aboveOnly, setAboveOnly],
+              ["Show reviewer names (chair only)", names, setNames],
+            ] as const
+          ).map(([text, checked, setChecked]) => (
+            <label key={text} className="flex items-center gap-2">
+              <input
+                type="checkbox"
+                checked={checked}
+                onChange={(e) => setChecked(e.target.checked)}
+                className="h-4 w-4 accent-ember-700"
+              />
+              {text}
+            </label>
+          ))}
         </div>
       </search>
       <p className="mb-2 text-sm text-night-600" aria-live="polite">

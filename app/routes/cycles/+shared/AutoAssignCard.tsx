@@ -1,6 +1,6 @@
 /** Auto-assign: how many reviewers per proposal, the preview of what a run adds, and saving it. */
 import { Form } from "react-router";
-import { Alert, Button, Card, TextField } from "~/components/ui";
+import { Alert, Button, Card, type Column, DataTable, TextField } from "~/components/ui";
 
 export type AutoAssignPreview = {
   perProposal: number;
@@ -9,6 +9,11 @@ export type AutoAssignPreview = {
   shortfalls: { proposal: string; title: string; assigned: number; needed: number; reason: string }[];
   warnings: string[];
 };
+
+const addedColumns: Column<AutoAssignPreview["added"][number]>[] = [
+  { key: "proposal", header: "Proposal", value: (a) => a.title },
+  { key: "reviewer", header: "Reviewer", value: (a) => a.reviewer },
+];
 
 export function AutoAssignCard({
   perProposal,
@@ -49,29 +54,15 @@ export function AutoAssignCard({
               : `${preview.added.length} new assignment${preview.added.length === 1 ? "" : "s"}; loads after the run from ${Math.min(...loads)} to ${Math.max(...loads)} per reviewer.`}
           </p>
           {preview.added.length > 0 ? (
-            <div className="max-h-72 overflow-auto rounded-lg ring-1 ring-night-200">
-              <table className="w-full text-sm">
-                <caption className="sr-only">New assignments of the preview</caption>
-                <thead className="bg-night-100/70">
-                  <tr className="text-left">
-                    <th scope="col" className="px-3 py-1 font-semibold">
-                      Proposal
-                    </th>
-                    <th scope="col" className="px-3 py-1 font-semibold">
-                      Reviewer
-                    </th>
-                  </tr>
-                </thead>
-                <tbody className="divide-y divide-night-100">
-                  {preview.added.map((a) => (
-                    <tr key={`${a.proposalId}:${a.reviewerId}`}>
-                      <td className="px-3 py-1">{a.title}</td>
-                      <td className="px-3 py-1">{a.reviewer}</td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
+            <DataTable
+              columns={addedColumns}
+              rows={preview.added}
+              rowKey={(a) => `${a.proposalId}:${a.reviewerId}`}
+              caption="New assignments of the preview"
+              exportName="auto-assign-preview"
+              density="compact"
+              className="max-h-72 overflow-y-auto"
+            />
           ) : null}
           <p className="text-sm text-night-700">
             Loads after the run:{" "}

@@ -1,3 +1,4 @@
+import type { ReactNode } from "react";
 import { Form } from "react-router";
 import { Card, FormErrors, PageHeader, TextField } from "~/components/ui";
 import { FieldList, type FieldSpec, GroupError, SubmitButton } from "~/components/ui/FieldList";
@@ -31,23 +32,42 @@ const COMMITTEE_FIELDS: FieldSpec[] = [
   { name: "scoreWorst", label: "Poorest score", inputMode: "numeric", required: true, hint: "Default 5 (poorest)." },
 ];
 
+/** A labelled checkbox of a multiple choice, ticked when its value is among those the form holds. */
+function Tick({
+  name,
+  value,
+  ticked,
+  className,
+  children,
+}: {
+  name: string;
+  value: number;
+  ticked: string[];
+  className: string;
+  children: ReactNode;
+}) {
+  return (
+    <label className={className}>
+      <input
+        type="checkbox"
+        name={name}
+        value={value}
+        defaultChecked={ticked.includes(String(value))}
+        className="mt-1 h-4 w-4 accent-ember-700"
+      />
+      <span>{children}</span>
+    </label>
+  );
+}
+
 /** A person who may sit on the committee, ticked when on it. */
 function MemberRow({ reviewer, values }: { reviewer: ReviewerChoice; values: CycleFormValues }) {
   return (
     <li className="py-2">
-      <label className="flex items-start gap-2">
-        <input
-          type="checkbox"
-          name="committee"
-          value={reviewer.id}
-          defaultChecked={values.committee.includes(String(reviewer.id))}
-          className="mt-1 h-4 w-4 accent-ember-700"
-        />
-        <span>
-          <span className="font-medium">{reviewer.name}</span>{" "}
-          <span className="text-sm text-night-600">{reviewer.institute}</span>
-        </span>
-      </label>
+      <Tick name="committee" value={reviewer.id} ticked={values.committee} className="flex items-start gap-2">
+        <span className="font-medium">{reviewer.name}</span>{" "}
+        <span className="text-sm text-night-600">{reviewer.institute}</span>
+      </Tick>
     </li>
   );
 }
@@ -61,20 +81,11 @@ function OfferRow({
   const nights = `nights-${choice.id}`;
   return (
     <li className="flex flex-wrap items-center gap-4 py-3">
-      <label className="flex min-w-56 flex-1 items-start gap-2">
-        <input
-          type="checkbox"
-          name="offered"
-          value={choice.id}
-          defaultChecked={values.offered.includes(String(choice.id))}
-          className="mt-1 h-4 w-4 accent-ember-700"
-        />
-        <span>
-          <span className="font-medium">{choice.name}</span>{" "}
-          <span className="text-sm text-night-600">({choice.stations} stations)</span>
-          <span className="block text-sm text-night-600">{choice.description}</span>
-        </span>
-      </label>
+      <Tick name="offered" value={choice.id} ticked={values.offered} className="flex min-w-56 flex-1 items-start gap-2">
+        <span className="font-medium">{choice.name}</span>{" "}
+        <span className="text-sm text-night-600">({choice.stations} stations)</span>
+        <span className="block text-sm text-night-600">{choice.description}</span>
+      </Tick>
       {/* Wide enough for "Nights for extended-6 (nights)" on one line: a name never breaks at its hyphen. */}
       <div className="w-full sm:w-64">
         <TextField

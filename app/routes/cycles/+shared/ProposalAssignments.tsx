@@ -1,6 +1,6 @@
 /** Each proposal of the cycle with its reviewers, their progress, declines and conflicts; assign by hand. */
 import { Form } from "react-router";
-import { Badge, Button, Card } from "~/components/ui";
+import { Badge, Button, Card, IntentButton } from "~/components/ui";
 
 type Row = {
   id: number;
@@ -46,18 +46,14 @@ export function ProposalAssignments({ proposals, editable }: { proposals: Row[];
                     <Badge tone={PROGRESS_TONE[a.progress]}>{a.progress}</Badge>
                   )}
                   {editable && a.status === "active" && a.progress === "not started" ? (
-                    <Form method="post">
-                      <input type="hidden" name="intent" value="remove" />
-                      <input type="hidden" name="assignmentId" value={a.id} />
-                      <Button
-                        type="submit"
-                        size="sm"
-                        variant="ghost"
-                        aria-label={`Take back ${a.reviewer} from ${p.title}`}
-                      >
-                        Take back
-                      </Button>
-                    </Form>
+                    <IntentButton
+                      intent="remove"
+                      hidden={{ assignmentId: a.id }}
+                      variant="ghost"
+                      label={`Take back ${a.reviewer} from ${p.title}`}
+                    >
+                      Take back
+                    </IntentButton>
                   ) : null}
                 </li>
               ))}

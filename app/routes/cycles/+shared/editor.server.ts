@@ -8,7 +8,7 @@ import type { Database } from "~/db/client.server";
 import { requireFormBody } from "~/lib/body.server";
 import { redirectWithFlash } from "~/lib/flash.server";
 import type { FieldErrors } from "~/lib/form-errors";
-import { invariantResponse, toId } from "~/lib/not-found";
+import { rowOfParam } from "~/lib/not-found";
 import { configurationChoices } from "~/services/cycles/configurations.server";
 import {
   committeeOf,
@@ -23,11 +23,8 @@ import { blankCycleValues, cycleFormValues, parseCycleForm, valuesOfCycle } from
 type StoredCycle = NonNullable<Awaited<ReturnType<typeof getCycle>>>;
 
 /** The cycle `raw` names, or the 404 page. */
-export async function cycleOfParam(db: Database, raw: string | undefined): Promise<StoredCycle> {
-  const cycleId = toId(raw);
-  const cycle = cycleId === null ? null : await getCycle(db, { cycleId });
-  invariantResponse(cycle, "No cycle with this number.");
-  return cycle;
+export function cycleOfParam(db: Database, raw: string | undefined): Promise<StoredCycle> {
+  return rowOfParam(raw, (cycleId) => getCycle(db, { cycleId }), "No cycle with this number.");
 }
 
 /** The configurations to offer, and the form's values: the cycle's, or a blank form offering them all. */

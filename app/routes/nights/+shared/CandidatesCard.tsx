@@ -5,6 +5,11 @@ import { utcTime } from "~/services/nights/sky";
 const hm = (iso: string) => utcTime(iso).slice(0, 5);
 const round2 = (x: number) => Math.round(x * 100) / 100;
 
+/** Hours of a program, to 0.01 h. */
+function hoursColumn(key: string, header: string, hours: (c: CandidateRow) => number): Column<CandidateRow> {
+  return { key, header, unit: "h", align: "right", value: (c) => round2(hours(c)) };
+}
+
 const columns: Column<CandidateRow>[] = [
   { key: "rank", header: "Rank", align: "right", value: (c) => c.rank },
   { key: "target", header: "Target", value: (c) => c.key },
@@ -19,16 +24,10 @@ const columns: Column<CandidateRow>[] = [
       </span>
     ),
   },
-  { key: "granted", header: "Granted", unit: "h", align: "right", value: (c) => round2(c.grantedHours) },
-  { key: "owed", header: "Owed at dusk", unit: "h", align: "right", value: (c) => round2(c.owedHours) },
-  {
-    key: "tonight",
-    header: "Executed tonight",
-    unit: "h",
-    align: "right",
-    value: (c) => round2(c.executedTonightHours),
-  },
-  { key: "owedNow", header: "Still owed", unit: "h", align: "right", value: (c) => round2(c.owedNowHours) },
+  hoursColumn("granted", "Granted", (c) => c.grantedHours),
+  hoursColumn("owed", "Owed at dusk", (c) => c.owedHours),
+  hoursColumn("tonight", "Executed tonight", (c) => c.executedTonightHours),
+  hoursColumn("owedNow", "Still owed", (c) => c.owedNowHours),
   {
     key: "window",
     header: "Window tonight (UTC)",

@@ -1,28 +1,24 @@
-import { type DragEvent, useEffect, useRef, useState } from "react";
+import { type DragEvent, type ReactNode, useEffect, useRef, useState } from "react";
 import { useFetcher } from "react-router";
-import { Badge, type BadgeTone, Button, cx } from "~/components/ui";
-import type { BlockOutcome } from "~/db/schema/nights";
+import { OutcomeBadge, outcomeWords } from "~/components/nights/OutcomeBadge";
+import { Badge, Button, type Column, cx, DataTable, fixedColumn } from "~/components/ui";
 import { lstText, utcTime } from "~/services/nights/sky";
 import type { BlockView } from "~/services/nights/view";
 import { FetcherResult } from "./FetcherResult";
 import type { NightActionData } from "./intents.server";
 
-const OUTCOME_TONE: Record<BlockOutcome, BadgeTone> = {
-  planned: "neutral",
-  executed: "ok",
-  weather: "caution",
-  technical: "danger",
-};
-const OUTCOME_WORDS: Record<BlockOutcome, string> = {
-  planned: "planned",
-  executed: "executed",
-  weather: "lost to weather",
-  technical: "lost to a technical fault",
-};
-
 const f1 = (x: number | null | undefined, digits = 1) => (x === null || x === undefined ? "—" : x.toFixed(digits));
 const minutes = (b: BlockView) => Math.round((Date.parse(b.endUtc) - Date.parse(b.startUtc)) / 60_000);
 const describe = (b: BlockView) => `block ${b.position} (${b.kind} ${b.object})`;
+
+/** The label of a control whose column header says what it is: read by screen readers only. */
+function HiddenLabel({ htmlFor, children }: { htmlFor: string; children: ReactNode }) {
+  return (
+    <label className="sr-only" htmlFor={htmlFor}>
+      {children}
+    </label>
+  );
+}
 
 function EditControls({
   b,
@@ -56,9 +52,7 @@ function EditControls({
       >
         ↓
       </Button>
-      <label className="sr-only" htmlFor={`length-${b.id}`}>
-        Length of {describe(b)} in minutes
-      </label>
+      <HiddenLabel htmlFor={`length-${b.id}`}>Length of {describe(b)} in minutes</HiddenLabel>
       <input
         id={`length-${b.id}`}
         type="number"
@@ -101,9 +95,7 @@ function MarkControls({ b }: { b: BlockView }) {
       <div className="flex items-center gap-1 whitespace-nowrap">
         <input type="hidden" name="intent" value="mark" />
         <input type="hidden" name="blockId" value={b.id} />
-        <label className="sr-only" htmlFor={`outcome-${b.id}`}>
-          Outcome of {describe(b)}
-        </label>
+        <HiddenLabel htmlFor={`outcome-${b.id}`}>Outcome of {describe(b)}</HiddenLabel>
         <select
           id={`outcome-${b.id}`}
           name="outcome"
@@ -115,9 +107,7 @@ function MarkControls({ b }: { b: BlockView }) {
           <option value="technical">technical fault</option>
           <option value="planned">back to planned</option>
         </select>
-        <label className="sr-only" htmlFor={`note-${b.id}`}>
-          Note on {describe(b)}
-        </label>
+        <HiddenLabel htmlFor={`note-${b.id}`}>Note on {describe(b)}</HiddenLabel>
         <input
           id={`note-${b.id}`}
           name="note"
@@ -135,6 +125,141 @@ function MarkControls({ b }: { b: BlockView }) {
       ) : null}
     </fetcher.Form>
   );
+}
+
+function Checks({ b }: { b: BlockView }) {
+  return (
+    <>
+      {b.outcome !== "planned" ? <OutcomeBadge outcome={b.outcome} /> : null}
+      {b.note ? <span className="block text-xs text-night-600">{b.note}</span> : null}
+      {b.violations.length ? (
+        <ul className="space-y-0.5 text-xs font-medium text-danger-700" aria-label={`Problems of ${describe(b)}`}>
+          {b.violations.map((v) => (
+            <li key={v.rule + v.reason}>
+              ⚠ {v.rule}: {v.reason}
+            </li>
+          ))}
+        </ul>
+      ) : b.outcome === "planned" ? (
+        <span className="text-xs text-ok-700">✓ within every limit</span>
+      ) : null}
+    </>
+  );
+}
+
+type Figure =
+  | "hourAngleStartH"
+  | "hourAngleEndH"
+  | "elevationStartDeg"
+  | "elevationEndDeg"
+  | "airmassStart"
+  | "airmassEnd";
+
+/**
+ * A figure the planner gives at both ends of a block, shown "start → end" and sorted by the start;
+ * "—" for a block without figures.
+ */
+function figureColumn(
+  column: Pick<Column<BlockView>, "key" | "header" | "unit">,
+  [start, end]: [Figure, Figure],
+  digits: number,
+): Column<BlockView> {
+  return {
+    ...column,
+    align: "right",
+    className: "whitespace-nowrap",
+    value: (b) => b.fields?.[start] ?? null,
+    render: (b) => (b.fields ? `${f1(b.fields[start], digits)} → ${f1(b.fields[end], digits)}` : "—"),
+  };
+}
+
+function Position({ b, handle }: { b: BlockView; handle: boolean }) {
+  return (
+    <>
+      {handle && !b.locked ? (
+        <span aria-hidden="true" className="mr-1 cursor-grab text-night-400" title="Drag to move">
+          ⠿
+        </span>
+      ) : null}
+      {b.position}
+    </>
+  );
+}
+
+function planColumns(
+  mode: "edit" | "mark" | "read",
+  blocks: BlockView[],
+  submit: (f: Record<string, string>) => void,
+): Column<BlockView>[] {
+  const columns: Column<BlockView>[] = [
+    {
+      key: "position",
+      header: "#",
+      className: "num",
+      value: (b) => b.position,
+      render: (b) => <Position b={b} handle={mode === "edit"} />,
+    },
+    {
+      key: "block",
+      header: "Block",
+      value: (b) => `${b.kind} ${b.object}`,
+      render: (b) => (
+        <>
+          <Badge tone={b.kind === "science" ? "accent" : "info"}>{b.kind}</Badge>{" "}
+          <span className="font-medium">{b.object}</span>
+          {b.kind === "calibrator" ? <span className="block text-xs text-night-600">for {b.target}</span> : null}
+        </>
+      ),
+    },
+    {
+      key: "utc",
+      header: "Start – end",
+      unit: "UTC",
+      align: "right",
+      className: "whitespace-nowrap",
+      value: (b) => b.startUtc,
+      render: (b) => `${utcTime(b.startUtc).slice(0, 8)} – ${utcTime(b.endUtc)}`,
+    },
+    {
+      key: "lst",
+      header: "LST start – end",
+      align: "right",
+      className: "whitespace-nowrap",
+      value: (b) => b.fields?.startLstH ?? null,
+      render: (b) => (b.fields ? `${lstText(b.fields.startLstH)} – ${lstText(b.endLstH)}` : "—"),
+    },
+    figureColumn({ key: "ha", header: "Hour angle", unit: "h" }, ["hourAngleStartH", "hourAngleEndH"], 2),
+    figureColumn({ key: "elevation", header: "Elevation", unit: "°" }, ["elevationStartDeg", "elevationEndDeg"], 1),
+    figureColumn({ key: "airmass", header: "Air mass" }, ["airmassStart", "airmassEnd"], 2),
+    fixedColumn({
+      key: "moon",
+      header: "Moon",
+      unit: "°",
+      digits: 1,
+      value: (b) => b.fields?.moonSeparationDeg ?? null,
+    }),
+    {
+      key: "checks",
+      header: "Checks and outcome",
+      value: (b) => b.violations.map((v) => v.rule).join(", ") || outcomeWords(b.outcome),
+      render: (b) => <Checks b={b} />,
+    },
+  ];
+  const last = blocks.at(-1)?.id;
+  if (mode !== "read")
+    columns.push({
+      key: mode,
+      header: mode === "edit" ? "Edit" : "Mark",
+      controls: true,
+      value: () => null,
+      render: (b) =>
+        mode === "edit" ? (
+          <EditControls key={`${b.id}-${b.endUtc}`} b={b} last={b.id === last} submit={submit} />
+        ) : (
+          <MarkControls key={`${b.id}-${b.outcome}`} b={b} />
+        ),
+    });
+  return columns;
 }
 
 /** The plan's blocks in time order, each with its figures, its violations and the controls the plan's state allows. */
@@ -174,131 +299,29 @@ export function PlanTable({ blocks, mode }: { blocks: BlockView[]; mode: "edit" 
         </p>
       ) : null}
       <FetcherResult data={fetcher.data} />
-      <div className="relative overflow-x-auto rounded-lg ring-1 ring-night-200">
-        <table className="min-w-full divide-y divide-night-200 bg-white text-sm">
-          <caption className="sr-only">Blocks of the plan in time order</caption>
-          <thead className="bg-night-100/70 text-left">
-            <tr>
-              <th scope="col" className="px-2 py-2">
-                #
-              </th>
-              <th scope="col" className="px-2 py-2">
-                Block
-              </th>
-              <th scope="col" className="px-2 py-2 text-right">
-                Start – end (UTC)
-              </th>
-              <th scope="col" className="px-2 py-2 text-right">
-                LST start – end
-              </th>
-              <th scope="col" className="px-2 py-2 text-right">
-                Hour angle (h)
-              </th>
-              <th scope="col" className="px-2 py-2 text-right">
-                Elevation (°)
-              </th>
-              <th scope="col" className="px-2 py-2 text-right">
-                Air mass
-              </th>
-              <th scope="col" className="px-2 py-2 text-right">
-                Moon (°)
-              </th>
-              <th scope="col" className="px-2 py-2">
-                Checks and outcome
-              </th>
-              {mode !== "read" ? (
-                <th scope="col" className="px-2 py-2">
-                  {mode === "edit" ? "Edit" : "Mark"}
-                </th>
-              ) : null}
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-night-100">
-            {blocks.map((b, i) => {
-              const x = b.fields;
-              return (
-                <tr
-                  key={b.id}
-                  data-block={b.id}
-                  draggable={mode === "edit" && !b.locked}
-                  onDragStart={(e) => {
-                    e.dataTransfer.setData("text/plain", String(b.id));
-                    setDragging(b.id);
-                  }}
-                  onDragEnd={() => setDragging(null)}
-                  onDragOver={(e) => mode === "edit" && e.preventDefault()}
-                  onDrop={(e) => onDrop(e, b)}
-                  className={cx(
-                    b.violations.length ? "bg-danger-50/60" : b.outcome !== "planned" ? "bg-night-50" : undefined,
-                    dragging === b.id && "opacity-50",
-                  )}
-                >
-                  <td className="num px-2 py-1.5 align-top">
-                    {mode === "edit" && !b.locked ? (
-                      <span aria-hidden="true" className="mr-1 cursor-grab text-night-400" title="Drag to move">
-                        ⠿
-                      </span>
-                    ) : null}
-                    {b.position}
-                  </td>
-                  <td className="px-2 py-1.5 align-top">
-                    <Badge tone={b.kind === "science" ? "accent" : "info"}>{b.kind}</Badge>{" "}
-                    <span className="font-medium">{b.object}</span>
-                    {b.kind === "calibrator" ? (
-                      <span className="block text-xs text-night-600">for {b.target}</span>
-                    ) : null}
-                  </td>
-                  <td className="num whitespace-nowrap px-2 py-1.5 text-right align-top">
-                    {utcTime(b.startUtc).slice(0, 8)} – {utcTime(b.endUtc)}
-                  </td>
-                  <td className="num whitespace-nowrap px-2 py-1.5 text-right align-top">
-                    {x ? `${lstText(x.startLstH)} – ${lstText(b.endLstH)}` : "—"}
-                  </td>
-                  <td className="num whitespace-nowrap px-2 py-1.5 text-right align-top">
-                    {x ? `${f1(x.hourAngleStartH, 2)} → ${f1(x.hourAngleEndH, 2)}` : "—"}
-                  </td>
-                  <td className="num whitespace-nowrap px-2 py-1.5 text-right align-top">
-                    {x ? `${f1(x.elevationStartDeg)} → ${f1(x.elevationEndDeg)}` : "—"}
-                  </td>
-                  <td className="num whitespace-nowrap px-2 py-1.5 text-right align-top">
-                    {x ? `${f1(x.airmassStart, 2)} → ${f1(x.airmassEnd, 2)}` : "—"}
-                  </td>
-                  <td className="num px-2 py-1.5 text-right align-top">{f1(x?.moonSeparationDeg)}</td>
-                  <td className="px-2 py-1.5 align-top">
-                    {b.outcome !== "planned" ? (
-                      <Badge tone={OUTCOME_TONE[b.outcome]}>{OUTCOME_WORDS[b.outcome]}</Badge>
-                    ) : null}
-                    {b.note ? <span className="block text-xs text-night-600">{b.note}</span> : null}
-                    {b.violations.length ? (
-                      <ul
-                        className="space-y-0.5 text-xs font-medium text-danger-700"
-                        aria-label={`Problems of ${describe(b)}`}
-                      >
-                        {b.violations.map((v) => (
-                          <li key={v.rule + v.reason}>
-                            ⚠ {v.rule}: {v.reason}
-                          </li>
-                        ))}
-                      </ul>
-                    ) : b.outcome === "planned" ? (
-                      <span className="text-xs text-ok-700">✓ within every limit</span>
-                    ) : null}
-                  </td>
-                  {mode === "edit" ? (
-                    <td className="px-2 py-1.5 align-top">
-                      <EditControls key={`${b.id}-${b.endUtc}`} b={b} last={i === blocks.length - 1} submit={submit} />
-                    </td>
-                  ) : mode === "mark" ? (
-                    <td className="px-2 py-1.5 align-top">
-                      <MarkControls key={`${b.id}-${b.outcome}`} b={b} />
-                    </td>
-                  ) : null}
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        columns={planColumns(mode, blocks, submit)}
+        rows={blocks}
+        caption="Blocks of the plan in time order"
+        density="compact"
+        className="relative"
+        rowProps={(b) => ({
+          "data-block": b.id,
+          draggable: mode === "edit" && !b.locked,
+          onDragStart: (e) => {
+            e.dataTransfer.setData("text/plain", String(b.id));
+            setDragging(b.id);
+          },
+          onDragEnd: () => setDragging(null),
+          onDragOver: (e) => mode === "edit" && e.preventDefault(),
+          onDrop: (e) => onDrop(e, b),
+          className: cx(
+            "*:align-top",
+            b.violations.length ? "bg-danger-50/60" : b.outcome !== "planned" ? "bg-night-50" : undefined,
+            dragging === b.id && "opacity-50",
+          ),
+        })}
+      />
     </div>
   );
 }

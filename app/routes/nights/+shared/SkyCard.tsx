@@ -1,5 +1,26 @@
-import { Card, DetailList } from "~/components/ui";
-import { lstText, moonPhaseText, type NightSkySummary, utcTime } from "~/services/nights/sky";
+import { Card, type Column, DataTable, DetailList } from "~/components/ui";
+import { lstText, moonPhaseText, type NightSkySummary, type SkyEvent, utcTime } from "~/services/nights/sky";
+
+const columns: Column<SkyEvent>[] = [
+  { key: "event", header: "Event", rowHeader: true, className: "whitespace-nowrap", value: (e) => e.label },
+  {
+    key: "utc",
+    header: "UT",
+    align: "right",
+    className: "whitespace-nowrap",
+    value: (e) => e.utc,
+    render: (e) => (e.utc ? `${e.utc.slice(0, 10)} ${utcTime(e.utc)}` : "—"),
+  },
+  { key: "local", header: "Local", align: "right", className: "whitespace-nowrap", value: (e) => e.local },
+  {
+    key: "lst",
+    header: "LST",
+    align: "right",
+    className: "whitespace-nowrap",
+    value: (e) => e.lstH,
+    render: (e) => (e.lstH === null ? "—" : lstText(e.lstH)),
+  },
+];
 
 /** Sunset, twilights and sunrise in UT, local time and LST; the Moon; the configuration. */
 export function SkyCard({
@@ -38,43 +59,13 @@ export function SkyCard({
           },
         ]}
       />
-      <div className="relative overflow-x-auto rounded-lg ring-1 ring-night-200">
-        <table className="min-w-full divide-y divide-night-200 bg-white text-sm">
-          <caption className="sr-only">Sun events of the night in UT, local time and local sidereal time</caption>
-          <thead className="bg-night-100/70">
-            <tr>
-              <th scope="col" className="px-3 py-2 text-left font-semibold">
-                Event
-              </th>
-              <th scope="col" className="px-3 py-2 text-right font-semibold">
-                UT
-              </th>
-              <th scope="col" className="px-3 py-2 text-right font-semibold">
-                Local
-              </th>
-              <th scope="col" className="px-3 py-2 text-right font-semibold">
-                LST
-              </th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-night-100">
-            {sky.events.map((e) => (
-              <tr key={e.key}>
-                <th scope="row" className="whitespace-nowrap px-3 py-1.5 text-left font-normal">
-                  {e.label}
-                </th>
-                <td className="num whitespace-nowrap px-3 py-1.5 text-right">
-                  {e.utc ? `${e.utc.slice(0, 10)} ${utcTime(e.utc)}` : "—"}
-                </td>
-                <td className="num whitespace-nowrap px-3 py-1.5 text-right">{e.local ?? "—"}</td>
-                <td className="num whitespace-nowrap px-3 py-1.5 text-right">
-                  {e.lstH === null ? "—" : lstText(e.lstH)}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        columns={columns}
+        rows={sky.events}
+        caption="Sun events of the night in UT, local time and local sidereal time"
+        exportName={`sun-events-${sky.date}`}
+        density="compact"
+      />
     </Card>
   );
 }

@@ -48,12 +48,7 @@ function BandsCard({ instrument }: { instrument: EditData["instrument"] }) {
       {instrument.bands.length === 0 ? (
         <EmptyState title="No bands yet">Proposals pick an instrument band; add at least one.</EmptyState>
       ) : (
-        <DataTable
-          caption={`Bands of ${instrument.name}`}
-          columns={bandColumns}
-          rows={instrument.bands}
-          rowKey={(b) => b.id}
-        />
+        <DataTable caption={`Bands of ${instrument.name}`} columns={bandColumns} rows={instrument.bands} />
       )}
     </Card>
   );

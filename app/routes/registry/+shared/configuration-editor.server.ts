@@ -37,34 +37,26 @@ const readConfiguration = (form: FormData): editor.FormValues => ({
   offered: form.get("offered") === "on" ? "on" : "off",
 });
 
-function save(
-  { db, actorId }: editor.Admin,
-  values: editor.FormValues,
-  siteId: number,
-  configuration: Configuration | null,
-) {
-  return editor.saveRecord(db, values, {
-    schema: ConfigurationSchema,
-    unique: { entity: "configuration", scopeId: siteId, exceptId: configuration?.id },
-    taken: async (name) => `${name} is already a configuration at ${await editor.siteName(db, siteId)}`,
-    write: async (record) => {
-      const saved = await saveConfiguration(db, { actorId, siteId, id: configuration?.id, values: record });
-      if (!saved.ok) {
-        const unknown = saved.unknownStations;
-        const are = unknown.length > 1 ? "are not stations" : "is not a station";
-        return { refused: { stations: `${unknown.join(", ")} ${are} at ${await editor.siteName(db, siteId)}` } };
-      }
-      const widest = await widestInstrument(db, { siteId });
-      const size = record.stations.length;
-      const note =
-        widest > 0 && size > widest
-          ? ` Note: no instrument combines more than ${widest} telescopes, and it has ${size}.`
-          : "";
-      const text = `Configuration ${record.name} ${configuration ? "saved" : "added"}.${note}`;
-      return { to: overviewHref(siteId), text, kind: note ? "info" : "success" };
-    },
-  });
-}
+const save = editor.siteSaver({
+  schema: ConfigurationSchema,
+  entity: "configuration",
+  write: async ({ db, actorId }, record, siteId, configuration: Configuration | null) => {
+    const saved = await saveConfiguration(db, { actorId, siteId, id: configuration?.id, values: record });
+    if (!saved.ok) {
+      const unknown = saved.unknownStations;
+      const are = unknown.length > 1 ? "are not stations" : "is not a station";
+      return { refused: { stations: `${unknown.join(", ")} ${are} at ${await editor.siteName(db, siteId)}` } };
+    }
+    const widest = await widestInstrument(db, { siteId });
+    const size = record.stations.length;
+    const note =
+      widest > 0 && size > widest
+        ? ` Note: no instrument combines more than ${widest} telescopes, and it has ${size}.`
+        : "";
+    const text = `Configuration ${record.name} ${configuration ? "saved" : "added"}.${note}`;
+    return { to: overviewHref(siteId), text, kind: note ? "info" : "success" };
+  },
+});
 
 /** Deletes the configuration; its stations stay. Refused while proposals or cycles refer to it. */
 const removeConfiguration = ({ form: _form, row, ...who }: editor.Post<Configuration>) =>

@@ -190,6 +190,24 @@ export async function saveRecord<T extends { name: string }>(
 }
 
 /**
+ * The save step of a station or a configuration, as `atSiteActions` takes it: the name unique at the
+ * site (the refusal names the site) among the others than the record edited (null when new).
+ */
+export function siteSaver<Row extends { id: number }, T extends { name: string }>(spec: {
+  schema: v.GenericSchema<unknown, T>;
+  entity: "station" | "configuration";
+  write: (who: Admin, record: T, siteId: number, existing: Row | null) => ReturnType<SaveSpec<T>["write"]>;
+}) {
+  return (who: Admin, values: FormValues, siteId: number, existing: Row | null): Promise<Answer> =>
+    saveRecord(who.db, values, {
+      schema: spec.schema,
+      unique: { entity: spec.entity, scopeId: siteId, exceptId: existing?.id },
+      taken: async (name) => `${name} is already a ${spec.entity} at ${await siteName(who.db, siteId)}`,
+      write: (record) => spec.write(who, record, siteId, existing),
+    });
+}
+
+/**
  * Deletes a configuration, an instrument or a band unless other records still refer to it: then
  * `refusal` stands on the form (status 409) and nothing goes.
  */

@@ -26,24 +26,16 @@ export async function editStationLoader(args: LoaderFunctionArgs) {
   return { station, siteName: map.siteName, usedBy, stations: map.stations };
 }
 
-function saveStation(
-  { db, actorId }: editor.Admin,
-  values: editor.FormValues,
-  siteId: number,
-  station: Station | null,
-) {
-  return editor.saveRecord(db, values, {
-    schema: StationSchema,
-    unique: { entity: "station", scopeId: siteId, exceptId: station?.id },
-    taken: async (name) => `${name} is already a station at ${await editor.siteName(db, siteId)}`,
-    write: async (record) => {
-      if (!station) await insertRecord(db, { actorId, entity: "station", values: { ...record, siteId } });
-      else await updateRecord(db, { actorId, entity: "station", id: station.id, values: record });
-      const text = `Station ${record.name} ${station ? "saved" : "added"}.`;
-      return { to: station ? stationHref(station.id) : overviewHref(siteId), text };
-    },
-  });
-}
+const saveStation = editor.siteSaver({
+  schema: StationSchema,
+  entity: "station",
+  write: async ({ db, actorId }, record, siteId, station: Station | null) => {
+    if (!station) await insertRecord(db, { actorId, entity: "station", values: { ...record, siteId } });
+    else await updateRecord(db, { actorId, entity: "station", id: station.id, values: record });
+    const text = `Station ${record.name} ${station ? "saved" : "added"}.`;
+    return { to: station ? stationHref(station.id) : overviewHref(siteId), text };
+  },
+});
 
 /** Deletes the station, unless a configuration uses it: then says which, and deletes nothing. */
 async function removeStation({ db, actorId, row: station }: editor.Post<Station>) {

@@ -157,7 +157,6 @@ export default function StationPage({ loaderData }: Route.ComponentProps) {
           caption={`Baselines from ${station.name} to every other station: length, direction and east, north, up differences in metres`}
           columns={baselineColumns}
           rows={baselinesFrom(station, stations)}
-          rowKey={(b) => b.id}
           exportName={`baselines-${station.name}`}
         />
       </Card>

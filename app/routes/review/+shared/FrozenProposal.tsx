@@ -4,8 +4,8 @@
  * own read-only pieces.
  */
 import { FeasibilityView } from "~/components/proposals/FeasibilityView";
-import { ProposalFacts } from "~/components/proposals/ProposalFacts";
-import { Badge, Card } from "~/components/ui";
+import { HoursFacts, ProposalFacts, TeamFacts } from "~/components/proposals/ProposalFacts";
+import { Card } from "~/components/ui";
 import type { FeasibilityReport } from "~/services/committee/reading.server";
 
 export type FrozenProposalView = {
@@ -39,28 +39,11 @@ export function FrozenProposal({ p, scienceCaseHref }: { p: FrozenProposalView; 
     <div className="grid min-w-0 content-start gap-6">
       <ProposalFacts category={p.scienceCategory} band={p.band} abstract={p.abstract} />
       <div className="grid gap-6 md:grid-cols-2">
-        <Card title="Team">
-          <ul className="grid gap-1 text-sm">
-            {p.pi ? (
-              <li>
-                <Badge tone="accent">PI</Badge> {p.pi.name} <span className="text-night-600">{p.pi.institute}</span>
-              </li>
-            ) : null}
-            {p.coInvestigators.map((c) => (
-              <li key={c.name}>
-                <Badge>Co-I</Badge> {c.name} <span className="text-night-600">{c.institute ?? ""}</span>
-              </li>
-            ))}
-          </ul>
-        </Card>
-        <Card title="Requested hours">
-          <ul className="num grid gap-1 text-sm">
-            {p.hours.map((h) => (
-              <li key={h.configurationId}>
-                {h.configuration}: {h.hours} h
-              </li>
-            ))}
-          </ul>
+        <TeamFacts
+          pi={p.pi ? { name: p.pi.name, detail: p.pi.institute } : null}
+          coInvestigators={p.coInvestigators.map((c) => ({ name: c.name, detail: c.institute ?? "" }))}
+        />
+        <HoursFacts hours={p.hours}>
           <p className="mt-3 text-sm">
             {p.document && p.hasDocument ? (
               <a className="font-medium text-ember-800 underline" href={scienceCaseHref} download>
@@ -70,7 +53,7 @@ export function FrozenProposal({ p, scienceCaseHref }: { p: FrozenProposalView; 
               <span className="text-night-600">No science case kept with this version.</span>
             )}
           </p>
-        </Card>
+        </HoursFacts>
       </div>
       <Card title={`Targets (${p.targets.length})`}>
         <ol className="grid gap-3 text-sm">

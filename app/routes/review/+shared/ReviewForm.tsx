@@ -35,6 +35,16 @@ const CONFIDENCE = [
   { value: "high", label: "High" },
 ];
 
+/** The two comments: field, label, and who reads it. */
+const COMMENTS = [
+  ["commentToPi", "Comment to the PI", "Sent to the team with the decision, without your name."],
+  [
+    "commentToCommittee",
+    "Comment to the committee",
+    "Read by the chair and, once they have submitted, the other reviewers of this proposal — without your name.",
+  ],
+] as const;
+
 function StaleCopy({ stale, message }: { stale: StaleReview; message: string }) {
   return (
     <Alert tone="caution" as="div" className="mb-4">
@@ -108,22 +118,17 @@ export function ReviewForm(p: ReviewFormProps) {
             </p>
           ) : null}
         </fieldset>
-        <TextArea
-          label="Comment to the PI"
-          name="commentToPi"
-          maxLength={p.maxChars}
-          defaultValue={p.values.commentToPi}
-          error={p.errors.commentToPi}
-          hint="Sent to the team with the decision, without your name."
-        />
-        <TextArea
-          label="Comment to the committee"
-          name="commentToCommittee"
-          maxLength={p.maxChars}
-          defaultValue={p.values.commentToCommittee}
-          error={p.errors.commentToCommittee}
-          hint="Read by the chair and, once they have submitted, the other reviewers of this proposal — without your name."
-        />
+        {COMMENTS.map(([name, label, hint]) => (
+          <TextArea
+            key={name}
+            label={label}
+            name={name}
+            maxLength={p.maxChars}
+            defaultValue={p.values[name]}
+            error={p.errors[name]}
+            hint={hint}
+          />
+        ))}
         <div className="flex flex-wrap items-center gap-2">
           <Button type="submit" name="intent" value="save" variant="secondary" disabled={busy}>
             Save draft

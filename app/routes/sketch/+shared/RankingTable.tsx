@@ -1,6 +1,6 @@
 /** The Triangle finder's answer: what was ranked, and the ranked triangles as a sortable table. */
 import { useMemo } from "react";
-import { DataTable } from "~/components/ui";
+import { Card, DataTable } from "~/components/ui";
 import type { TrianglesResponse } from "~/engine";
 import { plural } from "~/services/sketch/words";
 import { type TriangleRow, triangleColumns } from "./triangle-columns";
@@ -17,13 +17,7 @@ export function RankingTable({
 }) {
   const cols = useMemo(() => triangleColumns(onUse), [onUse]);
   return (
-    <section
-      aria-labelledby="ranking-title"
-      className="space-y-3 rounded-[var(--radius-card)] bg-white p-4 shadow-[var(--shadow-card)] ring-1 ring-night-200"
-    >
-      <h2 id="ranking-title" className="text-lg font-semibold">
-        Ranked triangles
-      </h2>
+    <Card id="ranking" title="Ranked triangles" className="space-y-3">
       <p className="text-sm text-night-700">
         {plural(result.triangleCount, "triangle")} of {plural(result.stationCount, "station")} over{" "}
         {plural(result.sampleCount, "sample")} of {(result.sampleDurationH * 60).toFixed(0)} min
@@ -37,6 +31,6 @@ export function RankingTable({
         rowKey={(r) => r.stations.join("-")}
         exportName="triangles"
       />
-    </section>
+    </Card>
   );
 }

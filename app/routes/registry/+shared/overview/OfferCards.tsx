@@ -93,7 +93,6 @@ export function InstrumentsCard({ registry, canEdit }: Props) {
         caption="Instrument bands"
         columns={bandColumns}
         rows={bandRows}
-        rowKey={(b) => b.id}
         exportName="bands"
         empty="No instruments yet."
       />

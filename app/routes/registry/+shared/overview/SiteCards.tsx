@@ -121,7 +121,6 @@ export function StationsCard({ registry, canEdit }: { registry: SiteRegistry; ca
         caption="Stations of the site with east, north, up and path offset in metres"
         columns={canEdit ? [...stationColumns, editStationColumn] : stationColumns}
         rows={registry.stations}
-        rowKey={(s) => s.id}
         exportName="stations"
       />
     </Card>
