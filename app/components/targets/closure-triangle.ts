@@ -9,3 +9,8 @@ export function rankedForText(t: ClosureTriangleJson): string {
   const pool = t.configuration === null ? "every station" : `configuration ${t.configuration}`;
   return `ranked for ${t.instrument} ${t.band} on ${pool} at ${t.site}`;
 }
+
+/** "Closure triangle A1–B3–C2 (ranked for …)", as frozen versions list it; null when none was chosen. */
+export function closureTriangleLine(t: ClosureTriangleJson | null | undefined): string | null {
+  return t ? `Closure triangle ${triangleText(t)} (${rankedForText(t)})` : null;
+}

@@ -1,7 +1,8 @@
 import { href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
+import { FrozenTargets } from "~/components/proposals/FrozenTargets";
 import { HoursFacts, ProposalFacts, TeamFacts } from "~/components/proposals/ProposalFacts";
-import { Coordinates } from "~/components/targets/Coordinates";
+import { closureTriangleLine } from "~/components/targets/closure-triangle";
 import { Badge, Card, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
 import { formatBytes } from "~/lib/format";
@@ -9,6 +10,7 @@ import { requirePermission } from "~/lib/guards.server";
 import { invariantResponse, toId } from "~/lib/not-found";
 import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/access.server";
 import { readVersion } from "~/services/proposals/versions.server";
+import { acknowledgementText } from "~/services/proposals/warnings";
 import { BackToProposal } from "./+shared/BackToProposal";
 import { FeasibilityView } from "./+shared/FeasibilityView";
 import { targetSummary } from "./+shared/target-summary";
@@ -39,7 +41,13 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
       coInvestigators: s.coInvestigators,
       instrument: s.instrument,
       hours: s.hours,
-      targets: s.targets.map((t) => ({ ...targetSummary(t), timeWindows: t.timeWindows, notes: t.notes })),
+      targets: s.targets.map((t) => ({
+        ...targetSummary(t),
+        timeWindows: t.timeWindows,
+        triangle: closureTriangleLine(t.closureTriangle),
+        notes: t.notes,
+      })),
+      acknowledgement: s.acknowledgement ? acknowledgementText(s.acknowledgement) : null,
       document: s.document ? { ...s.document, size: formatBytes(s.document.sizeBytes) } : null,
       feasibility: s.feasibility,
     },
@@ -62,6 +70,9 @@ export default function ProposalVersion({ loaderData }: Route.ComponentProps) {
           <>
             <Badge tone="info">Version {d.version}</Badge> submitted {shownUtc(d.submittedAt)}
             {d.submittedBy ? ` by ${d.submittedBy}` : ""} to cycle {s.cycle.name}. Frozen: later changes never alter it.
+            {s.acknowledgement ? (
+              <span className="mt-1 block text-sm text-caution-700">{s.acknowledgement}</span>
+            ) : null}
           </>
         }
         actions={<BackToProposal proposalId={d.proposalId} />}
@@ -97,28 +108,7 @@ export default function ProposalVersion({ loaderData }: Route.ComponentProps) {
           </Card>
         </div>
       </div>
-      <Card title={`Targets (${s.targets.length})`} className="mt-6">
-        <ol className="grid gap-2 text-sm">
-          {s.targets.map((t, i) => (
-            <li key={t.name}>
-              <span className="font-semibold">
-                {i + 1}. {t.name}
-              </span>{" "}
-              <span className="num text-night-700">
-                <Coordinates raDeg={t.raDeg} decDeg={t.decDeg} /> · {t.model} · {t.magnitudes}
-              </span>
-              <span className="block text-night-600">
-                {t.minElevationDeg === null ? "array elevation limit" : `elevation ≥ ${t.minElevationDeg}°`}
-                {t.timeWindows.length
-                  ? ` · windows ${t.timeWindows.map((w) => `${shownUtc(w.startUtc)} – ${shownUtc(w.endUtc)}`).join("; ")}`
-                  : ""}
-                {t.calibrators.length ? ` · calibrators ${t.calibrators.join(", ")}` : ""}
-                {t.notes ? ` · ${t.notes}` : ""}
-              </span>
-            </li>
-          ))}
-        </ol>
-      </Card>
+      <FrozenTargets targets={s.targets} className="mt-6" />
       <section className="mt-6">
         <h2 className="mb-3 text-lg font-semibold">Feasibility report of this version</h2>
         <FeasibilityView report={s.feasibility} />

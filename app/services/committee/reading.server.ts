@@ -5,6 +5,7 @@
  * proposal feature's frozen versions and science case (services/proposals).
  */
 import { href } from "react-router";
+import { closureTriangleLine } from "~/components/targets/closure-triangle";
 import { describeModel } from "~/components/targets/describe-model";
 import type { Database } from "~/db/client.server";
 import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
@@ -80,14 +81,17 @@ export async function frozenProposal(db: Database, { proposalId, version }: { pr
       name: t.name,
       raDeg: t.raDeg,
       decDeg: t.decDeg,
-      ra: formatRightAscension(t.raDeg, 1),
-      dec: formatDeclination(t.decDeg, 0),
       model: describeModel(t.model),
       magnitudes: describeMagnitudes(t.magnitudes),
       minElevationDeg: t.minElevationDeg,
+      timeWindows: t.timeWindows,
       calibrators: t.calibrators.map((c) => c.name),
+      triangle: closureTriangleLine(t.closureTriangle),
       notes: t.notes,
-      sketchpad: s.hours.map((h) => ({ configuration: h.configuration, href: sketchpadLink(t, s, h.configuration) })),
+      links: s.hours.map((h) => ({
+        label: `Sketchpad: ${t.name} with ${h.configuration}`,
+        href: sketchpadLink(t, s, h.configuration),
+      })),
     })),
     feasibility: s.feasibility,
   };

@@ -6,7 +6,13 @@
 import { and, eq, sql } from "drizzle-orm";
 import type { Database, DbOrTx, Transaction } from "~/db/client.server";
 import { bands, instruments } from "~/db/schema/array";
-import { type cycles, proposalDocuments, proposals, proposalVersions } from "~/db/schema/proposals";
+import {
+  type ClosureTriangleJson,
+  type cycles,
+  proposalDocuments,
+  proposals,
+  proposalVersions,
+} from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { teamMembers } from "./access.server";
 import type { FeasibilityReport } from "./feasibility";
@@ -31,7 +37,8 @@ export type ProposalSnapshot = {
     limitingMagnitude: number;
   } | null;
   hours: { configurationId: number; configuration: string; hours: number }[];
-  targets: TargetFields[];
+  /** Each target as frozen; `closureTriangle` is absent in versions frozen before triangles were kept. */
+  targets: (TargetFields & { closureTriangle?: ClosureTriangleJson | null })[];
   document: { filename: string; sizeBytes: number; sha256: string } | null;
   feasibility: FeasibilityReport;
   /** Present when the version was submitted with failing feasibility lines ("submit anyway"). */
@@ -89,7 +96,7 @@ async function buildSnapshot(tx: Transaction, proposal: ProposalRow, cycle: Cycl
       configuration: h.configuration.name,
       hours: h.hours,
     })),
-    targets: targetRows.map(targetFieldsOf),
+    targets: targetRows.map((t) => ({ ...targetFieldsOf(t), closureTriangle: t.closureTriangle })),
     document: doc ? { filename: doc.filename, sizeBytes: doc.sizeBytes, sha256: doc.sha256 } : null,
     feasibility: report,
   };

@@ -9,6 +9,7 @@ import { describe, expect, it } from "vitest";
 import { auditLog } from "~/db/schema/auth";
 import { proposalDocuments, proposalHours, proposalMembers, proposals, proposalTargets } from "~/db/schema/proposals";
 import { loader as editorLoader } from "~/routes/proposals/editor/route";
+import { loader as versionLoader } from "~/routes/proposals/version";
 import * as fx from "./fixture";
 
 fx.useProposalWorld();
@@ -92,6 +93,11 @@ describe("the proposal's course asks first", () => {
     expect(v1.acknowledged).toMatch(
       /^Submitted with 1 feasibility warning acknowledged by Inés Arroyo-Vidal, \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC\.$/,
     );
+    // The frozen version's own page says it too.
+    const version = await fx.run(() =>
+      versionLoader(fx.get(`/proposals/${id}/versions/1`, "ines", { proposalId: String(id), version: "1" })),
+    );
+    expect(version.data.snapshot.acknowledgement).toBe(v1.acknowledged);
   });
 
   it("submits a draft whose lines all pass without an acknowledgement and records none", async () => {

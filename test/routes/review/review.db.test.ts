@@ -99,7 +99,7 @@ describe("the Review desk", () => {
     expect(page.mode).toBe("reviewer");
     expect(page.frozen.title).toBe("Proposal P");
     expect(page.frozen.feasibility.cells.length).toBe(1);
-    expect(page.frozen.targets[0].sketchpad[0].href).toMatch(/^\/sketchpad\?.*config=compact-3/);
+    expect(page.frozen.targets[0].links?.[0].href).toMatch(/^\/sketchpad\?.*config=compact-3/);
     expect(page.scale.text).toBe("1 = best … 5 = poorest");
     expect((await open(w.P, w.outsider)).status).toBe(404);
     expect((await open(w.P, w.near)).status).toBe(404); // conflicted: same institute as the PI

@@ -8,13 +8,15 @@ import { formPost, routeArgs, settle, testDb } from "@test/routes";
 import { asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { configurationStations, configurations, stations } from "~/db/schema/array";
-import { proposals, proposalTargets } from "~/db/schema/proposals";
+import { cycles, proposals, proposalTargets } from "~/db/schema/proposals";
 import { seedDemoScenario } from "~/db/seed/factories.server";
 import { loader as targetLoader } from "~/routes/proposals/target";
 import { action as trianglesAction, loader as trianglesLoader } from "~/routes/sketch/triangles";
 import { findUserByEmail } from "~/services/auth/accounts.server";
 import { createSession } from "~/services/auth/sessions.server";
+import { frozenProposal } from "~/services/committee/reading.server";
 import { saveTarget, targetFieldsOf } from "~/services/proposals/targets.server";
+import { freezeVersion } from "~/services/proposals/versions.server";
 
 const SITE = "Sierra Lumbre Array";
 let ines = "";
@@ -151,5 +153,23 @@ describe("Use this triangle", () => {
     const all = await testDb().select().from(proposalTargets).where(eq(proposalTargets.proposalId, draftId));
     expect(all.find((t) => t.id === targetId)?.notes).toBe("edited");
     expect(all.filter((t) => t.id !== targetId).every((t) => t.closureTriangle === null)).toBe(true);
+  });
+
+  it("is frozen with the submitted version, and the committee's copy names it", async () => {
+    const triangle = await stored();
+    expect(triangle).not.toBeNull();
+    const version = await testDb().transaction(async (tx) => {
+      const [proposal] = await tx.select().from(proposals).where(eq(proposals.id, draftId));
+      const [cycle] = await tx.select().from(cycles).where(eq(cycles.id, proposal.cycleId));
+      const user = (await findUserByEmail(tx, "ines.arroyo@valle-alto.example"))!;
+      return freezeVersion(tx, { proposal, cycle, submittedById: user.id, now: new Date() });
+    });
+    const [row] = await testDb().select().from(proposalTargets).where(eq(proposalTargets.id, targetId));
+    const frozen = version.snapshot.targets.find((t) => t.name === row.name);
+    expect(frozen?.closureTriangle).toEqual(triangle);
+    const read = await frozenProposal(testDb(), { proposalId: draftId, version: version.version });
+    expect(read?.targets.find((t) => t.name === row.name)?.triangle).toBe(
+      `Closure triangle ${triangle!.stations.join("–")} (ranked for Brasa H on every station at ${SITE})`,
+    );
   });
 });

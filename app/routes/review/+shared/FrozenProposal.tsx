@@ -4,8 +4,8 @@
  * own read-only pieces.
  */
 import { FeasibilityView } from "~/components/proposals/FeasibilityView";
+import { type FrozenTarget, FrozenTargets } from "~/components/proposals/FrozenTargets";
 import { HoursFacts, ProposalFacts, TeamFacts } from "~/components/proposals/ProposalFacts";
-import { Card } from "~/components/ui";
 import type { FeasibilityReport } from "~/services/committee/reading.server";
 
 export type FrozenProposalView = {
@@ -17,20 +17,7 @@ export type FrozenProposalView = {
   hours: { configurationId: number; configuration: string; hours: number }[];
   document: { filename: string; sizeBytes: number; sha256: string } | null;
   hasDocument: boolean;
-  targets: {
-    name: string;
-    raDeg: number;
-    decDeg: number;
-    /** Sexagesimal, as typed elsewhere in the app (degrees in the tooltip). */
-    ra: string;
-    dec: string;
-    model: string;
-    magnitudes: string;
-    minElevationDeg: number | null;
-    calibrators: string[];
-    notes: string;
-    sketchpad: { configuration: string; href: string }[];
-  }[];
+  targets: FrozenTarget[];
   feasibility: FeasibilityReport;
 };
 
@@ -55,35 +42,7 @@ export function FrozenProposal({ p, scienceCaseHref }: { p: FrozenProposalView; 
           </p>
         </HoursFacts>
       </div>
-      <Card title={`Targets (${p.targets.length})`}>
-        <ol className="grid gap-3 text-sm">
-          {p.targets.map((t, i) => (
-            <li key={t.name}>
-              <span className="font-semibold">
-                {i + 1}. {t.name}
-              </span>{" "}
-              <span className="num text-night-700">
-                <span title={`RA ${t.raDeg.toFixed(4)}°, Dec ${t.decDeg.toFixed(4)}° (J2000)`}>
-                  RA {t.ra}, Dec {t.dec}
-                </span>{" "}
-                · {t.model} · {t.magnitudes}
-              </span>
-              <span className="block text-night-600">
-                {t.minElevationDeg === null ? "array elevation limit" : `elevation ≥ ${t.minElevationDeg}°`}
-                {t.calibrators.length ? ` · calibrators ${t.calibrators.join(", ")}` : ""}
-                {t.notes ? ` · ${t.notes}` : ""}
-              </span>
-              <span className="mt-1 flex flex-wrap gap-2">
-                {t.sketchpad.map((s) => (
-                  <a key={s.configuration} href={s.href} className="text-ember-800 underline">
-                    Sketchpad: {t.name} with {s.configuration}
-                  </a>
-                ))}
-              </span>
-            </li>
-          ))}
-        </ol>
-      </Card>
+      <FrozenTargets targets={p.targets} />
       <section aria-label="Feasibility report">
         <h2 className="mb-3 text-lg font-semibold">Feasibility report, as the proposer saw it at submission</h2>
         <FeasibilityView report={p.feasibility} />
