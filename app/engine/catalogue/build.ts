@@ -10,6 +10,7 @@
  *    component digit), `flam`, `var`, `gl`, `hd`, `c` (constellation abbreviation).
  * The data carry no proper motions, parallaxes or photometric errors, and no magnitudes but V and B−V.
  */
+import { float64Arrays } from "../arrays";
 import { DEG_TO_RAD } from "../math";
 import { constellationByAbbr } from "./constellations";
 import { greekAbbr, greekSymbol } from "./designations";
@@ -127,13 +128,7 @@ export function buildCatalogue(starsJson: unknown, namesJson: unknown): StarCata
   if (typeof namesJson !== "object" || namesJson === null) fail("the name document is not an object");
   const n = features.length;
   const hip = new Int32Array(n);
-  const raRad = new Float64Array(n);
-  const decRad = new Float64Array(n);
-  const unitX = new Float64Array(n);
-  const unitY = new Float64Array(n);
-  const unitZ = new Float64Array(n);
-  const vMag = new Float64Array(n);
-  const bv = new Float64Array(n);
+  const [raRad, decRad, unitX, unitY, unitZ, vMag, bv] = float64Arrays(7, n);
   const variability = new Uint8Array(n);
   const rows = new Map<number, number>();
   for (let i = 0; i < n; i++) {

@@ -8,6 +8,7 @@
  * agree takes their verdict for all its darkness, a cell holding an edge of the window is evaluated on
  * {@link EDGE_SUBSAMPLES} slices, each weighted by its own darkness (an edge placed to ~1/32 of a cell).
  */
+import { float64Arrays } from "../arrays";
 import { elevationRad } from "../astro/horizon";
 import type { BaselineSet } from "../interferometry/baselines";
 import { observabilityMasks } from "../interferometry/observability";
@@ -35,8 +36,7 @@ function masksAt(prep: PreparedConfiguration, haRad: Float64Array, decRad: numbe
   const observable = new Uint8Array(n);
   const skyOk = new Uint8Array(n);
   const upIndex = new Int32Array(n);
-  const upHa = new Float64Array(n);
-  const upEl = new Float64Array(n);
+  const [upHa, upEl] = float64Arrays(2, n);
   let nUp = 0;
   for (let i = 0; i < n; i++) {
     const el = elevationRad(latRad, decRad, haRad[i]);

@@ -50,23 +50,10 @@ export class GridDft {
         tr[y * m + k] = a;
         ti[y * m + k] = b;
       }
+    // Along y for every k: S(k, l) = Σ_y T(y, k) e^{−i…}.
     const re = new Float64Array(m * m);
     const im = new Float64Array(m * m);
-    for (let l = 0; l < m; l++)
-      for (let k = 0; k < m; k++) {
-        let a = 0;
-        let b = 0;
-        for (let y = 0; y < n; y++) {
-          const c = cos[l * n + y];
-          const s = sin[l * n + y];
-          const pr = tr[y * m + k];
-          const pi = ti[y * m + k];
-          a += pr * c - pi * s;
-          b += pr * s + pi * c;
-        }
-        re[l * m + k] = a;
-        im[l * m + k] = b;
-      }
+    mixRows(m, n, m, tr, ti, re, im, n, 1, cos, sin, 1);
     return { re, im };
   }
 
@@ -76,21 +63,7 @@ export class GridDft {
     // Along l (v) for every k: U(y, k) = Σ_l S(k, l) e^{+i…}.
     const ur = new Float64Array(n * m);
     const ui = new Float64Array(n * m);
-    for (let y = 0; y < n; y++)
-      for (let k = 0; k < m; k++) {
-        let a = 0;
-        let b = 0;
-        for (let l = 0; l < m; l++) {
-          const c = cos[l * n + y];
-          const s = -sin[l * n + y];
-          const sr = re[l * m + k];
-          const si = im[l * m + k];
-          a += sr * c - si * s;
-          b += sr * s + si * c;
-        }
-        ur[y * m + k] = a;
-        ui[y * m + k] = b;
-      }
+    mixRows(n, m, m, re, im, ur, ui, 1, n, cos, sin, -1);
     const out = new Float64Array(n * n);
     const norm = 1 / (m * m);
     for (let y = 0; y < n; y++)
@@ -104,4 +77,40 @@ export class GridDft {
       }
     return out;
   }
+}
+
+/**
+ * One complex pass along the row axis of a row-major table of `width` columns:
+ *   out[r, k] = Σ_s in[s, k] · (cos[t(r, s)] + i · sign · sin[t(r, s)])   for r < outRows, s < sumRows,
+ * with t(r, s) = r · rStride + s · sStride the index into the twiddle tables; sign −1 applies the conjugate twiddle.
+ */
+function mixRows(
+  outRows: number,
+  sumRows: number,
+  width: number,
+  inRe: Float64Array,
+  inIm: Float64Array,
+  outRe: Float64Array,
+  outIm: Float64Array,
+  rStride: number,
+  sStride: number,
+  cos: Float64Array,
+  sin: Float64Array,
+  sign: 1 | -1,
+): void {
+  for (let r = 0; r < outRows; r++)
+    for (let k = 0; k < width; k++) {
+      let a = 0;
+      let b = 0;
+      for (let s = 0, t = r * rStride; s < sumRows; s++, t += sStride) {
+        const c = cos[t];
+        const w = sign * sin[t];
+        const pr = inRe[s * width + k];
+        const pi = inIm[s * width + k];
+        a += pr * c - pi * w;
+        b += pr * w + pi * c;
+      }
+      outRe[r * width + k] = a;
+      outIm[r * width + k] = b;
+    }
 }

@@ -16,6 +16,7 @@
  * single short steepest-descent step after a warm start does not end the run), after maxIterations, or
  * when no step decreases f.
  */
+import { float64Arrays } from "../arrays";
 
 export type Objective = (x: Float64Array, grad: Float64Array) => number;
 
@@ -72,16 +73,10 @@ export function minimizeBounded(fg: Objective, x0: ArrayLike<number>, options: B
 
   const x = new Float64Array(n);
   for (let i = 0; i < n; i++) x[i] = Math.min(upper(i), Math.max(lower(i), x0[i]));
-  const g = new Float64Array(n);
-  const xNew = new Float64Array(n);
-  const gNew = new Float64Array(n);
-  const d = new Float64Array(n);
-  const q = new Float64Array(n);
-  const free = new Float64Array(n);
-  const S = Array.from({ length: m }, () => new Float64Array(n));
-  const Y = Array.from({ length: m }, () => new Float64Array(n));
-  const rho = new Float64Array(m);
-  const alpha = new Float64Array(m);
+  const [g, xNew, gNew, d, q, free] = float64Arrays(6, n);
+  const S = float64Arrays(m, n);
+  const Y = float64Arrays(m, n);
+  const [rho, alpha] = float64Arrays(2, m);
   let stored = 0;
   let newest = -1;
   let gamma = 1;

@@ -4,6 +4,7 @@
  * are ordered (0,1), (0,2), …, (0,N−1), (1,2), … following the order in which
  * the stations are listed.
  */
+import { float64Arrays } from "../arrays";
 
 /** Number of baselines N(N−1)/2 of N stations (0 for N < 2). */
 export function baselineCount(nStations: number): number {
@@ -53,10 +54,7 @@ export function buildBaselines(stationXyz: Float64Array, pathOffsetsM: ArrayLike
   const count = baselineCount(n);
   const first = new Int32Array(count);
   const second = new Int32Array(count);
-  const xM = new Float64Array(count);
-  const yM = new Float64Array(count);
-  const zM = new Float64Array(count);
-  const pathOffsetDiffM = new Float64Array(count);
+  const [xM, yM, zM, pathOffsetDiffM] = float64Arrays(4, count);
   let b = 0;
   for (let i = 0; i < n; i++) {
     for (let j = i + 1; j < n; j++) {

@@ -10,6 +10,7 @@
  * are documented on the types below.
  */
 
+import { float64Arrays } from "../arrays";
 import { airmassKastenYoung } from "../astro/airmass";
 import { starWindow } from "../astro/rise-set";
 import { lmstHours } from "../astro/sidereal";
@@ -217,10 +218,7 @@ export function computeCoverage(request: CoverageInput): CoverageResponse {
   let beam: CoverageBeam | null = null;
   if (request.beam !== null && observableIdx.length > 0) {
     const count = nB * observableIdx.length * nC;
-    const uW = new Float64Array(count);
-    const vW = new Float64Array(count);
-    const re = new Float64Array(count);
-    const im = new Float64Array(count);
+    const [uW, vW, re, im] = float64Arrays(4, count);
     let p = 0;
     for (let b = 0; b < nB; b++)
       for (const s of observableIdx) {

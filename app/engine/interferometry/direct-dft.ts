@@ -7,6 +7,7 @@
  * Separable evaluation: cos(a + b) = cos a cos b − sin a sin b with a and b
  * tabulated per point along each axis.
  */
+import { float64Arrays } from "../arrays";
 
 /**
  * @param uW, vW spatial frequencies, wavelengths
@@ -22,10 +23,7 @@ export function directDirtyBeam(
   pixelRad: number,
 ): Float64Array {
   const image = new Float64Array(n * n);
-  const cu = new Float64Array(n);
-  const su = new Float64Array(n);
-  const cv = new Float64Array(n);
-  const sv = new Float64Array(n);
+  const [cu, su, cv, sv] = float64Arrays(4, n);
   const c = Math.floor(n / 2);
   let sumW = 0;
   for (let p = 0; p < uW.length; p++) {

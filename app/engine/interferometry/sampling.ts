@@ -9,6 +9,7 @@
  * Explicit list: hour angles are used as given and the declination as given
  * (no instant, hence no precession and no Sun check).
  */
+import { float64Arrays } from "../arrays";
 import { elevationRad } from "../astro/horizon";
 import { precessFromJ2000 } from "../astro/precession";
 import { lmstRad } from "../astro/sidereal";
@@ -47,8 +48,7 @@ export function samplesFromHourAngles(
   latRad: number,
 ): HourAngleSamples {
   const n = hourAnglesH.length;
-  const haRad = new Float64Array(n);
-  const el = new Float64Array(n);
+  const [haRad, el] = float64Arrays(2, n);
   for (let s = 0; s < n; s++) {
     haRad[s] = hourAnglesH[s] * HOUR_TO_RAD;
     el[s] = elevationRad(latRad, decRad, haRad[s]);
@@ -87,9 +87,7 @@ export function samplesAcrossNight(
   }
   const n = times.length;
   const jd = Float64Array.from(times);
-  const haRad = new Float64Array(n);
-  const el = new Float64Array(n);
-  const sun = new Float64Array(n);
+  const [haRad, el, sun] = float64Arrays(3, n);
   for (let s = 0; s < n; s++) {
     haRad[s] = wrapPi(lmstRad(jd[s], lonEastRad) - ofDate.raRad);
     if (haRad[s] === Math.PI) haRad[s] = -Math.PI;

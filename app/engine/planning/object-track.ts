@@ -9,6 +9,7 @@
  * stroke minus its margin (as in interferometry/observability.ts); MOON — closer to the Moon than
  * the limit plus the Moon's horizontal parallax plus a margin (only when the limit is above 0).
  */
+import { float64Arrays } from "../arrays";
 import { elevationRad } from "../astro/horizon";
 import { precessFromJ2000 } from "../astro/precession";
 import { sunPosition } from "../astro/sun";
@@ -120,9 +121,7 @@ export function buildObjectTrack(
   };
 
   const n = sky.count;
-  const elev = new Float64Array(n);
-  const need = new Float64Array(n);
-  const moonSep = new Float64Array(n);
+  const [elev, need, moonSep] = float64Arrays(3, n);
   const bad = new Uint8Array(n);
   const badPrefix = new Int32Array(n + 1);
   // The grid, straight from the night's arrays (the same arithmetic as `evaluate`, without objects).
