@@ -1,4 +1,13 @@
-import { boolean, doublePrecision, integer, pgTable, primaryKey, text, uniqueIndex } from "drizzle-orm/pg-core";
+import {
+  boolean,
+  doublePrecision,
+  integer,
+  type PgColumnBuilderBase,
+  pgTable,
+  primaryKey,
+  text,
+  uniqueIndex,
+} from "drizzle-orm/pg-core";
 import { refTo, serialId, timestamps } from "./columns";
 
 /**
@@ -26,36 +35,35 @@ export const sites = pgTable(
   (t) => [uniqueIndex("sites_name_key").on(t.name)],
 );
 
-export const stations = pgTable(
-  "stations",
-  {
-    id: serialId(),
-    siteId: refTo(() => sites.id),
-    name: text("name").notNull(),
-    /** Local east, north, up from the array reference point, metres. */
-    eastM: doublePrecision("east_m").notNull(),
-    northM: doublePrecision("north_m").notNull(),
-    upM: doublePrecision("up_m").notNull().default(0),
-    /** Fixed optical path offset of the station's light path, metres. */
-    pathOffsetM: doublePrecision("path_offset_m").notNull().default(0),
-    ...timestamps,
-  },
-  (t) => [uniqueIndex("stations_site_name_key").on(t.siteId, t.name)],
-);
+/**
+ * A named part of a site (a station, a configuration, an instrument): its own columns between the site
+ * reference with the name and the timestamps; the name is unique at the site.
+ */
+function partOfSite<TName extends string, TColumns extends Record<string, PgColumnBuilderBase>>(
+  name: TName,
+  columns: TColumns,
+) {
+  return pgTable(
+    name,
+    { id: serialId(), siteId: refTo(() => sites.id), name: text("name").notNull(), ...columns, ...timestamps },
+    (t) => [uniqueIndex(`${name}_site_name_key`).on(t.siteId, t.name)],
+  );
+}
 
-export const configurations = pgTable(
-  "configurations",
-  {
-    id: serialId(),
-    siteId: refTo(() => sites.id),
-    name: text("name").notNull(),
-    description: text("description").notNull().default(""),
-    /** Whether proposers may currently request this configuration. */
-    offered: boolean("offered").notNull().default(true),
-    ...timestamps,
-  },
-  (t) => [uniqueIndex("configurations_site_name_key").on(t.siteId, t.name)],
-);
+export const stations = partOfSite("stations", {
+  /** Local east, north, up from the array reference point, metres. */
+  eastM: doublePrecision("east_m").notNull(),
+  northM: doublePrecision("north_m").notNull(),
+  upM: doublePrecision("up_m").notNull().default(0),
+  /** Fixed optical path offset of the station's light path, metres. */
+  pathOffsetM: doublePrecision("path_offset_m").notNull().default(0),
+});
+
+export const configurations = partOfSite("configurations", {
+  description: text("description").notNull().default(""),
+  /** Whether proposers may currently request this configuration. */
+  offered: boolean("offered").notNull().default(true),
+});
 
 export const configurationStations = pgTable(
   "configuration_stations",
@@ -68,19 +76,11 @@ export const configurationStations = pgTable(
   (t) => [primaryKey({ columns: [t.configurationId, t.stationId] })],
 );
 
-export const instruments = pgTable(
-  "instruments",
-  {
-    id: serialId(),
-    siteId: refTo(() => sites.id),
-    name: text("name").notNull(),
-    description: text("description").notNull().default(""),
-    /** Number of telescopes the combiner can take at once. */
-    maxTelescopes: integer("max_telescopes").notNull(),
-    ...timestamps,
-  },
-  (t) => [uniqueIndex("instruments_site_name_key").on(t.siteId, t.name)],
-);
+export const instruments = partOfSite("instruments", {
+  description: text("description").notNull().default(""),
+  /** Number of telescopes the combiner can take at once. */
+  maxTelescopes: integer("max_telescopes").notNull(),
+});
 
 export const bands = pgTable(
   "bands",
