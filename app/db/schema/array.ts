@@ -1,4 +1,5 @@
 import {
+  type AnyPgColumn,
   boolean,
   doublePrecision,
   integer,
@@ -36,21 +37,25 @@ export const sites = pgTable(
 );
 
 /**
- * A named part of a site (a station, a configuration, an instrument): its own columns between the site
- * reference with the name and the timestamps; the name is unique at the site.
+ * A named part of a site or of an instrument (a station, a configuration, an instrument, a band): the
+ * reference to its whole (`siteId`, `instrumentId`) and its name, its own columns, the timestamps; the
+ * name is unique within the whole, and the part goes when its whole is deleted.
  */
-function partOfSite<TName extends string, TColumns extends Record<string, PgColumnBuilderBase>>(
-  name: TName,
-  columns: TColumns,
-) {
+function namedPart<
+  TName extends string,
+  TWhole extends "site" | "instrument",
+  TColumns extends Record<string, PgColumnBuilderBase>,
+>(name: TName, whole: TWhole, wholeId: () => AnyPgColumn, columns: TColumns) {
+  const wholeKey: `${TWhole}Id` = `${whole}Id`;
+  const reference = { [wholeKey]: refTo(wholeId) } as Record<`${TWhole}Id`, ReturnType<typeof refTo>>;
   return pgTable(
     name,
-    { id: serialId(), siteId: refTo(() => sites.id), name: text("name").notNull(), ...columns, ...timestamps },
-    (t) => [uniqueIndex(`${name}_site_name_key`).on(t.siteId, t.name)],
+    { id: serialId(), ...reference, name: text("name").notNull(), ...columns, ...timestamps },
+    (t) => [uniqueIndex(`${name}_${whole}_name_key`).on(t[wholeKey], t.name)],
   );
 }
 
-export const stations = partOfSite("stations", {
+export const stations = namedPart("stations", "site", () => sites.id, {
   /** Local east, north, up from the array reference point, metres. */
   eastM: doublePrecision("east_m").notNull(),
   northM: doublePrecision("north_m").notNull(),
@@ -59,7 +64,7 @@ export const stations = partOfSite("stations", {
   pathOffsetM: doublePrecision("path_offset_m").notNull().default(0),
 });
 
-export const configurations = partOfSite("configurations", {
+export const configurations = namedPart("configurations", "site", () => sites.id, {
   description: text("description").notNull().default(""),
   /** Whether proposers may currently request this configuration. */
   offered: boolean("offered").notNull().default(true),
@@ -76,27 +81,19 @@ export const configurationStations = pgTable(
   (t) => [primaryKey({ columns: [t.configurationId, t.stationId] })],
 );
 
-export const instruments = partOfSite("instruments", {
+export const instruments = namedPart("instruments", "site", () => sites.id, {
   description: text("description").notNull().default(""),
   /** Number of telescopes the combiner can take at once. */
   maxTelescopes: integer("max_telescopes").notNull(),
 });
 
-export const bands = pgTable(
-  "bands",
-  {
-    id: serialId(),
-    instrumentId: refTo(() => instruments.id),
-    name: text("name").notNull(),
-    /** Central wavelength, metres. */
-    centralWavelengthM: doublePrecision("central_wavelength_m").notNull(),
-    /** Number of spectral channels across the band. */
-    channels: integer("channels").notNull(),
-    /** Full bandwidth, metres. */
-    bandwidthM: doublePrecision("bandwidth_m").notNull(),
-    /** Faintest magnitude in this band the instrument can fringe-track on, mag. */
-    limitingMagnitude: doublePrecision("limiting_magnitude").notNull(),
-    ...timestamps,
-  },
-  (t) => [uniqueIndex("bands_instrument_name_key").on(t.instrumentId, t.name)],
-);
+export const bands = namedPart("bands", "instrument", () => instruments.id, {
+  /** Central wavelength, metres. */
+  centralWavelengthM: doublePrecision("central_wavelength_m").notNull(),
+  /** Number of spectral channels across the band. */
+  channels: integer("channels").notNull(),
+  /** Full bandwidth, metres. */
+  bandwidthM: doublePrecision("bandwidth_m").notNull(),
+  /** Faintest magnitude in this band the instrument can fringe-track on, mag. */
+  limitingMagnitude: doublePrecision("limiting_magnitude").notNull(),
+});
