@@ -23,7 +23,10 @@ import {
 } from "./schema/proposals";
 import { userRoles, users } from "./schema/users";
 
-/** A `one` relation over a single foreign key: `field` of this table holds `reference` of the other. */
+/**
+ * A `one` relation over a single column pair: `field` of this table matches `reference` of the other
+ * (mostly a foreign key and the id it names; a review is found the other way, by its assignment).
+ */
 function on<TField extends AnyColumn, TReference extends AnyColumn>(field: TField, reference: TReference) {
   return { fields: [field] as [TField], references: [reference] as [TReference] };
 }
