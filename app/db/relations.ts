@@ -1,4 +1,4 @@
-import { relations } from "drizzle-orm";
+import { type AnyColumn, relations } from "drizzle-orm";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "./schema/array";
 import {
   allocatedHours,
@@ -13,6 +13,7 @@ import { nightConfigurations, nightPlanBlocks, nightPlans } from "./schema/night
 import {
   cycleConfigurations,
   cycles,
+  type hoursPerConfiguration,
   proposalHours,
   proposalMembers,
   proposals,
@@ -22,6 +23,22 @@ import {
 } from "./schema/proposals";
 import { userRoles, users } from "./schema/users";
 
+/**
+ * A `one` relation over a single column pair: `field` of this table matches `reference` of the other
+ * (mostly a foreign key and the id it names; a review is found the other way, by its assignment).
+ */
+function on<TField extends AnyColumn, TReference extends AnyColumn>(field: TField, reference: TReference) {
+  return { fields: [field] as [TField], references: [reference] as [TReference] };
+}
+
+/** Requested and allocated hours are tables of one shape (hoursPerConfiguration), related alike. */
+function hoursPerConfigurationRelations<TName extends string>(table: ReturnType<typeof hoursPerConfiguration<TName>>) {
+  return relations(table, ({ one }) => ({
+    proposal: one(proposals, on(table.proposalId, proposals.id)),
+    configuration: one(configurations, on(table.configurationId, configurations.id)),
+  }));
+}
+
 export const sitesRelations = relations(sites, ({ many }) => ({
   stations: many(stations),
   configurations: many(configurations),
@@ -29,30 +46,27 @@ export const sitesRelations = relations(sites, ({ many }) => ({
 }));
 
 export const stationsRelations = relations(stations, ({ one, many }) => ({
-  site: one(sites, { fields: [stations.siteId], references: [sites.id] }),
+  site: one(sites, on(stations.siteId, sites.id)),
   configurations: many(configurationStations),
 }));
 
 export const configurationsRelations = relations(configurations, ({ one, many }) => ({
-  site: one(sites, { fields: [configurations.siteId], references: [sites.id] }),
+  site: one(sites, on(configurations.siteId, sites.id)),
   stations: many(configurationStations),
 }));
 
 export const configurationStationsRelations = relations(configurationStations, ({ one }) => ({
-  configuration: one(configurations, {
-    fields: [configurationStations.configurationId],
-    references: [configurations.id],
-  }),
-  station: one(stations, { fields: [configurationStations.stationId], references: [stations.id] }),
+  configuration: one(configurations, on(configurationStations.configurationId, configurations.id)),
+  station: one(stations, on(configurationStations.stationId, stations.id)),
 }));
 
 export const instrumentsRelations = relations(instruments, ({ one, many }) => ({
-  site: one(sites, { fields: [instruments.siteId], references: [sites.id] }),
+  site: one(sites, on(instruments.siteId, sites.id)),
   bands: many(bands),
 }));
 
 export const bandsRelations = relations(bands, ({ one }) => ({
-  instrument: one(instruments, { fields: [bands.instrumentId], references: [instruments.id] }),
+  instrument: one(instruments, on(bands.instrumentId, instruments.id)),
 }));
 
 export const usersRelations = relations(users, ({ many }) => ({
@@ -60,7 +74,7 @@ export const usersRelations = relations(users, ({ many }) => ({
 }));
 
 export const userRolesRelations = relations(userRoles, ({ one }) => ({
-  user: one(users, { fields: [userRoles.userId], references: [users.id] }),
+  user: one(users, on(userRoles.userId, users.id)),
 }));
 
 export const cyclesRelations = relations(cycles, ({ many }) => ({
@@ -69,22 +83,19 @@ export const cyclesRelations = relations(cycles, ({ many }) => ({
 }));
 
 export const cycleConfigurationsRelations = relations(cycleConfigurations, ({ one }) => ({
-  cycle: one(cycles, { fields: [cycleConfigurations.cycleId], references: [cycles.id] }),
-  configuration: one(configurations, {
-    fields: [cycleConfigurations.configurationId],
-    references: [configurations.id],
-  }),
+  cycle: one(cycles, on(cycleConfigurations.cycleId, cycles.id)),
+  configuration: one(configurations, on(cycleConfigurations.configurationId, configurations.id)),
 }));
 
 export const targetsRelations = relations(targets, ({ one }) => ({
-  owner: one(users, { fields: [targets.ownerId], references: [users.id] }),
+  owner: one(users, on(targets.ownerId, users.id)),
 }));
 
 export const proposalsRelations = relations(proposals, ({ one, many }) => ({
-  cycle: one(cycles, { fields: [proposals.cycleId], references: [cycles.id] }),
-  pi: one(users, { fields: [proposals.piId], references: [users.id] }),
-  instrument: one(instruments, { fields: [proposals.instrumentId], references: [instruments.id] }),
-  band: one(bands, { fields: [proposals.bandId], references: [bands.id] }),
+  cycle: one(cycles, on(proposals.cycleId, cycles.id)),
+  pi: one(users, on(proposals.piId, users.id)),
+  instrument: one(instruments, on(proposals.instrumentId, instruments.id)),
+  band: one(bands, on(proposals.bandId, bands.id)),
   members: many(proposalMembers),
   hours: many(proposalHours),
   targets: many(proposalTargets),
@@ -92,78 +103,66 @@ export const proposalsRelations = relations(proposals, ({ one, many }) => ({
 }));
 
 export const proposalMembersRelations = relations(proposalMembers, ({ one }) => ({
-  proposal: one(proposals, { fields: [proposalMembers.proposalId], references: [proposals.id] }),
-  user: one(users, { fields: [proposalMembers.userId], references: [users.id] }),
+  proposal: one(proposals, on(proposalMembers.proposalId, proposals.id)),
+  user: one(users, on(proposalMembers.userId, users.id)),
 }));
 
-export const proposalHoursRelations = relations(proposalHours, ({ one }) => ({
-  proposal: one(proposals, { fields: [proposalHours.proposalId], references: [proposals.id] }),
-  configuration: one(configurations, { fields: [proposalHours.configurationId], references: [configurations.id] }),
-}));
+export const proposalHoursRelations = hoursPerConfigurationRelations(proposalHours);
 
 export const proposalTargetsRelations = relations(proposalTargets, ({ one }) => ({
-  proposal: one(proposals, { fields: [proposalTargets.proposalId], references: [proposals.id] }),
+  proposal: one(proposals, on(proposalTargets.proposalId, proposals.id)),
 }));
 
 export const proposalVersionsRelations = relations(proposalVersions, ({ one }) => ({
-  proposal: one(proposals, { fields: [proposalVersions.proposalId], references: [proposals.id] }),
+  proposal: one(proposals, on(proposalVersions.proposalId, proposals.id)),
 }));
 
 export const nightConfigurationsRelations = relations(nightConfigurations, ({ one }) => ({
-  cycle: one(cycles, { fields: [nightConfigurations.cycleId], references: [cycles.id] }),
-  configuration: one(configurations, {
-    fields: [nightConfigurations.configurationId],
-    references: [configurations.id],
-  }),
+  cycle: one(cycles, on(nightConfigurations.cycleId, cycles.id)),
+  configuration: one(configurations, on(nightConfigurations.configurationId, configurations.id)),
 }));
 
 export const nightPlansRelations = relations(nightPlans, ({ one, many }) => ({
-  cycle: one(cycles, { fields: [nightPlans.cycleId], references: [cycles.id] }),
-  configuration: one(configurations, { fields: [nightPlans.configurationId], references: [configurations.id] }),
+  cycle: one(cycles, on(nightPlans.cycleId, cycles.id)),
+  configuration: one(configurations, on(nightPlans.configurationId, configurations.id)),
   blocks: many(nightPlanBlocks),
 }));
 
 export const nightPlanBlocksRelations = relations(nightPlanBlocks, ({ one }) => ({
-  plan: one(nightPlans, { fields: [nightPlanBlocks.planId], references: [nightPlans.id] }),
-  proposal: one(proposals, { fields: [nightPlanBlocks.proposalId], references: [proposals.id] }),
-  proposalTarget: one(proposalTargets, {
-    fields: [nightPlanBlocks.proposalTargetId],
-    references: [proposalTargets.id],
-  }),
+  plan: one(nightPlans, on(nightPlanBlocks.planId, nightPlans.id)),
+  proposal: one(proposals, on(nightPlanBlocks.proposalId, proposals.id)),
+  proposalTarget: one(proposalTargets, on(nightPlanBlocks.proposalTargetId, proposalTargets.id)),
 }));
 
 // ---------------------------------------------------------------- committee
 
 export const committeeMembersRelations = relations(committeeMembers, ({ one }) => ({
-  cycle: one(cycles, { fields: [committeeMembers.cycleId], references: [cycles.id] }),
-  user: one(users, { fields: [committeeMembers.userId], references: [users.id] }),
+  cycle: one(cycles, on(committeeMembers.cycleId, cycles.id)),
+  user: one(users, on(committeeMembers.userId, users.id)),
 }));
 
 export const reviewConflictsRelations = relations(reviewConflicts, ({ one }) => ({
-  proposal: one(proposals, { fields: [reviewConflicts.proposalId], references: [proposals.id] }),
-  reviewer: one(users, { fields: [reviewConflicts.reviewerId], references: [users.id] }),
+  proposal: one(proposals, on(reviewConflicts.proposalId, proposals.id)),
+  reviewer: one(users, on(reviewConflicts.reviewerId, users.id)),
 }));
 
 export const reviewAssignmentsRelations = relations(reviewAssignments, ({ one }) => ({
-  proposal: one(proposals, { fields: [reviewAssignments.proposalId], references: [proposals.id] }),
-  reviewer: one(users, { fields: [reviewAssignments.reviewerId], references: [users.id] }),
-  review: one(reviews, { fields: [reviewAssignments.id], references: [reviews.assignmentId] }),
+  proposal: one(proposals, on(reviewAssignments.proposalId, proposals.id)),
+  reviewer: one(users, on(reviewAssignments.reviewerId, users.id)),
+  review: one(reviews, on(reviewAssignments.id, reviews.assignmentId)),
 }));
 
 export const reviewsRelations = relations(reviews, ({ one }) => ({
-  assignment: one(reviewAssignments, { fields: [reviews.assignmentId], references: [reviewAssignments.id] }),
+  assignment: one(reviewAssignments, on(reviews.assignmentId, reviewAssignments.id)),
 }));
 
 export const proposalDecisionsRelations = relations(proposalDecisions, ({ one }) => ({
-  proposal: one(proposals, { fields: [proposalDecisions.proposalId], references: [proposals.id] }),
+  proposal: one(proposals, on(proposalDecisions.proposalId, proposals.id)),
 }));
 
-export const allocatedHoursRelations = relations(allocatedHours, ({ one }) => ({
-  proposal: one(proposals, { fields: [allocatedHours.proposalId], references: [proposals.id] }),
-  configuration: one(configurations, { fields: [allocatedHours.configurationId], references: [configurations.id] }),
-}));
+export const allocatedHoursRelations = hoursPerConfigurationRelations(allocatedHours);
 
 export const imagingJobsRelations = relations(imagingJobs, ({ one }) => ({
-  owner: one(users, { fields: [imagingJobs.ownerId], references: [users.id] }),
-  proposalTarget: one(proposalTargets, { fields: [imagingJobs.proposalTargetId], references: [proposalTargets.id] }),
+  owner: one(users, on(imagingJobs.ownerId, users.id)),
+  proposalTarget: one(proposalTargets, on(imagingJobs.proposalTargetId, proposalTargets.id)),
 }));

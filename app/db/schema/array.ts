@@ -1,4 +1,14 @@
-import { boolean, doublePrecision, integer, pgTable, primaryKey, text, uniqueIndex } from "drizzle-orm/pg-core";
+import {
+  type AnyPgColumn,
+  boolean,
+  doublePrecision,
+  integer,
+  type PgColumnBuilderBase,
+  pgTable,
+  primaryKey,
+  text,
+  uniqueIndex,
+} from "drizzle-orm/pg-core";
 import { refTo, serialId, timestamps } from "./columns";
 
 /**
@@ -26,36 +36,39 @@ export const sites = pgTable(
   (t) => [uniqueIndex("sites_name_key").on(t.name)],
 );
 
-export const stations = pgTable(
-  "stations",
-  {
-    id: serialId(),
-    siteId: refTo(() => sites.id),
-    name: text("name").notNull(),
-    /** Local east, north, up from the array reference point, metres. */
-    eastM: doublePrecision("east_m").notNull(),
-    northM: doublePrecision("north_m").notNull(),
-    upM: doublePrecision("up_m").notNull().default(0),
-    /** Fixed optical path offset of the station's light path, metres. */
-    pathOffsetM: doublePrecision("path_offset_m").notNull().default(0),
-    ...timestamps,
-  },
-  (t) => [uniqueIndex("stations_site_name_key").on(t.siteId, t.name)],
-);
+/**
+ * A named part of a site or of an instrument (a station, a configuration, an instrument, a band): the
+ * reference to its whole (`siteId`, `instrumentId`) and its name, its own columns, the timestamps; the
+ * name is unique within the whole, and the part goes when its whole is deleted.
+ */
+function namedPart<
+  TName extends string,
+  TWhole extends "site" | "instrument",
+  TColumns extends Record<string, PgColumnBuilderBase>,
+>(name: TName, whole: TWhole, wholeId: () => AnyPgColumn, columns: TColumns) {
+  const wholeKey: `${TWhole}Id` = `${whole}Id`;
+  const reference = { [wholeKey]: refTo(wholeId) } as Record<`${TWhole}Id`, ReturnType<typeof refTo>>;
+  return pgTable(
+    name,
+    { id: serialId(), ...reference, name: text("name").notNull(), ...columns, ...timestamps },
+    (t) => [uniqueIndex(`${name}_${whole}_name_key`).on(t[wholeKey], t.name)],
+  );
+}
 
-export const configurations = pgTable(
-  "configurations",
-  {
-    id: serialId(),
-    siteId: refTo(() => sites.id),
-    name: text("name").notNull(),
-    description: text("description").notNull().default(""),
-    /** Whether proposers may currently request this configuration. */
-    offered: boolean("offered").notNull().default(true),
-    ...timestamps,
-  },
-  (t) => [uniqueIndex("configurations_site_name_key").on(t.siteId, t.name)],
-);
+export const stations = namedPart("stations", "site", () => sites.id, {
+  /** Local east, north, up from the array reference point, metres. */
+  eastM: doublePrecision("east_m").notNull(),
+  northM: doublePrecision("north_m").notNull(),
+  upM: doublePrecision("up_m").notNull().default(0),
+  /** Fixed optical path offset of the station's light path, metres. */
+  pathOffsetM: doublePrecision("path_offset_m").notNull().default(0),
+});
+
+export const configurations = namedPart("configurations", "site", () => sites.id, {
+  description: text("description").notNull().default(""),
+  /** Whether proposers may currently request this configuration. */
+  offered: boolean("offered").notNull().default(true),
+});
 
 export const configurationStations = pgTable(
   "configuration_stations",
@@ -68,35 +81,19 @@ export const configurationStations = pgTable(
   (t) => [primaryKey({ columns: [t.configurationId, t.stationId] })],
 );
 
-export const instruments = pgTable(
-  "instruments",
-  {
-    id: serialId(),
-    siteId: refTo(() => sites.id),
-    name: text("name").notNull(),
-    description: text("description").notNull().default(""),
-    /** Number of telescopes the combiner can take at once. */
-    maxTelescopes: integer("max_telescopes").notNull(),
-    ...timestamps,
-  },
-  (t) => [uniqueIndex("instruments_site_name_key").on(t.siteId, t.name)],
-);
+export const instruments = namedPart("instruments", "site", () => sites.id, {
+  description: text("description").notNull().default(""),
+  /** Number of telescopes the combiner can take at once. */
+  maxTelescopes: integer("max_telescopes").notNull(),
+});
 
-export const bands = pgTable(
-  "bands",
-  {
-    id: serialId(),
-    instrumentId: refTo(() => instruments.id),
-    name: text("name").notNull(),
-    /** Central wavelength, metres. */
-    centralWavelengthM: doublePrecision("central_wavelength_m").notNull(),
-    /** Number of spectral channels across the band. */
-    channels: integer("channels").notNull(),
-    /** Full bandwidth, metres. */
-    bandwidthM: doublePrecision("bandwidth_m").notNull(),
-    /** Faintest magnitude in this band the instrument can fringe-track on, mag. */
-    limitingMagnitude: doublePrecision("limiting_magnitude").notNull(),
-    ...timestamps,
-  },
-  (t) => [uniqueIndex("bands_instrument_name_key").on(t.instrumentId, t.name)],
-);
+export const bands = namedPart("bands", "instrument", () => instruments.id, {
+  /** Central wavelength, metres. */
+  centralWavelengthM: doublePrecision("central_wavelength_m").notNull(),
+  /** Number of spectral channels across the band. */
+  channels: integer("channels").notNull(),
+  /** Full bandwidth, metres. */
+  bandwidthM: doublePrecision("bandwidth_m").notNull(),
+  /** Faintest magnitude in this band the instrument can fringe-track on, mag. */
+  limitingMagnitude: doublePrecision("limiting_magnitude").notNull(),
+});

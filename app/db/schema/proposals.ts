@@ -102,18 +102,28 @@ export const cycleConfigurations = pgTable(
   (t) => [primaryKey({ columns: [t.cycleId, t.configurationId] })],
 );
 
-/** A proposer's own list of targets ("My targets"), reused across sketches and proposals. */
-export const targets = pgTable(
-  "targets",
-  {
-    id: serialId(),
-    ownerId: refTo(() => users.id),
+/**
+ * What a target is, as a person describes it: its name, position, model and magnitudes. A proposal's
+ * targets carry their own copy (see proposalTargets), so both tables declare the same columns.
+ */
+function targetDescription() {
+  return {
     name: text("name").notNull(),
     /** J2000 right ascension and declination, degrees. */
     raDeg: doublePrecision("ra_deg").notNull(),
     decDeg: doublePrecision("dec_deg").notNull(),
     model: jsonb("model").$type<TargetModelJson>().notNull(),
     magnitudes: jsonb("magnitudes").$type<MagnitudesJson>().notNull().default({}),
+  };
+}
+
+/** A proposer's own list of targets ("My targets"), reused across sketches and proposals. */
+export const targets = pgTable(
+  "targets",
+  {
+    id: serialId(),
+    ownerId: refTo(() => users.id),
+    ...targetDescription(),
     notes: text("notes").notNull().default(""),
     ...timestamps,
   },
@@ -208,11 +218,7 @@ export const proposalTargets = pgTable(
     proposalId: refTo(() => proposals.id),
     position: integer("position").notNull().default(0),
     sourceTargetId: optionalRefTo(() => targets.id),
-    name: text("name").notNull(),
-    raDeg: doublePrecision("ra_deg").notNull(),
-    decDeg: doublePrecision("dec_deg").notNull(),
-    model: jsonb("model").$type<TargetModelJson>().notNull(),
-    magnitudes: jsonb("magnitudes").$type<MagnitudesJson>().notNull().default({}),
+    ...targetDescription(),
     /** Minimum elevation for this target, degrees; null = the site's. */
     minElevationDeg: doublePrecision("min_elevation_deg"),
     timeWindows: jsonb("time_windows").$type<TimeWindowJson[]>().notNull().default([]),

@@ -14,7 +14,14 @@ import {
   reviewAssignments,
   reviews,
 } from "~/db/schema/committee";
-import { cycles, type ProposalStatus, proposalHours, proposals, proposalTargets } from "~/db/schema/proposals";
+import {
+  cycles,
+  PROPOSAL_STATUSES,
+  type ProposalStatus,
+  proposalHours,
+  proposals,
+  proposalTargets,
+} from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
 import { activeAssignment, submittedReview } from "~/lib/conditions.server";
 import { piOfProposal, proposalOfAssignment, reviewOfAssignment } from "~/lib/joins.server";
@@ -23,15 +30,11 @@ import { type Board, computeBoard } from "./board";
 import type { BoardRecords, HoursByConfiguration } from "./board-records";
 import { cycleDarkness } from "./dark-time.server";
 
+/** Statuses of proposals the committee never weighs: not yet submitted, or taken back by the team. */
+const OFF_BOARD_STATUSES: readonly ProposalStatus[] = ["draft", "withdrawn"];
+
 /** The statuses of proposals the committee weighs (submitted, and every outcome of the review). */
-export const BOARD_STATUSES: ProposalStatus[] = [
-  "submitted",
-  "under_review",
-  "accepted",
-  "waitlisted",
-  "declined",
-  "scheduled",
-];
+export const BOARD_STATUSES: ProposalStatus[] = PROPOSAL_STATUSES.filter((s) => !OFF_BOARD_STATUSES.includes(s));
 
 export const DEFAULT_DISAGREEMENT_SPREAD = 1;
 
