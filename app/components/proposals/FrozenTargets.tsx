@@ -5,23 +5,11 @@
  */
 import { Coordinates } from "~/components/targets/Coordinates";
 import { Card } from "~/components/ui";
+import type { frozenTargetView } from "~/services/proposals/target-summary";
 import { shownUtc } from "./utc";
 
-export type FrozenTarget = {
-  name: string;
-  raDeg: number;
-  decDeg: number;
-  /** In words (`describeModel`, `describeMagnitudes`). */
-  model: string;
-  magnitudes: string;
-  minElevationDeg: number | null;
-  timeWindows: { startUtc: string; endUtc: string }[];
-  calibrators: string[];
-  /** "Closure triangle C07–C11–X01 (ranked for …)", or null when none was chosen. */
-  triangle: string | null;
-  notes: string;
-  links?: { label: string; href: string }[];
-};
+/** `frozenTargetView`'s words, with links (the review desk's Sketchpad links) where the page has them. */
+export type FrozenTarget = ReturnType<typeof frozenTargetView> & { links?: { label: string; href: string }[] };
 
 function windowsText(ws: FrozenTarget["timeWindows"]): string {
   return ws.map((w) => `${shownUtc(w.startUtc)} – ${shownUtc(w.endUtc)}`).join("; ");

@@ -2,18 +2,17 @@ import { href, Link } from "react-router";
 import { ErrorPage } from "~/components/ErrorPage";
 import { FrozenTargets } from "~/components/proposals/FrozenTargets";
 import { HoursFacts, ProposalFacts, TeamFacts } from "~/components/proposals/ProposalFacts";
-import { closureTriangleLine } from "~/components/targets/closure-triangle";
 import { Badge, Card, PageHeader } from "~/components/ui";
 import { dbContext } from "~/context";
 import { formatBytes } from "~/lib/format";
 import { requirePermission } from "~/lib/guards.server";
 import { invariantResponse, toId } from "~/lib/not-found";
 import { loadProposalForViewer, proposalIdFrom } from "~/services/proposals/access.server";
+import { frozenTargetView } from "~/services/proposals/target-summary";
 import { readVersion } from "~/services/proposals/versions.server";
 import { acknowledgementText } from "~/services/proposals/warnings";
 import { BackToProposal } from "./+shared/BackToProposal";
 import { FeasibilityView } from "./+shared/FeasibilityView";
-import { targetSummary } from "./+shared/target-summary";
 import { shownUtc } from "./+shared/utc";
 import type { Route } from "./+types/version";
 
@@ -41,12 +40,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
       coInvestigators: s.coInvestigators,
       instrument: s.instrument,
       hours: s.hours,
-      targets: s.targets.map((t) => ({
-        ...targetSummary(t),
-        timeWindows: t.timeWindows,
-        triangle: closureTriangleLine(t.closureTriangle),
-        notes: t.notes,
-      })),
+      targets: s.targets.map(frozenTargetView),
       acknowledgement: s.acknowledgement ? acknowledgementText(s.acknowledgement) : null,
       document: s.document ? { ...s.document, size: formatBytes(s.document.sizeBytes) } : null,
       feasibility: s.feasibility,

@@ -5,13 +5,11 @@
  * proposal feature's frozen versions and science case (services/proposals).
  */
 import { href } from "react-router";
-import { closureTriangleLine } from "~/components/targets/closure-triangle";
-import { describeModel } from "~/components/targets/describe-model";
 import type { Database } from "~/db/client.server";
 import { formatDeclination, formatRightAscension } from "~/lib/coordinates";
 import { readScienceCase } from "~/services/proposals/science-case.server";
+import { frozenTargetView } from "~/services/proposals/target-summary";
 import { type ProposalSnapshot, readVersion } from "~/services/proposals/versions.server";
-import { describeMagnitudes } from "~/services/proposals/words";
 import { modelInputsOf } from "~/services/sketch/models";
 import { writeSketchState } from "~/services/sketch/state";
 
@@ -78,16 +76,7 @@ export async function frozenProposal(db: Database, { proposalId, version }: { pr
     hours: s.hours,
     document: s.document,
     targets: s.targets.map((t) => ({
-      name: t.name,
-      raDeg: t.raDeg,
-      decDeg: t.decDeg,
-      model: describeModel(t.model),
-      magnitudes: describeMagnitudes(t.magnitudes),
-      minElevationDeg: t.minElevationDeg,
-      timeWindows: t.timeWindows,
-      calibrators: t.calibrators.map((c) => c.name),
-      triangle: closureTriangleLine(t.closureTriangle),
-      notes: t.notes,
+      ...frozenTargetView(t),
       links: s.hours.map((h) => ({
         label: `Sketchpad: ${t.name} with ${h.configuration}`,
         href: sketchpadLink(t, s, h.configuration),

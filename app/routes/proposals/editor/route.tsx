@@ -11,6 +11,7 @@ import { computeProposalFeasibility } from "~/services/proposals/feasibility.ser
 import { MAX_PDF_BYTES } from "~/services/proposals/pdf";
 import { missingForSubmission } from "~/services/proposals/queries.server";
 import { PROPOSAL_LIMITS } from "~/services/proposals/schemas";
+import { targetSummary } from "~/services/proposals/target-summary";
 import { readProposalPost } from "~/services/proposals/upload.server";
 import { acknowledgementText, failingLines, failingLineText } from "~/services/proposals/warnings";
 import { deadlineCountdown, STATUS_WORDS } from "~/services/proposals/words";
@@ -30,7 +31,6 @@ import { TeamCard, type TeamCardProps } from "../+shared/editor/TeamCard";
 import { addMyTargetIntent, moveTargetIntent, removeTargetIntent } from "../+shared/editor/targets.server";
 import { addMemberIntent, removeMemberIntent } from "../+shared/editor/team.server";
 import { VersionsCard, type VersionsCardProps } from "../+shared/editor/VersionsCard";
-import { targetSummary } from "../+shared/target-summary";
 import type { Route } from "./+types/route";
 
 export async function loader({ request, params, context }: Route.LoaderArgs) {

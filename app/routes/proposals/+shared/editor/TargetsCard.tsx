@@ -3,21 +3,12 @@
 import { Form, href, Link } from "react-router";
 import { Coordinates } from "~/components/targets/Coordinates";
 import { Button, ButtonLink, Card, SelectField } from "~/components/ui";
+import type { TargetSummary } from "~/services/proposals/target-summary";
 import { Choices } from "../Choices";
 import { IntentButton, RemoveButton } from "./IntentButton";
 import type { ActionResult } from "./result";
 
-type TargetLine = {
-  id: number;
-  name: string;
-  raDeg: number;
-  decDeg: number;
-  model: string;
-  magnitudes: string;
-  minElevationDeg: number | null;
-  windows: number;
-  calibrators: string[];
-};
+type TargetLine = TargetSummary & { id: number; windows: number };
 
 export type TargetsCardProps = {
   proposalId: number;
