@@ -2,10 +2,10 @@
  * "Use this triangle": a dialog (the browser's <dialog>: focus kept inside, Escape closes it) that
  * stores the ranked triangle, with what it was ranked for, on a target of one of the viewer's drafts.
  */
-import { useEffect, useId, useRef } from "react";
-import { Form, useNavigation } from "react-router";
+import { useEffect, useRef } from "react";
 import { triangleText } from "~/components/targets/closure-triangle";
-import { Button, SelectField } from "~/components/ui";
+import { SelectField } from "~/components/ui";
+import { ModalForm } from "~/components/ui/ModalForm";
 import { ALL_STATIONS } from "~/services/sketch/state";
 import type { ProposalTargetChoice } from "~/services/sketch/triangle-choice";
 
@@ -25,8 +25,6 @@ export function UseTriangleDialog({
   onClose: () => void;
 }) {
   const ref = useRef<HTMLDialogElement>(null);
-  const heading = useId();
-  const busy = useNavigation().state === "submitting";
   useEffect(() => {
     const dialog = ref.current;
     if (!dialog) return;
@@ -36,51 +34,33 @@ export function UseTriangleDialog({
   const pool = rankedFor.pool === ALL_STATIONS ? "every station" : `configuration ${rankedFor.pool}`;
   const text = stations ? triangleText({ stations: stations as [string, string, string] }) : "";
   return (
-    <dialog
-      ref={ref}
-      aria-labelledby={heading}
+    <ModalForm
+      dialogRef={ref}
+      title={`Use the triangle ${text}`}
+      intent="use-triangle"
+      hidden={{ stations: (stations ?? []).join(","), ...rankedFor }}
+      submitLabel="Use this triangle"
       onClose={onClose}
-      className="m-auto w-[min(32rem,calc(100vw-2rem))] rounded-xl bg-white p-0 shadow-xl ring-1 ring-night-200 backdrop:bg-night-950/40"
     >
-      {stations ? (
-        <Form method="post" className="grid gap-4 p-5" onSubmit={() => ref.current?.close()}>
-          <h2 id={heading} className="text-lg font-semibold text-night-900">
-            Use the triangle {text}
-          </h2>
-          <p className="text-sm text-night-700">
-            Ranked for {rankedFor.instrument} {rankedFor.band} on {pool} at {rankedFor.site}. The target's page in the
-            proposal shows it; a triangle chosen before for that target is replaced.
-          </p>
-          <SelectField label="Proposal target" name="target" defaultValue="">
-            <option value="" disabled>
-              — choose a target of one of your drafts —
-            </option>
-            {choices.map((p) => (
-              <optgroup key={p.id} label={`${p.title} (${p.cycleName})`}>
-                {p.targets.map((t) => (
-                  <option key={t.id} value={`${p.id}:${t.id}`}>
-                    {t.name}
-                    {t.closureTriangle ? ` (now ${triangleText(t.closureTriangle)})` : ""}
-                  </option>
-                ))}
-              </optgroup>
+      <p className="text-sm text-night-700">
+        Ranked for {rankedFor.instrument} {rankedFor.band} on {pool} at {rankedFor.site}. The target's page in the
+        proposal shows it; a triangle chosen before for that target is replaced.
+      </p>
+      <SelectField key={text} label="Proposal target" name="target" defaultValue="">
+        <option value="" disabled>
+          — choose a target of one of your drafts —
+        </option>
+        {choices.map((p) => (
+          <optgroup key={p.id} label={`${p.title} (${p.cycleName})`}>
+            {p.targets.map((t) => (
+              <option key={t.id} value={`${p.id}:${t.id}`}>
+                {t.name}
+                {t.closureTriangle ? ` (now ${triangleText(t.closureTriangle)})` : ""}
+              </option>
             ))}
-          </SelectField>
-          <input type="hidden" name="intent" value="use-triangle" />
-          <input type="hidden" name="stations" value={stations.join(",")} />
-          {Object.entries(rankedFor).map(([k, v]) => (
-            <input key={k} type="hidden" name={k} value={v} />
-          ))}
-          <div className="flex flex-wrap justify-end gap-2">
-            <Button variant="secondary" onClick={() => ref.current?.close()}>
-              Cancel
-            </Button>
-            <Button type="submit" disabled={busy}>
-              Use this triangle
-            </Button>
-          </div>
-        </Form>
-      ) : null}
-    </dialog>
+          </optgroup>
+        ))}
+      </SelectField>
+    </ModalForm>
   );
 }
