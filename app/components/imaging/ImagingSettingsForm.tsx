@@ -65,6 +65,12 @@ export function ImagingSettingsForm({
     onChange: (e: ChangeEvent<HTMLInputElement>) => set({ [key]: e.target.value }),
     error: errors[`settings.${BODY_FIELD[key] ?? key}`],
   });
+  /** A choice: its value, its change, and the error the server names it by. */
+  const choose = (key: "regularizer" | "weightMode" | "closurePhaseTriangles") => ({
+    value: draft[key],
+    onChange: (e: ChangeEvent<HTMLSelectElement>) => set({ [key]: e.target.value } as Partial<SettingsDraft>),
+    error: errors[`settings.${key}`],
+  });
   return (
     <fieldset disabled={disabled} className="grid gap-3 sm:grid-cols-2 xl:grid-cols-4">
       <legend className="sr-only">Imaging settings</legend>
@@ -74,12 +80,7 @@ export function ImagingSettingsForm({
         {...bind("gridSize", "numeric")}
         hint="32–128, default 64; pixel λ/(4 B_max)."
       />
-      <SelectField
-        label="Regularizer"
-        value={draft.regularizer}
-        onChange={(e) => set({ regularizer: e.target.value })}
-        error={errors["settings.regularizer"]}
-      >
+      <SelectField label="Regularizer" {...choose("regularizer")}>
         {Object.entries(REGULARIZER_LABELS).map(([value, label]) => (
           <option key={value} value={value}>
             {label}
@@ -88,8 +89,7 @@ export function ImagingSettingsForm({
       </SelectField>
       <SelectField
         label="Weight"
-        value={draft.weightMode}
-        onChange={(e) => set({ weightMode: e.target.value as "auto" | "fixed" })}
+        {...choose("weightMode")}
         hint="Automatic: chosen so the reduced χ² comes out near 1."
       >
         <option value="auto">Automatic</option>
@@ -113,8 +113,7 @@ export function ImagingSettingsForm({
       />
       <SelectField
         label="Closure phases"
-        value={draft.closurePhaseTriangles}
-        onChange={(e) => set({ closurePhaseTriangles: e.target.value })}
+        {...choose("closurePhaseTriangles")}
         hint="Independent: the (N−1)(N−2)/2 triangles through the first station."
       >
         <option value="all">Every triangle</option>
