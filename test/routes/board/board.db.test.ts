@@ -1,4 +1,5 @@
 import { answer, committeeCycle, person, registry, submitted, submittedReview } from "@test/committee-world";
+import { rankRequest } from "@test/rank-request";
 import { formPost, routeArgs, settle, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -195,17 +196,16 @@ describe("POST /api/rank", () => {
     );
 
   it("answers the example of docs/cli-rank.md exactly as the command line does", async () => {
-    const res = await post({
-      scale: { best: 1, worst: 5 },
-      reviews: [
-        { reviewer: "r1", proposal: "P1", score: 1 },
-        { reviewer: "r1", proposal: "P2", score: 3 },
-        { reviewer: "r1", proposal: "P3", score: 5 },
-        { reviewer: "r2", proposal: "P1", score: 2 },
-        { reviewer: "r2", proposal: "P2", score: 2 },
-        { reviewer: "r3", proposal: "P3", score: 4 },
-      ],
-    });
+    const res = await post(
+      rankRequest([
+        ["r1", "P1", 1],
+        ["r1", "P2", 3],
+        ["r1", "P3", 5],
+        ["r2", "P1", 2],
+        ["r2", "P2", 2],
+        ["r3", "P3", 4],
+      ]),
+    );
     expect(res.status).toBe(200);
     // docs/cli-rank.md, the response printed by `npm run -s cli -- rank --input /tmp/rank.json`.
     expect(await res.json()).toEqual({
