@@ -6,12 +6,7 @@ const { file } = requestFiles("cli-rank");
 
 // r1: P1 = 2, P2 = 4 → μ = 3, σ = 1 → z = −1, +1.  r2: P1 = 3, P2 = 3.5 → μ = 3.25, σ = 0.25 → z = −1, +1.
 // P1: z̄ = −1, mean 2.5, spread 0.5 → rank 1.  P2: z̄ = +1, mean 3.75, spread 0.25 → rank 2.
-const request = rankRequest([
-  ["r1", "P1", 2],
-  ["r1", "P2", 4],
-  ["r2", "P1", 3],
-  ["r2", "P2", 3.5],
-]);
+const request = rankRequest({ r1: { P1: 2, P2: 4 }, r2: { P1: 3, P2: 3.5 } });
 
 describe("cli rank", { timeout: 60_000 }, () => {
   it("--input FILE prints one JSON object with exactly the contract's fields", () => {
