@@ -104,6 +104,11 @@ export async function signedInPage(
   return { context, page, seen };
 }
 
+/** The query parameters of the page's address, as one object. */
+export function addressParams(page: Page): Record<string, string> {
+  return Object.fromEntries(new URL(page.url()).searchParams);
+}
+
 /** The desktop viewport most browser tests use. */
 export const DESKTOP = { viewport: { width: 1366, height: 900 } };
 

@@ -13,7 +13,7 @@ import { reviewAssignments, reviewConflicts } from "~/db/schema/committee";
 import { imagingJobs } from "~/db/schema/imaging";
 import { proposals, proposalTargets } from "~/db/schema/proposals";
 import { users } from "~/db/schema/users";
-import { ARTIFACTS, screenshot, signedInPage, useBrowser } from "./browser";
+import { ARTIFACTS, closeWithoutErrors, DESKTOP, screenshot, signedInPage, useBrowser } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const browser = useBrowser();
@@ -59,9 +59,7 @@ describe("imaging preview", () => {
   it("a proposer starts a preview, watches it, sees the images and the verdict, downloads OIFITS", {
     timeout: 300_000,
   }, async () => {
-    const { context, page, seen } = await signedInPage(browser, "Oskar Lindfors", {
-      viewport: { width: 1366, height: 900 },
-    });
+    const { context, page, seen } = await signedInPage(browser, "Oskar Lindfors", DESKTOP);
     await page.goto(`${baseUrl}/proposals/${proposalId}/targets/${targetId}`);
     const panel = page.getByRole("region", { name: "Imaging preview" });
     await panel.getByLabel(/Grid size/).fill("32");
@@ -120,14 +118,11 @@ describe("imaging preview", () => {
     await panel.getByRole("button", { name: "Cancel" }).click();
     await panel.getByText("This preview was cancelled.").waitFor({ timeout: 10_000 });
     await expect(panel.getByTestId("imaging-job").getAttribute("data-state")).resolves.toBe("cancelled");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("a reviewer assigned to the proposal sees the same preview, read-only", async () => {
-    const { context, page, seen } = await signedInPage(browser, reviewerName, {
-      viewport: { width: 1366, height: 900 },
-    });
+    const { context, page, seen } = await signedInPage(browser, reviewerName, DESKTOP);
     await page.goto(`${baseUrl}/review/proposals/${proposalId}`);
     const panel = page.getByRole("region", { name: "Imaging preview" });
     await panel.getByTestId("imaging-verdict").waitFor({ timeout: 30_000 });
@@ -139,14 +134,11 @@ describe("imaging preview", () => {
     await screenshot(page, "imaging-reviewer-1366");
     await page.setViewportSize({ width: 360, height: 800 });
     await screenshot(page, "imaging-reviewer-360");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("the chair queues previews for every imaging target of the cycle and sees the queue", async () => {
-    const { context, page, seen } = await signedInPage(browser, "Henrik Solberg", {
-      viewport: { width: 1366, height: 900 },
-    });
+    const { context, page, seen } = await signedInPage(browser, "Henrik Solberg", DESKTOP);
     await page.goto(`${baseUrl}/cycles/${cycleId}`);
     const section = page.getByRole("region", { name: "Imaging previews" });
     await section.getByRole("button", { name: "Queue previews for every imaging target" }).click();
@@ -159,14 +151,11 @@ describe("imaging preview", () => {
     await screenshot(page, "imaging-chair-queue-1366");
     await page.setViewportSize({ width: 360, height: 800 });
     await section.screenshot({ path: join(ARTIFACTS, "imaging-chair-queue-360.png") });
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("the Sketchpad previews the sketch as it stands", { timeout: 240_000 }, async () => {
-    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", {
-      viewport: { width: 1366, height: 900 },
-    });
+    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", DESKTOP);
     const sketch = "name=Preview%20field&ra=11:00:00&dec=-36:00:00&date=2027-03-15&model=binary&sep=4&pa=60&ratio=0.4";
     await page.goto(`${baseUrl}/sketchpad?config=medium-4&${sketch}`);
     const panel = page.getByRole("region", { name: "Imaging preview" });
@@ -177,7 +166,6 @@ describe("imaging preview", () => {
     await expect.poll(() => panel.locator(".main-svg").count(), { timeout: 20_000 }).toBeGreaterThanOrEqual(3);
     await panel.scrollIntoViewIfNeeded();
     await screenshot(page, "imaging-sketchpad-1366");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 });

@@ -34,6 +34,14 @@ afterAll(async () => {
 const planRows = (page: Page) =>
   page.getByRole("table", { name: "Blocks of the plan in time order" }).locator("tbody tr");
 
+/** Waits until the plan's timeline figure is drawn. */
+const timelineDrawn = (page: Page) =>
+  page
+    .getByRole("figure", { name: /Timeline of the plan/ })
+    .locator(".main-svg")
+    .first()
+    .waitFor();
+
 async function planAutomatically(page: Page) {
   await page.getByRole("button", { name: "Plan automatically" }).click();
   await page.getByText(/blocks? planned for \d targets?/).waitFor();
@@ -82,11 +90,7 @@ describe("Night builder", () => {
     const candidates = page.getByRole("table", { name: `Candidate targets of the night of ${today}` });
     await expect(candidates.locator("tbody tr").count()).resolves.toBe(4);
     await planAutomatically(page);
-    await page
-      .getByRole("figure", { name: /Timeline of the plan/ })
-      .locator(".main-svg")
-      .first()
-      .waitFor();
+    await timelineDrawn(page);
     await screenshot(page, "night-plan");
 
     // Move the first science block ahead of its calibrator by the keyboard: the violation shows on it.
@@ -188,11 +192,7 @@ describe("Night builder", () => {
     await screenshot(page, "nights-calendar-360");
     await page.goto(`${baseUrl}/nights/${today}`);
     await planRows(page).first().waitFor();
-    await page
-      .getByRole("figure", { name: /Timeline of the plan/ })
-      .locator(".main-svg")
-      .first()
-      .waitFor();
+    await timelineDrawn(page);
     await screenshot(page, "night-plan-360");
     const width = await page.evaluate(() => document.documentElement.scrollWidth);
     expect(width).toBeLessThanOrEqual(360);

@@ -4,18 +4,16 @@ import { join } from "node:path";
 import { describe, expect, inject, it } from "vitest";
 import { demoCycles } from "~/db/seed/scenario";
 import { makeTinyPdf } from "~/services/proposals/pdf";
-import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
+import { screenshot, signedInPage, useBrowser } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const browser = useBrowser();
+const WIDE = { viewport: { width: 1280, height: 900 } };
 
 describe("proposals", () => {
   it("a proposer writes a proposal, uploads the science case, reads the report, submits and gets the notice", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    const seen = watchPage(page);
     const title = "Limb darkening of Ceniza Lumbre 4";
-    await signInAs(page, "Inés Arroyo-Vidal");
+    const { context, page, seen } = await signedInPage(browser, "Inés Arroyo-Vidal", WIDE);
 
     // My proposals: the demo proposals where Inés is PI or co-investigator, with their statuses.
     await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "Proposals" }).click();
@@ -122,9 +120,7 @@ describe("proposals", () => {
   });
 
   it("refuses a file that is not a PDF with a clear message and keeps the page", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await signInAs(page, "Tomasz Wierzbicki");
+    const { context, page } = await signedInPage(browser, "Tomasz Wierzbicki", WIDE);
     await page.goto(`${baseUrl}/proposals`);
     await page.getByRole("link", { name: "Periastron passage of Quebrada Twin 9" }).click();
     await page.getByRole("heading", { level: 1, name: "Periastron passage of Quebrada Twin 9" }).waitFor();

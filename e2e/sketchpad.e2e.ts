@@ -8,7 +8,7 @@
  */
 import type { Locator, Page } from "playwright-core";
 import { describe, expect, inject, it } from "vitest";
-import { screenshot, signedInPage, useBrowser } from "./browser";
+import { addressParams, closeWithoutErrors, DESKTOP, screenshot, signedInPage, useBrowser } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const browser = useBrowser();
@@ -92,7 +92,7 @@ const upToDate = (page: Page) => page.getByText(/^Up to date/).waitFor({ timeout
 
 /** PERSON's Sketchpad at 1366 px on `query` (compact-3 and the test sketch unless given), its first answer shown. */
 async function openSketchpad(query = `config=compact-3&${SKETCH}`) {
-  const opened = await signedInPage(browser, PERSON, { viewport: { width: 1366, height: 900 } });
+  const opened = await signedInPage(browser, PERSON, DESKTOP);
   await opened.page.goto(`${baseUrl}/sketchpad?${query}`);
   await upToDate(opened.page);
   return opened;
@@ -122,8 +122,7 @@ describe("Sketchpad", () => {
     await screenshot(page, "sketchpad-compact-3");
 
     // The address carries every input, completed with the defaults (instrument, band).
-    const url = new URL(page.url());
-    expect(Object.fromEntries(url.searchParams)).toMatchObject({
+    expect(addressParams(page)).toMatchObject({
       config: "compact-3",
       ra: "11:00:00",
       dec: "-36:00:00",
@@ -176,8 +175,7 @@ describe("Sketchpad", () => {
     await night.fill("2027-03-15");
     await upToDate(page);
     expect(await uvTraceCount(page)).toBe(12);
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("answers a pick at once, typing once it pauses, cancels a superseded request and says how long it took", async () => {
@@ -224,8 +222,7 @@ describe("Sketchpad", () => {
     expect(aborted.length).toBeGreaterThanOrEqual(1);
     expect(aborted.every((e) => /ABORTED/i.test(e))).toBe(true);
     expect(await uvTraceCount(page)).toBe(6);
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("updates the plots in place and draws the heatmaps after the other plots", async () => {
@@ -262,8 +259,7 @@ describe("Sketchpad", () => {
     expect(light.length).toBeGreaterThanOrEqual(4);
     expect(heavy.length).toBe(2);
     expect(Math.min(...heavy.map(([, t]) => t))).toBeGreaterThan(Math.max(...light.map(([, t]) => t)));
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("gives each plot one Tab stop, with its toolbar on the arrow keys", async () => {
@@ -303,8 +299,7 @@ describe("Sketchpad", () => {
     );
     await page.keyboard.press("Escape");
     await expect(page.evaluate(() => document.activeElement?.tagName)).resolves.toBe("FIGURE");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("refuses a physically absurd input with the allowed range", async () => {
@@ -320,12 +315,11 @@ describe("Sketchpad", () => {
     await expect(page.getByText("Fix the marked inputs to update").isVisible()).resolves.toBe(true);
     await expect(page.getByText(/^Up to date/).count()).resolves.toBe(0);
     await screenshot(page, "sketchpad-absurd-diameter");
-    expect(seen.errors).toEqual([]); // the API was not asked: nothing refused, nothing logged
-    await context.close();
+    await closeWithoutErrors({ context, seen }); // the API was not asked: nothing refused, nothing logged
   });
 
   it("marks why each sample is not observable, shows times in UTC and coordinates in sexagesimal", async () => {
-    const { context, page, seen } = await signedInPage(browser, PERSON, { viewport: { width: 1366, height: 900 } });
+    const { context, page, seen } = await signedInPage(browser, PERSON, DESKTOP);
     // The two outriggers farthest apart over ±8 h: low elevation far from the meridian, and the delay
     // line out of range in between (|w| changes by several hundred metres over the night).
     await page.goto(`${baseUrl}/sketchpad?st=X02,X04&ha=-8,8,0.25&${SKETCH}`);
@@ -365,8 +359,7 @@ describe("Sketchpad", () => {
     await expect(shown.getAttribute("title")).resolves.toBe("RA 165.0000°, Dec -36.0000° (J2000)");
     await expect(page.locator('abbr[title="165.0000°"]').textContent()).resolves.toBe("11:00:00.00");
     expect(await page.evaluate(() => /\b\d{1,2}:\d{2}\s?(AM|PM)\b/i.test(document.body.textContent ?? ""))).toBe(false);
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("fits a 360 px wide screen, with no toolbar over a title", async () => {
@@ -397,7 +390,6 @@ describe("Sketchpad", () => {
     }
     await page.locator('figure[aria-label^="Dirty beam"]').hover();
     await screenshot(page, "sketchpad-360px");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 });

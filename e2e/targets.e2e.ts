@@ -1,49 +1,51 @@
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
+import type { Page } from "playwright-core";
 import { describe, expect, inject, it } from "vitest";
-import { screenshot, signInAs, useBrowser, watchPage } from "./browser";
+import { screenshot, signedInPage, useBrowser } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const browser = useBrowser();
+const WIDE = { viewport: { width: 1280, height: 900 } };
+
+/** Writes `csv` (when given) to `file`, picks the file on the import page and has the page check it. */
+async function checkList(page: Page, file: string, csv?: string) {
+  if (csv !== undefined) writeFileSync(file, csv);
+  await page.setInputFiles("#file", file);
+  await page.getByRole("button", { name: "Check the list" }).click();
+}
 
 describe("My targets and cycles", () => {
   it("a proposer imports a CSV target list: a broken row blocks it, the fixed list goes in", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    const seen = watchPage(page);
-    await signInAs(page, "Tomasz Wierzbicki");
+    const { context, page, seen } = await signedInPage(browser, "Tomasz Wierzbicki", WIDE);
     await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "My targets" }).click();
     await page.getByRole("heading", { level: 1, name: "My targets" }).waitFor();
     await page.getByRole("link", { name: "Import CSV" }).click();
     await page.getByRole("heading", { level: 1, name: "Import targets" }).waitFor();
 
     const dir = mkdtempSync(join(tmpdir(), "fd-targets-"));
-    const broken = join(dir, "broken.csv");
-    writeFileSync(
-      broken,
+    await checkList(
+      page,
+      join(dir, "broken.csv"),
       "name,ra,dec,model,size_mas,mag_K\nCeniza Pair,06:12:00,-24:30:00,uniformDisk,2.4,3.1\nBrizna,27:00:00,+05:00:00,point,,6.5\n",
     );
-    await page.setInputFiles("#file", broken);
-    await page.getByRole("button", { name: "Check the list" }).click();
     await page.getByText("1 problem to fix — nothing has been imported.").waitFor();
     const problems = page.getByRole("table", { name: "Problems by line of the file" });
     await expect(problems.locator("tbody tr").first().textContent()).resolves.toMatch(/3\s*ra\s*Right ascension/);
     await screenshot(page, "targets-import-error");
 
     const good = join(dir, "good.csv");
-    writeFileSync(
+    await checkList(
+      page,
       good,
       "name,ra,dec,model,size_mas,mag_K\nCeniza Pair,06:12:00,-24:30:00,uniformDisk,2.4,3.1\nBrizna,07:00:00,+05:00:00,point,,6.5\n",
     );
-    await page.setInputFiles("#file", good);
-    await page.getByRole("button", { name: "Check the list" }).click();
     await page.getByRole("button", { name: "Import 2 targets" }).click();
     await page.getByText("Imported 2 new targets.").waitFor();
     // The same list again: nothing to import, and the page says why.
     await page.getByRole("link", { name: "Import CSV" }).click();
-    await page.setInputFiles("#file", good);
-    await page.getByRole("button", { name: "Check the list" }).click();
+    await checkList(page, good);
     await page.getByText("All 2 already in your list, unchanged: nothing to import.").waitFor();
     await expect(page.getByRole("button", { name: /^Import \d/ }).count()).resolves.toBe(0);
     await page.getByRole("link", { name: "Back to My targets" }).click();
@@ -57,9 +59,7 @@ describe("My targets and cycles", () => {
   });
 
   it("a proposer adds a target by hand and sees the field named when the declination is wrong", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await signInAs(page, "Inés Arroyo-Vidal");
+    const { context, page } = await signedInPage(browser, "Inés Arroyo-Vidal", WIDE);
     await page.goto(`${baseUrl}/targets`);
     await page.getByLabel("Name").fill("Lumbre Nova 12");
     await page.getByLabel("Right ascension").fill("05:36:12.8");
@@ -99,10 +99,7 @@ describe("My targets and cycles", () => {
   });
 
   it("the chair opens a new cycle with its configurations and nights", async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    const seen = watchPage(page);
-    await signInAs(page, "Henrik Solberg");
+    const { context, page, seen } = await signedInPage(browser, "Henrik Solberg", WIDE);
     await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "Cycles" }).click();
     await page.getByRole("link", { name: "New cycle" }).click();
     // A name no demo cycle takes (theirs follow the load date: app/db/seed/demo-cycles.ts).

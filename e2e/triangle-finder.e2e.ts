@@ -5,7 +5,7 @@
  * shows it; opened from My targets, the page links back.
  */
 import { describe, expect, inject, it } from "vitest";
-import { screenshot, signedInPage, useBrowser } from "./browser";
+import { addressParams, closeWithoutErrors, DESKTOP, screenshot, signedInPage, useBrowser } from "./browser";
 
 const baseUrl = inject("baseUrl");
 const browser = useBrowser();
@@ -14,7 +14,7 @@ const PERSON = "Inés Arroyo-Vidal";
 
 describe("Triangle finder", () => {
   it("ranks a shared link as it opens and counts in proper plurals", async () => {
-    const { context, page, seen } = await signedInPage(browser, PERSON, { viewport: { width: 1366, height: 900 } });
+    const { context, page, seen } = await signedInPage(browser, PERSON, DESKTOP);
     let asked = 0;
     page.on("request", (r) => {
       if (r.url().endsWith("/api/triangles")) asked++;
@@ -37,8 +37,7 @@ describe("Triangle finder", () => {
     expect(asked).toBe(1);
     await page.getByRole("button", { name: "Rank triangles" }).click();
     await page.getByText(/^4 triangles of 4 stations/).waitFor({ timeout: 30_000 });
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("ranks the triangles of every station and opens one in the Sketchpad", async () => {
@@ -58,16 +57,16 @@ describe("Triangle finder", () => {
 
     await first.getByRole("link", { name: /in Sketchpad/ }).click();
     await page.waitForURL(/\/sketchpad\?/);
-    const url = new URL(page.url());
-    expect(url.searchParams.get("st")).toBe(triangle.join(","));
-    expect(url.searchParams.get("ra")).toBe("11:00:00");
-    expect(url.searchParams.get("model")).toBe("binary");
-    expect(url.searchParams.get("date")).toBe("2027-03-15");
+    expect(addressParams(page)).toMatchObject({
+      st: triangle.join(","),
+      ra: "11:00:00",
+      model: "binary",
+      date: "2027-03-15",
+    });
     await page.getByText(/^Up to date/).waitFor({ timeout: 30_000 });
     await expect(page.getByLabel("Configuration", { exact: true }).inputValue()).resolves.toBe("");
     await screenshot(page, "sketchpad-from-triangle");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("takes the Sketchpad's target and model over, and fits a 360 px wide screen", async () => {
@@ -76,8 +75,7 @@ describe("Triangle finder", () => {
     await page.getByText(/^Up to date/).waitFor({ timeout: 30_000 });
     await page.getByRole("link", { name: "Rank triangles for this target" }).click();
     await page.waitForURL(/\/triangles\?/);
-    const url = new URL(page.url());
-    expect(Object.fromEntries(url.searchParams)).toMatchObject({
+    expect(addressParams(page)).toMatchObject({
       pool: "medium-4",
       name: "Hand over",
       ra: "11:00:00",
@@ -96,14 +94,11 @@ describe("Triangle finder", () => {
     );
     expect(overflow).toBeLessThanOrEqual(0);
     await screenshot(page, "triangle-finder-360px");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 
   it("stores a ranked triangle on a draft's target, and the target's page shows it", async () => {
-    const { context, page, seen } = await signedInPage(browser, "Amara Okafor", {
-      viewport: { width: 1366, height: 900 },
-    });
+    const { context, page, seen } = await signedInPage(browser, "Amara Okafor", DESKTOP);
     await page.goto(`${baseUrl}/triangles?pool=medium-4&from=targets&${SKETCH}`);
     await page.getByRole("heading", { name: "Ranked triangles" }).waitFor({ timeout: 30_000 });
     await page.getByRole("link", { name: "← Back to My targets" }).waitFor();
@@ -126,7 +121,6 @@ describe("Triangle finder", () => {
     await page.getByText(`Closure triangle ${triangle} stored for Altiplano Halo 5.`).waitFor();
     await page.getByText(`Closure triangle: ${triangle}`).waitFor();
     await screenshot(page, "proposal-target-triangle");
-    expect(seen.errors).toEqual([]);
-    await context.close();
+    await closeWithoutErrors({ context, seen });
   });
 });

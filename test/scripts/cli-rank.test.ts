@@ -1,19 +1,12 @@
 import { cli, cliOk, expectRefused, requestFiles } from "@test/cli";
+import { rankRequest } from "@test/rank-request";
 import { describe, expect, it } from "vitest";
 
 const { file } = requestFiles("cli-rank");
 
 // r1: P1 = 2, P2 = 4 → μ = 3, σ = 1 → z = −1, +1.  r2: P1 = 3, P2 = 3.5 → μ = 3.25, σ = 0.25 → z = −1, +1.
 // P1: z̄ = −1, mean 2.5, spread 0.5 → rank 1.  P2: z̄ = +1, mean 3.75, spread 0.25 → rank 2.
-const request = {
-  scale: { best: 1, worst: 5 },
-  reviews: [
-    { reviewer: "r1", proposal: "P1", score: 2 },
-    { reviewer: "r1", proposal: "P2", score: 4 },
-    { reviewer: "r2", proposal: "P1", score: 3 },
-    { reviewer: "r2", proposal: "P2", score: 3.5 },
-  ],
-};
+const request = rankRequest({ r1: { P1: 2, P2: 4 }, r2: { P1: 3, P2: 3.5 } });
 
 describe("cli rank", { timeout: 60_000 }, () => {
   it("--input FILE prints one JSON object with exactly the contract's fields", () => {

@@ -56,6 +56,12 @@ export async function person(
   return { ...user, cookie: `fd_session=${token}` };
 }
 
+/** A person of the world, with a session cookie. */
+export type Who = Awaited<ReturnType<typeof person>>;
+
+/** What a committee test fills in before its tests: the chair, two reviewers and their cycle. */
+export type CommitteeWorld = { chair: Who; r1: Who; r2: Who; cycleId: number };
+
 export async function committeeCycle(
   name: string,
   {

@@ -1,8 +1,8 @@
+import { sum } from "@test/sum";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { type AllocationInput, suggestAllocation } from "~/engine";
 
-const sum = (a: ArrayLike<number>) => Array.from(a).reduce((s, x) => s + x, 0);
 const req = (
   proposal: string,
   target: string,

@@ -1,5 +1,6 @@
 import { rad } from "@test/angles";
 import { demoSite } from "@test/demo-array";
+import { sum } from "@test/sum";
 import { describe, expect, it } from "vitest";
 import {
   addDarkIntervalToLst,
@@ -11,7 +12,6 @@ import {
 } from "~/engine";
 
 const site = demoSite();
-const sum = (a: ArrayLike<number>) => Array.from(a).reduce((s, x) => s + x, 0);
 
 /** LMST in hours from Meeus eq. 12.4 (IAU 1982), written out here as an independent second method. */
 function meeusLstH(jd: number, lonDeg: number): number {

@@ -1,6 +1,7 @@
 import { rad } from "@test/angles";
 import { demoSite } from "@test/demo-array";
 import { skyPositionArbitraries } from "@test/random";
+import { sum } from "@test/sum";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
@@ -18,7 +19,6 @@ import {
 } from "~/engine";
 
 const site = demoSite();
-const sum = (a: ArrayLike<number>) => Array.from(a).reduce((s, x) => s + x, 0);
 
 const STATIONS = [
   { name: "C01", eastM: 0, northM: 0, upM: 0, pathOffsetM: 0 },

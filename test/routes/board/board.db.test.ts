@@ -1,4 +1,6 @@
+import type { CommitteeWorld, Who } from "@test/committee-world";
 import { answer, committeeCycle, person, registry, submitted, submittedReview } from "@test/committee-world";
+import { rankRequest } from "@test/rank-request";
 import { formPost, routeArgs, settle, testDb } from "@test/routes";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -10,17 +12,7 @@ import { action as boardAction, loader as boardLoader } from "~/routes/board/cyc
 import { loader as boardsLoader } from "~/routes/board/index";
 import { createApiToken } from "~/services/auth/api-tokens.server";
 
-type Who = Awaited<ReturnType<typeof person>>;
-const w = {} as {
-  chair: Who;
-  r1: Who;
-  r2: Who;
-  cycleId: number;
-  ids: number[];
-  compact: number;
-  chairToken: string;
-  reviewerToken: string;
-};
+const w = {} as CommitteeWorld & { ids: number[]; compact: number; chairToken: string; reviewerToken: string };
 
 beforeAll(async () => {
   const r = await registry();
@@ -195,17 +187,7 @@ describe("POST /api/rank", () => {
     );
 
   it("answers the example of docs/cli-rank.md exactly as the command line does", async () => {
-    const res = await post({
-      scale: { best: 1, worst: 5 },
-      reviews: [
-        { reviewer: "r1", proposal: "P1", score: 1 },
-        { reviewer: "r1", proposal: "P2", score: 3 },
-        { reviewer: "r1", proposal: "P3", score: 5 },
-        { reviewer: "r2", proposal: "P1", score: 2 },
-        { reviewer: "r2", proposal: "P2", score: 2 },
-        { reviewer: "r3", proposal: "P3", score: 4 },
-      ],
-    });
+    const res = await post(rankRequest({ r1: { P1: 1, P2: 3, P3: 5 }, r2: { P1: 2, P2: 2 }, r3: { P3: 4 } }));
     expect(res.status).toBe(200);
     // docs/cli-rank.md, the response printed by `npm run -s cli -- rank --input /tmp/rank.json`.
     expect(await res.json()).toEqual({

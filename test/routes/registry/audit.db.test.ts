@@ -4,9 +4,9 @@
  * leaves none. The People page lists them.
  */
 import { testDb } from "@test/routes";
-import { and, desc, eq, gt } from "drizzle-orm";
+import { desc, eq, gt } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { bands, configurations, sites } from "~/db/schema/array";
+import { bands, configurations, sites, stations } from "~/db/schema/array";
 import { auditLog } from "~/db/schema/auth";
 import { users } from "~/db/schema/users";
 import { loader as peopleLoader } from "~/routes/admin/users";
@@ -16,7 +16,7 @@ import { action as importAction } from "~/routes/registry/import";
 import { action as siteEditAction } from "~/routes/registry/sites/edit";
 import { action as siteNewAction } from "~/routes/registry/sites/new";
 import { action as stationEditAction } from "~/routes/registry/stations/edit";
-import { get, multipart, remove, run, save, seedAndSignIn, smallSite, stationByName, stationFields } from "./support";
+import { get, multipart, remove, rowByName, run, save, seedAndSignIn, smallSite, stationFields } from "./support";
 
 let adminId: number;
 
@@ -82,7 +82,7 @@ describe("the registry's audit trail", () => {
 
   it("records stations, configurations and bands, and nothing for a change that is refused", async () => {
     const small = await smallSite("Valle Auditado");
-    const a1 = (await stationByName(small.id, "A1"))!;
+    const a1 = (await rowByName(stations, small.id, "A1"))!;
     const since = await lastAuditId();
 
     // A1 is in the configuration "pair": the delete is refused, and no row says it happened.
@@ -107,10 +107,7 @@ describe("the registry's audit trail", () => {
       offered: "on",
     });
     expect(config.status).toBe(302);
-    const [trio] = await testDb()
-      .select()
-      .from(configurations)
-      .where(and(eq(configurations.siteId, small.id), eq(configurations.name, "trio")));
+    const trio = (await rowByName(configurations, small.id, "trio"))!;
     const [band] = await testDb().select().from(bands).where(eq(bands.name, "J")).orderBy(desc(bands.id)).limit(1);
     const gone = await remove(bandEditAction, `/registry/bands/${band.id}/edit`, { bandId: String(band.id) });
     expect(gone.status).toBe(302);

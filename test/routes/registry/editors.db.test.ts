@@ -1,5 +1,5 @@
 import { routeArgs, testDb } from "@test/routes";
-import { and, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { bands, configurationStations, configurations, instruments, sites, stations } from "~/db/schema/array";
 import { ensureConfiguration } from "~/db/seed/factories.server";
@@ -26,6 +26,7 @@ import {
   type Outcome,
   post,
   remove,
+  rowByName,
   run,
   save,
   seedAndSignIn,
@@ -359,12 +360,7 @@ describe("configurations", () => {
       expect(bad.data.errors).toEqual({ stations: message });
       expect(bad.data.values.stations).toBe(stationsText);
     }
-    expect(
-      await testDb()
-        .select()
-        .from(configurations)
-        .where(and(eq(configurations.siteId, site.id), eq(configurations.name, "tri"))),
-    ).toEqual([]);
+    expect(await rowByName(configurations, site.id, "tri")).toBeNull();
 
     const ok = await run(() =>
       configNewAction(post("/registry/configurations/new", "admin", { ...base, stations: "A3, A1 A2" })),
@@ -375,10 +371,7 @@ describe("configurations", () => {
       kind: "info",
       text: "Configuration tri added. Note: no instrument combines more than 2 telescopes, and it has 3.",
     });
-    const [config] = await testDb()
-      .select()
-      .from(configurations)
-      .where(and(eq(configurations.siteId, site.id), eq(configurations.name, "tri")));
+    const config = (await rowByName(configurations, site.id, "tri"))!;
     const members = await testDb()
       .select({ name: stations.name, position: configurationStations.position })
       .from(configurationStations)
@@ -391,10 +384,7 @@ describe("configurations", () => {
   it("edits the order and the offered flag, refuses a taken name, and deletes a configuration without its stations", async () => {
     const site = await smallSite("Pampa Edit");
     await ensureConfiguration(testDb(), site.id, { name: "other", stations: ["A3", "A4"] });
-    const [pair] = await testDb()
-      .select()
-      .from(configurations)
-      .where(and(eq(configurations.siteId, site.id), eq(configurations.name, "pair")));
+    const pair = (await rowByName(configurations, site.id, "pair"))!;
     const params = { configurationId: String(pair.id) };
     const path = `/registry/configurations/${pair.id}/edit`;
     const clash = await save(configEditAction, path, { name: "other", stations: "A1 A2" }, params);
@@ -439,10 +429,7 @@ describe("instruments and bands", () => {
       maxTelescopes: "4",
     });
     expect(ok.status).toBe(302);
-    const [chispa] = await testDb()
-      .select()
-      .from(instruments)
-      .where(and(eq(instruments.siteId, demoSiteId), eq(instruments.name, "Chispa")));
+    const chispa = (await rowByName(instruments, demoSiteId, "Chispa"))!;
     expect(ok.location).toBe(`/registry/instruments/${chispa.id}/edit`);
 
     const params = { instrumentId: String(chispa.id) };

@@ -74,13 +74,21 @@ export async function flashOf(outcome: Outcome) {
   return (await readFlash(request)).flash;
 }
 
-export async function stationByName(siteId: number, name: string) {
+/** The row of a site's station, configuration or instrument of that name, or null. */
+export async function rowByName<T extends typeof stations | typeof configurations | typeof instruments>(
+  table: T,
+  siteId: number,
+  name: string,
+): Promise<T["$inferSelect"] | null> {
+  const named = table as typeof stations;
   const [row] = await testDb()
     .select()
-    .from(stations)
-    .where(and(eq(stations.siteId, siteId), eq(stations.name, name)));
-  return row ?? null;
+    .from(named)
+    .where(and(eq(named.siteId, siteId), eq(named.name, name)));
+  return (row as T["$inferSelect"] | undefined) ?? null;
 }
+
+export const stationByName = (siteId: number, name: string) => rowByName(stations, siteId, name);
 
 export async function countOf(
   table: typeof stations | typeof sites | typeof configurations | typeof instruments | typeof bands,

@@ -1,3 +1,4 @@
+import type { CommitteeWorld, Who } from "@test/committee-world";
 import { answer, committeeCycle, person, registry, submitted } from "@test/committee-world";
 import { formPost, routeArgs, settle, testDb } from "@test/routes";
 import { and, eq } from "drizzle-orm";
@@ -9,19 +10,7 @@ import { loader as deskLoader } from "~/routes/review/index";
 import { action as proposalAction, loader as proposalLoader } from "~/routes/review/proposal";
 import { loader as pdfLoader } from "~/routes/review/science-case";
 
-type Who = Awaited<ReturnType<typeof person>>;
-const w = {} as {
-  chair: Who;
-  pi: Who;
-  r1: Who;
-  r2: Who;
-  outsider: Who;
-  near: Who;
-  cycleId: number;
-  P: number;
-  Q: number;
-  draft: number;
-};
+const w = {} as CommitteeWorld & { pi: Who; outsider: Who; near: Who; P: number; Q: number; draft: number };
 
 beforeAll(async () => {
   const r = await registry();

@@ -1,4 +1,5 @@
 import { skyPositionArbitraries } from "@test/random";
+import { sum } from "@test/sum";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { DEMO_CONFIGURATIONS, DEMO_SITE, DEMO_STATIONS } from "~/db/seed/scenario";
@@ -25,7 +26,6 @@ const configs: BoardRecords["configurations"] = DEMO_CONFIGURATIONS.map((c, i) =
 // Two weeks of April 2027 (southern autumn) are enough for the board's sums; every night is computed.
 const dark = darkTimeOverPeriod(site, "2027-04-01", "2027-04-14");
 const darkBySite = new Map([[1, dark]]);
-const sum = (a: ArrayLike<number>) => Array.from(a).reduce((s, x) => s + x, 0);
 
 /** The example of docs/cli-rank.md as board records: r1, r2, r3 are users 1–3; P1–P3 proposals 1–3. */
 function docsExample(over: Partial<BoardRecords> = {}): BoardRecords {
