@@ -78,6 +78,10 @@ describe("My targets and cycles", () => {
     await page.getByLabel("Declination").fill("-01:12:07");
     await page.getByRole("button", { name: "Add target" }).click();
     await page.getByText("Lumbre Nova 12 added to My targets.").waitFor();
+    // The form starts blank again for the next target; the new one is in the list.
+    await page.getByRole("link", { name: "Lumbre Nova 12" }).waitFor();
+    await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("");
+    await expect(page.getByRole("combobox", { name: "Name" }).inputValue()).resolves.toBe("");
 
     // The saved target fills the Sketchpad: name, coordinates and the binary model.
     await page.goto(`${baseUrl}/sketchpad?config=compact-3`);

@@ -98,6 +98,7 @@ export default function Targets({ loaderData, actionData }: Route.ComponentProps
     {
       key: "actions",
       header: "Actions",
+      controls: true,
       value: () => "",
       render: (t) => <RowActions target={t} sketchpadHref={t.sketchpadHref} drafts={loaderData.drafts} />,
     },
@@ -126,6 +127,7 @@ export default function Targets({ loaderData, actionData }: Route.ComponentProps
         values={{}}
         bands={loaderData.bands}
         retry={actionData && "values" in actionData ? actionData : undefined}
+        generation={loaderData.targets.length}
       />
     </TargetsPage>
   );

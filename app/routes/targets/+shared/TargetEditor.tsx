@@ -16,17 +16,20 @@ export function TargetEditor({
   values,
   bands,
   retry,
+  generation = 0,
 }: {
   intent: keyof typeof COPY;
   values: TargetFormValues;
   bands: string[];
   retry: { values: TargetFormValues; errors: Record<string, string> } | undefined;
+  /** Changes when a target was added (the list's length), so the new target's form starts blank. */
+  generation?: number;
 }) {
   return (
     <Card title={COPY[intent].title}>
       <TargetForm
         // A new target's form starts blank again once the target is added.
-        key={intent === "create" ? (retry ? "retry" : "blank") : undefined}
+        key={intent === "create" ? `${retry ? "retry" : "blank"}-${generation}` : undefined}
         values={retry?.values ?? values}
         errors={retry?.errors ?? {}}
         bands={bands}
