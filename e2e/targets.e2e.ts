@@ -79,7 +79,7 @@ describe("My targets and cycles", () => {
     await page.getByRole("button", { name: "Add target" }).click();
     await page.getByText("Lumbre Nova 12 added to My targets.").waitFor();
     // The form starts blank again for the next target; the new one is in the list.
-    await page.getByRole("link", { name: "Lumbre Nova 12" }).waitFor();
+    await page.getByRole("link", { name: "Lumbre Nova 12", exact: true }).waitFor();
     await expect(page.getByLabel("Right ascension").inputValue()).resolves.toBe("");
     await expect(page.getByRole("combobox", { name: "Name" }).inputValue()).resolves.toBe("");
 
