@@ -77,17 +77,22 @@ export type ProposalAbilities = {
   canSubmit: boolean;
   canWithdraw: boolean;
   canReopen: boolean;
-  /** Delete the draft with everything hanging off it. */
+  /** Delete the draft with everything hanging off it (never one submitted before: its versions stay on record). */
   canDelete: boolean;
   deadlinePassed: boolean;
   /** Why the proposal cannot be edited, in plain words; null when it can. */
   lockedBecause: string | null;
 };
 
+/** A team's proposal may be changed while it is a draft and its cycle's deadline is still ahead. */
+export function isEditableDraft(status: ProposalStatus, deadline: Date, now: Date): boolean {
+  return status === "draft" && now.getTime() < deadline.getTime();
+}
+
 /** Every ability at once, for a loader to hand to its page and for the actions to check. */
 export function abilitiesFor(
   viewer: ProposalViewer,
-  proposal: ProposalAccessSubject,
+  proposal: ProposalAccessSubject & { currentVersion: number },
   cycle: { submissionDeadline: Date },
   now: Date = new Date(),
 ): ProposalAbilities {
@@ -95,7 +100,7 @@ export function abilitiesFor(
   const deadlinePassed = now.getTime() >= cycle.submissionDeadline.getTime();
   const onTeam = relation !== null;
   const draft = proposal.status === "draft";
-  const canEdit = onTeam && draft && !deadlinePassed;
+  const canEdit = onTeam && isEditableDraft(proposal.status, cycle.submissionDeadline, now);
   let lockedBecause: string | null = null;
   if (!onTeam) lockedBecause = "You are not on this proposal's team.";
   else if (!draft) lockedBecause = "Only a draft can be changed; this proposal has been submitted or decided.";
@@ -109,7 +114,7 @@ export function abilitiesFor(
     canSubmit: canEdit,
     canWithdraw: relation === "pi" && WITHDRAWABLE.includes(proposal.status),
     canReopen: relation === "pi" && proposal.status === "withdrawn" && !deadlinePassed,
-    canDelete: relation === "pi" && draft,
+    canDelete: relation === "pi" && draft && proposal.currentVersion === 0,
     deadlinePassed,
     lockedBecause,
   };
@@ -151,7 +156,8 @@ export async function loadProposalForViewer(
     await linkMember(db, mine.id, viewer.user.id);
     mine.userId = viewer.user.id;
   }
-  return { ...row, members, abilities: abilitiesFor(viewer, subject, row.cycle, now) };
+  const abilities = abilitiesFor(viewer, { ...subject, currentVersion: row.proposal.currentVersion }, row.cycle, now);
+  return { ...row, members, abilities };
 }
 
 /** The co-investigators of a proposal in the order they were added, with the name and institute of their account. */

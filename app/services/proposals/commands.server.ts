@@ -199,12 +199,6 @@ export async function reopenProposal(db: Database, ref: ProposalRef) {
  */
 export async function deleteDraft(db: Database, ref: ProposalRef) {
   return changeProposal(db, ref, "canDelete", async ({ tx, proposal, now }) => {
-    if (proposal.currentVersion > 0) {
-      throw new ProposalRefusal(
-        409,
-        `This draft was submitted before (${plural(proposal.currentVersion, "version")}); it stays on record and cannot be deleted.`,
-      );
-    }
     await tx.delete(proposals).where(eq(proposals.id, proposal.id));
     await tx.insert(auditLog).values({
       actorId: ref.viewer.user.id,

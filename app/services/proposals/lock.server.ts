@@ -6,7 +6,7 @@
 import { eq } from "drizzle-orm";
 import type { Database, Transaction } from "~/db/client.server";
 import { cycles, type ProposalStatus, proposals } from "~/db/schema/proposals";
-import { formatUtc } from "~/lib/format";
+import { formatUtc, plural } from "~/lib/format";
 import {
   abilitiesFor,
   type ProposalAbilities,
@@ -42,7 +42,7 @@ function refusalFor(
   need: Need,
   abilities: ProposalAbilities,
   cycle: { name: string; submissionDeadline: Date },
-  status: ProposalStatus,
+  { status, currentVersion }: { status: ProposalStatus; currentVersion: number },
 ): ProposalRefusal {
   const deadline = `${cycle.name} deadline (${formatUtc(cycle.submissionDeadline)})`;
   switch (need) {
@@ -60,6 +60,11 @@ function refusalFor(
       return new ProposalRefusal(409, `The ${deadline} has passed: the proposal can no longer be reopened.`);
     case "canDelete":
       if (abilities.relation !== "pi") return new ProposalRefusal(403, "Only the PI can delete the proposal.");
+      if (status === "draft")
+        return new ProposalRefusal(
+          409,
+          `This draft was submitted before (${plural(currentVersion, "version")}); it stays on record and cannot be deleted.`,
+        );
       return new ProposalRefusal(
         409,
         `Only a draft can be deleted; this proposal is ${STATUS_WORDS[status].toLowerCase()}.`,
@@ -86,9 +91,9 @@ async function lockFor(tx: Transaction, viewer: ProposalViewer, proposalId: numb
   if (!proposal) proposalNotFound();
   const [cycle] = await tx.select().from(cycles).where(eq(cycles.id, proposal.cycleId));
   const members = await teamMembers(tx, { proposalId });
-  const abilities = abilitiesFor(viewer, { piId: proposal.piId, status: proposal.status, members }, cycle, now);
+  const abilities = abilitiesFor(viewer, { ...proposal, members }, cycle, now);
   if (!abilities.canView) proposalNotFound();
-  if (!abilities[need]) throw refusalFor(need, abilities, cycle, proposal.status);
+  if (!abilities[need]) throw refusalFor(need, abilities, cycle, proposal);
   return { proposal, cycle, members, abilities };
 }
 

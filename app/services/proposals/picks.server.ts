@@ -6,14 +6,14 @@
 import { asc, inArray } from "drizzle-orm";
 import type { Database } from "~/db/client.server";
 import { proposalTargets } from "~/db/schema/proposals";
-import type { ProposalViewer } from "./access.server";
+import { isEditableDraft, type ProposalViewer } from "./access.server";
 import { listMyProposals } from "./queries.server";
 
 /** The viewer's drafts that may still be changed at `now`, newest change first. */
 export async function editableProposals(db: Database, { viewer, now }: { viewer: ProposalViewer; now: Date }) {
   const list = await listMyProposals(db, { viewer });
   return list
-    .filter((p) => p.status === "draft" && p.deadline.getTime() > now.getTime())
+    .filter((p) => isEditableDraft(p.status, p.deadline, now))
     .map((p) => ({ id: p.id, title: p.title, cycleName: p.cycleName }));
 }
 

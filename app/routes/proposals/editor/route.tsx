@@ -110,7 +110,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
         canSubmit: abilities.canSubmit,
         canWithdraw: abilities.canWithdraw,
         canReopen: abilities.canReopen,
-        canDelete: abilities.canDelete && proposal.currentVersion === 0,
+        canDelete: abilities.canDelete,
       },
       deadline,
       countdown,
